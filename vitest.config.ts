@@ -1,0 +1,37 @@
+import { fileURLToPath } from 'node:url'
+import vue from '@vitejs/plugin-vue'
+import { defineConfig } from 'vitest/config'
+
+const alias = {
+  '@': fileURLToPath(new URL('./src', import.meta.url)),
+  '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+  '@db': fileURLToPath(new URL('./db', import.meta.url)),
+}
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        plugins: [vue()],
+        resolve: { alias },
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.ts'],
+          environment: 'node',
+          server: { deps: { inline: ['element-plus'] } },
+        },
+      },
+      { resolve: { alias }, test: { name: 'reference', include: ['tests/reference/**/*.test.ts'] } },
+      {
+        resolve: { alias },
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+    ],
+  },
+})
