@@ -27,6 +27,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'api',
+          globalSetup: ['tests/helpers/global-setup.ts'],
           include: ['tests/api/**/*.test.ts'],
           testTimeout: 30_000,
           hookTimeout: 60_000,

@@ -1,0 +1,32 @@
+import { defineConfig, devices } from '@playwright/test'
+import { chromiumLaunch } from './tests/e2e/chromium'
+
+const port = Number(process.env.E2E_PORT ?? 3210)
+
+export default defineConfig({
+  testDir: 'tests/e2e',
+  fullyParallel: false,
+  workers: 1,
+  retries: 0,
+  timeout: 30_000,
+  reporter: [['list']],
+  outputDir: 'test-results',
+  use: {
+    baseURL: `http://127.0.0.1:${port}`,
+    launchOptions: chromiumLaunch,
+    trace: 'retain-on-failure',
+    screenshot: 'only-on-failure',
+  },
+  projects: [
+    { name: 'desktop', use: { ...devices['Desktop Chrome'], launchOptions: chromiumLaunch }, testIgnore: /\.phone\.spec\.ts$/ },
+    { name: 'phone', use: { ...devices['Pixel 7'], launchOptions: chromiumLaunch }, testMatch: /\.phone\.spec\.ts$/ },
+  ],
+  webServer: {
+    command: `node scripts/e2e-server.mjs ${port}`,
+    url: `http://127.0.0.1:${port}/api/health`,
+    timeout: 60_000,
+    reuseExistingServer: false,
+    stdout: 'ignore',
+    stderr: 'pipe',
+  },
+})

@@ -1,0 +1,21 @@
+// `npm test`: every check, in order, stopping at the first failure.
+import { execSync } from 'node:child_process'
+
+const steps = [
+  ['typecheck', 'npm run typecheck'],
+  ['unit and reference tests', 'npx vitest run --project unit --project reference'],
+  ['API tests', 'npx vitest run --project api'],
+  ['build', 'npm run build'],
+  ['browser tests', 'npm run test:e2e'],
+]
+for (const [name, command] of steps) {
+  const started = Date.now()
+  console.log(`\n▶ ${name}: ${command}`)
+  try {
+    execSync(command, { stdio: 'inherit' })
+  } catch {
+    console.error(`\n✖ ${name} failed.`)
+    process.exit(1)
+  }
+  console.log(`✔ ${name} (${Math.round((Date.now() - started) / 1000)} s)`)
+}

@@ -1,0 +1,45 @@
+import type { RequestHandler } from 'express'
+import { match } from 'path-to-regexp'
+import { can, type Permission } from '../shared/domain/permissions'
+import { forbidden, unauthorized } from './errors'
+
+type Rule = 'public' | 'staff' | Permission
+
+/**
+ * The one access table: every API route and who may call it. A route missing here answers 403
+ * (401 when signed out) — deny by default. Finer checks (e.g. which board move a role may make)
+ * happen in the services with the same permissions.
+ */
+export const ACCESS: Record<string, Rule> = {
+  'GET /api/health': 'public',
+  'GET /api/session': 'public',
+  'POST /api/session': 'public',
+  'DELETE /api/session': 'public',
+
+  'GET /api/users': 'admin',
+  'POST /api/users': 'admin',
+  'PATCH /api/users/:id': 'admin',
+  'POST /api/users/:id/password': 'admin',
+
+  'GET /api/yards/current': 'board.view',
+  'GET /api/board': 'board.view',
+}
+
+const compiled = Object.entries(ACCESS).map(([key, rule]) => {
+  const [method, path] = key.split(' ') as [string, string]
+  return { method, test: match(path), rule }
+})
+
+export function ruleFor(method: string, path: string): Rule | undefined {
+  const m = method === 'HEAD' ? 'GET' : method
+  return compiled.find((c) => c.method === m && c.test(path))?.rule
+}
+
+export const enforceAccess: RequestHandler = (req, _res, next) => {
+  const rule = ruleFor(req.method, req.baseUrl + req.path)
+  if (rule === 'public') return next()
+  if (!req.user) return next(unauthorized())
+  if (rule === undefined) return next(forbidden('This action is not available.'))
+  if (rule === 'staff' || can(req.user.role, rule)) return next()
+  next(forbidden())
+}

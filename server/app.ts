@@ -1,0 +1,90 @@
+import express, { type Express } from 'express'
+import helmet from 'helmet'
+import { pinoHttp } from 'pino-http'
+import type { Logger } from 'pino'
+import path from 'node:path'
+import { existsSync } from 'node:fs'
+import type { Database } from '../db/client'
+import { enforceAccess } from './access'
+import { boardRouter } from './board/index'
+import { errorHandler, notFoundHandler } from './errors'
+import { healthRouter } from './health/health.routes'
+import { csrfProtection } from './middleware/csrf'
+import { currentUser } from './middleware/current-user'
+import { sessionMiddleware } from './middleware/session'
+import { sessionRouter, type SignInLimits } from './session/index'
+import { usersRouter } from './users/index'
+import { yardsRouter } from './yards/index'
+
+export interface AppDeps {
+  db: Database
+  log: Logger
+  sessionSecret: string
+  version: string
+  /** Served over HTTPS (directly or behind a proxy): Secure cookies, HSTS, upgrade-insecure-requests. */
+  https?: boolean
+  trustProxy?: string
+  origins?: string[]
+  signInLimits?: SignInLimits
+  /** The built client (index.html and assets); absent in API tests. */
+  clientDir?: string
+}
+
+const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
+
+export function createApp(deps: AppDeps): Express {
+  const { db, log } = deps
+  const app = express()
+  app.disable('x-powered-by')
+  if (deps.trustProxy) app.set('trust proxy', deps.trustProxy)
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'frame-ancestors': ["'none'"],
+          'base-uri': ["'none'"],
+          'form-action': ["'self'"],
+          // On a plain-HTTP yard LAN this directive would break every asset.
+          'upgrade-insecure-requests': deps.https ? [] : null,
+        },
+      },
+      strictTransportSecurity: deps.https ? { maxAge: 15_552_000 } : false,
+    }),
+  )
+  app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }))
+  app.use(express.json({ limit: '1mb' }))
+  app.use('/api', sessionMiddleware(db, deps.sessionSecret, deps.https ?? false))
+  app.use('/api', currentUser(db))
+  app.use('/api', csrfProtection(deps.origins ?? []))
+  app.use('/api', enforceAccess)
+
+  app.use('/api/health', healthRouter(db, deps.version))
+  app.use('/api/session', sessionRouter(db, deps.signInLimits ?? DEFAULT_LIMITS))
+  app.use('/api/users', usersRouter(db))
+  app.use('/api/yards', yardsRouter(db))
+  app.use('/api/board', boardRouter(db))
+  app.use('/api', notFoundHandler)
+
+  if (deps.clientDir && existsSync(path.join(deps.clientDir, 'index.html'))) serveClient(app, deps.clientDir)
+  app.use(notFoundHandler)
+  app.use(errorHandler(log))
+  return app
+}
+
+function serveClient(app: Express, dir: string) {
+  app.use(express.static(dir, { index: false, maxAge: '1h', setHeaders: longCacheForHashedAssets }))
+  // Client-side routes all load the one page.
+  app.get('/{*splat}', (_req, res) => {
+    res.setHeader('Cache-Control', 'no-cache')
+    res.sendFile(path.join(dir, 'index.html'))
+  })
+}
+
+function longCacheForHashedAssets(res: express.Response, file: string) {
+  if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable')
+}

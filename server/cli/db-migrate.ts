@@ -1,0 +1,3 @@
+import { withDatabase } from './open'
+
+await withDatabase(async () => console.log('Migrations applied.'))

@@ -1,0 +1,18 @@
+import { openDatabase, type DatabaseHandle } from '../../db/client'
+import { loadConfig } from '../config'
+
+/** Opens and migrates the configured database for a one-off command, and closes it afterwards. */
+export async function withDatabase<T>(work: (handle: DatabaseHandle) => Promise<T>): Promise<T> {
+  const handle = await openDatabase(loadConfig().database)
+  try {
+    await handle.migrate()
+    return await work(handle)
+  } finally {
+    await handle.close()
+  }
+}
+
+export function fail(message: string): never {
+  console.error(message)
+  process.exit(1)
+}

@@ -1,0 +1,62 @@
+import path from 'node:path'
+import { z } from 'zod'
+
+const flag = z
+  .enum(['0', '1', 'true', 'false', 'yes', 'no'])
+  .transform((v) => v === '1' || v === 'true' || v === 'yes')
+
+const envSchema = z.object({
+  PORT: z.coerce.number().int().min(1).max(65_535).default(3000),
+  HOST: z.string().min(1).default('0.0.0.0'),
+  DATABASE_URL: z.url({ protocol: /^postgres(ql)?$/ }).optional(),
+  HOLDFAST_DATA_DIR: z.string().min(1).default('./data'),
+  HOLDFAST_DEMO: flag.default(true),
+  // Behind a TLS-terminating proxy: Secure cookies, HSTS and upgrade-insecure-requests.
+  HOLDFAST_HTTPS: flag.default(false),
+  HOLDFAST_TRUST_PROXY: z.string().optional(),
+  HOLDFAST_ORIGINS: z.string().optional(),
+  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
+  HOLDFAST_SIGNIN_PER_IP: z.coerce.number().int().min(1).default(50),
+  HOLDFAST_SIGNIN_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+})
+
+export interface Config {
+  port: number
+  host: string
+  database: { kind: 'postgres'; url: string } | { kind: 'pglite'; dataDir: string; template: string }
+  dataDir: string
+  demo: boolean
+  https: boolean
+  trustProxy: string | undefined
+  /** Origins allowed to make state-changing requests besides the server's own host. */
+  origins: string[]
+  sessionSecret: string | undefined
+  logLevel: string
+  signInLimits: { perIp: number; perAccount: number; windowMs: number }
+  clientDir: string
+}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env)
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`)
+    throw new Error(`Holdfast cannot start: the environment is not valid.\n${lines.join('\n')}`)
+  }
+  const e = parsed.data
+  const dataDir = path.resolve(e.HOLDFAST_DATA_DIR)
+  return {
+    port: e.PORT,
+    host: e.HOST,
+    database: e.DATABASE_URL ? { kind: 'postgres', url: e.DATABASE_URL } : { kind: 'pglite', dataDir, template: path.resolve(process.env.HOLDFAST_DB_TEMPLATE ?? 'dist/db-template.tar.gz') },
+    dataDir,
+    demo: e.HOLDFAST_DEMO,
+    https: e.HOLDFAST_HTTPS,
+    trustProxy: e.HOLDFAST_TRUST_PROXY,
+    origins: (e.HOLDFAST_ORIGINS ?? '').split(',').map((s) => s.trim()).filter(Boolean),
+    sessionSecret: e.SESSION_SECRET,
+    logLevel: e.LOG_LEVEL,
+    signInLimits: { perIp: e.HOLDFAST_SIGNIN_PER_IP, perAccount: e.HOLDFAST_SIGNIN_PER_ACCOUNT, windowMs: 15 * 60_000 },
+    clientDir: path.resolve(process.env.HOLDFAST_CLIENT_DIR ?? 'dist/client'),
+  }
+}

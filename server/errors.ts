@@ -1,0 +1,61 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express'
+import { ZodError } from 'zod'
+
+export interface Issue {
+  path: string
+  message: string
+}
+
+/** An error with a status and a message meant for the person using the app. */
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly extra: Record<string, unknown> = {},
+  ) {
+    super(message)
+  }
+}
+
+export const badRequest = (message: string, issues?: Issue[]) => new AppError(400, message, issues ? { issues } : {})
+export const unauthorized = () => new AppError(401, 'Please sign in.')
+export const forbidden = (message = 'Your role may not do this.') => new AppError(403, message)
+export const notFound = (what = 'That') => new AppError(404, `${what} was not found.`)
+export const conflict = (message: string, extra: Record<string, unknown> = {}) => new AppError(409, message, extra)
+export const unprocessable = (message: string, extra: Record<string, unknown> = {}) =>
+  new AppError(422, message, extra)
+
+export function zodIssues(err: ZodError): Issue[] {
+  return err.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: i.message }))
+}
+
+export const notFoundHandler: RequestHandler = (req, res) => {
+  res.status(404).json({ error: `No such route: ${req.method} ${req.path}` })
+}
+
+interface Logger {
+  error(obj: unknown, msg?: string): void
+}
+
+export function errorHandler(log: Logger): ErrorRequestHandler {
+  return (err, req, res, _next) => {
+    if (res.headersSent) return
+    if (err instanceof ZodError) {
+      const issues = zodIssues(err)
+      res.status(400).json({ error: `Please check ${issues.map((i) => i.path).join(', ')}.`, issues })
+      return
+    }
+    if (err instanceof AppError) {
+      res.status(err.status).json({ error: err.message, ...err.extra })
+      return
+    }
+    // body-parser and multer errors carry a status and a safe message.
+    const status = typeof err?.status === 'number' ? err.status : typeof err?.statusCode === 'number' ? err.statusCode : 500
+    if (status >= 400 && status < 500) {
+      res.status(status).json({ error: err.expose === false ? 'The request was refused.' : String(err.message) })
+      return
+    }
+    log.error({ err, method: req.method, url: req.originalUrl }, 'request failed')
+    res.status(500).json({ error: 'Something went wrong on the server. The error was logged.' })
+  }
+}

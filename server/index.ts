@@ -1,0 +1,76 @@
+import { pino } from 'pino'
+import { openDatabase, DataDirLockedError, type DatabaseHandle } from '../db/client'
+import { loadDemoIfEmpty } from '../db/seed'
+import { createApp } from './app'
+import { loadConfig } from './config'
+import { pruneExpiredSessions } from './session/index'
+import { sessionSecret } from './session/secret'
+import { appVersion } from './version'
+
+const started = performance.now()
+let config: ReturnType<typeof loadConfig>
+try {
+  config = loadConfig()
+} catch (err) {
+  console.error((err as Error).message)
+  process.exit(78)
+}
+// Readable lines on a terminal, JSON lines for a log collector.
+const log = pino({ level: config.logLevel, ...(process.stdout.isTTY ? { transport: { target: 'pino-pretty', options: { ignore: 'pid,hostname' } } } : {}) })
+
+let handle: DatabaseHandle
+try {
+  handle = await openDatabase(config.database)
+} catch (err) {
+  if (err instanceof DataDirLockedError) {
+    log.fatal(err.message)
+    process.exit(75)
+  }
+  throw err
+}
+await handle.migrate()
+const { db } = handle
+if (config.demo) {
+  const demo = await loadDemoIfEmpty(db)
+  if (demo) {
+    log.info('Loaded the demo yard. Sign in with any of these (password: %s):', demo.password)
+    for (const u of demo.users) log.info('  %s  %s', u.role.padEnd(10), u.email)
+  }
+}
+
+const app = createApp({
+  db,
+  log,
+  version: appVersion(),
+  sessionSecret: await sessionSecret(db, config.sessionSecret),
+  https: config.https,
+  trustProxy: config.trustProxy,
+  origins: config.origins,
+  clientDir: config.clientDir,
+  signInLimits: config.signInLimits,
+})
+
+const server = app.listen(config.port, config.host, () => {
+  const where = config.database.kind === 'postgres' ? 'PostgreSQL' : `embedded database in ${config.dataDir}`
+  log.info(`Holdfast is serving http://localhost:${config.port} (${where}), ready in ${Math.round(performance.now() - started)} ms`)
+})
+
+const pruning = setInterval(() => void pruneExpiredSessions(db).catch((err) => log.warn({ err }, 'session prune failed')), 15 * 60_000)
+pruning.unref()
+
+let stopping = false
+async function shutdown(signal: string) {
+  if (stopping) return
+  stopping = true
+  log.info(`${signal}: finishing open requests and closing the database`)
+  clearInterval(pruning)
+  server.close()
+  server.closeIdleConnections()
+  const force = setTimeout(() => server.closeAllConnections(), 5_000)
+  force.unref()
+  await new Promise((resolve) => server.once('close', resolve))
+  await handle.close()
+  process.exit(0)
+}
+process.on('SIGINT', () => void shutdown('SIGINT'))
+process.on('SIGTERM', () => void shutdown('SIGTERM'))

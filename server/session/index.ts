@@ -1,0 +1,2 @@
+export { sessionRouter, type SignInLimits } from './session.routes'
+export { DatabaseSessionStore, endSessionsOf, pruneExpiredSessions } from './session-store'

@@ -1,0 +1,2 @@
+export { usersRouter } from './users.routes'
+export { hashPassword, verifyPassword } from './passwords'

@@ -1,0 +1,43 @@
+import { asc, count, eq, and, sql } from 'drizzle-orm'
+import type { Executor } from '../../db/client'
+import { users } from '../../db/schema/index'
+
+const publicColumns = {
+  id: users.id,
+  email: users.email,
+  name: users.name,
+  role: users.role,
+  active: users.active,
+  createdAt: users.createdAt,
+}
+
+export const listUsers = (db: Executor, companyId: string) =>
+  db.select(publicColumns).from(users).where(eq(users.companyId, companyId)).orderBy(asc(users.name))
+
+export async function findUserByEmail(db: Executor, email: string) {
+  const [row] = await db.select().from(users).where(eq(sql`lower(${users.email})`, email.toLowerCase()))
+  return row
+}
+
+export async function findUser(db: Executor, id: string) {
+  const [row] = await db.select().from(users).where(eq(users.id, id))
+  return row
+}
+
+export async function insertUser(db: Executor, values: typeof users.$inferInsert) {
+  const [row] = await db.insert(users).values(values).returning(publicColumns)
+  return row!
+}
+
+export async function updateUser(db: Executor, id: string, values: Partial<typeof users.$inferInsert>) {
+  const [row] = await db.update(users).set({ ...values, updatedAt: new Date() }).where(eq(users.id, id)).returning(publicColumns)
+  return row
+}
+
+export async function countActiveManagers(db: Executor, companyId: string) {
+  const [row] = await db
+    .select({ n: count() })
+    .from(users)
+    .where(and(eq(users.companyId, companyId), eq(users.role, 'manager'), eq(users.active, true)))
+  return row?.n ?? 0
+}

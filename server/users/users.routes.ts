@@ -1,0 +1,30 @@
+import { Router } from 'express'
+import { z } from 'zod'
+import type { Database } from '../../db/client'
+import { createUserSchema, resetPasswordSchema, updateUserSchema } from '../../shared/schemas/users'
+import * as service from './users.service'
+
+const idParam = z.object({ id: z.uuid({ error: 'That is not a valid user id.' }) })
+
+export function usersRouter(db: Database): Router {
+  const router = Router()
+  router.get('/', async (req, res) => {
+    res.json({ users: await service.listUsers(db, req.user!) })
+  })
+  router.post('/', async (req, res) => {
+    const input = createUserSchema.parse(req.body)
+    res.status(201).json({ user: await service.createUser(db, req.user!, input) })
+  })
+  router.patch('/:id', async (req, res) => {
+    const { id } = idParam.parse(req.params)
+    const input = updateUserSchema.parse(req.body)
+    res.json({ user: await service.changeUser(db, req.user!, id, input) })
+  })
+  router.post('/:id/password', async (req, res) => {
+    const { id } = idParam.parse(req.params)
+    const { password } = resetPasswordSchema.parse(req.body)
+    await service.resetPassword(db, req.user!, id, password)
+    res.status(204).end()
+  })
+  return router
+}

@@ -1,0 +1,51 @@
+import type { Database } from '../../db/client'
+import type { CreateUser, UpdateUser, User } from '../../shared/schemas/users'
+import { conflict, notFound, unprocessable } from '../errors'
+import { endSessionsOf } from '../session/session-store'
+import { hashPassword } from './passwords'
+import * as q from './users.queries'
+
+const toRow = (u: Awaited<ReturnType<typeof q.insertUser>>) => ({ ...u, createdAt: u.createdAt.toISOString() })
+
+export async function listUsers(db: Database, actor: User) {
+  const me = await q.findUser(db, actor.id)
+  return (await q.listUsers(db, me!.companyId)).map(toRow)
+}
+
+export async function createUser(db: Database, actor: User, input: CreateUser) {
+  const me = await q.findUser(db, actor.id)
+  if (await q.findUserByEmail(db, input.email)) throw conflict(`A user with the e-mail ${input.email} already exists.`)
+  const passwordHash = await hashPassword(input.password)
+  const row = await q.insertUser(db, {
+    companyId: me!.companyId,
+    email: input.email,
+    name: input.name,
+    role: input.role,
+    passwordHash,
+  })
+  return toRow(row)
+}
+
+export async function changeUser(db: Database, actor: User, id: string, input: UpdateUser) {
+  return db.transaction(async (tx) => {
+    const target = await q.findUser(tx, id)
+    const me = await q.findUser(tx, actor.id)
+    if (!target || target.companyId !== me!.companyId) throw notFound('That user')
+    const losesManager = target.role === 'manager' && target.active && (input.active === false || (input.role && input.role !== 'manager'))
+    if (losesManager && (await q.countActiveManagers(tx, target.companyId)) <= 1) {
+      throw unprocessable('The company must keep at least one active manager.')
+    }
+    const row = await q.updateUser(tx, id, input)
+    if (input.active === false || input.role) await endSessionsOf(tx, id)
+    return toRow(row!)
+  })
+}
+
+export async function resetPassword(db: Database, actor: User, id: string, password: string) {
+  const target = await q.findUser(db, id)
+  const me = await q.findUser(db, actor.id)
+  if (!target || target.companyId !== me!.companyId) throw notFound('That user')
+  await q.updateUser(db, id, { passwordHash: await hashPassword(password) })
+  // Whoever knew the old password is signed out everywhere.
+  await endSessionsOf(db, id)
+}

@@ -1,0 +1,2 @@
+export { yardsRouter } from './yards.routes'
+export { yardOfUser } from './yards.queries'

@@ -1,0 +1,21 @@
+import type { Role } from './roles'
+
+// The access table of DESIGN.md, one permission per row. The server maps every route to one of these
+// (server/access.ts) and the client uses the same table to show only what a role may use.
+export const PERMISSIONS = {
+  'board.view': ['manager', 'dispatcher', 'technician', 'office'],
+  'towin.write': ['manager', 'dispatcher'],
+  'move.toTeardown': ['manager', 'dispatcher', 'technician'],
+  'inspection.write': ['manager', 'technician'],
+  'owner.write': ['manager', 'office'],
+  'billing.write': ['manager', 'office'],
+  'release.write': ['manager', 'office'],
+  'charges.waive': ['manager'],
+  'admin': ['manager'],
+} as const satisfies Record<string, readonly Role[]>
+
+export type Permission = keyof typeof PERMISSIONS
+
+export function can(role: Role | null | undefined, permission: Permission): boolean {
+  return role != null && (PERMISSIONS[permission] as readonly Role[]).includes(role)
+}

@@ -1,0 +1,20 @@
+import { z } from 'zod'
+import { userSchema } from './users'
+
+export const signInSchema = z.object({
+  email: z.string({ error: 'Enter your e-mail address.' }).trim().toLowerCase().min(1, 'Enter your e-mail address.').max(200),
+  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(200),
+})
+export type SignIn = z.infer<typeof signInSchema>
+
+export const sessionSchema = z.object({
+  user: userSchema.nullable(),
+  csrfToken: z.string(),
+})
+export type SessionState = z.infer<typeof sessionSchema>
+
+export const healthSchema = z.object({
+  status: z.enum(['ok', 'degraded']),
+  db: z.enum(['ok', 'down']),
+  version: z.string(),
+})

@@ -1,0 +1,57 @@
+import type { z } from 'zod'
+
+export interface FieldIssue {
+  path: string
+  message: string
+}
+
+/** A refused or failed request, with the server's own message and per-field issues. */
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly issues: FieldIssue[] = [],
+    readonly body: Record<string, unknown> = {},
+  ) {
+    super(message)
+  }
+}
+
+let csrfToken = ''
+export function setCsrfToken(token: string) {
+  csrfToken = token
+}
+
+type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE'
+
+export async function request<T extends z.ZodType>(method: Method, url: string, schema: T, body?: unknown): Promise<z.infer<T>> {
+  const res = await send(method, url, body)
+  return schema.parse(await res.json())
+}
+
+/** A request whose answer has no body (204). */
+export async function requestEmpty(method: Method, url: string, body?: unknown): Promise<void> {
+  await send(method, url, body)
+}
+
+async function send(method: Method, url: string, body?: unknown): Promise<Response> {
+  const headers: Record<string, string> = { accept: 'application/json' }
+  if (method !== 'GET') headers['x-csrf-token'] = csrfToken
+  let payload: BodyInit | undefined
+  if (body instanceof FormData) payload = body
+  else if (body !== undefined) {
+    headers['content-type'] = 'application/json'
+    payload = JSON.stringify(body)
+  }
+  let res: Response
+  try {
+    res = await fetch(url, { method, headers, body: payload, credentials: 'same-origin' })
+  } catch {
+    throw new ApiError(0, 'The server cannot be reached. Check the connection and try again.')
+  }
+  if (!res.ok) {
+    const data = (await res.json().catch(() => ({}))) as { error?: string; issues?: FieldIssue[] }
+    throw new ApiError(res.status, data.error ?? `The server answered ${res.status}.`, data.issues ?? [], data as Record<string, unknown>)
+  }
+  return res
+}

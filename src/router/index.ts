@@ -1,0 +1,39 @@
+import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
+import type { Permission } from '@shared/domain/permissions'
+import { useSessionStore } from '@/stores/session'
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Reachable without signing in. */
+    public?: boolean
+    /** The permission (shared/domain/permissions.ts) a role needs to open this page. */
+    permission?: Permission
+    /** Shown in the top bar's navigation with this label. */
+    nav?: string
+    title?: string
+  }
+}
+
+export const routes: RouteRecordRaw[] = [
+  { path: '/', redirect: '/board' },
+  { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { public: true, title: 'Sign in' } },
+  { path: '/board', name: 'board', component: () => import('@/views/BoardView.vue'), meta: { permission: 'board.view', nav: 'Board', title: 'Board' } },
+  { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'Staff', title: 'Staff' } },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
+]
+
+export const router = createRouter({ history: createWebHistory(), routes })
+
+router.beforeEach(async (to) => {
+  const session = useSessionStore()
+  if (!session.loaded) await session.load()
+  if (to.name === 'sign-in' && session.signedIn) return { path: typeof to.query.next === 'string' ? to.query.next : '/board' }
+  if (to.meta.public) return true
+  if (!session.signedIn) return { name: 'sign-in', query: { next: to.fullPath } }
+  if (to.meta.permission && !session.allows(to.meta.permission)) return { name: 'board' }
+  return true
+})
+
+router.afterEach((to) => {
+  document.title = to.meta.title ? `${to.meta.title} · Holdfast` : 'Holdfast'
+})

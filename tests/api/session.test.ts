@@ -1,0 +1,125 @@
+import request from 'supertest'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { sessions } from '../../db/schema/index'
+import { browserSession, makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { makeStaff, makeUser } from '../helpers/factories'
+
+let t: TestApp
+// One database per file; each test makes its own company, so tests do not see each other's data.
+beforeAll(async () => {
+  t = await makeTestApp()
+})
+afterAll(() => t.close())
+
+describe('session API', () => {
+  it('GET /api/session when signed out returns no user and a CSRF token', async () => {
+    const res = await request(t.app).get('/api/session').expect(200)
+    expect(res.body.user).toBeNull()
+    expect(res.body.csrfToken).toMatch(/^[\w-]{40,}$/)
+  })
+
+  it('POST /api/session with the right password returns the user and regenerates the session id', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await browserSession(t.app)
+    const before = (await s.get('/api/session')).headers['set-cookie']?.[0]
+    const res = await s.signIn(staff.office.email, staff.office.password)
+    expect(res.status).toBe(200)
+    expect(res.body.user).toEqual({ id: staff.office.id, email: staff.office.email, name: staff.office.name, role: 'office' })
+    const after = res.headers['set-cookie']?.[0]
+    expect(after).toBeDefined()
+    expect(after!.split(';')[0]).not.toBe(before?.split(';')[0])
+    expect(after).toMatch(/HttpOnly/)
+    expect(after).toMatch(/SameSite=Lax/)
+    expect((await s.get('/api/session')).body.user.role).toBe('office')
+  })
+
+  it('POST /api/session gives the same message for an unknown e-mail and a wrong password', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await browserSession(t.app)
+    const unknown = await s.signIn('nobody@test.example', 'whatever password')
+    const wrong = await s.signIn(staff.manager.email, 'not the password')
+    expect(unknown.status).toBe(401)
+    expect(wrong.status).toBe(401)
+    expect(unknown.body.error).toBe(wrong.body.error)
+  })
+
+  it('POST /api/session refuses a deactivated account with the same message', async () => {
+    const { company } = await makeStaff(t.db)
+    const gone = await makeUser(t.db, company.id, 'dispatcher', { active: false })
+    const s = await browserSession(t.app)
+    const res = await s.signIn(gone.email, gone.password)
+    expect(res.status).toBe(401)
+    expect(res.body.error).toMatch(/do not match an active account/)
+  })
+
+  it('POST /api/session without the CSRF header is refused and signs nobody in', async () => {
+    const staff = await makeStaff(t.db)
+    const agent = request.agent(t.app)
+    await agent.get('/api/session')
+    const res = await agent.post('/api/session').send({ email: staff.manager.email, password: staff.manager.password })
+    expect(res.status).toBe(403)
+    expect((await agent.get('/api/session')).body.user).toBeNull()
+  })
+
+  it('a state-changing request from another origin is refused even with the token', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await browserSession(t.app)
+    const res = await s.agent
+      .post('/api/session')
+      .set('x-csrf-token', s.csrf)
+      .set('origin', 'https://elsewhere.example')
+      .send({ email: staff.manager.email, password: staff.manager.password })
+    expect(res.status).toBe(403)
+    expect(res.body.error).toMatch(/another site/)
+  })
+
+  it('POST /api/session with a missing password answers 400 naming the field', async () => {
+    const s = await browserSession(t.app)
+    const res = await s.post('/api/session', { email: 'a@b.example' })
+    expect(res.status).toBe(400)
+    expect(res.body.issues).toEqual([{ path: 'password', message: 'Enter your password.' }])
+  })
+
+  it('DELETE /api/session signs out and removes the session row', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.technician)
+    await s.del('/api/session').expect(204)
+    expect((await s.get('/api/session')).body.user).toBeNull()
+    const rows = await t.db.select().from(sessions)
+    expect(rows.every((r) => r.userId !== staff.technician.id)).toBe(true)
+  })
+
+  it('sessions are kept in the database, not in memory', async () => {
+    const staff = await makeStaff(t.db)
+    await signedIn(t.app, staff.manager)
+    const rows = await t.db.select().from(sessions)
+    expect(rows.some((r) => r.userId === staff.manager.id)).toBe(true)
+  })
+})
+
+describe('sign-in rate limits', () => {
+  it('a sixth failed sign-in for one account in the window answers 429, even with the right password', async () => {
+    const limited = await makeTestApp({ signInLimits: { perAccount: 5, perIp: 100, windowMs: 60_000 } })
+    try {
+      const staff = await makeStaff(limited.db)
+      const s = await browserSession(limited.app)
+      for (let i = 0; i < 5; i++) expect((await s.signIn(staff.manager.email, 'wrong password')).status).toBe(401)
+      const res = await s.signIn(staff.manager.email, staff.manager.password)
+      expect(res.status).toBe(429)
+      expect(res.body.error).toMatch(/Too many sign-in attempts/)
+    } finally {
+      await limited.close()
+    }
+  })
+
+  it('attempts past the per-IP limit answer 429 whatever the account', async () => {
+    const limited = await makeTestApp({ signInLimits: { perAccount: 100, perIp: 3, windowMs: 60_000 } })
+    try {
+      const s = await browserSession(limited.app)
+      for (let i = 0; i < 3; i++) await s.signIn(`user${i}@test.example`, 'wrong password')
+      expect((await s.signIn('another@test.example', 'wrong password')).status).toBe(429)
+    } finally {
+      await limited.close()
+    }
+  })
+})

@@ -1,0 +1,21 @@
+// `npm run bench`: every performance target, each written to bench-results/<name>.json.
+import { existsSync } from 'node:fs'
+import { execSync } from 'node:child_process'
+import { writeBenchResult } from './results'
+
+if (!existsSync('dist/server/index.js')) execSync('npm run build', { stdio: 'inherit' })
+
+const benches: Record<string, () => Promise<{ met: boolean }>> = {
+  startup: async () => (await import('./startup.bench')).run(),
+  core: async () => (await import('./core.bench')).run(),
+}
+const only = process.argv.slice(2)
+let allMet = true
+for (const [name, run] of Object.entries(benches)) {
+  if (only.length && !only.includes(name)) continue
+  const result = await run()
+  if (name === 'startup') writeBenchResult(name, result)
+  allMet &&= result.met
+  console.log(`${result.met ? '✔' : '✖'} ${name}: ${JSON.stringify(result)}`)
+}
+console.log(allMet ? 'All benchmark goals met.' : 'Some benchmark goals were not met (see bench-results/).')

@@ -1,0 +1,27 @@
+import { expect, type Page } from '@playwright/test'
+
+export const DEMO = {
+  password: 'quarry-spur-demo',
+  manager: 'delia@tamsincreek.example',
+  dispatcher: 'ruben@tamsincreek.example',
+  technician: 'sunny@tamsincreek.example',
+  office: 'priya@tamsincreek.example',
+} as const
+
+export type DemoRole = 'manager' | 'dispatcher' | 'technician' | 'office'
+
+export async function signInAs(page: Page, role: DemoRole) {
+  await page.goto('/sign-in')
+  await page.getByLabel('E-mail').fill(DEMO[role])
+  await page.getByLabel('Password', { exact: true }).fill(DEMO.password)
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await expect(page).toHaveURL(/\/board/)
+}
+
+/** Fails the test on any console error or failed request the page makes. */
+export function watchConsole(page: Page): string[] {
+  const problems: string[] = []
+  page.on('console', (m) => m.type() === 'error' && problems.push(m.text()))
+  page.on('pageerror', (e) => problems.push(e.message))
+  return problems
+}

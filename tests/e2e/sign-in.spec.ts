@@ -1,0 +1,64 @@
+import { expect, test } from '@playwright/test'
+import { DEMO, signInAs, watchConsole, type DemoRole } from './helpers'
+
+const NAV: Record<DemoRole, string[]> = {
+  manager: ['Board', 'Staff'],
+  dispatcher: ['Board'],
+  technician: ['Board'],
+  office: ['Board'],
+}
+
+for (const role of Object.keys(NAV) as DemoRole[]) {
+  test(`a ${role} signs in, sees the board and only their navigation`, async ({ page }) => {
+    const problems = watchConsole(page)
+    await signInAs(page, role)
+    const nav = page.getByRole('navigation', { name: 'Main' })
+    await expect(nav.getByRole('link')).toHaveText(NAV[role])
+    await expect(page.getByTestId('who')).toContainText(role, { ignoreCase: true })
+    await expect(page.locator('[data-column="arrival"] [data-stock]').first()).toBeVisible()
+    expect(problems).toEqual([])
+  })
+}
+
+test('a wrong password shows the message and stays on the sign-in page', async ({ page }) => {
+  await page.goto('/sign-in')
+  await page.getByLabel('E-mail').fill(DEMO.office)
+  await page.getByLabel('Password', { exact: true }).fill('not the password')
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await expect(page.getByRole('alert')).toContainText('That e-mail and password do not match an active account.')
+  await expect(page).toHaveURL(/\/sign-in/)
+})
+
+test('signing out returns to the sign-in page and the board needs a new sign-in', async ({ page }) => {
+  await signInAs(page, 'dispatcher')
+  await page.getByRole('button', { name: 'Sign out' }).click()
+  await expect(page).toHaveURL(/\/sign-in/)
+  await page.goto('/board')
+  await expect(page).toHaveURL(/\/sign-in\?next=/)
+})
+
+test('a dispatcher who types the staff address is sent back to the board', async ({ page }) => {
+  await signInAs(page, 'dispatcher')
+  await page.goto('/users')
+  await expect(page).toHaveURL(/\/board/)
+})
+
+test('a manager adds a staff member who can then sign in', async ({ page, browser }) => {
+  await signInAs(page, 'manager')
+  await page.getByRole('link', { name: 'Staff' }).click()
+  await page.getByRole('button', { name: 'Add a staff member' }).click()
+  const dialog = page.getByRole('dialog')
+  await dialog.getByLabel('Name').fill('Ossian Threlkeld')
+  await dialog.getByLabel('E-mail').fill('ossian@tamsincreek.example')
+  await dialog.getByLabel(/First password/).fill('a long first passphrase')
+  await dialog.getByRole('button', { name: 'Add' }).click()
+  await expect(page.getByRole('cell', { name: 'ossian@tamsincreek.example' })).toBeVisible()
+
+  const other = await browser.newPage()
+  await other.goto('/sign-in')
+  await other.getByLabel('E-mail').fill('ossian@tamsincreek.example')
+  await other.getByLabel('Password', { exact: true }).fill('a long first passphrase')
+  await other.getByRole('button', { name: 'Sign in' }).click()
+  await expect(other.getByTestId('who')).toContainText('Dispatcher')
+  await other.close()
+})

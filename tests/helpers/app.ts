@@ -1,0 +1,58 @@
+import { readFileSync } from 'node:fs'
+import { pino } from 'pino'
+import request from 'supertest'
+import { inject } from 'vitest'
+import { openDatabase, type Database } from '../../db/client'
+import { createApp, type AppDeps } from '../../server/app'
+
+let template: Buffer | undefined
+
+/** A fresh, migrated in-memory database and an app on it; no port is opened. */
+export async function makeTestApp(overrides: Partial<AppDeps> = {}) {
+  template ??= readFileSync(inject('templateDataDir'))
+  const handle = await openDatabase({ kind: 'memory', loadDataDir: new Blob([new Uint8Array(template)]) })
+  const app = createApp({
+    db: handle.db,
+    log: pino({ level: 'silent' }),
+    sessionSecret: 'test-secret-that-is-long-enough-for-signing',
+    version: 'test',
+    signInLimits: { perAccount: 1000, perIp: 1000, windowMs: 60_000 },
+    ...overrides,
+  })
+  return { app, db: handle.db, close: () => handle.close() }
+}
+
+export type TestApp = Awaited<ReturnType<typeof makeTestApp>>
+
+/** A supertest agent with a session cookie and its CSRF token, like a browser tab. */
+export async function browserSession(app: TestApp['app']) {
+  const agent = request.agent(app)
+  const res = await agent.get('/api/session').expect(200)
+  let csrf: string = res.body.csrfToken
+  return {
+    agent,
+    get csrf() {
+      return csrf
+    },
+    async signIn(email: string, password: string) {
+      const r = await agent.post('/api/session').set('x-csrf-token', csrf).send({ email, password })
+      if (r.body.csrfToken) csrf = r.body.csrfToken
+      return r
+    },
+    get: (url: string) => agent.get(url),
+    post: (url: string, body?: object) => agent.post(url).set('x-csrf-token', csrf).send(body),
+    patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', csrf).send(body),
+    del: (url: string) => agent.delete(url).set('x-csrf-token', csrf),
+  }
+}
+
+export type BrowserSession = Awaited<ReturnType<typeof browserSession>>
+
+export async function signedIn(app: TestApp['app'], user: { email: string; password: string }) {
+  const s = await browserSession(app)
+  const r = await s.signIn(user.email, user.password)
+  if (r.status !== 200) throw new Error(`sign-in failed in test setup: ${r.status} ${JSON.stringify(r.body)}`)
+  return s
+}
+
+export type { Database }
