@@ -20,7 +20,7 @@ export const DEMO_YARD = {
     hookUpCents: 19_500,
     perMileCents: 650,
     includedMiles: 5,
-    winchingPerHalfHourCents: 9_500,
+    winchingCentsPerUnit: 9_500,
     dolliesCents: 7_500,
     afterHoursCents: 8_500,
     note: 'Demo rates for an invented yard; set your own.',
