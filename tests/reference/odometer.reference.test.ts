@@ -1,0 +1,42 @@
+import { describe, expect, it } from 'vitest'
+import { odometerDisclosure } from '../../shared/domain/odometer'
+
+const CAR_GVWR = 4_500
+
+describe('odometer disclosure — 49 CFR 580.17 as amended by 84 FR 65017', () => {
+  it.each([
+    // The rule's own examples to (a)(3) and (a)(4) [V].
+    { year: 2020, modelYear: 2010, required: false, clause: '49 CFR 580.17(a)(3)', source: 'example to (a)(3) [V]' },
+    { year: 2020, modelYear: 2011, required: true, clause: '49 CFR 580.5', source: 'example to (a)(3) [V]' },
+    { year: 2031, modelYear: 2011, required: false, clause: '49 CFR 580.17(a)(4)', source: 'example to (a)(4) [V]' },
+    { year: 2031, modelYear: 2012, required: true, clause: '49 CFR 580.5', source: 'example to (a)(4) [V]' },
+    // Newest exempt model year: 2021–2030 → 2010, 2031 → 2011, 2032 → 2012 [C].
+    { year: 2030, modelYear: 2010, required: false, clause: '49 CFR 580.17(a)(3)', source: 'boundary [C]' },
+    { year: 2030, modelYear: 2011, required: true, clause: '49 CFR 580.5', source: 'boundary [C]' },
+    { year: 2032, modelYear: 2012, required: false, clause: '49 CFR 580.17(a)(4)', source: 'boundary [C]' },
+    { year: 2032, modelYear: 2013, required: true, clause: '49 CFR 580.5', source: 'boundary [C]' },
+  ])(
+    'odometerDisclosure_transferIn$year_ofModelYear$modelYear_requiredIs$required ($source)',
+    ({ year, modelYear, required, clause }) => {
+      expect(odometerDisclosure(modelYear, CAR_GVWR, true, `${year}-06-15`)).toMatchObject({ required, clause })
+    },
+  )
+
+  it.each([
+    { date: '2030-12-31', required: true },
+    { date: '2031-01-01', required: false },
+  ])('odometerDisclosure_modelYear2011On$date_requiredIs$required (580.17(a)(4): 20 years after 1 January of the model year)', ({ date, required }) => {
+    expect(odometerDisclosure(2011, CAR_GVWR, true, date).required).toBe(required)
+  })
+
+  it.each([
+    { gvwrLb: 16_000, required: true, clause: '49 CFR 580.5' },
+    { gvwrLb: 16_001, required: false, clause: '49 CFR 580.17(a)(1)' },
+  ])('odometerDisclosure_gvwr$gvwrLb_requiredIs$required (580.17(a)(1): more than 16,000 lb)', ({ gvwrLb, required, clause }) => {
+    expect(odometerDisclosure(2020, gvwrLb, true, '2026-06-15')).toMatchObject({ required, clause })
+  })
+
+  it('odometerDisclosure_trailerNotSelfPropelled_isExempt (580.17(a)(2))', () => {
+    expect(odometerDisclosure(2024, 7_000, false, '2026-06-15')).toMatchObject({ required: false, clause: '49 CFR 580.17(a)(2)' })
+  })
+})
