@@ -1,0 +1,153 @@
+import { z } from 'zod'
+import { isTimeZone } from '../domain/local-time'
+
+/**
+ * A local rule set: how a jurisdiction (or a yard's own ordinance) bills storage and runs its
+ * notice and disposal clocks. Rule sets are data a manager copies and edits, so every value
+ * carries where it came from and how sure we are of it.
+ */
+
+/**
+ * The markers of shared/REFERENCES.md — V read in the source text, S a secondary page or older
+ * copy, M from memory (verify first), C computed from the rule shown — and `none` for a
+ * placeholder no source supplies.
+ */
+export const confidenceSchema = z.enum(['V', 'S', 'M', 'C', 'none'])
+
+export const sourceSchema = z.object({
+  citation: z.string().min(1),
+  confidence: confidenceSchema,
+  note: z.string().min(1).optional(),
+})
+
+const code = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'use lower-case words joined by dashes')
+const cents = z.number().int().nonnegative()
+const hours = z.number().positive().max(24 * 7)
+/** A value nobody publishes statewide: the UI shows "set your rate" until the manager does. */
+const placeholder = z.boolean().default(false)
+
+export const vehicleClassSchema = z.object({
+  code,
+  label: z.string().min(1),
+  dailyRateCents: cents,
+  placeholder,
+  source: sourceSchema,
+})
+
+export const feeSchema = z.object({
+  code,
+  label: z.string().min(1),
+  amountCents: cents,
+  taxable: z.boolean(),
+  /** once-per-stay fees (impound) are charged from arrival; per-event fees each time one is recorded. */
+  charged: z.enum(['once-per-stay', 'per-event']),
+  placeholder,
+  source: sourceSchema,
+})
+
+export const storageRulesSchema = z.object({
+  counting: z.object({
+    /** calendar-day: each local calendar day or part of one; rolling-24h: each 24 h from arrival or part. */
+    method: z.enum(['calendar-day', 'rolling-24h']),
+    source: sourceSchema,
+  }),
+  /** A release this soon after a day begins does not start that day. */
+  grace: z.object({ hours: hours, source: sourceSchema }).optional(),
+  /** No storage at all for a stay shorter than this. */
+  noChargeUnder: z.object({ hours, source: sourceSchema }).optional(),
+  /** A release within this many hours of arrival is at most one day's storage. */
+  oneDayIfReleasedWithin: z.object({ hours, source: sourceSchema }).optional(),
+  cap: z
+    .object({ maxDays: z.number().int().positive().optional(), maxStorageCents: cents.optional(), source: sourceSchema })
+    .refine((cap) => cap.maxDays !== undefined || cap.maxStorageCents !== undefined, 'a cap needs maxDays or maxStorageCents')
+    .optional(),
+  taxable: z.boolean(),
+})
+
+export const taxSchema = z.object({
+  ratePercent: z
+    .number()
+    .min(0)
+    .max(30)
+    .refine((p) => Math.abs(p * 10_000 - Math.round(p * 10_000)) < 1e-6, 'at most four decimals'),
+  placeholder,
+  source: sourceSchema,
+})
+
+/** The events a legal clock can start from or be satisfied by, as the office records them. */
+export const clockEventKindSchema = z.enum([
+  'stored',
+  'lien-arose',
+  'owner-records-requested',
+  'lien-sale-application-filed',
+  'owner-notice-mailed',
+  'lien-notice-mailed',
+  'sale-scheduled',
+  'sale-advertised',
+  'sale-notice-posted',
+  'lien-sale-held',
+])
+
+const range = z
+  .object({ over: z.number().int().nonnegative().optional(), atMost: z.number().int().nonnegative().optional() })
+  .refine((r) => r.over !== undefined || r.atMost !== undefined, 'give over, atMost or both')
+
+export const timelineStepSchema = z.object({
+  code,
+  label: z.string().min(1),
+  /** deadline: `doneBy` must happen on or before the due date; earliest: not before it. */
+  kind: z.enum(['deadline', 'earliest']),
+  from: clockEventKindSchema,
+  direction: z.enum(['after', 'before']),
+  days: z.number().int().nonnegative().max(3660),
+  dayKind: z.enum(['calendar', 'business']),
+  doneBy: clockEventKindSchema,
+  /** Branches: the step applies only to vehicles in this value (cents) or age (years) band. */
+  when: z.object({ valueCents: range.optional(), ageYears: range.optional() }).optional(),
+  placeholder,
+  source: sourceSchema,
+})
+
+export const totalLossSchema = z.discriminatedUnion('rule', [
+  z.object({ rule: z.literal('percent-of-value'), percent: z.number().positive().max(100), source: sourceSchema }),
+  z.object({ rule: z.literal('total-loss-formula'), source: sourceSchema }),
+])
+
+function unique<T>(items: readonly T[], key: (item: T) => string): boolean {
+  return new Set(items.map(key)).size === items.length
+}
+
+export const ruleSetSchema = z
+  .object({
+    id: code,
+    name: z.string().min(1),
+    jurisdiction: z.string().min(1),
+    sample: z.boolean(),
+    /** Shown wherever the rule set is: requirements vary, and the sample is not legal advice. */
+    caution: z.string().min(1),
+    timeZone: z.string().refine(isTimeZone, 'an IANA time zone such as America/Los_Angeles'),
+    holidayCalendar: z.object({ country: z.string().length(2), state: z.string().min(1).optional() }),
+    currency: z.literal('USD'),
+    vehicleClasses: z.array(vehicleClassSchema).min(1),
+    storage: storageRulesSchema,
+    fees: z.array(feeSchema),
+    tax: taxSchema,
+    timeline: z.array(timelineStepSchema),
+    totalLoss: totalLossSchema,
+    notes: z.array(z.string().min(1)).default([]),
+  })
+  .refine((r) => unique(r.vehicleClasses, (c) => c.code), { message: 'vehicle class codes must differ', path: ['vehicleClasses'] })
+  .refine((r) => unique(r.fees, (f) => f.code), { message: 'fee codes must differ', path: ['fees'] })
+
+export type Confidence = z.infer<typeof confidenceSchema>
+export type Source = z.infer<typeof sourceSchema>
+export type VehicleClass = z.infer<typeof vehicleClassSchema>
+export type Fee = z.infer<typeof feeSchema>
+export type StorageRules = z.infer<typeof storageRulesSchema>
+export type ClockEventKind = z.infer<typeof clockEventKindSchema>
+export type TimelineStep = z.infer<typeof timelineStepSchema>
+export type TotalLossRule = z.infer<typeof totalLossSchema>
+/** A rule set as the functions use it (defaults applied). */
+export type RuleSet = z.output<typeof ruleSetSchema>
+/** A rule set as written in a file or sent by a client (defaults optional). */
+export type RuleSetInput = z.input<typeof ruleSetSchema>
