@@ -1,0 +1,71 @@
+import { describe, expect, it } from 'vitest'
+import californiaJson from '../../db/rule-sets/california.json' with { type: 'json' }
+import floridaJson from '../../db/rule-sets/florida.json' with { type: 'json' }
+import { usFederalCalendar } from '../../shared/domain/holidays'
+import { type ClockEvent, legalClocks } from '../../shared/domain/legal-clocks'
+import { ruleSetSchema } from '../../shared/schemas/rule-sets'
+
+const california = ruleSetSchema.parse(californiaJson)
+const florida = ruleSetSchema.parse(floridaJson)
+const federal = usFederalCalendar()
+
+const due = (clocks: ReturnType<typeof legalClocks>, code: string) => clocks.deadlines.find((d) => d.code === code)
+
+describe('Florida Stat. 713.78 timelines', () => {
+  // Stored Tuesday 30 June 2026, 15:00 in Miami.
+  const stored: ClockEvent[] = [{ kind: 'stored', at: '2026-06-30T15:00:00-04:00' }]
+
+  it('legalClocks_floridaNoticeOfLien_isDueSevenBusinessDaysAfterStorageSkippingIndependenceDay ([S]; 5 U.S.C. 6103)', () => {
+    const notice = due(legalClocks({ modelYear: 2018 }, stored, florida, federal, '2026-07-01T12:00:00Z'), 'notice-of-lien')
+    // Wed 1, Thu 2, (Fri 3 observed holiday, Sat 4, Sun 5), Mon 6 … Fri 10 July.
+    expect(notice).toMatchObject({ dueDate: '2026-07-10', dayKind: 'business', weekendDaysSkipped: 2, status: 'upcoming' })
+    expect(notice?.holidaysSkipped).toEqual([{ date: '2026-07-03', name: 'Independence Day (observed)' }])
+    expect(notice?.dueAt).toBe('2026-07-11T04:00:00.000Z')
+  })
+
+  it.each([
+    { modelYear: 2022, days: 35, date: '2026-08-04', why: 'model year 2022 is 4 years old in 2026: more than 3 years → 35 days' },
+    { modelYear: 2023, days: 50, date: '2026-08-19', why: 'model year 2023 is 3 years old in 2026: 3 years or less → 50 days' },
+  ])('legalClocks_floridaEarliestSale_$why ([M] — re-read the current text)', ({ modelYear, days, date }) => {
+    const clocks = legalClocks({ modelYear }, stored, florida, federal, '2026-07-01T12:00:00Z')
+    const sale = due(clocks, 'earliest-sale')
+    expect(sale).toMatchObject({ days, dueDate: date, kind: 'earliest', status: 'upcoming' })
+    expect(sale?.branch).toContain(`Model year ${modelYear}`)
+    expect(clocks.notApplicable).toHaveLength(1)
+  })
+})
+
+describe('California Civil Code 3071 and 3072 timelines by value [V]', () => {
+  const events: ClockEvent[] = [
+    { kind: 'lien-arose', at: '2026-04-01T10:00:00-07:00' },
+    { kind: 'sale-scheduled', at: '2026-06-15T10:00:00-07:00' },
+  ]
+
+  it('legalClocks_californiaVehicleValuedAtMost4000_followsSection3072', () => {
+    const clocks = legalClocks({ valueCents: 400_000 }, events, california, federal, '2026-04-02T00:00:00Z')
+    expect(clocks.deadlines.map((d) => [d.code, d.dueDate ?? null])).toEqual([
+      ['records-request', '2026-04-16'], // 15 days after the lien arose
+      ['notice-window-opens', '2026-05-05'], // not more than 41 days before the sale
+      ['notice-window-closes', '2026-05-15'], // at least 31 days before the sale
+      ['opposition-period', null], // 10 days from mailing: starts when the notice is mailed
+      ['sale-notice-posted', '2026-06-05'], // at least 10 days before the sale
+    ])
+  })
+
+  it('legalClocks_californiaVehicleValuedOver4000_followsSection3071', () => {
+    const clocks = legalClocks({ valueCents: 400_001 }, events, california, federal, '2026-04-02T00:00:00Z')
+    expect(clocks.deadlines.map((d) => [d.code, d.dueDate ?? null])).toEqual([
+      ['lien-sale-application', '2026-05-01'], // apply within 30 days of the lien arising
+      ['opposition-period', null],
+      ['sale-notice', '2026-05-26'], // notice 20 days before the sale
+      ['advertise-window-opens', '2026-05-26'], // advertise 5 to 20 days before it
+      ['advertise-window-closes', '2026-06-10'],
+    ])
+  })
+
+  it('legalClocks_californiaVehicleValued500OrLess_hasNoClocksFromThisSample (CVC 22851.4: over $500 → 3067–3074)', () => {
+    const clocks = legalClocks({ valueCents: 50_000 }, events, california, federal, '2026-04-02T00:00:00Z')
+    expect(clocks.deadlines).toEqual([])
+    expect(clocks.notApplicable[0]?.reason).toBe('Valued $500.00; this applies only to vehicles valued over $500.00 and at most $4,000.00.')
+  })
+})
