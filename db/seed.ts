@@ -4,6 +4,7 @@ import { count, eq } from 'drizzle-orm'
 import { hashPassword } from '../server/users/passwords'
 import { BOARD_COLUMNS, type VehicleState } from '../shared/domain/columns'
 import { formatStockNumber, yearInZone } from '../shared/domain/stock-number'
+import { towCharge } from '../shared/domain/tow-charge'
 import { vinWithCheckDigit } from '../shared/domain/vin'
 import type { Database } from './client'
 import { DEMO_VEHICLES, type DemoVehicle } from './demo/vehicles'
@@ -37,7 +38,7 @@ export async function loadSampleRuleSets(db: Database): Promise<Map<string, stri
   const names = readdirSync(dir).filter((f) => f.endsWith('.json')).sort()
   for (const file of names) {
     const body = JSON.parse(readFileSync(path.join(dir, file), 'utf8')) as Record<string, unknown>
-    const slug = path.basename(file, '.json')
+    const slug = String(body.id ?? path.basename(file, '.json'))
     const [set] = await db
       .insert(t.ruleSets)
       .values({ slug, name: String(body.name ?? slug), sample: 'sample' })
@@ -54,7 +55,7 @@ export async function loadSampleRuleSets(db: Database): Promise<Map<string, stri
 async function loadDemo(db: Database, now: Date): Promise<void> {
   const [company] = await db.insert(t.companies).values(DEMO_COMPANY).returning()
   const ruleSetVersions = await loadSampleRuleSets(db)
-  const california = ruleSetVersions.get('california')
+  const california = ruleSetVersions.get('california-sample')
   const [ruleSet] = california
     ? await db.select({ id: t.ruleSetVersions.ruleSetId }).from(t.ruleSetVersions).where(eq(t.ruleSetVersions.id, california))
     : []
@@ -137,6 +138,7 @@ async function loadDemo(db: Database, now: Date): Promise<void> {
         hookedAt: new Date(arrivedAt.getTime() - 0.75 * HOUR),
         arrivedAt,
         ...DEMO_DRIVERS[v.vehicleClass === 'heavy' ? 2 : i % 2]!,
+        ...demoTowCharge(v),
       }
     }),
   )
@@ -183,6 +185,13 @@ function demoHistory(v: DemoVehicle, arrivedAt: Date, now: Date, staff: Staff): 
     })
   }
   return events
+}
+
+function demoTowCharge(v: DemoVehicle) {
+  const charge = towCharge({ lat: v.pickup.lat, lon: v.pickup.lng }, { lat: DEMO_YARD.lat, lon: DEMO_YARD.lng }, DEMO_YARD.towRates, {
+    dollies: v.rolls === false,
+  })
+  return { straightMiles: charge.miles, chargeCents: charge.totalCents, chargeLines: charge.lines }
 }
 
 function demoVin(v: DemoVehicle, i: number): string {

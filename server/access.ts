@@ -23,6 +23,12 @@ export const ACCESS: Record<string, Rule> = {
 
   'GET /api/yards/current': 'board.view',
   'GET /api/board': 'board.view',
+
+  'GET /api/rule-sets': 'board.view',
+  'GET /api/rule-sets/:id': 'board.view',
+  'GET /api/rule-sets/:id/holidays': 'board.view',
+  'POST /api/quotes/storage': 'board.view',
+  'POST /api/quotes/clocks': 'board.view',
 }
 
 const compiled = Object.entries(ACCESS).map(([key, rule]) => {

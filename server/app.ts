@@ -8,6 +8,8 @@ import type { Database } from '../db/client'
 import { enforceAccess } from './access'
 import { boardRouter } from './board/index'
 import { errorHandler, notFoundHandler } from './errors'
+import { quotesRouter } from './quotes/quotes.routes'
+import { ruleSetsRouter } from './rule-sets/rule-sets.routes'
 import { healthRouter } from './health/health.routes'
 import { csrfProtection } from './middleware/csrf'
 import { currentUser } from './middleware/current-user'
@@ -68,6 +70,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/users', usersRouter(db))
   app.use('/api/yards', yardsRouter(db))
   app.use('/api/board', boardRouter(db))
+  app.use('/api/rule-sets', ruleSetsRouter(db))
+  app.use('/api/quotes', quotesRouter(db))
   app.use('/api', notFoundHandler)
 
   if (deps.clientDir && existsSync(path.join(deps.clientDir, 'index.html'))) serveClient(app, deps.clientDir)

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
+import { DomainError } from '../shared/domain/errors'
 
 export interface Issue {
   path: string
@@ -43,6 +44,11 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
     if (err instanceof ZodError) {
       const issues = zodIssues(err)
       res.status(400).json({ error: `Please check ${issues.map((i) => i.path).join(', ')}.`, issues })
+      return
+    }
+    // A computation refused its input: the person gets the core's own words, pointed at the field.
+    if (err instanceof DomainError) {
+      res.status(400).json({ error: err.message, code: err.code, issues: [{ path: err.field ?? '(body)', message: err.message }] })
       return
     }
     if (err instanceof AppError) {

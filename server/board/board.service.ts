@@ -1,6 +1,7 @@
 import type { Database } from '../../db/client'
 import { BOARD_COLUMNS, type BoardColumn } from '../../shared/domain/columns'
 import type { Board, BoardCard } from '../../shared/schemas/board'
+import { summarizeVehicles } from '../charges/index'
 import { notFound } from '../errors'
 import { yardOfUser } from '../yards/yards.queries'
 import { activeHolds, activeVehicles } from './board.queries'
@@ -9,6 +10,7 @@ export async function getBoard(db: Database, userId: string, asOf = new Date()):
   const yard = await yardOfUser(db, userId)
   if (!yard) throw notFound('A yard for your company')
   const [rows, holdRows] = [await activeVehicles(db, yard.id), await activeHolds(db, yard.id)]
+  const summaries = await summarizeVehicles(db, yard, rows, asOf)
   const holdsByVehicle = new Map<string, typeof holdRows>()
   for (const h of holdRows) holdsByVehicle.set(h.vehicleId, [...(holdsByVehicle.get(h.vehicleId) ?? []), h])
   const byColumn = new Map<BoardColumn, BoardCard[]>(BOARD_COLUMNS.map((c) => [c, []]))
@@ -29,6 +31,7 @@ export async function getBoard(db: Database, userId: string, asOf = new Date()):
       rolls: r.rolls,
       holds: (holdsByVehicle.get(r.id) ?? []).map((h) => ({ kind: h.kind, until: h.until?.toISOString() ?? null })),
       photoCount: Number(r.photoCount),
+      summary: summaries.get(r.id) ?? null,
     })
   }
   return {

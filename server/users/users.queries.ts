@@ -41,3 +41,9 @@ export async function countActiveManagers(db: Executor, companyId: string) {
     .where(and(eq(users.companyId, companyId), eq(users.role, 'manager'), eq(users.active, true)))
   return row?.n ?? 0
 }
+
+export async function companyOf(db: Executor, userId: string): Promise<string> {
+  const [row] = await db.select({ companyId: users.companyId }).from(users).where(eq(users.id, userId))
+  if (!row) throw new Error(`no user ${userId}`)
+  return row.companyId
+}

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { BOARD_COLUMNS, VEHICLE_STATES } from '../domain/columns'
+import { vehicleSummarySchema } from './charges'
 
 export const boardCardSchema = z.object({
   id: z.uuid(),
@@ -17,6 +18,8 @@ export const boardCardSchema = z.object({
   rolls: z.boolean().nullable(),
   holds: z.array(z.object({ kind: z.string(), until: z.string().nullable() })),
   photoCount: z.number(),
+  /** Null when the vehicle has no rule set to bill it by (shown as "no rule set"). */
+  summary: vehicleSummarySchema.nullable(),
 })
 export type BoardCard = z.infer<typeof boardCardSchema>
 

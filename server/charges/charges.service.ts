@@ -1,0 +1,55 @@
+import { inArray } from 'drizzle-orm'
+import type { Executor } from '../../db/client'
+import { tows } from '../../db/schema/index'
+import type { VehicleSummary } from '../../shared/schemas/charges'
+import type { RuleSet } from '../../shared/schemas/rule-sets'
+import { holidayCalendar } from '../holidays/holiday-calendar'
+import { latestVersionOf, versionsById } from '../rule-sets/rule-sets.queries'
+import { summarizeVehicle } from './vehicle-summary'
+
+export interface SummarizedVehicle {
+  id: string
+  arrivedAt: Date
+  closedAt: Date | null
+  vehicleClass: string
+  year: number | null
+  estimatedValueCents: number | null
+  ruleSetVersionId: string | null
+}
+
+export interface YardForCharges {
+  timeZone: string
+  ruleSetId: string | null
+}
+
+/**
+ * Running bills and next legal dates for many vehicles at once: one query for their tow charges,
+ * one per rule-set version not yet parsed. A vehicle is billed under the version it arrived under;
+ * one without (or whose class the rule set does not know) gets no summary rather than a wrong one.
+ */
+export async function summarizeVehicles(db: Executor, yard: YardForCharges, vehicles: SummarizedVehicle[], asOf = new Date()): Promise<Map<string, VehicleSummary | null>> {
+  const out = new Map<string, VehicleSummary | null>()
+  if (vehicles.length === 0) return out
+  const versions = await versionsById(db, vehicles.flatMap((v) => (v.ruleSetVersionId ? [v.ruleSetVersionId] : [])))
+  const fallback: RuleSet | undefined = yard.ruleSetId ? (await latestVersionOf(db, yard.ruleSetId))?.ruleSet : undefined
+  const towRows = await db.select({ vehicleId: tows.vehicleId, cents: tows.chargeCents }).from(tows).where(inArray(tows.vehicleId, vehicles.map((v) => v.id)))
+  const towCents = new Map(towRows.map((t) => [t.vehicleId, t.cents]))
+  for (const v of vehicles) {
+    const ruleSet = (v.ruleSetVersionId && versions.get(v.ruleSetVersionId)) || fallback
+    if (!ruleSet || !ruleSet.vehicleClasses.some((c) => c.code === v.vehicleClass)) {
+      out.set(v.id, null)
+      continue
+    }
+    const input = {
+      arrivedAt: v.arrivedAt,
+      closedAt: v.closedAt,
+      vehicleClass: v.vehicleClass,
+      modelYear: v.year,
+      valueCents: v.estimatedValueCents,
+      towCents: towCents.get(v.id) ?? 0,
+      clockEvents: [],
+    }
+    out.set(v.id, summarizeVehicle(input, ruleSet, holidayCalendar(ruleSet.holidayCalendar), asOf, yard.timeZone))
+  }
+  return out
+}

@@ -1,0 +1,2 @@
+export { summarizeVehicles, type SummarizedVehicle, type YardForCharges } from './charges.service'
+export { summarizeVehicle, type SummaryInput } from './vehicle-summary'

@@ -1,0 +1,65 @@
+import { dayFromIsoDate } from '../../shared/domain/calendar-dates'
+import type { ClockEvent, Deadline } from '../../shared/domain/legal-clocks'
+import { legalClocks } from '../../shared/domain/legal-clocks'
+import type { HolidayCalendar } from '../../shared/domain/holidays'
+import { localDay } from '../../shared/domain/local-time'
+import { storageBill } from '../../shared/domain/storage-bill'
+import type { NextDeadline, VehicleSummary } from '../../shared/schemas/charges'
+import type { RuleSet } from '../../shared/schemas/rule-sets'
+
+export interface SummaryInput {
+  arrivedAt: Date
+  closedAt: Date | null
+  vehicleClass: string
+  modelYear: number | null
+  valueCents: number | null
+  towCents: number
+  /** Recorded notice events beyond the arrival itself (mailings, filings, postings). */
+  clockEvents: ClockEvent[]
+}
+
+// Missed deadlines first, then the nearest open one; an "earliest" date only once no deadline is open.
+const URGENCY: Partial<Record<Deadline['status'], number>> = { missed: 0, upcoming: 1 }
+
+/** The running bill and the next legal date of one vehicle, as of an instant, in the yard's zone. */
+export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays: HolidayCalendar, asOf: Date, timeZone: string): VehicleSummary {
+  const at = asOf.getTime() < input.arrivedAt.getTime() ? input.arrivedAt : asOf
+  const bill = storageBill(
+    { arrivedAt: input.arrivedAt.toISOString(), releasedAt: input.closedAt?.toISOString() ?? null, vehicleClass: input.vehicleClass },
+    ruleSet,
+    at.toISOString(),
+    { timeZone },
+  )
+  const events: ClockEvent[] = [{ kind: 'stored', at: input.arrivedAt.toISOString() }, ...input.clockEvents]
+  const clocks = legalClocks({ modelYear: input.modelYear, valueCents: input.valueCents }, events, ruleSet, holidays, at.toISOString(), { timeZone })
+  const open = clocks.deadlines
+    .filter((d) => d.dueDate && URGENCY[d.status] !== undefined && !(d.kind === 'earliest' && d.status === 'missed'))
+    .sort((a, b) => rank(a) - rank(b) || a.dueDate!.localeCompare(b.dueDate!))
+  const today = localDay(timeZone, at.getTime())
+  return {
+    daysOnLot: bill.days,
+    storageCents: bill.totalCents,
+    towCents: input.towCents,
+    balanceCents: bill.totalCents + input.towCents,
+    nextDeadline: open[0] ? toNext(open[0], today) : null,
+    warnings: bill.warnings,
+  }
+}
+
+function rank(d: Deadline): number {
+  return (URGENCY[d.status] ?? 9) * 2 + (d.kind === 'earliest' ? 1 : 0)
+}
+
+function toNext(d: Deadline, today: number): NextDeadline {
+  return {
+    code: d.code,
+    label: d.label,
+    kind: d.kind,
+    status: d.status,
+    dueDate: d.dueDate!,
+    dueAt: d.dueAt ?? null,
+    daysLeft: dayFromIsoDate(d.dueDate!) - today,
+    explanation: d.explanation,
+    citation: d.source.citation,
+  }
+}

@@ -1,0 +1,54 @@
+import Holidays from 'date-holidays'
+import { civilFromDay } from '../../shared/domain/calendar-dates'
+import { holidayCalendarFromList, type DatedHoliday, type Holiday, type HolidayCalendar } from '../../shared/domain/holidays'
+
+export interface CalendarKey {
+  country: string
+  state?: string
+}
+
+const calendars = new Map<string, HolidayCalendar>()
+
+/**
+ * The public holidays of a jurisdiction (date-holidays' `public` type, which includes its observed
+ * substitutes for weekend holidays), worked out a year at a time on first use and kept.
+ * date-holidays is server-only (about 236 KB gzipped); the client gets lists from the API.
+ */
+export function holidayCalendar(key: CalendarKey): HolidayCalendar {
+  const id = `${key.country}/${key.state ?? ''}`
+  let calendar = calendars.get(id)
+  if (!calendar) {
+    calendar = yearByYear(new Holidays(key.country, key.state ?? ''))
+    calendars.set(id, calendar)
+  }
+  return calendar
+}
+
+export function publicHolidays(source: Holidays, year: number): Holiday[] {
+  return source
+    .getHolidays(year)
+    .filter((h) => h.type === 'public')
+    .map((h) => ({ date: h.date.slice(0, 10), name: h.name }))
+}
+
+function yearByYear(source: Holidays): HolidayCalendar {
+  const years = new Map<number, HolidayCalendar>()
+  const ofYear = (year: number) => {
+    let cal = years.get(year)
+    if (!cal) {
+      cal = holidayCalendarFromList(publicHolidays(source, year))
+      years.set(year, cal)
+    }
+    return cal
+  }
+  return {
+    between(first, last) {
+      const from = civilFromDay(first).year
+      const to = civilFromDay(last).year
+      if (from === to) return ofYear(from).between(first, last)
+      const found: DatedHoliday[] = []
+      for (let y = from; y <= to; y++) found.push(...ofYear(y).between(first, last))
+      return found
+    },
+  }
+}

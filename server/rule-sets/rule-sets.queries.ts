@@ -1,0 +1,71 @@
+import { and, desc, eq, isNull, or } from 'drizzle-orm'
+import type { Executor } from '../../db/client'
+import { ruleSets, ruleSetVersions } from '../../db/schema/index'
+import { ruleSetSchema, type RuleSet } from '../../shared/schemas/rule-sets'
+
+// Versions never change once written, so a parsed version can be kept for the life of the process.
+const parsedVersions = new Map<string, RuleSet>()
+
+function parse(versionId: string, body: unknown): RuleSet {
+  let parsed = parsedVersions.get(versionId)
+  if (!parsed) {
+    parsed = ruleSetSchema.parse(body)
+    parsedVersions.set(versionId, parsed)
+  }
+  return parsed
+}
+
+export interface RuleSetVersion {
+  versionId: string
+  version: number
+  ruleSetId: string
+  slug: string
+  ruleSet: RuleSet
+}
+
+/** The rule sets a company may use: the shipped samples and its own, each at its latest version. */
+export async function latestRuleSets(db: Executor, companyId: string): Promise<RuleSetVersion[]> {
+  const rows = await db
+    .selectDistinctOn([ruleSets.id], {
+      versionId: ruleSetVersions.id,
+      version: ruleSetVersions.version,
+      ruleSetId: ruleSets.id,
+      slug: ruleSets.slug,
+      body: ruleSetVersions.body,
+    })
+    .from(ruleSets)
+    .innerJoin(ruleSetVersions, eq(ruleSetVersions.ruleSetId, ruleSets.id))
+    .where(or(isNull(ruleSets.companyId), eq(ruleSets.companyId, companyId)))
+    .orderBy(ruleSets.id, desc(ruleSetVersions.version))
+  return rows.map((r) => ({ ...r, ruleSet: parse(r.versionId, r.body) })).sort((a, b) => a.ruleSet.name.localeCompare(b.ruleSet.name))
+}
+
+export async function latestRuleSetBySlug(db: Executor, companyId: string, slug: string): Promise<RuleSetVersion | undefined> {
+  return (await latestRuleSets(db, companyId)).find((r) => r.slug === slug)
+}
+
+export async function latestVersionOf(db: Executor, ruleSetId: string): Promise<RuleSetVersion | undefined> {
+  const [row] = await db
+    .select({ versionId: ruleSetVersions.id, version: ruleSetVersions.version, ruleSetId: ruleSets.id, slug: ruleSets.slug, body: ruleSetVersions.body })
+    .from(ruleSetVersions)
+    .innerJoin(ruleSets, eq(ruleSets.id, ruleSetVersions.ruleSetId))
+    .where(eq(ruleSets.id, ruleSetId))
+    .orderBy(desc(ruleSetVersions.version))
+    .limit(1)
+  return row && { ...row, ruleSet: parse(row.versionId, row.body) }
+}
+
+/** Parsed bodies of the given versions (the ones vehicles arrived under). */
+export async function versionsById(db: Executor, ids: string[]): Promise<Map<string, RuleSet>> {
+  const found = new Map<string, RuleSet>()
+  const missing = ids.filter((id) => {
+    const known = parsedVersions.get(id)
+    if (known) found.set(id, known)
+    return !known
+  })
+  for (const id of new Set(missing)) {
+    const [row] = await db.select({ body: ruleSetVersions.body }).from(ruleSetVersions).where(and(eq(ruleSetVersions.id, id)))
+    if (row) found.set(id, parse(id, row.body))
+  }
+  return found
+}

@@ -1,0 +1,27 @@
+import { z } from 'zod'
+
+/** The next legal date that matters for a vehicle, as a card or page shows it. */
+export const nextDeadlineSchema = z.object({
+  code: z.string(),
+  label: z.string(),
+  kind: z.enum(['deadline', 'earliest']),
+  status: z.enum(['upcoming', 'met', 'missed', 'reached', 'not-started', 'needs-information']),
+  dueDate: z.string(),
+  dueAt: z.string().nullable(),
+  /** Whole days from the as-of date to the due date in the yard's calendar; negative when past. */
+  daysLeft: z.number(),
+  explanation: z.string(),
+  citation: z.string(),
+})
+export type NextDeadline = z.infer<typeof nextDeadlineSchema>
+
+export const vehicleSummarySchema = z.object({
+  /** Storage days counted so far by the rule set's own day rule. */
+  daysOnLot: z.number(),
+  storageCents: z.number(),
+  towCents: z.number(),
+  balanceCents: z.number(),
+  nextDeadline: nextDeadlineSchema.nullable(),
+  warnings: z.array(z.string()),
+})
+export type VehicleSummary = z.infer<typeof vehicleSummarySchema>

@@ -1,0 +1,94 @@
+import { readFileSync } from 'node:fs'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { loadSampleRuleSets } from '../../db/seed'
+import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { makeStaff } from '../helpers/factories'
+
+let t: TestApp
+beforeAll(async () => {
+  t = await makeTestApp()
+  await loadSampleRuleSets(t.db)
+})
+afterAll(() => t.close())
+
+const california = JSON.parse(readFileSync('db/rule-sets/california.json', 'utf8'))
+
+describe('rule sets and quotes API', () => {
+  it('GET /api/rule-sets lists the shipped samples with their caution', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.technician)
+    const res = await s.get('/api/rule-sets').expect(200)
+    const ids = res.body.ruleSets.map((r: { id: string }) => r.id)
+    expect(ids).toEqual(expect.arrayContaining(['california-sample', 'florida-sample']))
+    for (const r of res.body.ruleSets) expect(r.caution).toMatch(/verify with your local code/i)
+  })
+
+  it('GET /api/rule-sets/:id answers the rule set body as shipped', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    const res = await s.get('/api/rule-sets/california-sample').expect(200)
+    expect(res.body.ruleSet.storage.counting.method).toBe(california.storage.counting.method)
+    expect((await s.get('/api/rule-sets/atlantis')).status).toBe(404)
+  })
+
+  // Cal. Civ. Code § 3068.1(a)(1): released 24 hours or less after storage → no more than one day.
+  it('POST /api/quotes/storage bills 23 h 59 min in California as one day', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.dispatcher)
+    const res = await s.post('/api/quotes/storage', {
+      ruleSetId: 'california-sample',
+      stay: { arrivedAt: '2026-03-02T09:00:00-08:00', releasedAt: '2026-03-03T08:59:00-08:00', vehicleClass: 'standard' },
+      asOf: '2026-03-04T12:00:00-08:00',
+    })
+    expect(res.status).toBe(200)
+    expect(res.body.bill.days).toBe(1)
+    const daily = california.vehicleClasses.find((c: { code: string }) => c.code === 'standard').dailyRateCents
+    expect(res.body.bill.lines[0].amountCents).toBe(daily)
+  })
+
+  it('POST /api/quotes/storage with a release before arrival answers 400 naming releasedAt', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    const res = await s.post('/api/quotes/storage', {
+      ruleSetId: 'california-sample',
+      stay: { arrivedAt: '2026-03-02T09:00:00-08:00', releasedAt: '2026-03-01T09:00:00-08:00', vehicleClass: 'standard' },
+      asOf: '2026-03-04T12:00:00-08:00',
+    })
+    expect(res.status).toBe(400)
+    expect(res.body.issues[0].path).toBe('releasedAt')
+  })
+
+  it('POST /api/quotes/storage with a malformed instant answers 400 naming the field', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    const res = await s.post('/api/quotes/storage', { ruleSetId: 'california-sample', stay: { arrivedAt: 'yesterday', vehicleClass: 'standard' }, asOf: '2026-03-04T12:00:00Z' })
+    expect(res.status).toBe(400)
+    expect(res.body.issues.map((i: { path: string }) => i.path)).toContain('stay.arrivedAt')
+  })
+
+  // Fla. Stat. 713.78 [S]: notice of lien within 7 business days of storage. Stored Wed 1 Jul 2026;
+  // Fri 3 Jul 2026 is the observed Independence Day (5 U.S.C. 6103, OPM weekend rule), so the seventh
+  // business day is Mon 13 Jul 2026 [C].
+  it('POST /api/quotes/clocks skips the observed Independence Day in Florida business days', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    const res = await s.post('/api/quotes/clocks', {
+      ruleSetId: 'florida-sample',
+      vehicle: { modelYear: 2015 },
+      events: [{ kind: 'stored', at: '2026-07-01T10:00:00-04:00' }],
+      asOf: '2026-07-02T10:00:00-04:00',
+    })
+    expect(res.status).toBe(200)
+    const notice = res.body.clocks.deadlines.find((d: { code: string }) => d.code === 'notice-of-lien')
+    expect(notice.dueDate).toBe('2026-07-13')
+    expect(notice.holidaysSkipped.map((h: { date: string }) => h.date)).toContain('2026-07-03')
+  })
+
+  it('GET /api/rule-sets/:id/holidays refuses more than ten years', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    expect((await s.get('/api/rule-sets/florida-sample/holidays?from=2020&to=2040')).status).toBe(400)
+    const ok = await s.get('/api/rule-sets/florida-sample/holidays?from=2026&to=2026').expect(200)
+    expect(ok.body.holidays.map((h: { name: string }) => h.name)).toContain('Juneteenth')
+  })
+})
