@@ -1,0 +1,53 @@
+import fc from 'fast-check'
+import { describe, expect, it } from 'vitest'
+import { normalizeVin, vin, vinWithCheckDigit } from '../../../shared/domain/vin'
+
+describe('vin input', () => {
+  it.each([
+    { typed: ' 1g4ah59h45g118341 ', why: 'lower case and spaces' },
+    { typed: '1G4-AH59H-45G-118341', why: 'dashes' },
+    { typed: '1G4 AH59H 45G 118341', why: 'spaces inside' },
+  ])('vin_typedWith$why_isNormalisedAndValid', ({ typed }) => {
+    expect(vin(typed)).toMatchObject({ normalized: '1G4AH59H45G118341', ok: true })
+  })
+
+  it.each([
+    { typed: '', code: 'empty' },
+    { typed: '1G4AH59H45G1183412', code: 'too-long' },
+    { typed: '1G4AH59H45G11834*', code: 'illegal-character' },
+  ])('vin_$code_isRefused', ({ typed, code }) => {
+    const reading = vin(typed)
+    expect(reading.ok).toBe(false)
+    expect(reading.problems[0]?.code).toBe(code)
+  })
+
+  it('vin_letterO_suggestsTheDigitZero', () => {
+    expect(vin('1G4AH59H45GO18341').problems[0]?.message).toBe('The 12th character is the letter O, which a VIN never uses — is it the digit 0?')
+  })
+})
+
+describe('vinWithCheckDigit (demo data)', () => {
+  const legal = fc.constantFrom(...'ABCDEFGHJKLMNPRSTUVWXYZ0123456789'.split(''))
+
+  it('vinWithCheckDigit_any16LegalCharacters_makesAVinWhoseCheckDigitVerifies', () => {
+    fc.assert(
+      fc.property(fc.array(legal, { minLength: 16, maxLength: 16 }), (chars) => {
+        const sixteen = chars.join('')
+        const made = vinWithCheckDigit(sixteen)
+        expect(made.slice(0, 8) + made.slice(9)).toBe(sixteen)
+        expect(vin(made).checkDigit?.valid).toBe(true)
+      }),
+    )
+  })
+
+  it.each([
+    { bad: '1G4AH59H5G11834', why: 'fifteen characters' },
+    { bad: '1G4AH59HI5G11834', why: 'the letter I' },
+  ])('vinWithCheckDigit_$why_throwsInvalidVin', ({ bad }) => {
+    expect(() => vinWithCheckDigit(bad)).toThrow(expect.objectContaining({ code: 'invalid-vin' }))
+  })
+
+  it('normalizeVin_keepsOnlyTheCharacters', () => {
+    expect(normalizeVin(' ab-c d ')).toBe('ABCD')
+  })
+})
