@@ -31,7 +31,7 @@ export function ruleSetsDir(): string {
   return process.env.HOLDFAST_RULE_SETS ?? path.resolve(process.cwd(), 'db/rule-sets')
 }
 
-/** The shipped sample rule sets, each as version 1; returns slug → version id. */
+/** The shipped sample rule sets, each as version 1 (those already loaded are left as they are); returns slug → version id of the new ones. */
 export async function loadSampleRuleSets(db: Database): Promise<Map<string, string>> {
   const versions = new Map<string, string>()
   const dir = ruleSetsDir()
@@ -42,10 +42,12 @@ export async function loadSampleRuleSets(db: Database): Promise<Map<string, stri
     const [set] = await db
       .insert(t.ruleSets)
       .values({ slug, name: String(body.name ?? slug), sample: 'sample' })
+      .onConflictDoNothing({ target: t.ruleSets.slug })
       .returning({ id: t.ruleSets.id })
+    if (!set) continue
     const [version] = await db
       .insert(t.ruleSetVersions)
-      .values({ ruleSetId: set!.id, version: 1, body })
+      .values({ ruleSetId: set.id, version: 1, body })
       .returning({ id: t.ruleSetVersions.id })
     versions.set(slug, version!.id)
   }
