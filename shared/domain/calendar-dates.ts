@@ -95,9 +95,10 @@ export function weekdayName(day: DayNumber): string {
 }
 
 const MS_PER_DAY = 86_400_000
-// Zero-padded texts of 0–999, so writing a time converts no numbers to strings.
+// Zero-padded texts ("007", "59", "23:59"), so writing a time converts no numbers to strings.
 const threeDigits = Array.from({ length: 1000 }, (_, n) => String(n).padStart(3, '0'))
-const twoDigits = threeDigits.slice(0, 100).map((text) => text.slice(1))
+const twoDigits = threeDigits.slice(0, 60).map((text) => text.slice(1))
+const hoursMinutes = Array.from({ length: 1440 }, (_, n) => `${twoDigits[Math.floor(n / 60)]}:${twoDigits[n % 60]}`)
 
 /**
  * The same text as Date#toISOString ('2026-03-08T10:00:00.000Z'), built from day numbers:
@@ -105,11 +106,9 @@ const twoDigits = threeDigits.slice(0, 100).map((text) => text.slice(1))
  */
 export function isoInstant(ms: number): string {
   const day = Math.floor(ms / MS_PER_DAY)
-  let rest = ms - day * MS_PER_DAY
-  const hours = Math.floor(rest / 3_600_000)
-  rest -= hours * 3_600_000
+  const rest = ms - day * MS_PER_DAY
   const minutes = Math.floor(rest / 60_000)
-  rest -= minutes * 60_000
-  const seconds = Math.floor(rest / 1000)
-  return `${isoDate(day)}T${twoDigits[hours]}:${twoDigits[minutes]}:${twoDigits[seconds]}.${threeDigits[rest - seconds * 1000]}Z`
+  const millis = rest - minutes * 60_000
+  const seconds = Math.floor(millis / 1000)
+  return `${isoDate(day)}T${hoursMinutes[minutes]}:${twoDigits[seconds]}.${threeDigits[millis - seconds * 1000]}Z`
 }

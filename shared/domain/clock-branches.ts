@@ -10,26 +10,54 @@ export type Branch =
 
 type Range = { over?: number | undefined; atMost?: number | undefined }
 
-function inRange(value: number, range: Range): boolean {
-  return (range.over === undefined || value > range.over) && (range.atMost === undefined || value <= range.atMost)
+/** A step's branch condition in one fixed shape, its band texts written once per rule set. */
+type Condition = {
+  value: boolean
+  valueOver: number
+  valueAtMost: number
+  valueBand: string
+  age: boolean
+  ageOver: number
+  ageAtMost: number
+  ageBand: string
 }
 
-const bandTexts = new WeakMap<Range, string>()
+const conditions = new WeakMap<TimelineStep, Condition | null>()
 
-/** "over $500 and at most $4,000" — worked out once per rule set value, not once per vehicle. */
-function describe(range: Range, show: (n: number) => string): string {
-  let text = bandTexts.get(range)
-  if (text === undefined) {
-    const parts: string[] = []
-    if (range.over !== undefined) parts.push(`over ${show(range.over)}`)
-    if (range.atMost !== undefined) parts.push(`at most ${show(range.atMost)}`)
-    text = parts.join(' and ')
-    bandTexts.set(range, text)
-  }
-  return text
+function describe(range: Range | undefined, show: (n: number) => string): string {
+  if (!range) return ''
+  const parts: string[] = []
+  if (range.over !== undefined) parts.push(`over ${show(range.over)}`)
+  if (range.atMost !== undefined) parts.push(`at most ${show(range.atMost)}`)
+  return parts.join(' and ')
 }
 
 const years = (n: number) => `${n} ${n === 1 ? 'year' : 'years'}`
+
+function conditionOf(step: TimelineStep): Condition | null {
+  let found = conditions.get(step)
+  if (found === undefined) {
+    const value = step.when?.valueCents
+    const age = step.when?.ageYears
+    found =
+      value || age
+        ? {
+            value: value !== undefined,
+            valueOver: value?.over ?? Number.NEGATIVE_INFINITY,
+            valueAtMost: value?.atMost ?? Number.POSITIVE_INFINITY,
+            valueBand: describe(value, formatCents),
+            age: age !== undefined,
+            ageOver: age?.over ?? Number.NEGATIVE_INFINITY,
+            ageAtMost: age?.atMost ?? Number.POSITIVE_INFINITY,
+            ageBand: describe(age, years),
+          }
+        : null
+    conditions.set(step, found)
+  }
+  return found
+}
+
+const ALWAYS: Branch = { applies: true }
 
 /**
  * Whether a step's branch (a value band, an age band) fits this vehicle, and why, in words.
@@ -39,34 +67,34 @@ const years = (n: number) => `${n} ${n === 1 ? 'year' : 'years'}`
 export function branchChooser(vehicle: ClockVehicle): (step: TimelineStep, startYear: number) => Branch {
   let valuedText: string | undefined
   const valued = () => (valuedText ??= `Valued ${formatCents(vehicle.valueCents ?? 0)}`)
-  return (step, startYear) => chooseBranch(step, vehicle, valued, startYear)
+  return (step, startYear) => {
+    const condition = conditionOf(step)
+    return condition ? choose(condition, vehicle, valued, startYear) : ALWAYS
+  }
 }
 
-function chooseBranch(step: TimelineStep, vehicle: ClockVehicle, valued: () => string, startYear: number): Branch {
-  const when = step.when
-  if (!when) return { applies: true }
-  const reasons: string[] = []
-  if (when.valueCents) {
-    const band = describe(when.valueCents, formatCents)
-    if (vehicle.valueCents == null) {
-      return { applies: 'unknown', why: `Enter the vehicle's value: this applies only to vehicles valued ${band}.` }
+function choose(c: Condition, vehicle: ClockVehicle, valued: () => string, startYear: number): Branch {
+  let why = ''
+  if (c.value) {
+    const value = vehicle.valueCents
+    if (value == null) {
+      return { applies: 'unknown', why: `Enter the vehicle's value: this applies only to vehicles valued ${c.valueBand}.` }
     }
-    if (!inRange(vehicle.valueCents, when.valueCents)) {
-      return { applies: false, why: `${valued()}; this applies only to vehicles valued ${band}.` }
+    if (!(value > c.valueOver && value <= c.valueAtMost)) {
+      return { applies: false, why: `${valued()}; this applies only to vehicles valued ${c.valueBand}.` }
     }
-    reasons.push(`${valued()}: ${band}.`)
+    why = `${valued()}: ${c.valueBand}.`
   }
-  if (when.ageYears) {
-    const band = describe(when.ageYears, years)
+  if (c.age) {
     if (vehicle.modelYear == null) {
-      return { applies: 'unknown', why: `Enter the model year: this applies only to vehicles ${band} old.` }
+      return { applies: 'unknown', why: `Enter the model year: this applies only to vehicles ${c.ageBand} old.` }
     }
     const age = startYear - vehicle.modelYear
     const aged = `Model year ${vehicle.modelYear}, ${years(age)} old in ${startYear}`
-    if (!inRange(age, when.ageYears)) {
-      return { applies: false, why: `${aged}; this applies only to vehicles ${band} old.` }
+    if (!(age > c.ageOver && age <= c.ageAtMost)) {
+      return { applies: false, why: `${aged}; this applies only to vehicles ${c.ageBand} old.` }
     }
-    reasons.push(`${aged}: ${band}.`)
+    why = why === '' ? `${aged}: ${c.ageBand}.` : `${why} ${aged}: ${c.ageBand}.`
   }
-  return { applies: true, why: reasons.join(' ') }
+  return { applies: true, why }
 }

@@ -27,7 +27,7 @@ export type Deadline = {
   dayKind: TimelineStep['dayKind']
   direction: TimelineStep['direction']
   weekendDaysSkipped: number
-  holidaysSkipped: Holiday[]
+  holidaysSkipped: readonly Holiday[]
   start: { event: ClockEventKind; label: string; at?: string }
   doneBy: { event: ClockEventKind; label: string; at?: string }
   /** Why this branch of the rule (value or age band) was chosen. */

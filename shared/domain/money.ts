@@ -53,7 +53,8 @@ export function sumCents(amounts: readonly Cents[]): Cents {
 export function formatCents(cents: Cents): string {
   const sign = cents < 0 ? '-' : ''
   const whole = Math.abs(cents)
-  const dollars = String(Math.floor(whole / 100)).replace(/\B(?=(\d{3})+(?!\d))/g, ',')
+  let dollars = String(Math.floor(whole / 100))
+  for (let comma = dollars.length - 3; comma > 0; comma -= 3) dollars = `${dollars.slice(0, comma)},${dollars.slice(comma)}`
   const rest = whole % 100
   return `${sign}$${dollars}.${rest < 10 ? '0' : ''}${rest}`
 }

@@ -1,31 +1,18 @@
-import type { Fee, RuleSet, Source } from '../schemas/rule-sets'
+import type { RuleSet } from '../schemas/rule-sets'
+import { type BillLine, type FeeEvent, feeLines, storageLine } from './bill-lines'
 import { isoInstant } from './calendar-dates'
 import { countStorageDays, type DayCount } from './day-count'
 import { DomainError } from './errors'
 import { assertTimeZone, type Instant, MS_PER_DAY, toEpochMs } from './local-time'
-import { type Cents, taxOnLine, times } from './money'
+import type { Cents } from './money'
 
-export type FeeEvent = { fee: string; at: Instant }
+export type { BillLine, FeeEvent } from './bill-lines'
 
 export type StayInput = {
   arrivedAt: Instant
   releasedAt?: Instant | null
   vehicleClass: string
   feeEvents?: readonly FeeEvent[]
-}
-
-export type BillLine = {
-  kind: 'storage' | 'fee'
-  code: string
-  label: string
-  quantity: number
-  unitCents: Cents
-  amountCents: Cents
-  taxCents: Cents
-  reason: string
-  source: Source
-  /** The amount is a sample the yard has not set yet. */
-  placeholder: boolean
 }
 
 export type StorageBill = {
@@ -85,22 +72,7 @@ export function storageBill(stay: StayInput, ruleSet: RuleSet, asOf: Instant, op
 
   const dayCount = countStorageDays(arrival, end, ruleSet.storage, zone)
   const rate = ruleSet.tax.ratePercent
-  const lines: BillLine[] = [storageLine(dayCount, vehicleClass, ruleSet, rate)]
-  for (const [fee, quantity] of feeQuantities(stay.feeEvents ?? [], ruleSet, arrival, end)) {
-    const amountCents = times(fee.amountCents, quantity, fee.code)
-    lines.push({
-      kind: 'fee',
-      code: fee.code,
-      label: fee.label,
-      quantity,
-      unitCents: fee.amountCents,
-      amountCents,
-      taxCents: fee.taxable ? taxOnLine(amountCents, rate) : 0,
-      reason: fee.charged === 'once-per-stay' ? 'Charged once for the stay.' : `Charged each time: ${quantity} recorded.`,
-      source: fee.source,
-      placeholder: fee.placeholder,
-    })
-  }
+  const lines = [storageLine(dayCount, vehicleClass, ruleSet.storage, rate), ...feeLines(stay.feeEvents ?? [], ruleSet, arrival, end)]
 
   let subtotalCents = 0
   let taxCents = 0
@@ -128,71 +100,4 @@ export function storageBill(stay: StayInput, ruleSet: RuleSet, asOf: Instant, op
     warnings,
     caution: ruleSet.caution,
   }
-}
-
-function storageLine(
-  dayCount: DayCount,
-  vehicleClass: RuleSet['vehicleClasses'][number],
-  ruleSet: RuleSet,
-  rate: number,
-): BillLine {
-  let amountCents = times(vehicleClass.dailyRateCents, dayCount.days, 'storage')
-  const reasons = dayCount.steps.map((s) => s.says)
-  const cap = ruleSet.storage.cap
-  if (cap?.maxStorageCents !== undefined && amountCents > cap.maxStorageCents) {
-    amountCents = cap.maxStorageCents
-    reasons.push('Storage is capped at the rule set’s maximum charge.')
-  }
-  return {
-    kind: 'storage',
-    code: 'storage',
-    label: textOf(vehicleClass, () => `${vehicleClass.label} storage`),
-    quantity: dayCount.days,
-    unitCents: vehicleClass.dailyRateCents,
-    amountCents,
-    taxCents: ruleSet.storage.taxable ? taxOnLine(amountCents, rate) : 0,
-    reason: reasons.join(' '),
-    source: vehicleClass.source,
-    placeholder: vehicleClass.placeholder,
-  }
-}
-
-// Texts that depend only on a rule set's class or fee are made once per rule set object.
-const texts = new WeakMap<object, string>()
-
-function textOf(owner: object, make: () => string): string {
-  let text = texts.get(owner)
-  if (text === undefined) {
-    text = make()
-    texts.set(owner, text)
-  }
-  return text
-}
-
-/** How many of each fee the stay owes up to `end`, in the rule set's order. */
-function feeQuantities(events: readonly FeeEvent[], ruleSet: RuleSet, arrival: number, end: number): [Fee, number][] {
-  const counts = new Map<string, number>()
-  for (const event of events) {
-    const fee = ruleSet.fees.find((f) => f.code === event.fee)
-    if (!fee || fee.charged !== 'per-event') {
-      throw new DomainError(
-        'unknown-fee',
-        fee
-          ? `${fee.label} is charged once per stay; it is not recorded as an event.`
-          : `"${event.fee}" is not a fee of ${ruleSet.name}.`,
-        'feeEvents',
-      )
-    }
-    const at = toEpochMs(event.at, 'feeEvents.at')
-    if (at < arrival) {
-      throw new DomainError('fee-before-arrival', `${fee.label} is dated before the vehicle arrived.`, 'feeEvents')
-    }
-    if (at <= end) counts.set(fee.code, (counts.get(fee.code) ?? 0) + 1)
-  }
-  const owed: [Fee, number][] = []
-  for (const fee of ruleSet.fees) {
-    const quantity = fee.charged === 'once-per-stay' ? 1 : (counts.get(fee.code) ?? 0)
-    if (quantity > 0) owed.push([fee, quantity])
-  }
-  return owed
 }
