@@ -88,11 +88,6 @@ export function dayFromIsoDate(text: string, field = 'date'): DayNumber {
   throw new DomainError('invalid-date', `"${text}" is not a calendar date written as YYYY-MM-DD.`, field)
 }
 
-const weekdayNames = ['Sunday', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday'] as const
-
-export function weekdayName(day: DayNumber): string {
-  return weekdayNames[weekday(day)] as string
-}
 
 const MS_PER_DAY = 86_400_000
 // Zero-padded texts ("007", "59", "23:59"), so writing a time converts no numbers to strings.

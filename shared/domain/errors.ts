@@ -29,7 +29,3 @@ export class DomainError extends Error {
     super(message)
   }
 }
-
-export function isDomainError(value: unknown): value is DomainError {
-  return value instanceof DomainError
-}

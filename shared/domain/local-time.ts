@@ -114,11 +114,6 @@ export function assertTimeZone(zone: string, field = 'timeZone'): void {
   }
 }
 
-/** Milliseconds to add to a UTC instant to read the yard's wall clock. */
-export function offsetMs(zone: string, instant: number): number {
-  return zoneOffsets(zone).offset(instant)
-}
-
 /** The calendar date on the yard's wall calendar at this instant. */
 export function localDay(zone: string, instant: number): DayNumber {
   return Math.floor((instant + zoneOffsets(zone).offset(instant)) / MS_PER_DAY)

@@ -22,7 +22,7 @@ export function multiplyRounded(cents: Cents, factor: { amount: number; scale: n
 }
 
 /** Rates are stored as percentages with at most four decimals (7.25, 8.875, 0.0625). */
-export function percentFactor(percent: number): { amount: number; scale: number } {
+function percentFactor(percent: number): { amount: number; scale: number } {
   return { amount: Math.round(percent * 10_000), scale: 6 }
 }
 
@@ -47,8 +47,8 @@ export function sumCents(amounts: readonly Cents[]): Cents {
 }
 
 /**
- * "$1,234.56", in integer arithmetic: a clock list formats a value per vehicle, and this is
- * twenty times quicker than asking Intl (the tests hold it to Intl's en-US currency format).
+ * "$1,234.56", in integer arithmetic: clock lists format a value for every vehicle, and Intl
+ * is slow at that; the tests hold this to Intl's en-US currency format.
  */
 export function formatCents(cents: Cents): string {
   const sign = cents < 0 ? '-' : ''

@@ -4,7 +4,7 @@
  * for passenger cars, MPVs and trucks of 10,000 lb GVWR or less (565.15(b), 73 FR 23367):
  * numeric → the earlier cycle, a letter → the later one. U, Z and 0 are never year codes.
  */
-export const YEAR_CODES = 'ABCDEFGHJKLMNPRSTVWXY123456789'
+const YEAR_CODES = 'ABCDEFGHJKLMNPRSTVWXY123456789'
 
 /** 'light': passenger car, MPV or truck ≤ 10,000 lb GVWR; 'heavy-or-trailer': anything else. */
 export type VinVehicleKind = 'light' | 'heavy-or-trailer'
