@@ -29,6 +29,26 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/rule-sets/:id/holidays': 'board.view',
   'POST /api/quotes/storage': 'board.view',
   'POST /api/quotes/clocks': 'board.view',
+
+  // Named paths before '/:id', which would match them too.
+  'GET /api/vehicles/intake-options': 'towin.write',
+  'GET /api/vehicles/search': 'board.view',
+  'POST /api/vehicles': 'towin.write',
+  'GET /api/vehicles/:id': 'board.view',
+  'PATCH /api/vehicles/:id': 'towin.write',
+  'GET /api/vehicles/:id/history': 'board.view',
+  'GET /api/vehicles/:id/history/verify': 'board.view',
+  'POST /api/vehicles/:vehicleId/holds': 'towin.write',
+  'POST /api/vehicles/:vehicleId/holds/:holdId/lift': 'towin.write',
+  'PUT /api/vehicles/:vehicleId/space': 'towin.write',
+  'POST /api/vehicles/:vehicleId/files': 'towin.write',
+  'GET /api/files/:id': 'board.view',
+  'GET /api/files/:id/thumb': 'board.view',
+  'GET /api/spaces': 'board.view',
+  'GET /api/map/settings': 'board.view',
+  'GET /api/fakes/tiles/:z/:x/:y.png': 'staff',
+  'GET /api/fakes/geocoder/search': 'staff',
+  'GET /api/fakes/geocoder/reverse': 'staff',
 }
 
 const compiled = Object.entries(ACCESS).map(([key, rule]) => {

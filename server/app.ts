@@ -8,6 +8,10 @@ import type { Database } from '../db/client'
 import { enforceAccess } from './access'
 import { boardRouter } from './board/index'
 import { errorHandler, notFoundHandler } from './errors'
+import { fakesRouter } from './fakes/fakes.routes'
+import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
+import { holdsRouter } from './holds/index'
+import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
 import { quotesRouter } from './quotes/quotes.routes'
 import { ruleSetsRouter } from './rule-sets/rule-sets.routes'
 import { healthRouter } from './health/health.routes'
@@ -15,7 +19,9 @@ import { csrfProtection } from './middleware/csrf'
 import { currentUser } from './middleware/current-user'
 import { sessionMiddleware } from './middleware/session'
 import { sessionRouter, type SignInLimits } from './session/index'
+import { spacesRouter, vehicleSpaceRouter } from './spaces/index'
 import { usersRouter } from './users/index'
+import { vehiclesRouter } from './vehicles/index'
 import { yardsRouter } from './yards/index'
 
 export interface AppDeps {
@@ -30,12 +36,17 @@ export interface AppDeps {
   signInLimits?: SignInLimits
   /** The built client (index.html and assets); absent in API tests. */
   clientDir?: string
+  /** Uploaded photos and papers, kept outside any served folder. */
+  files: FileStore
+  /** Tile and geocoder URLs; the built-in stand-ins when absent. */
+  map?: MapConfig
 }
 
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
 
 export function createApp(deps: AppDeps): Express {
-  const { db, log } = deps
+  const { db, log, files } = deps
+  const map = deps.map ?? LOCAL_MAP
   const app = express()
   app.disable('x-powered-by')
   if (deps.trustProxy) app.set('trust proxy', deps.trustProxy)
@@ -45,7 +56,8 @@ export function createApp(deps: AppDeps): Express {
       contentSecurityPolicy: {
         directives: {
           'default-src': ["'self'"],
-          'img-src': ["'self'", 'data:', 'blob:'],
+          'img-src': ["'self'", 'data:', 'blob:', ...cspSources(map.tileUrl)],
+          'connect-src': ["'self'", ...cspSources(map.geocoderUrl)],
           'font-src': ["'self'", 'data:'],
           'style-src': ["'self'", "'unsafe-inline'"],
           'frame-ancestors': ["'none'"],
@@ -72,6 +84,14 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/board', boardRouter(db))
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
+  app.use('/api/vehicles/:vehicleId/holds', holdsRouter(db))
+  app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(db))
+  app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(db, files))
+  app.use('/api/vehicles', vehiclesRouter(db, files))
+  app.use('/api/files', filesRouter(db, files))
+  app.use('/api/spaces', spacesRouter(db))
+  app.use('/api/map', mapRouter(db, map))
+  if (usesLocalFakes(map)) app.use('/api/fakes', fakesRouter())
   app.use('/api', notFoundHandler)
 
   if (deps.clientDir && existsSync(path.join(deps.clientDir, 'index.html'))) serveClient(app, deps.clientDir)

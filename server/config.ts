@@ -1,5 +1,6 @@
 import path from 'node:path'
 import { z } from 'zod'
+import { LOCAL_MAP, type MapConfig } from './map/map-config'
 
 const flag = z
   .enum(['0', '1', 'true', 'false', 'yes', 'no'])
@@ -19,6 +20,13 @@ const envSchema = z.object({
   HOLDFAST_SIGNIN_PER_IP: z.coerce.number().int().min(1).default(50),
   HOLDFAST_SIGNIN_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  // Uploaded photos and papers; outside any served folder. Defaults to <data dir>/files.
+  HOLDFAST_FILES_DIR: z.string().min(1).optional(),
+  // A z/x/y tile template and a Nominatim-style geocoder; by default the built-in local stand-ins.
+  HOLDFAST_TILE_URL: z.string().regex(/^(https?:\/\/|\/).*\{z\}.*\{x\}.*\{y\}/, 'HOLDFAST_TILE_URL must be a tile template with {z}, {x} and {y}').optional(),
+  HOLDFAST_TILE_ATTRIBUTION: z.string().max(300).optional(),
+  HOLDFAST_MAP_MAX_ZOOM: z.coerce.number().int().min(1).max(22).default(19),
+  HOLDFAST_GEOCODER_URL: z.string().regex(/^(https?:\/\/|\/)/, 'HOLDFAST_GEOCODER_URL must be an http(s) URL or a path on this server').optional(),
 })
 
 export interface Config {
@@ -35,6 +43,8 @@ export interface Config {
   logLevel: string
   signInLimits: { perIp: number; perAccount: number; windowMs: number }
   clientDir: string
+  filesDir: string
+  map: MapConfig
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -58,5 +68,12 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     logLevel: e.LOG_LEVEL,
     signInLimits: { perIp: e.HOLDFAST_SIGNIN_PER_IP, perAccount: e.HOLDFAST_SIGNIN_PER_ACCOUNT, windowMs: 15 * 60_000 },
     clientDir: path.resolve(process.env.HOLDFAST_CLIENT_DIR ?? 'dist/client'),
+    filesDir: path.resolve(e.HOLDFAST_FILES_DIR ?? path.join(dataDir, 'files')),
+    map: {
+      tileUrl: e.HOLDFAST_TILE_URL ?? LOCAL_MAP.tileUrl,
+      tileAttribution: e.HOLDFAST_TILE_ATTRIBUTION ?? (e.HOLDFAST_TILE_URL ? '' : LOCAL_MAP.tileAttribution),
+      maxZoom: e.HOLDFAST_MAP_MAX_ZOOM,
+      geocoderUrl: (e.HOLDFAST_GEOCODER_URL ?? LOCAL_MAP.geocoderUrl).replace(/\/+$/, ''),
+    },
   }
 }

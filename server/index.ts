@@ -2,6 +2,7 @@ import { pino } from 'pino'
 import { openDatabase, DataDirLockedError, type DatabaseHandle } from '../db/client'
 import { loadDemoIfEmpty } from '../db/seed'
 import { createApp } from './app'
+import { localFileStore } from './files/index'
 import { loadConfig } from './config'
 import { pruneExpiredSessions } from './session/index'
 import { sessionSecret } from './session/secret'
@@ -48,6 +49,8 @@ const app = createApp({
   origins: config.origins,
   clientDir: config.clientDir,
   signInLimits: config.signInLimits,
+  files: localFileStore(config.filesDir),
+  map: config.map,
 })
 
 const server = app.listen(config.port, config.host, () => {

@@ -14,6 +14,8 @@ export const files = pgTable(
     thumbKey: text(),
     mime: text().notNull(),
     bytes: integer().notNull(),
+    // SHA-256 of the stored bytes, also written into the history event: a swapped file is detectable.
+    sha256: text().notNull(),
     width: integer(),
     height: integer(),
     label: text(),

@@ -1,9 +1,8 @@
 import { index, pgTable, text, uuid } from 'drizzle-orm/pg-core'
+import { HOLD_KINDS } from '../../shared/domain/hold-kinds'
 import { users } from './users'
 import { vehicles } from './vehicles'
 import { at, createdAt, id } from './columns'
-
-export const HOLD_KINDS = ['law_enforcement', 'lien', 'dispute', 'other'] as const
 
 export const holds = pgTable(
   'holds',

@@ -1,16 +1,7 @@
-import { doublePrecision, integer, jsonb, pgTable, text, uuid } from 'drizzle-orm/pg-core'
+import { boolean, doublePrecision, integer, jsonb, pgTable, text, uuid } from 'drizzle-orm/pg-core'
+import { TOW_REASONS } from '../../shared/domain/tow-reasons'
 import { vehicles } from './vehicles'
 import { at, createdAt, id } from './columns'
-
-export const TOW_REASONS = [
-  'breakdown',
-  'accident',
-  'private_property',
-  'law_enforcement',
-  'owner_request',
-  'repossession',
-  'other',
-] as const
 
 export const tows = pgTable('tows', {
   id: id(),
@@ -31,6 +22,10 @@ export const tows = pgTable('tows', {
   // Great-circle miles from the pin; road miles typed in by the driver win when present.
   straightMiles: doublePrecision(),
   roadMiles: doublePrecision(),
+  // The add-ons billed with the tow, kept apart from the charge so a correction can recompute it.
+  winchingUnits: integer().notNull().default(0),
+  dollies: boolean().notNull().default(false),
+  afterHours: boolean().notNull().default(false),
   chargeCents: integer().notNull().default(0),
   chargeLines: jsonb().$type<unknown[]>().notNull().default([]),
   createdAt: createdAt(),

@@ -20,10 +20,24 @@ export type BillLine = {
   placeholder: boolean
 }
 
-// Texts that depend only on a rule set's class are made once per rule set object.
-const storageLabels = new WeakMap<VehicleClass, string>()
+// Texts that depend only on a class or a fee of a rule set are made once per rule set object.
+const labels = new WeakMap<VehicleClass, string>()
+const warningTexts = new WeakMap<object, string>()
 
-export function storageLine(dayCount: DayCount, vehicleClass: VehicleClass, rules: StorageRules, rate: number): BillLine {
+function placeholderWarning(owner: object, label: string): string {
+  let text = warningTexts.get(owner)
+  if (text === undefined) warningTexts.set(owner, (text = `${label}: the amount is a sample — set your rate.`))
+  return text
+}
+
+/** The storage line; a placeholder rate adds its warning to `warnings`. */
+export function storageLine(
+  dayCount: DayCount,
+  vehicleClass: VehicleClass,
+  rules: StorageRules,
+  rate: number,
+  warnings: string[],
+): BillLine {
   let amountCents = times(vehicleClass.dailyRateCents, dayCount.days, 'storage')
   let reason = dayCount.steps.length === 1 ? (dayCount.steps[0]?.says as string) : dayCount.steps.map((s) => s.says).join(' ')
   const maxCents = rules.cap?.maxStorageCents
@@ -31,8 +45,9 @@ export function storageLine(dayCount: DayCount, vehicleClass: VehicleClass, rule
     amountCents = maxCents
     reason += ' Storage is capped at the rule set’s maximum charge.'
   }
-  let label = storageLabels.get(vehicleClass)
-  if (label === undefined) storageLabels.set(vehicleClass, (label = `${vehicleClass.label} storage`))
+  let label = labels.get(vehicleClass)
+  if (label === undefined) labels.set(vehicleClass, (label = `${vehicleClass.label} storage`))
+  if (vehicleClass.placeholder) warnings.push(placeholderWarning(vehicleClass, label))
   return {
     kind: 'storage',
     code: 'storage',
@@ -47,8 +62,15 @@ export function storageLine(dayCount: DayCount, vehicleClass: VehicleClass, rule
   }
 }
 
-/** The one-off fees a stay owes up to `end`, in the rule set's order. */
-export function feeLines(events: readonly FeeEvent[], ruleSet: RuleSet, arrival: number, end: number): BillLine[] {
+/** Adds the one-off fees a stay owes up to `end` to `lines`, in the rule set's order. */
+export function feeLines(
+  events: readonly FeeEvent[],
+  ruleSet: RuleSet,
+  arrival: number,
+  end: number,
+  lines: BillLine[],
+  warnings: string[],
+): void {
   const fees = ruleSet.fees
   const counts = fees.map((fee): number => (fee.charged === 'once-per-stay' ? 1 : 0))
   for (const event of events) {
@@ -69,10 +91,10 @@ export function feeLines(events: readonly FeeEvent[], ruleSet: RuleSet, arrival:
     }
     if (at <= end) counts[index] = (counts[index] as number) + 1
   }
-  const lines: BillLine[] = []
   fees.forEach((fee, index) => {
     const quantity = counts[index] as number
     if (quantity === 0) return
+    if (fee.placeholder) warnings.push(placeholderWarning(fee, fee.label))
     const amountCents = times(fee.amountCents, quantity, fee.code)
     lines.push({
       kind: 'fee',
@@ -87,5 +109,4 @@ export function feeLines(events: readonly FeeEvent[], ruleSet: RuleSet, arrival:
       placeholder: fee.placeholder,
     })
   })
-  return lines
 }

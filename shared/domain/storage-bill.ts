@@ -72,15 +72,15 @@ export function storageBill(stay: StayInput, ruleSet: RuleSet, asOf: Instant, op
 
   const dayCount = countStorageDays(arrival, end, ruleSet.storage, zone)
   const rate = ruleSet.tax.ratePercent
-  const lines = [storageLine(dayCount, vehicleClass, ruleSet.storage, rate), ...feeLines(stay.feeEvents ?? [], ruleSet, arrival, end)]
+  const warnings: string[] = []
+  const lines = [storageLine(dayCount, vehicleClass, ruleSet.storage, rate, warnings)]
+  feeLines(stay.feeEvents ?? [], ruleSet, arrival, end, lines, warnings)
 
   let subtotalCents = 0
   let taxCents = 0
-  const warnings: string[] = []
   for (const line of lines) {
     subtotalCents += line.amountCents
     taxCents += line.taxCents
-    if (line.placeholder) warnings.push(`${line.label}: the amount is a sample — set your rate.`)
   }
   if (ruleSet.tax.placeholder && taxCents > 0) warnings.push('The tax rate is a sample — set your rate.')
   return {

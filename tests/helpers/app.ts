@@ -1,17 +1,22 @@
-import { readFileSync } from 'node:fs'
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import path from 'node:path'
 import { pino } from 'pino'
 import request from 'supertest'
 import { inject } from 'vitest'
 import { openDatabase, type Database } from '../../db/client'
 import { createApp, type AppDeps } from '../../server/app'
+import { localFileStore } from '../../server/files/index'
 
 let template: Buffer | undefined
 
-/** A fresh, migrated in-memory database and an app on it; no port is opened. */
+/** A fresh, migrated in-memory database, a files folder of its own, and an app on them; no port is opened. */
 export async function makeTestApp(overrides: Partial<AppDeps> = {}) {
   template ??= readFileSync(inject('templateDataDir'))
   const handle = await openDatabase({ kind: 'memory', loadDataDir: new Blob([new Uint8Array(template)]) })
+  const filesDir = mkdtempSync(path.join(tmpdir(), 'holdfast-files-'))
   const app = createApp({
+    files: localFileStore(filesDir),
     db: handle.db,
     log: pino({ level: 'silent' }),
     sessionSecret: 'test-secret-that-is-long-enough-for-signing',
@@ -19,7 +24,15 @@ export async function makeTestApp(overrides: Partial<AppDeps> = {}) {
     signInLimits: { perAccount: 1000, perIp: 1000, windowMs: 60_000 },
     ...overrides,
   })
-  return { app, db: handle.db, close: () => handle.close() }
+  return {
+    app,
+    db: handle.db,
+    filesDir,
+    async close() {
+      await handle.close()
+      rmSync(filesDir, { recursive: true, force: true })
+    },
+  }
 }
 
 export type TestApp = Awaited<ReturnType<typeof makeTestApp>>

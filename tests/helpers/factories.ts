@@ -7,9 +7,16 @@ import { hashPassword } from '../../server/users/passwords'
 export const TEST_PASSWORD = 'correct horse battery'
 let passwordHash: Promise<string> | undefined
 
+// Yard codes are unique; random two-letter ones collided within a file's few dozen companies.
+let yardCount = Math.floor(Math.random() * 17_576)
+function nextYardCode() {
+  const n = yardCount++ % 17_576
+  return 'T' + [676, 26, 1].map((d) => String.fromCharCode(65 + (Math.floor(n / d) % 26))).join('')
+}
+
 export async function makeCompany(db: Database, name = 'Test Towing') {
   const [company] = await db.insert(t.companies).values({ name }).returning()
-  const code = 'T' + String.fromCharCode(65 + Math.floor(Math.random() * 26)) + String.fromCharCode(65 + Math.floor(Math.random() * 26))
+  const code = nextYardCode()
   const [yard] = await db
     .insert(t.yards)
     .values({ companyId: company!.id, name: `${name} yard`, code, address: '1 Test Road', lat: 36.4, lng: -119.35, timeZone: 'America/Los_Angeles' })

@@ -1,0 +1,55 @@
+import { Router, type Response } from 'express'
+import { z } from 'zod'
+import type { Database } from '../../db/client'
+import { uploadFieldsSchema } from '../../shared/schemas/files'
+import { notFound } from '../errors'
+import { FileMissingError, type FileStore } from './file-store'
+import { fileForUser, filesOf } from './files.queries'
+import { addFiles } from './files.service'
+import { receiveFiles } from './upload'
+
+const vehicleParam = z.object({ vehicleId: z.uuid({ error: 'That is not a vehicle id.' }) })
+const fileParam = z.object({ id: z.uuid({ error: 'That is not a file id.' }) })
+
+/** POST /api/vehicles/:vehicleId/files — photos, IDs and papers added to a vehicle's record. */
+export function vehicleFilesRouter(db: Database, store: FileStore): Router {
+  const router = Router({ mergeParams: true })
+  router.post('/', receiveFiles('files'), async (req, res) => {
+    const { vehicleId } = vehicleParam.parse(req.params)
+    const { kind, label } = uploadFieldsSchema.parse(req.body ?? {})
+    const incoming = (req.files as Express.Multer.File[] | undefined) ?? []
+    const ids = await addFiles(db, store, req.user!, vehicleId, incoming, kind, label)
+    res.status(201).json({ files: await filesOf(db, vehicleId, ids) })
+  })
+  return router
+}
+
+/** GET /api/files/:id and /api/files/:id/thumb — streamed only to signed-in staff of the company. */
+export function filesRouter(db: Database, store: FileStore): Router {
+  const router = Router()
+  const send = async (res: Response, userId: string, id: string, thumb: boolean) => {
+    const found = await fileForUser(db, userId, id)
+    const key = thumb ? found?.file.thumbKey : found?.file.storageKey
+    if (!found || !key) throw notFound('That file')
+    const { file, stockNumber } = found
+    const opened = await store.get(key).catch((err) => {
+      if (err instanceof FileMissingError) throw notFound('That file')
+      throw err
+    })
+    const ext = file.mime === 'application/pdf' ? 'pdf' : 'jpg'
+    const name = `${stockNumber}-${file.kind}-${file.id.slice(0, 8)}${thumb ? '-small' : ''}.${ext}`
+    res.setHeader('Content-Type', thumb ? 'image/jpeg' : file.mime)
+    res.setHeader('Content-Length', String(opened.bytes))
+    // Images open in the page; a PDF is downloaded rather than rendered inside Holdfast's origin.
+    res.setHeader('Content-Disposition', `${file.mime === 'application/pdf' ? 'attachment' : 'inline'}; filename="${name}"`)
+    res.setHeader('X-Content-Type-Options', 'nosniff')
+    res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox")
+    // A file id never names other bytes, so the browser may keep it; "private" keeps shared caches out.
+    res.setHeader('Cache-Control', 'private, max-age=86400, immutable')
+    opened.stream.on('error', (err) => res.destroy(err))
+    opened.stream.pipe(res)
+  }
+  router.get('/:id', async (req, res) => send(res, req.user!.id, fileParam.parse(req.params).id, false))
+  router.get('/:id/thumb', async (req, res) => send(res, req.user!.id, fileParam.parse(req.params).id, true))
+  return router
+}

@@ -1,0 +1,36 @@
+import sharp from 'sharp'
+
+/** The longest side kept: enough to read a VIN plate or a scratch, without phone-size originals. */
+const MAX_SIDE = 3200
+const THUMB_SIDE = 480
+// A decompression bomb (a tiny file that opens to gigapixels) is refused before it is decoded.
+const MAX_INPUT_PIXELS = 80_000_000
+
+export interface Reencoded {
+  data: Buffer
+  thumb: Buffer
+  width: number
+  height: number
+}
+
+export class UnreadableImageError extends Error {}
+
+/**
+ * Decodes and re-encodes as JPEG. `rotate()` turns the pixels by the EXIF orientation, so the photo
+ * stays the right way up, and the output carries no metadata at all: GPS, camera serials and
+ * editing history are dropped with the rest.
+ */
+export async function reencodeImage(input: Buffer): Promise<Reencoded> {
+  try {
+    const { data, info } = await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS })
+      .rotate()
+      .resize({ width: MAX_SIDE, height: MAX_SIDE, fit: 'inside', withoutEnlargement: true })
+      .flatten({ background: '#ffffff' })
+      .jpeg({ quality: 84, mozjpeg: true })
+      .toBuffer({ resolveWithObject: true })
+    const thumb = await sharp(data).resize({ width: THUMB_SIDE, height: THUMB_SIDE, fit: 'inside' }).jpeg({ quality: 72 }).toBuffer()
+    return { data, thumb, width: info.width, height: info.height }
+  } catch (err) {
+    throw new UnreadableImageError((err as Error).message)
+  }
+}

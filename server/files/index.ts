@@ -1,0 +1,6 @@
+export { localFileStore, type FileStore } from './file-store'
+export { filesRouter, vehicleFilesRouter } from './files.routes'
+export { filesOf } from './files.queries'
+export { putFiles, recordFiles } from './files.service'
+export { prepareUploads } from './prepare'
+export { receiveFiles } from './upload'

@@ -1,0 +1,1 @@
+export { holdsRouter } from './holds.routes'

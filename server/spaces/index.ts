@@ -1,0 +1,1 @@
+export { spacesRouter, vehicleSpaceRouter } from './spaces.routes'

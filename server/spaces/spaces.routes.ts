@@ -1,0 +1,31 @@
+import { Router } from 'express'
+import { z } from 'zod'
+import type { Database } from '../../db/client'
+import { assignSpaceSchema } from '../../shared/schemas/spaces'
+import { notFound } from '../errors'
+import { yardOfUser } from '../yards/yards.queries'
+import { spacesOfYard } from './spaces.queries'
+import { assignSpace } from './spaces.service'
+
+const vehicleParam = z.object({ vehicleId: z.uuid({ error: 'That is not a vehicle id.' }) })
+
+/** GET /api/spaces — the yard's spaces and who is in each. */
+export function spacesRouter(db: Database): Router {
+  const router = Router()
+  router.get('/', async (req, res) => {
+    const yard = await yardOfUser(db, req.user!.id)
+    if (!yard) throw notFound('A yard for your company')
+    res.json({ spaces: await spacesOfYard(db, yard.id) })
+  })
+  return router
+}
+
+/** PUT /api/vehicles/:vehicleId/space */
+export function vehicleSpaceRouter(db: Database): Router {
+  const router = Router({ mergeParams: true })
+  router.put('/', async (req, res) => {
+    const { vehicleId } = vehicleParam.parse(req.params)
+    res.json(await assignSpace(db, req.user!, vehicleId, assignSpaceSchema.parse(req.body)))
+  })
+  return router
+}

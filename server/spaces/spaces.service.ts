@@ -1,0 +1,37 @@
+import type { Database } from '../../db/client'
+import { appendHistory } from '../../db/history'
+import type { AssignSpace } from '../../shared/schemas/spaces'
+import type { User } from '../../shared/schemas/users'
+import { conflict, unprocessable } from '../errors'
+import { spaceOf } from '../vehicles/vehicle-page.queries'
+import { bumpVersion, vehicleForUser } from '../vehicles/vehicles.queries'
+import { freeSpace, isSpaceConflict, spaceTaken } from './spaces.queries'
+
+/** Puts a vehicle in a space (or takes it out of one); a space holds one vehicle at a time. */
+export async function assignSpace(db: Database, actor: User, vehicleId: string, input: AssignSpace) {
+  try {
+    return await db.transaction(async (tx) => {
+      const { vehicle, yard } = await vehicleForUser(tx, actor.id, vehicleId, true)
+      if (input.version !== vehicle.version) {
+        throw conflict('Someone else changed this vehicle after you opened it. Reload and choose the space again.', { version: vehicle.version })
+      }
+      if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard and no longer takes a space.')
+      if (input.spaceId === vehicle.spaceId) throw unprocessable('The vehicle is already in that space.')
+      const from = await spaceOf(tx, vehicle.spaceId)
+      const to = input.spaceId ? await freeSpace(tx, yard.id, input.spaceId, 'spaceId', vehicleId) : null
+      const version = await bumpVersion(tx, vehicleId, vehicle.version, { spaceId: input.spaceId })
+      await appendHistory(tx, {
+        vehicleId,
+        actorId: actor.id,
+        actorLabel: actor.name,
+        kind: 'space_assigned',
+        before: { space: from?.label ?? null },
+        after: { space: to },
+      })
+      return { version: version!, space: to }
+    })
+  } catch (err) {
+    if (isSpaceConflict(err)) throw spaceTaken(null, 'spaceId')
+    throw err
+  }
+}

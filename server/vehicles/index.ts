@@ -1,0 +1,2 @@
+export { vehiclesRouter } from './vehicles.routes'
+export { vehicleForUser, bumpVersion } from './vehicles.queries'

@@ -1,0 +1,39 @@
+import type { Executor } from '../../db/client'
+import type { yards } from '../../db/schema/index'
+import { towRatesSchema } from '../../shared/schemas/tows'
+import { badRequest } from '../errors'
+import { latestVersionOf, versionsById } from '../rule-sets/rule-sets.queries'
+
+type Yard = typeof yards.$inferSelect
+
+/** Without a rule set a yard still logs vehicles, under one class, and bills nothing until one is chosen. */
+const NO_RULE_SET_CLASSES = [{ code: 'standard', label: 'Standard' }]
+
+/** The yard's current rule set: what a tow-in is billed under from now on. */
+export async function intakeRules(db: Executor, yard: Yard) {
+  const current = yard.ruleSetId ? await latestVersionOf(db, yard.ruleSetId) : undefined
+  return {
+    versionId: current?.versionId ?? null,
+    ruleSet: current ? { name: current.ruleSet.name, caution: current.ruleSet.caution } : null,
+    classes: current ? current.ruleSet.vehicleClasses.map((c) => ({ code: c.code, label: c.label })) : NO_RULE_SET_CLASSES,
+  }
+}
+
+/** The classes of the rule-set version a vehicle arrived under (a correction stays within it). */
+export async function classesOfVersion(db: Executor, versionId: string | null) {
+  if (!versionId) return NO_RULE_SET_CLASSES
+  const found = (await versionsById(db, [versionId])).get(versionId)
+  return found ? found.vehicleClasses.map((c) => ({ code: c.code, label: c.label })) : NO_RULE_SET_CLASSES
+}
+
+export function assertKnownClass(classes: { code: string; label: string }[], code: string, path = 'vehicle.vehicleClass') {
+  if (classes.some((c) => c.code === code)) return
+  const message = `Choose one of the rule set's classes: ${classes.map((c) => c.label).join(', ')}.`
+  throw badRequest(message, [{ path, message }])
+}
+
+/** The yard's tow rates; a yard whose manager has not set them bills the tow at nothing, and says so. */
+export function yardTowRates(yard: Yard) {
+  const raw = yard.towRates
+  return { rates: towRatesSchema.parse(raw), ratesSet: typeof raw.hookUpCents === 'number' }
+}

@@ -1,0 +1,62 @@
+import { and, desc, eq, or, sql, type SQLWrapper } from 'drizzle-orm'
+import type { Executor } from '../../db/client'
+import { users, vehicles, yards } from '../../db/schema/index'
+import type { SearchHit } from '../../shared/schemas/search'
+
+const LIMIT = 20
+/** A VIN fragment shorter than this matches too many vehicles to be a search. */
+const MIN_VIN = 6
+
+const likeEscaped = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`)
+/** Plates and stock numbers compared without spaces and dashes, as people read them out. */
+const squeezed = (s: string) => s.toUpperCase().replace(/[\s-]+/g, '')
+const squeezedColumn = (col: SQLWrapper) => sql`regexp_replace(upper(coalesce(${col}, '')), '[[:space:]-]+', '', 'g')`
+
+/** Vehicles of the staff member's company by stock number, plate, VIN (6+ characters) or owner name. */
+export async function searchVehicles(db: Executor, userId: string, q: string): Promise<SearchHit[]> {
+  const key = squeezed(q)
+  const pattern = `%${likeEscaped(key)}%`
+  const words = `%${likeEscaped(q.trim().toLowerCase())}%`
+  const matches = [
+    sql`${squeezedColumn(vehicles.stockNumber)} like ${pattern}`,
+    sql`${squeezedColumn(vehicles.plate)} like ${pattern}`,
+    sql`lower(${vehicles.ownerName}) like ${words}`,
+  ]
+  if (key.length >= MIN_VIN) matches.push(sql`${vehicles.vin} like ${pattern}`)
+  const rows = await db
+    .select({
+      id: vehicles.id,
+      stockNumber: vehicles.stockNumber,
+      year: vehicles.year,
+      make: vehicles.make,
+      model: vehicles.model,
+      colour: vehicles.colour,
+      plate: vehicles.plate,
+      vin: vehicles.vin,
+      ownerName: vehicles.ownerName,
+      state: vehicles.state,
+    })
+    .from(vehicles)
+    .innerJoin(yards, eq(yards.id, vehicles.yardId))
+    .innerJoin(users, eq(users.companyId, yards.companyId))
+    .where(and(eq(users.id, userId), or(...matches)))
+    // Vehicles still on the lot first, newest arrivals first.
+    .orderBy(sql`${vehicles.state} = 'closed'`, desc(vehicles.arrivedAt))
+    .limit(LIMIT)
+  return rows.map((r) => ({
+    id: r.id,
+    stockNumber: r.stockNumber,
+    title: [r.year, r.make, r.model, r.colour].filter(Boolean).join(' ') || 'Vehicle',
+    plate: r.plate,
+    vin: r.vin,
+    ownerName: r.ownerName,
+    state: r.state,
+    matched: squeezed(r.stockNumber).includes(key)
+      ? 'stock number'
+      : squeezed(r.plate ?? '').includes(key)
+        ? 'plate'
+        : key.length >= MIN_VIN && (r.vin ?? '').includes(key)
+          ? 'VIN'
+          : 'owner',
+  }))
+}

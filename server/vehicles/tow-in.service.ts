@@ -1,0 +1,99 @@
+import { randomUUID } from 'node:crypto'
+import { and, eq } from 'drizzle-orm'
+import type { Database, Tx } from '../../db/client'
+import { appendHistory } from '../../db/history'
+import { holds, propertyItems, tows, users, vehicles } from '../../db/schema/index'
+import { TOW_REASON_LABELS } from '../../shared/domain/tow-reasons'
+import type { TowIn } from '../../shared/schemas/tow-in'
+import type { User } from '../../shared/schemas/users'
+import { badRequest, notFound } from '../errors'
+import { putFiles, recordFiles, type StoredFile } from '../files/files.service'
+import type { FileStore } from '../files/file-store'
+import { prepareUploads, type Incoming } from '../files/prepare'
+import { freeSpace, isSpaceConflict, spaceTaken } from '../spaces/spaces.queries'
+import { yardOfUser } from '../yards/yards.queries'
+import { assertKnownClass, intakeRules } from './rules'
+import { nextStockNumber } from './stock-numbers'
+import { towColumns } from './tow-charge'
+import type { YardRow } from './vehicles.queries'
+
+/**
+ * Logs a vehicle in: stock number, vehicle, tow, holds, property, space and photos in one
+ * transaction, with the first links of its history. Photos are checked and stored first and
+ * removed again if the transaction fails, so a refused tow-in leaves neither rows nor files.
+ */
+export async function createTowIn(db: Database, store: FileStore, actor: User, input: TowIn, photos: Incoming[]) {
+  const yard = await yardOfUser(db, actor.id)
+  if (!yard) throw notFound('A yard for your company')
+  const rules = await intakeRules(db, yard)
+  assertKnownClass(rules.classes, input.vehicle.vehicleClass)
+  await assertSameCompany(db, yard, input.condition.checkedById)
+  const prepared = await prepareUploads(photos, 'photo', 'photos')
+  const vehicleId = randomUUID()
+  const { stored, discard } = await putFiles(store, vehicleId, prepared)
+  try {
+    return await db.transaction((tx) => insertTowIn(tx, yard, actor, input, { vehicleId, ruleSetVersionId: rules.versionId, photos: stored }))
+  } catch (err) {
+    await discard()
+    if (isSpaceConflict(err)) throw spaceTaken(null, 'spaceId')
+    throw err
+  }
+}
+
+async function assertSameCompany(db: Database, yard: YardRow, userId: string) {
+  const [found] = await db.select({ id: users.id }).from(users).where(and(eq(users.id, userId), eq(users.companyId, yard.companyId), eq(users.active, true)))
+  const message = 'Choose who checked the vehicle from the staff list.'
+  if (!found) throw badRequest(message, [{ path: 'condition.checkedById', message }])
+}
+
+interface Extras {
+  vehicleId: string
+  ruleSetVersionId: string | null
+  photos: StoredFile[]
+}
+
+async function insertTowIn(tx: Tx, yard: YardRow, actor: User, input: TowIn, extras: Extras) {
+  const { tow, vehicle: v, condition } = input
+  const space = input.spaceId ? await freeSpace(tx, yard.id, input.spaceId, 'spaceId') : null
+  const towRow = towColumns(tow, yard)
+  const stockNumber = await nextStockNumber(tx, yard, towRow.arrivedAt)
+  await tx.insert(vehicles).values({
+    id: extras.vehicleId,
+    yardId: yard.id,
+    stockNumber,
+    ...v,
+    spaceId: input.spaceId,
+    conditionNotes: condition.damageNotes,
+    checkedById: condition.checkedById,
+    ruleSetVersionId: extras.ruleSetVersionId,
+    arrivedAt: towRow.arrivedAt,
+  })
+  await tx.insert(tows).values({ vehicleId: extras.vehicleId, ...towRow })
+  if (condition.property.length > 0) {
+    await tx.insert(propertyItems).values(condition.property.map((p) => ({ vehicleId: extras.vehicleId, ...p })))
+  }
+  const actorRef = { vehicleId: extras.vehicleId, actorId: actor.id, actorLabel: actor.name }
+  await appendHistory(tx, {
+    ...actorRef,
+    kind: 'towed_in',
+    toState: 'arrival',
+    reason: TOW_REASON_LABELS[tow.reason],
+    after: {
+      stockNumber,
+      vin: v.vin,
+      plate: v.plate,
+      vehicle: [v.year, v.make, v.model, v.colour].filter(Boolean).join(' '),
+      vehicleClass: v.vehicleClass,
+      pickup: tow.pickup.address ?? `${tow.pickup.lat.toFixed(5)}, ${tow.pickup.lng.toFixed(5)}`,
+      chargeCents: towRow.chargeCents,
+      space,
+      propertyItems: condition.property.length,
+    },
+  })
+  for (const h of input.holds) {
+    const [row] = await tx.insert(holds).values({ vehicleId: extras.vehicleId, ...h, until: h.until ? new Date(h.until) : null, setById: actor.id }).returning({ id: holds.id })
+    await appendHistory(tx, { ...actorRef, kind: 'hold_set', after: { holdId: row!.id, kind: h.kind, agency: h.agency, caseNumber: h.caseNumber, until: h.until, note: h.note } })
+  }
+  await recordFiles(tx, extras.vehicleId, extras.photos, actor)
+  return { id: extras.vehicleId, stockNumber }
+}

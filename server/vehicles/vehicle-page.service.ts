@@ -1,0 +1,58 @@
+import type { Database } from '../../db/client'
+import type { VehiclePage } from '../../shared/schemas/vehicle-page'
+import { summarizeVehicles } from '../charges/index'
+import { filesOf } from '../files/files.queries'
+import { versionsById } from '../rule-sets/rule-sets.queries'
+import { classesOfVersion } from './rules'
+import { historyEvents, holdsOf, nameOf, propertyOf, spaceOf, towOf, versionNumber } from './vehicle-page.queries'
+import { vehicleForUser } from './vehicles.queries'
+
+/** Everything recorded about one vehicle, with its running bill and next legal date as of now. */
+export async function vehiclePage(db: Database, userId: string, vehicleId: string, asOf = new Date()): Promise<VehiclePage> {
+  const { vehicle: v, yard } = await vehicleForUser(db, userId, vehicleId)
+  const classes = await classesOfVersion(db, v.ruleSetVersionId)
+  const ruleSet = v.ruleSetVersionId ? (await versionsById(db, [v.ruleSetVersionId])).get(v.ruleSetVersionId) : undefined
+  const summaries = await summarizeVehicles(db, yard, [v], asOf)
+  return {
+    vehicle: {
+      id: v.id,
+      stockNumber: v.stockNumber,
+      state: v.state,
+      disposition: v.disposition,
+      version: v.version,
+      arrivedAt: v.arrivedAt.toISOString(),
+      closedAt: v.closedAt?.toISOString() ?? null,
+      vin: v.vin,
+      vinOverrideReason: v.vinOverrideReason,
+      plate: v.plate,
+      plateState: v.plateState,
+      year: v.year,
+      make: v.make,
+      model: v.model,
+      colour: v.colour,
+      body: v.body,
+      vehicleClass: v.vehicleClass,
+      vehicleClassLabel: classes.find((c) => c.code === v.vehicleClass)?.label ?? v.vehicleClass,
+      odometer: v.odometer,
+      odometerUnreadable: v.odometerUnreadable,
+      keys: v.keys,
+      keysWhere: v.keysWhere,
+      drivableAsFound: v.drivableAsFound,
+      ownerName: v.ownerName,
+      rolls: v.rolls,
+      steers: v.steers,
+      brakes: v.brakes,
+      conditionNotes: v.conditionNotes,
+      checkedBy: await nameOf(db, v.checkedById),
+      space: await spaceOf(db, v.spaceId),
+    },
+    tow: await towOf(db, v.id),
+    yard: { name: yard.name, code: yard.code, timeZone: yard.timeZone, lat: yard.lat, lng: yard.lng },
+    ruleSet: ruleSet ? { name: ruleSet.name, version: (await versionNumber(db, v.ruleSetVersionId)) ?? 1, caution: ruleSet.caution } : null,
+    holds: await holdsOf(db, v.id),
+    files: await filesOf(db, v.id),
+    property: await propertyOf(db, v.id),
+    history: await historyEvents(db, v.id),
+    summary: summaries.get(v.id) ?? null,
+  }
+}

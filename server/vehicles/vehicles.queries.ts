@@ -1,0 +1,33 @@
+import { and, eq } from 'drizzle-orm'
+import type { Executor } from '../../db/client'
+import { users, vehicles, yards } from '../../db/schema/index'
+import { notFound } from '../errors'
+
+export type VehicleRow = typeof vehicles.$inferSelect
+export type YardRow = typeof yards.$inferSelect
+
+/**
+ * A vehicle with its yard, if it belongs to the staff member's company; anything else is "not found",
+ * so an id from another company reveals nothing. `lock` holds the row for the transaction's change.
+ */
+export async function vehicleForUser(db: Executor, userId: string, vehicleId: string, lock = false): Promise<{ vehicle: VehicleRow; yard: YardRow }> {
+  const query = db
+    .select({ vehicle: vehicles, yard: yards })
+    .from(vehicles)
+    .innerJoin(yards, eq(yards.id, vehicles.yardId))
+    .innerJoin(users, eq(users.companyId, yards.companyId))
+    .where(and(eq(vehicles.id, vehicleId), eq(users.id, userId)))
+  const [row] = lock ? await query.for('update', { of: vehicles }) : await query
+  if (!row) throw notFound('That vehicle')
+  return row
+}
+
+/** Bumps the version a change was made against; a stale version is a conflict, never an overwrite. */
+export async function bumpVersion(db: Executor, vehicleId: string, expected: number, changes: Partial<typeof vehicles.$inferInsert> = {}) {
+  const [row] = await db
+    .update(vehicles)
+    .set({ ...changes, version: expected + 1, updatedAt: new Date() })
+    .where(and(eq(vehicles.id, vehicleId), eq(vehicles.version, expected)))
+    .returning({ version: vehicles.version })
+  return row?.version
+}

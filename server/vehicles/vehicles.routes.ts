@@ -1,0 +1,64 @@
+import { Router, type Request } from 'express'
+import { z } from 'zod'
+import type { Database } from '../../db/client'
+import { historyOf, verifyChain } from '../../db/history'
+import { searchQuerySchema } from '../../shared/schemas/search'
+import { correctVehicleSchema, towInSchema } from '../../shared/schemas/tow-in'
+import { badRequest } from '../errors'
+import type { FileStore } from '../files/file-store'
+import { receiveFiles } from '../files/upload'
+import { correctVehicle } from './corrections.service'
+import { intakeOptions } from './intake-options'
+import { searchVehicles } from './search.queries'
+import { createTowIn } from './tow-in.service'
+import { historyEvents } from './vehicle-page.queries'
+import { vehiclePage } from './vehicle-page.service'
+import { vehicleForUser } from './vehicles.queries'
+
+const idParam = z.object({ id: z.uuid({ error: 'That is not a vehicle id.' }) })
+
+/** A tow-in arrives as JSON, or as a form with the record in `data` and the photos in `photos`. */
+function towInBody(req: Request): unknown {
+  if (!req.is('multipart/form-data')) return req.body
+  const raw = (req.body as { data?: unknown } | undefined)?.data
+  try {
+    return JSON.parse(typeof raw === 'string' ? raw : '')
+  } catch {
+    throw badRequest('The tow-in form did not arrive whole. Send it again.', [{ path: 'data', message: 'Missing or not JSON.' }])
+  }
+}
+
+export function vehiclesRouter(db: Database, store: FileStore): Router {
+  const router = Router()
+  router.get('/intake-options', async (req, res) => {
+    res.json(await intakeOptions(db, req.user!.id))
+  })
+  router.get('/search', async (req, res) => {
+    const { q } = searchQuerySchema.parse(req.query)
+    res.json({ hits: await searchVehicles(db, req.user!.id, q) })
+  })
+  router.post('/', receiveFiles('photos'), async (req, res) => {
+    const input = towInSchema.parse(towInBody(req))
+    const photos = (req.files as Express.Multer.File[] | undefined) ?? []
+    res.status(201).json(await createTowIn(db, store, req.user!, input, photos))
+  })
+  router.get('/:id', async (req, res) => {
+    res.json(await vehiclePage(db, req.user!.id, idParam.parse(req.params).id))
+  })
+  router.patch('/:id', async (req, res) => {
+    const { id } = idParam.parse(req.params)
+    res.json(await correctVehicle(db, req.user!, id, correctVehicleSchema.parse(req.body)))
+  })
+  router.get('/:id/history', async (req, res) => {
+    const { id } = idParam.parse(req.params)
+    await vehicleForUser(db, req.user!.id, id)
+    res.json({ events: await historyEvents(db, id) })
+  })
+  // Recomputes every link of the chain: a row edited or removed behind the app's back shows here.
+  router.get('/:id/history/verify', async (req, res) => {
+    const { id } = idParam.parse(req.params)
+    await vehicleForUser(db, req.user!.id, id)
+    res.json(verifyChain(await historyOf(db, id)))
+  })
+  return router
+}

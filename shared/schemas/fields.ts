@@ -1,0 +1,37 @@
+import { z } from 'zod'
+
+// Building blocks for the forms' schemas, so every field says the same thing the same way.
+
+const tooLong = (max: number) => `Keep this under ${max} characters.`
+
+/** Trimmed text; an empty field becomes null, so "nothing typed" is stored one way everywhere. */
+export function optionalText(max: number) {
+  return z
+    .string()
+    .trim()
+    .max(max, tooLong(max))
+    .nullish()
+    .transform((v) => (v ? v : null))
+}
+
+export function requiredText(max: number, missing: string) {
+  return z.string({ error: missing }).trim().min(1, missing).max(max, tooLong(max))
+}
+
+/** An instant with its offset: a bare local time would be read in the server's own zone. */
+export const instantSchema = z.iso.datetime({ offset: true, error: 'Enter a date and time.' })
+
+export const optionalInstant = instantSchema.nullish().transform((v) => v ?? null)
+
+/** A whole number field that may be left empty. */
+export function optionalInt(min: number, max: number, what: string) {
+  return z
+    .number({ error: `Enter ${what} as a number.` })
+    .int(`Enter ${what} as a whole number.`)
+    .min(min, `${what[0]!.toUpperCase()}${what.slice(1)} cannot be below ${min}.`)
+    .max(max, `${what[0]!.toUpperCase()}${what.slice(1)} cannot be above ${max.toLocaleString('en-US')}.`)
+    .nullish()
+    .transform((v) => v ?? null)
+}
+
+export const uuidSchema = (message: string) => z.uuid({ error: message })

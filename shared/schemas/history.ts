@@ -1,0 +1,36 @@
+import { z } from 'zod'
+
+export const historyEventSchema = z.object({
+  seq: z.number(),
+  at: z.string(),
+  actor: z.string(),
+  kind: z.string(),
+  fromState: z.string().nullable(),
+  toState: z.string().nullable(),
+  reason: z.string().nullable(),
+  before: z.record(z.string(), z.unknown()).nullable(),
+  after: z.record(z.string(), z.unknown()).nullable(),
+  hash: z.string(),
+})
+export type HistoryEvent = z.infer<typeof historyEventSchema>
+
+export const historySchema = z.object({ events: z.array(historyEventSchema) })
+
+export const chainCheckSchema = z.object({
+  ok: z.boolean(),
+  events: z.number(),
+  brokenAt: z.object({ seq: z.number(), reason: z.string() }).optional(),
+})
+export type ChainCheck = z.infer<typeof chainCheckSchema>
+
+/** Plain words for each kind of event, as the timeline shows them. */
+export const HISTORY_LABELS: Record<string, string> = {
+  towed_in: 'Towed in',
+  corrected: 'Record corrected',
+  hold_set: 'Hold set',
+  hold_lifted: 'Hold lifted',
+  file_added: 'File added',
+  space_assigned: 'Space assigned',
+  property_added: 'Property listed',
+  moved: 'Moved',
+}

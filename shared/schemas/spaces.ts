@@ -1,0 +1,23 @@
+import { z } from 'zod'
+
+export const spaceSchema = z.object({
+  id: z.uuid(),
+  row: z.string(),
+  number: z.number(),
+  size: z.enum(['standard', 'wide', 'motorcycle']),
+  label: z.string(),
+  /** The vehicle in it now; null when free. */
+  occupant: z.object({ id: z.uuid(), stockNumber: z.string() }).nullable(),
+})
+export type Space = z.infer<typeof spaceSchema>
+
+export const spacesSchema = z.object({ spaces: z.array(spaceSchema) })
+
+export const assignSpaceSchema = z.object({
+  version: z.number().int().positive(),
+  /** null takes the vehicle out of its space (say, moved to the wash bay for a day). */
+  spaceId: z.uuid({ error: 'Choose a space from the list.' }).nullable(),
+})
+export type AssignSpace = z.infer<typeof assignSpaceSchema>
+
+export const spaceLabel = (s: { row: string; number: number }) => `${s.row}-${s.number}`

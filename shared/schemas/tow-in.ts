@@ -1,0 +1,49 @@
+import { z } from 'zod'
+import { holdInputSchema } from './holds'
+import { towRatesSchema, towSchema } from './tows'
+import { conditionSchema, vehicleSchema } from './vehicles'
+
+/** Everything the dispatcher records when a vehicle comes through the gate; photos travel beside it. */
+export const towInSchema = z.object({
+  tow: towSchema,
+  vehicle: vehicleSchema,
+  holds: z.array(holdInputSchema).max(10, 'At most 10 holds.').default([]),
+  condition: conditionSchema,
+  spaceId: z.uuid({ error: 'Choose a space from the list.' }).nullish().transform((v) => v ?? null),
+})
+export type TowInInput = z.input<typeof towInSchema>
+export type TowIn = z.output<typeof towInSchema>
+
+export const towInCreatedSchema = z.object({
+  id: z.uuid(),
+  stockNumber: z.string(),
+})
+
+/** What the tow-in form offers: the yard (for distance and charge), billing classes, staff, spaces. */
+export const intakeOptionsSchema = z.object({
+  yard: z.object({
+    id: z.uuid(),
+    name: z.string(),
+    code: z.string(),
+    lat: z.number(),
+    lng: z.number(),
+    timeZone: z.string(),
+    towRates: towRatesSchema,
+    /** False until a manager sets the yard's tow rates: the charge shows as not set, not as $0. */
+    ratesSet: z.boolean(),
+  }),
+  ruleSet: z.object({ name: z.string(), caution: z.string() }).nullable(),
+  vehicleClasses: z.array(z.object({ code: z.string(), label: z.string() })),
+  staff: z.array(z.object({ id: z.uuid(), name: z.string(), role: z.string() })),
+})
+export type IntakeOptions = z.infer<typeof intakeOptionsSchema>
+
+/** A correction names the version it was made against and why; only the fields that differ are recorded. */
+export const correctVehicleSchema = z.object({
+  version: z.number().int().positive(),
+  reason: z.string({ error: 'Say why the record is corrected.' }).trim().min(3, 'Say why the record is corrected.').max(500),
+  vehicle: vehicleSchema.optional(),
+  tow: towSchema.optional(),
+  conditionNotes: z.string().trim().max(2000).nullish().transform((v) => v || null).optional(),
+})
+export type CorrectVehicleInput = z.input<typeof correctVehicleSchema>

@@ -1,0 +1,72 @@
+import { z } from 'zod'
+import { TOW_REASONS } from '../domain/tow-reasons'
+import { instantSchema, optionalInstant, optionalText, requiredText } from './fields'
+
+/** Arrival may be typed a little ahead of the server's clock; beyond that it is a typing mistake. */
+const FUTURE_SLACK_MS = 10 * 60_000
+
+export const pickupSchema = z.object(
+  {
+    lat: z.number({ error: 'Drop a pin on the map or search for the address.' }).min(-90).max(90),
+    lng: z.number({ error: 'Drop a pin on the map or search for the address.' }).min(-180).max(180),
+    address: optionalText(200),
+  },
+  { error: 'Drop a pin on the map or search for the address.' },
+)
+
+/** Where, when, why and by whom: the tow itself, as the dispatcher records it. */
+export const towSchema = z
+  .object({
+    pickup: pickupSchema,
+    roadMiles: z.number({ error: 'Enter road miles as a number.' }).min(0, 'Road miles cannot be negative.').max(2000, 'Road miles cannot be above 2,000.').nullish().transform((v) => v ?? null),
+    winchingUnits: z.number({ error: 'Enter winching as a number of units.' }).int('Winching is a whole number of units.').min(0).max(40, 'Winching cannot be above 40 units.').default(0),
+    dollies: z.boolean().default(false),
+    afterHours: z.boolean().default(false),
+    calledAt: optionalInstant,
+    hookedAt: optionalInstant,
+    arrivedAt: instantSchema,
+    reason: z.enum(TOW_REASONS, { error: 'Choose why the vehicle was towed.' }),
+    reasonNote: optionalText(500),
+    requesterName: requiredText(120, 'Enter who asked for the tow.'),
+    requesterAgency: optionalText(120),
+    requesterReference: optionalText(60),
+    truck: optionalText(80),
+    driver: optionalText(80),
+  })
+  .superRefine((t, ctx) => {
+    if (t.reason === 'other' && !t.reasonNote) ctx.addIssue({ code: 'custom', path: ['reasonNote'], message: 'Say what the reason was.' })
+    if (t.reason === 'law_enforcement' && !t.requesterAgency) {
+      ctx.addIssue({ code: 'custom', path: ['requesterAgency'], message: 'Name the agency that asked for the tow.' })
+    }
+    const called = t.calledAt ? Date.parse(t.calledAt) : null
+    const hooked = t.hookedAt ? Date.parse(t.hookedAt) : null
+    const arrived = Date.parse(t.arrivedAt)
+    if (called !== null && hooked !== null && hooked < called) {
+      ctx.addIssue({ code: 'custom', path: ['hookedAt'], message: 'Hooked up cannot be before the call.' })
+    }
+    if ((hooked ?? called) !== null && arrived < (hooked ?? called)!) {
+      ctx.addIssue({ code: 'custom', path: ['arrivedAt'], message: `Arrival at the gate cannot be before ${hooked !== null ? 'the hook-up' : 'the call'}.` })
+    }
+    if (arrived > Date.now() + FUTURE_SLACK_MS) ctx.addIssue({ code: 'custom', path: ['arrivedAt'], message: 'Arrival at the gate cannot be in the future.' })
+  })
+export type TowInput = z.input<typeof towSchema>
+export type Tow = z.output<typeof towSchema>
+
+export const towLineSchema = z.object({
+  code: z.string(),
+  label: z.string(),
+  quantity: z.number(),
+  unitCents: z.number(),
+  amountCents: z.number(),
+  reason: z.string(),
+})
+
+/** A yard's tow rates (shared/domain/tow-charge.ts TowRates); a yard that has none bills nothing yet. */
+export const towRatesSchema = z.object({
+  hookUpCents: z.number().int().nonnegative().default(0),
+  perMileCents: z.number().int().nonnegative().default(0),
+  includedMiles: z.number().nonnegative().optional(),
+  winchingCentsPerUnit: z.number().int().nonnegative().optional(),
+  dolliesCents: z.number().int().nonnegative().optional(),
+  afterHoursCents: z.number().int().nonnegative().optional(),
+})

@@ -1,0 +1,91 @@
+import { z } from 'zod'
+import { normalizeVin, vin as readVin } from '../domain/vin'
+import { optionalInt, optionalText, requiredText } from './fields'
+
+export const KEYS = ['yes', 'no', 'unknown'] as const
+export const KEYS_LABELS: Record<(typeof KEYS)[number], string> = { yes: 'Yes', no: 'No', unknown: 'Not known' }
+
+/** Words the trade uses for a body; the field takes any text, these are offered first. */
+export const BODY_TYPES = ['Sedan', 'Coupe', 'Hatchback', 'Wagon', 'SUV', 'Pickup', 'Van', 'Motorcycle', 'Box truck', 'Trailer', 'Motor home']
+
+const latestModelYear = () => new Date().getFullYear() + 2
+
+/** A rule-set class code such as "standard" or "heavy". */
+export const vehicleClassCode = z
+  .string({ error: 'Choose the class for billing.' })
+  .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'Choose the class for billing.')
+
+/** The vehicle as found: identity, class for billing, odometer, keys. */
+export const vehicleSchema = z
+  .object({
+    vin: z.string().max(40, 'A VIN has 17 characters.').nullish().transform((v) => (v ? normalizeVin(v) || null : null)),
+    /** Why a missing or failing VIN is recorded anyway (plate-only, damaged or unreadable VIN plate). */
+    vinOverrideReason: optionalText(200),
+    plate: optionalText(12).transform((v) => v?.toUpperCase() ?? null),
+    plateState: z
+      .string()
+      .trim()
+      .toUpperCase()
+      .nullish()
+      .transform((v) => v || null)
+      .refine((v) => v === null || /^[A-Z]{2,3}$/.test(v), 'Use the two-letter state code, e.g. CA.'),
+    year: optionalInt(1900, latestModelYear(), 'the year'),
+    make: requiredText(40, 'Enter the make, or "Unknown".'),
+    model: optionalText(60),
+    colour: requiredText(30, 'Enter the colour.'),
+    body: optionalText(30),
+    vehicleClass: vehicleClassCode,
+    odometer: optionalInt(0, 3_000_000, 'the odometer reading'),
+    odometerUnreadable: z.boolean().default(false),
+    keys: z.enum(KEYS, { error: 'Say whether the keys came with it.' }),
+    keysWhere: optionalText(120),
+    drivableAsFound: z.boolean().nullish().transform((v) => v ?? null),
+    ownerName: optionalText(120),
+  })
+  .superRefine((v, ctx) => {
+    for (const issue of vinIssues(v)) ctx.addIssue({ code: 'custom', ...issue })
+    if (!v.odometerUnreadable && v.odometer === null) {
+      ctx.addIssue({ code: 'custom', path: ['odometer'], message: 'Enter the odometer reading, or mark it "Not readable".' })
+    }
+  })
+  // A reading and "not readable" together would say two things; the box wins.
+  .transform((v) => (v.odometerUnreadable ? { ...v, odometer: null } : v))
+export type VehicleInput = z.input<typeof vehicleSchema>
+export type Vehicle = z.output<typeof vehicleSchema>
+
+type VinFields = { vin: string | null; vinOverrideReason: string | null; year: number | null; vehicleClass: string }
+
+/**
+ * A VIN that fails its check (49 CFR 565) is refused unless the dispatcher says why it is recorded
+ * as read; no VIN at all needs the same reason (plate-only, VIN plate missing or burnt).
+ */
+export function vinIssues(v: VinFields): { path: string[]; message: string }[] {
+  const override = v.vinOverrideReason !== null
+  if (v.vin === null) {
+    return override ? [] : [{ path: ['vin'], message: 'Enter the VIN, or give the reason it cannot be read (plate-only, VIN plate missing or damaged).' }]
+  }
+  const reading = readVin(v.vin, v.vehicleClass === 'heavy' ? 'heavy-or-trailer' : 'light')
+  if (!reading.ok) {
+    return override ? [] : [{ path: ['vin'], message: `${reading.problems[0]!.message} Correct it, or record it as read and give the reason.` }]
+  }
+  const vinYear = reading.modelYear?.readable ? reading.modelYear.year : undefined
+  if (!override && vinYear !== undefined && v.year !== null && v.year !== vinYear) {
+    return [{ path: ['year'], message: `The VIN gives model year ${vinYear}, not ${v.year}. Correct the year or the VIN.` }]
+  }
+  return []
+}
+
+export const propertyItemSchema = z.object({
+  item: requiredText(120, 'Name the item.'),
+  location: optionalText(80),
+  count: z.number({ error: 'Enter how many.' }).int('Enter a whole number.').min(1, 'At least one.').max(999).default(1),
+})
+export type PropertyItemInput = z.input<typeof propertyItemSchema>
+
+/** The condition at intake and who checked it: the first link of the chain of custody. */
+export const conditionSchema = z.object({
+  damageNotes: optionalText(2000),
+  checkedById: z.uuid({ error: 'Choose who checked the vehicle.' }),
+  property: z.array(propertyItemSchema).max(100, 'At most 100 items; group small ones.').default([]),
+})
+export type ConditionInput = z.input<typeof conditionSchema>
