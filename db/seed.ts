@@ -116,6 +116,7 @@ async function loadDemo(db: Database, now: Date): Promise<void> {
       checkedById: byRole.dispatcher!.id,
       ruleSetVersionId: california ?? null,
       ownerName: v.owner,
+      estimatedValueCents: demoValueCents(v),
       arrivedAt,
       closedAt: closed ? new Date(now.getTime() - (v.hoursAgo - 24 * 6) * HOUR) : null,
     }
@@ -194,6 +195,11 @@ function demoTowCharge(v: DemoVehicle) {
     dollies: v.rolls === false,
   })
   return { straightMiles: charge.miles, chargeCents: charge.totalCents, chargeLines: charge.lines }
+}
+
+// An invented market value by age, so the demo's lien clocks (which depend on value) can run.
+function demoValueCents(v: DemoVehicle): number {
+  return Math.max(800, (v.year - 1998) * 550 + (v.vehicleClass === 'heavy' ? 6000 : 0)) * 100
 }
 
 function demoVin(v: DemoVehicle, i: number): string {

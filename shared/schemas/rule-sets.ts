@@ -132,6 +132,8 @@ export const ruleSetSchema = z
     storage: storageRulesSchema,
     fees: z.array(feeSchema),
     tax: taxSchema,
+    /** What the arrival itself records for the clocks; a storage lien, for one, commonly arises with the storage. */
+    arrivalEvents: z.object({ kinds: z.array(clockEventKindSchema).min(1), source: sourceSchema }).optional(),
     timeline: z.array(timelineStepSchema),
     totalLoss: totalLossSchema,
     notes: z.array(z.string().min(1)).default([]),
