@@ -89,6 +89,7 @@ async function loadDemo(db: Database, now: Date): Promise<void> {
     sequences.set(year, seq)
     const closed = v.state === 'closed'
     const space = closed ? undefined : free[v.vehicleClass].shift()
+    const inspectedAt = demoInspectedAt(v, arrivedAt, now)
     return {
       yardId: yard!.id,
       stockNumber: formatStockNumber(yard!.code, year, seq),
@@ -114,6 +115,8 @@ async function loadDemo(db: Database, now: Date): Promise<void> {
       spaceId: space?.id ?? null,
       conditionNotes: v.notes ?? null,
       checkedById: byRole.dispatcher!.id,
+      inspectedAt,
+      inspectedById: inspectedAt ? byRole.technician!.id : null,
       ruleSetVersionId: california ?? null,
       ownerName: v.owner,
       estimatedValueCents: demoValueCents(v),
@@ -172,10 +175,8 @@ function demoHistory(v: DemoVehicle, arrivedAt: Date, now: Date, staff: Staff): 
   if (v.hold) {
     events.push({ ...actor('dispatcher'), kind: 'hold_set', at: new Date(arrivedAt.getTime() + 60_000), after: { kind: v.hold.kind, caseNumber: v.hold.caseNumber ?? null } })
   }
-  const path: VehicleState[] = v.state === 'closed' ? [...BOARD_COLUMNS, 'closed'] : BOARD_COLUMNS.slice(0, BOARD_COLUMNS.indexOf(v.state) + 1)
+  const path = demoPath(v)
   const movers: Record<string, string> = { teardown: 'technician', decision: 'technician', storage: 'office', release: 'office', closed: 'office' }
-  // Spread the moves over the stay, the last one at least an hour before now.
-  const span = Math.max(now.getTime() - HOUR - arrivedAt.getTime(), HOUR)
   for (let step = 1; step < path.length; step++) {
     const to = path[step]!
     events.push({
@@ -183,11 +184,28 @@ function demoHistory(v: DemoVehicle, arrivedAt: Date, now: Date, staff: Staff): 
       kind: 'moved',
       fromState: path[step - 1]!,
       toState: to,
-      at: new Date(arrivedAt.getTime() + (span * step) / path.length),
+      at: demoMoveAt(arrivedAt, now, step, path.length),
       reason: to === 'closed' ? v.disposition!.replaceAll('_', ' ') : null,
     })
   }
   return events
+}
+
+function demoPath(v: DemoVehicle): VehicleState[] {
+  return v.state === 'closed' ? [...BOARD_COLUMNS, 'closed'] : BOARD_COLUMNS.slice(0, BOARD_COLUMNS.indexOf(v.state) + 1)
+}
+
+// Moves are spread over the stay, the last one at least an hour before now.
+function demoMoveAt(arrivedAt: Date, now: Date, step: number, steps: number): Date {
+  const span = Math.max(now.getTime() - HOUR - arrivedAt.getTime(), HOUR)
+  return new Date(arrivedAt.getTime() + (span * step) / steps)
+}
+
+/** A vehicle past Teardown was inspected: finished a few minutes before it moved on to Owner decision. */
+function demoInspectedAt(v: DemoVehicle, arrivedAt: Date, now: Date): Date | null {
+  const path = demoPath(v)
+  const toDecision = path.indexOf('decision')
+  return toDecision < 0 ? null : new Date(demoMoveAt(arrivedAt, now, toDecision, path.length).getTime() - 10 * 60_000)
 }
 
 function demoTowCharge(v: DemoVehicle) {

@@ -30,6 +30,9 @@ export const vehicles = pgTable(
     rolls: boolean(),
     steers: boolean(),
     brakes: boolean(),
+    // When the technician finished the inspection, and who: a vehicle leaves Teardown only after it.
+    inspectedAt: at(),
+    inspectedById: uuid().references(() => users.id),
     state: text({ enum: VEHICLE_STATES }).notNull().default('arrival'),
     disposition: text({ enum: DISPOSITIONS }),
     version: integer().notNull().default(1),
@@ -48,6 +51,8 @@ export const vehicles = pgTable(
     // A space holds one vehicle at a time; a closed vehicle gives its space back.
     uniqueIndex('vehicles_space_occupied').on(t.spaceId).where(sql`${t.spaceId} is not null`),
     index('vehicles_yard_state').on(t.yardId, t.state),
+    // The archive lists a yard's closed vehicles, most recently closed first.
+    index('vehicles_yard_closed').on(t.yardId, t.closedAt.desc()).where(sql`${t.state} = 'closed'`),
     index('vehicles_plate').on(t.plate),
     index('vehicles_vin').on(t.vin),
     check('vehicles_closed_has_disposition', sql`(${t.state} = 'closed') = (${t.disposition} is not null)`),
