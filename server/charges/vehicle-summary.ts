@@ -1,6 +1,7 @@
 import { dayFromIsoDate } from '../../shared/domain/calendar-dates'
 import type { ClockEvent, Deadline } from '../../shared/domain/legal-clocks'
 import { legalClocks } from '../../shared/domain/legal-clocks'
+import { lienSaleGate } from '../../shared/domain/lien-sale-gate'
 import type { HolidayCalendar } from '../../shared/domain/holidays'
 import { localDay } from '../../shared/domain/local-time'
 import { storageBill } from '../../shared/domain/storage-bill'
@@ -42,6 +43,7 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
     towCents: input.towCents,
     balanceCents: bill.totalCents + input.towCents,
     nextDeadline: open[0] ? toNext(open[0], today) : null,
+    lienSale: lienSaleGate(clocks.deadlines),
     warnings: bill.warnings,
   }
 }

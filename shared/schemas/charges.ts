@@ -15,6 +15,9 @@ export const nextDeadlineSchema = z.object({
 })
 export type NextDeadline = z.infer<typeof nextDeadlineSchema>
 
+/** Whether the law already allows a lien sale or disposal (shared/domain/lien-sale-gate.ts). */
+export const lienSaleGateSchema = z.object({ open: z.boolean(), date: z.string().nullable(), why: z.string() })
+
 export const vehicleSummarySchema = z.object({
   /** Storage days counted so far by the rule set's own day rule. */
   daysOnLot: z.number(),
@@ -22,6 +25,7 @@ export const vehicleSummarySchema = z.object({
   towCents: z.number(),
   balanceCents: z.number(),
   nextDeadline: nextDeadlineSchema.nullable(),
+  lienSale: lienSaleGateSchema,
   warnings: z.array(z.string()),
 })
 export type VehicleSummary = z.infer<typeof vehicleSummarySchema>

@@ -1,0 +1,222 @@
+import { describe, expect, it } from 'vitest'
+import { VEHICLE_STATES, type Disposition, type VehicleState } from '../../../shared/domain/columns'
+import { checkMove, moveOptions, type MoveFacts } from '../../../shared/domain/lifecycle'
+import { ROLES, type Role } from '../../../shared/domain/roles'
+
+const NOW = new Date('2026-12-03T18:00:00Z')
+const ZONE = 'America/Los_Angeles'
+
+/** Everything recorded and nothing in the way: only the role and the table decide. */
+const clear: MoveFacts = {
+  timeZone: ZONE,
+  holds: [],
+  inspected: true,
+  balanceCents: 41_250,
+  paidCents: 41_250,
+  waived: false,
+  claimantIdRecorded: true,
+  releaseSigned: true,
+  lienSale: { open: true, date: '2026-11-20', why: 'Open since 2026-11-20.' },
+}
+const facts = (over: Partial<MoveFacts>): MoveFacts => ({ ...clear, ...over })
+
+const policeHold = { kind: 'law_enforcement' as const, agency: 'Orrin Flats PD', caseNumber: 'OF-26-11873', until: '2026-12-12T20:00:00Z' }
+
+// DESIGN.md's access table and the yard's real moves, written out by hand: the test fails if
+// shared/domain/lifecycle.ts lets anyone else make a move or adds a move nobody asked for.
+const WHO_MAY: Record<string, Role[]> = {
+  'arrival→teardown': ['manager', 'dispatcher', 'technician'],
+  'arrival→release': ['manager', 'office'],
+  'teardown→decision': ['manager', 'technician'],
+  'teardown→arrival': ['manager', 'dispatcher', 'technician'],
+  'decision→storage': ['manager', 'office'],
+  'decision→release': ['manager', 'office'],
+  'decision→teardown': ['manager', 'dispatcher', 'technician'],
+  'storage→release': ['manager', 'office'],
+  'storage→decision': ['manager', 'office'],
+  'storage→closed': ['manager', 'office'],
+  'release→storage': ['manager', 'office'],
+  'release→closed': ['manager', 'office'],
+}
+const CLOSING_WITH: Partial<Record<VehicleState, Disposition>> = { storage: 'lien_sale', release: 'returned_to_owner' }
+
+const every = VEHICLE_STATES.flatMap((from) => VEHICLE_STATES.flatMap((to) => ROLES.map((role) => ({ from, to, role }))))
+
+describe('lifecycle: every move × every role', () => {
+  it.each(every)('checkMove_$from→$to_as$role_followsTheTable', ({ from, to, role }) => {
+    const v = checkMove({ from, to, role, facts: clear, reason: 'owner asked', disposition: to === 'closed' ? CLOSING_WITH[from] : null, now: NOW })
+    const may = WHO_MAY[`${from}→${to}`]
+    if (!may) {
+      expect(v).toMatchObject({ allowed: false, forbidden: false, reasons: [{ code: 'not-a-move' }] })
+    } else if (may.includes(role)) {
+      expect(v).toEqual({ allowed: true, forbidden: false, reasons: [] })
+    } else {
+      expect(v).toMatchObject({ allowed: false, forbidden: true, reasons: [{ code: 'role' }] })
+    }
+  })
+
+  it('checkMove_roleRefused_namesWhoMay', () => {
+    const v = checkMove({ from: 'storage', to: 'release', role: 'dispatcher', facts: clear, now: NOW })
+    expect(v.reasons[0]!.message).toBe('Only managers and office staff can move a vehicle from Storage to Release.')
+  })
+
+  it('checkMove_technicianClosing_isForbiddenWithTheClosingWords', () => {
+    const v = checkMove({ from: 'release', to: 'closed', role: 'technician', facts: clear, disposition: 'scrapped', now: NOW })
+    expect(v.reasons[0]!.message).toBe('Only managers and office staff can close a vehicle.')
+  })
+
+  it.each([
+    { from: 'storage' as const, to: 'storage' as const, words: 'It is already in Storage.' },
+    { from: 'closed' as const, to: 'release' as const, words: 'It is closed; a closed vehicle does not come back to the board.' },
+    { from: 'arrival' as const, to: 'storage' as const, words: 'A vehicle does not go from Arrival to Storage.' },
+  ])('checkMove_noSuchMove_$from→$to_saysSo', ({ from, to, words }) => {
+    expect(checkMove({ from, to, role: 'manager', facts: clear, now: NOW }).reasons).toEqual([{ code: 'not-a-move', message: words }])
+  })
+})
+
+describe('lifecycle guards', () => {
+  it('holdGuard_policeHold_blocksReleaseNamingAgencyCaseAndDate', () => {
+    const v = checkMove({ from: 'storage', to: 'release', role: 'office', facts: facts({ holds: [policeHold] }), now: NOW })
+    expect(v).toMatchObject({ allowed: false, forbidden: false })
+    expect(v.reasons).toEqual([{ code: 'hold', message: 'Law-enforcement hold (Orrin Flats PD, case OF-26-11873) until 12 Dec — it cannot go to Release.' }])
+  })
+
+  it('holdGuard_datePassedButNotLifted_stillBlocksAndSaysSo', () => {
+    const v = checkMove({ from: 'decision', to: 'release', role: 'manager', facts: facts({ holds: [{ ...policeHold, until: '2026-11-28T20:00:00Z' }] }), now: NOW })
+    expect(v.reasons[0]!.message).toBe('Law-enforcement hold (Orrin Flats PD, case OF-26-11873), set until 28 Nov and not yet lifted — it cannot go to Release.')
+  })
+
+  it('holdGuard_dateInAnotherYear_showsTheYear', () => {
+    const v = checkMove({ from: 'arrival', to: 'release', role: 'office', facts: facts({ holds: [{ ...policeHold, until: '2027-01-09T20:00:00Z' }] }), now: NOW })
+    expect(v.reasons[0]!.message).toContain('until 9 Jan 2027')
+  })
+
+  it('holdGuard_twoHolds_giveTwoReasons', () => {
+    const lien = { kind: 'lien' as const, agency: null, caseNumber: null, until: null }
+    const v = checkMove({ from: 'storage', to: 'release', role: 'office', facts: facts({ holds: [policeHold, lien] }), now: NOW })
+    expect(v.reasons.map((r) => r.message)).toEqual([expect.stringContaining('Law-enforcement hold'), 'Lien hold — it cannot go to Release.'])
+  })
+
+  it('holdGuard_closing_isBlockedWithClosingWords', () => {
+    const dispute = { kind: 'dispute' as const, agency: null, caseNumber: null, until: null }
+    const v = checkMove({ from: 'storage', to: 'closed', role: 'manager', disposition: 'lien_sale', facts: facts({ holds: [dispute] }), now: NOW })
+    expect(v.reasons).toEqual([{ code: 'hold', message: 'Dispute — it cannot be closed.' }])
+  })
+
+  it.each([
+    { from: 'arrival' as const, to: 'teardown' as const, role: 'technician' as const },
+    { from: 'decision' as const, to: 'storage' as const, role: 'office' as const },
+    { from: 'release' as const, to: 'storage' as const, role: 'office' as const },
+  ])('holdGuard_$from→$to_isNotBlockedByAHold', ({ from, to, role }) => {
+    expect(checkMove({ from, to, role, facts: facts({ holds: [policeHold] }), reason: 'keys found', now: NOW }).allowed).toBe(true)
+  })
+
+  it('inspectionGuard_notFinished_keepsItInTeardown', () => {
+    const v = checkMove({ from: 'teardown', to: 'decision', role: 'technician', facts: facts({ inspected: false }), now: NOW })
+    expect(v.reasons).toEqual([{ code: 'inspection', message: 'The inspection is not finished — the technician finishes it in Teardown first.' }])
+  })
+
+  const handOver = (over: Partial<MoveFacts>, disposition: Disposition = 'returned_to_owner') =>
+    checkMove({ from: 'release', to: 'closed', role: 'office', disposition, facts: facts(over), now: NOW })
+
+  it.each([
+    { why: 'nothing paid', over: { paidCents: 0 }, message: 'Balance unpaid: $412.50 due. Take the payment, or a manager waives it with a reason.' },
+    { why: 'part paid', over: { paidCents: 40_000 }, message: 'Balance unpaid: $12.50 due. Take the payment, or a manager waives it with a reason.' },
+    { why: 'no rule set', over: { balanceCents: null, paidCents: 0 }, message: 'No rule set bills this vehicle, so its balance cannot be settled.' },
+  ])('balanceGuard_$why_refusesTheHandOver', ({ over, message }) => {
+    expect(handOver(over).reasons).toEqual([{ code: 'balance', message }])
+  })
+
+  it('balanceGuard_waivedByAManager_letsItGo', () => {
+    expect(handOver({ paidCents: 0, waived: true }).allowed).toBe(true)
+  })
+
+  it('balanceGuard_releasedToAThirdParty_alsoNeedsTheBalance', () => {
+    expect(handOver({ paidCents: 0 }, 'released_to_third_party').reasons.map((r) => r.code)).toEqual(['balance'])
+  })
+
+  it('handOverGuards_nothingRecorded_listsEveryMissingStep', () => {
+    const v = handOver({ holds: [policeHold], paidCents: 0, claimantIdRecorded: false, releaseSigned: false })
+    expect(v.reasons.map((r) => r.code)).toEqual(['hold', 'balance', 'claimant-id', 'release-signed'])
+    expect(v.reasons.slice(2).map((r) => r.message)).toEqual(["The claimant's ID is not recorded.", 'The release is not signed.'])
+  })
+
+  it('titleTransferGuard_needsTheSignedTransferAndTheBuyersIdButNotTheBalance', () => {
+    const fromStorage = (over: Partial<MoveFacts>) =>
+      checkMove({ from: 'storage', to: 'closed', role: 'manager', disposition: 'title_transferred', facts: facts({ paidCents: 0, ...over }), now: NOW })
+    expect(fromStorage({}).allowed).toBe(true)
+    expect(fromStorage({ releaseSigned: false, claimantIdRecorded: false }).reasons).toEqual([
+      { code: 'release-signed', message: 'The title transfer is not signed.' },
+      { code: 'claimant-id', message: "The claimant's ID is not recorded." },
+    ])
+  })
+
+  const dispose = (lienSale: MoveFacts['lienSale'], disposition: Disposition = 'lien_sale') =>
+    checkMove({ from: 'storage', to: 'closed', role: 'office', disposition, facts: facts({ lienSale }), now: NOW })
+
+  it.each(['lien_sale', 'scrapped'] as const)('lienSaleGuard_%s_beforeTheLawAllows_givesTheDate', (disposition) => {
+    expect(dispose({ open: false, date: '2027-01-14', why: 'Not before 2027-01-14.' }, disposition).reasons).toEqual([
+      { code: 'lien-sale', message: 'The law does not allow a lien sale or disposal before 14 Jan 2027.' },
+    ])
+  })
+
+  it('lienSaleGuard_clockNotStarted_saysWhatStartsIt', () => {
+    expect(dispose({ open: false, date: null, why: 'Starts when lien notice mailed is recorded.' }).reasons[0]!.message).toBe(
+      'No lien-sale date yet. Starts when lien notice mailed is recorded.',
+    )
+  })
+
+  it('lienSaleGuard_noRuleSet_refuses', () => {
+    expect(dispose(null).reasons[0]!.code).toBe('lien-sale')
+  })
+
+  it('lienSaleGuard_open_allowsTheSaleWithoutPayment', () => {
+    expect(checkMove({ from: 'storage', to: 'closed', role: 'office', disposition: 'lien_sale', facts: facts({ paidCents: 0, releaseSigned: false }), now: NOW }).allowed).toBe(true)
+  })
+
+  it('dispositionGuard_closingWithoutOne_asksForIt', () => {
+    expect(checkMove({ from: 'release', to: 'closed', role: 'office', facts: clear, now: NOW }).reasons).toEqual([
+      { code: 'disposition', message: 'Choose how the vehicle leaves the yard.' },
+    ])
+  })
+
+  it('dispositionGuard_returnedToOwnerStraightFromStorage_sendsItToReleaseFirst', () => {
+    const v = checkMove({ from: 'storage', to: 'closed', role: 'office', disposition: 'returned_to_owner', facts: clear, now: NOW })
+    expect(v.reasons).toEqual([
+      { code: 'disposition', message: 'From Storage a vehicle leaves only by title transfer, lien sale or scrapping; to hand it over, move it to Release first.' },
+    ])
+  })
+
+  it.each([null, '', '   '])('reasonGuard_backMoveWithReason%j_asksWhy', (reason) => {
+    expect(checkMove({ from: 'storage', to: 'decision', role: 'office', facts: clear, reason, now: NOW }).reasons).toEqual([
+      { code: 'reason', message: 'Say why it goes back to Owner decision.' },
+    ])
+  })
+})
+
+describe('moveOptions (the "Move to…" menu)', () => {
+  it('moveOptions_heldVehicleInStorage_asOffice_listsEveryWayWithWhyNot', () => {
+    const options = moveOptions('storage', 'office', facts({ holds: [policeHold] }), NOW)
+    expect(options.map((o) => [o.rule.to, o.disposition, o.allowed, o.reasons.map((r) => r.code)])).toEqual([
+      ['release', null, false, ['hold']],
+      ['decision', null, true, []],
+      ['closed', 'title_transferred', false, ['hold']],
+      ['closed', 'lien_sale', false, ['hold']],
+      ['closed', 'scrapped', false, ['hold']],
+    ])
+    expect(options.find((o) => o.rule.to === 'decision')!.rule.back).toBe(true)
+  })
+
+  it('moveOptions_arrivalAsTechnician_offersTeardownAndExplainsRelease', () => {
+    const options = moveOptions('arrival', 'technician', clear, NOW)
+    expect(options.map((o) => [o.rule.to, o.allowed])).toEqual([
+      ['teardown', true],
+      ['release', false],
+    ])
+    expect(options[1]!.reasons[0]!.message).toBe('Only managers and office staff can move a vehicle from Arrival to Release.')
+  })
+
+  it('moveOptions_closed_offersNothing', () => {
+    expect(moveOptions('closed', 'manager', clear, NOW)).toEqual([])
+  })
+})
