@@ -7,6 +7,8 @@ export const PERMISSIONS = {
   'towin.write': ['manager', 'dispatcher'],
   'move.toTeardown': ['manager', 'dispatcher', 'technician'],
   'inspection.write': ['manager', 'technician'],
+  // The vehicle's value and salvage value: the technician or the office may have the figure.
+  'inspection.values': ['manager', 'technician', 'office'],
   'owner.write': ['manager', 'office'],
   'billing.write': ['manager', 'office'],
   'release.write': ['manager', 'office'],

@@ -1,0 +1,166 @@
+import { z } from 'zod'
+import { FINDING_STATUSES, ITEM_CODES } from '../domain/inspection-checklist'
+import { hoursToHundredths, LIMITS } from '../domain/inspection-estimate'
+import { formatCents } from '../domain/money'
+import { optionalText, requiredText } from './fields'
+import { fileRecordSchema } from './files'
+
+const dollars = (cents: number) => formatCents(cents).replace(/\.00$/, '')
+
+// ---- requests ----
+
+export const itemCodeSchema = z.enum(ITEM_CODES as [string, ...string[]], { error: 'That is not an item on the checklist.' })
+
+export const itemFindingSchema = z.object({
+  status: z.enum(FINDING_STATUSES, { error: 'Choose OK, worn, broken or not checked.' }),
+  note: optionalText(500),
+})
+export type ItemFinding = z.input<typeof itemFindingSchema>
+
+const priceCents = (what: string, max: number) =>
+  z
+    .number({ error: `Enter the ${what}.` })
+    .int(`Enter the ${what} in whole cents.`)
+    .min(0, `The ${what} cannot be negative.`)
+    .max(max, `The ${what} cannot be more than ${dollars(max)}.`)
+
+export const estimateLineSchema = z.object({
+  itemCode: itemCodeSchema.nullish().transform((v) => v ?? null),
+  part: requiredText(120, 'Say what the part or job is.'),
+  quantity: z
+    .number({ error: 'Enter how many.' })
+    .int('Enter how many as a whole number.')
+    .min(1, 'The quantity is at least 1.')
+    .max(LIMITS.maxQuantity, `The quantity cannot be more than ${LIMITS.maxQuantity}.`),
+  unitPriceCents: priceCents('part price', LIMITS.maxUnitPriceCents),
+  labourHours: z
+    .number({ error: 'Enter the labour hours (0 if none).' })
+    .min(0, 'Labour hours cannot be negative.')
+    .max(LIMITS.maxLabourHours, `Labour hours cannot be more than ${LIMITS.maxLabourHours} on one line.`)
+    .refine((h) => hoursToHundredths(h) !== undefined, 'Give labour hours to at most two decimals, such as 1.25.'),
+})
+export type EstimateLineInput = z.input<typeof estimateLineSchema>
+
+const source = (what: string) => requiredText(200, `Say where the ${what} came from.`)
+
+export const valuesSchema = z
+  .object({
+    actualCashValueCents: priceCents("vehicle's value", LIMITS.maxValueCents).min(1, "The vehicle's value must be more than $0."),
+    actualCashValueSource: source('value'),
+    salvageValueCents: priceCents('salvage value', LIMITS.maxValueCents),
+    salvageValueSource: source('salvage value'),
+  })
+  .refine((v) => v.salvageValueCents <= v.actualCashValueCents, {
+    message: "The salvage value cannot be more than the vehicle's value.",
+    path: ['salvageValueCents'],
+  })
+export type ValuesInput = z.input<typeof valuesSchema>
+
+const yesNo = (question: string) => z.boolean({ error: `Answer: ${question}` }).optional()
+
+/** Any of the marks, on their own: each tap on the phone saves one. */
+export const rollAbilitySchema = z
+  .object({
+    rolls: yesNo('does it roll?'),
+    steers: yesNo('does it steer?'),
+    brakes: yesNo('does it brake?'),
+    keys: yesNo('are the keys here?'),
+    wheelRefitted: yesNo('was a wheel refitted to make it roll?'),
+    lugTorqueFtLbf: z
+      .number({ error: 'Enter the lug-nut torque in ft·lbf.' })
+      .int('Enter the lug-nut torque in whole ft·lbf.')
+      .min(LIMITS.minLugTorqueFtLbf, `A lug-nut torque below ${LIMITS.minLugTorqueFtLbf} ft·lbf is not a real figure; check the maker's specification.`)
+      .max(LIMITS.maxLugTorqueFtLbf, `A lug-nut torque above ${LIMITS.maxLugTorqueFtLbf} ft·lbf is not a real figure; check the maker's specification.`)
+      .nullish(),
+  })
+  .refine((v) => Object.values(v).some((x) => x !== undefined), { message: 'Nothing to save.', path: ['(body)'] })
+export type RollAbilityInput = z.input<typeof rollAbilitySchema>
+
+// ---- answers ----
+
+const actorAt = z.object({ by: z.string(), at: z.string() }).nullable()
+
+export const itemViewSchema = z.object({
+  code: z.string(),
+  status: z.enum(FINDING_STATUSES),
+  note: z.string().nullable(),
+  photos: z.array(fileRecordSchema),
+})
+
+export const lineViewSchema = z.object({
+  id: z.uuid(),
+  itemCode: z.string().nullable(),
+  part: z.string(),
+  quantity: z.number(),
+  unitPriceCents: z.number(),
+  labourHours: z.number(),
+  labourRateCents: z.number(),
+  partsCents: z.number(),
+  labourCents: z.number(),
+  totalCents: z.number(),
+})
+export type LineView = z.infer<typeof lineViewSchema>
+
+const totalsSchema = z.object({ partsCents: z.number(), labourCents: z.number(), totalCents: z.number() })
+
+export const valuesViewSchema = z.object({
+  actualCashValueCents: z.number(),
+  actualCashValueSource: z.string(),
+  salvageValueCents: z.number(),
+  salvageValueSource: z.string(),
+  entered: actorAt,
+})
+
+export const inspectionSchema = z.object({
+  id: z.uuid(),
+  started: z.object({ by: z.string(), at: z.string() }),
+  safetyAcknowledged: actorAt,
+  finished: actorAt,
+  wheelRefitted: z.boolean().nullable(),
+  lugTorqueFtLbf: z.number().nullable(),
+  items: z.array(itemViewSchema),
+  lines: z.array(lineViewSchema),
+  totals: totalsSchema,
+  values: valuesViewSchema.nullable(),
+})
+export type Inspection = z.infer<typeof inspectionSchema>
+
+export const pickupBadgeSchema = z.object({
+  equipment: z.array(z.enum(['wheel-lift', 'flatbed', 'dollies-or-skates'])),
+  label: z.string(),
+  reasons: z.array(z.string()),
+  technicianFirst: z.boolean(),
+})
+
+export const recommendationSchema = z.object({
+  recommendation: z.enum(['repair', 'salvage']),
+  rule: z.enum(['percent-of-value', 'total-loss-formula']),
+  numbers: z.object({ estimateCents: z.number(), actualCashValueCents: z.number(), salvageValueCents: z.number(), thresholdCents: z.number() }),
+  explanation: z.array(z.string()),
+  source: z.object({ citation: z.string(), confidence: z.string(), note: z.string().optional() }),
+})
+export type Recommendation = z.infer<typeof recommendationSchema>
+
+export const inspectionPageSchema = z.object({
+  vehicle: z.object({
+    id: z.uuid(),
+    stockNumber: z.string(),
+    title: z.string(),
+    state: z.string(),
+    version: z.number(),
+    rolls: z.boolean().nullable(),
+    steers: z.boolean().nullable(),
+    brakes: z.boolean().nullable(),
+    keys: z.enum(['yes', 'no', 'unknown']),
+    conditionNotes: z.string().nullable(),
+  }),
+  /** The yard's rate per hour now; each line keeps the rate it was written at. */
+  labourRateCents: z.number(),
+  ruleSet: z.object({ name: z.string(), caution: z.string() }).nullable(),
+  inspection: inspectionSchema.nullable(),
+  recommendation: recommendationSchema.nullable(),
+  /** Why there is no recommendation yet, in plain words. */
+  recommendationMissing: z.string().nullable(),
+  pickup: pickupBadgeSchema.nullable(),
+})
+export type InspectionPage = z.infer<typeof inspectionPageSchema>
