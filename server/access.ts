@@ -23,6 +23,10 @@ export const ACCESS: Record<string, Rule> = {
 
   'GET /api/yards/current': 'board.view',
   'GET /api/board': 'board.view',
+  'GET /api/board/events': 'board.view',
+  // Which moves a role may make is the lifecycle's to say (shared/domain/lifecycle.ts), per move.
+  'POST /api/vehicles/:id/moves': 'board.view',
+  'GET /api/vehicles/closed': 'board.view',
 
   'GET /api/rule-sets': 'board.view',
   'GET /api/rule-sets/:id': 'board.view',

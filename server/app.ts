@@ -6,7 +6,9 @@ import path from 'node:path'
 import { existsSync } from 'node:fs'
 import type { Database } from '../db/client'
 import { enforceAccess } from './access'
-import { boardRouter } from './board/index'
+import { archiveRouter } from './archive/index'
+import { BoardHub, boardRouter, movesRouter } from './board/index'
+import type { StreamTiming } from './board/board-events'
 import { errorHandler, notFoundHandler } from './errors'
 import { fakesRouter } from './fakes/fakes.routes'
 import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
@@ -15,6 +17,7 @@ import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from
 import { quotesRouter } from './quotes/quotes.routes'
 import { ruleSetsRouter } from './rule-sets/rule-sets.routes'
 import { healthRouter } from './health/health.routes'
+import { memoryBus, registerBoardNotifier, type LiveBus } from './live/index'
 import { csrfProtection } from './middleware/csrf'
 import { currentUser } from './middleware/current-user'
 import { sessionMiddleware } from './middleware/session'
@@ -40,6 +43,11 @@ export interface AppDeps {
   files: FileStore
   /** Tile and geocoder URLs; the built-in stand-ins when absent. */
   map?: MapConfig
+  /** Board changes between app servers: PostgreSQL LISTEN/NOTIFY, or in-process (the default). */
+  live?: LiveBus
+  /** How long a computed board is served before balances are worked out again (60 s). */
+  boardBucketMs?: number
+  boardStream?: StreamTiming
 }
 
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
@@ -47,6 +55,8 @@ const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 
 export function createApp(deps: AppDeps): Express {
   const { db, log, files } = deps
   const map = deps.map ?? LOCAL_MAP
+  const hub = new BoardHub(db, deps.live ?? memoryBus(), log, { bucketMs: deps.boardBucketMs })
+  registerBoardNotifier(db, hub)
   const app = express()
   app.disable('x-powered-by')
   if (deps.trustProxy) app.set('trust proxy', deps.trustProxy)
@@ -81,7 +91,10 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/session', sessionRouter(db, deps.signInLimits ?? DEFAULT_LIMITS))
   app.use('/api/users', usersRouter(db))
   app.use('/api/yards', yardsRouter(db))
-  app.use('/api/board', boardRouter(db))
+  app.use('/api/board', boardRouter(db, hub, deps.boardStream))
+  // Before any /api/vehicles/:id router, so that "closed" is never read as a vehicle id.
+  app.use('/api/vehicles/closed', archiveRouter(db))
+  app.use('/api/vehicles/:id/moves', movesRouter(db))
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(db))

@@ -3,6 +3,7 @@ import { openDatabase, DataDirLockedError, type DatabaseHandle } from '../db/cli
 import { loadDemoIfEmpty } from '../db/seed'
 import { createApp } from './app'
 import { localFileStore } from './files/index'
+import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
 import { pruneExpiredSessions } from './session/index'
 import { sessionSecret } from './session/secret'
@@ -39,6 +40,9 @@ if (config.demo) {
   }
 }
 
+// Several app servers on one PostgreSQL hear each other's board changes; one embedded database has one server.
+const live = config.database.kind === 'postgres' ? await postgresBus(config.database.url, log) : memoryBus()
+
 const app = createApp({
   db,
   log,
@@ -49,6 +53,7 @@ const app = createApp({
   origins: config.origins,
   clientDir: config.clientDir,
   signInLimits: config.signInLimits,
+  live,
   files: localFileStore(config.filesDir),
   map: config.map,
 })
@@ -67,6 +72,8 @@ async function shutdown(signal: string) {
   stopping = true
   log.info(`${signal}: finishing open requests and closing the database`)
   clearInterval(pruning)
+  // Open board streams would hold the server open: end them first (browsers reconnect elsewhere).
+  await live.close()
   server.close()
   server.closeIdleConnections()
   const force = setTimeout(() => server.closeAllConnections(), 5_000)

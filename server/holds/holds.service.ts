@@ -5,6 +5,7 @@ import { holds } from '../../db/schema/index'
 import type { Hold, LiftHold } from '../../shared/schemas/holds'
 import type { User } from '../../shared/schemas/users'
 import { conflict, notFound } from '../errors'
+import { boardChanged } from '../live/index'
 import { bumpVersion, vehicleForUser } from '../vehicles/vehicles.queries'
 
 /**
@@ -12,7 +13,7 @@ import { bumpVersion, vehicleForUser } from '../vehicles/vehicles.queries'
  * Each change bumps the vehicle's version, so a board move made against the old state is refused.
  */
 export async function setHold(db: Database, actor: User, vehicleId: string, input: Hold) {
-  return db.transaction(async (tx) => {
+  const holdId = await db.transaction(async (tx) => {
     const { vehicle } = await vehicleForUser(tx, actor.id, vehicleId, true)
     if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard; a hold can no longer be set.')
     const [row] = await tx
@@ -29,6 +30,8 @@ export async function setHold(db: Database, actor: User, vehicleId: string, inpu
     })
     return row!.id
   })
+  await boardChanged(db, { vehicleId, cause: 'hold_set' })
+  return holdId
 }
 
 export async function liftHold(db: Database, actor: User, vehicleId: string, holdId: string, input: LiftHold) {
@@ -48,4 +51,5 @@ export async function liftHold(db: Database, actor: User, vehicleId: string, hol
       before: { holdId, kind: hold.kind, agency: hold.agency, caseNumber: hold.caseNumber },
     })
   })
+  await boardChanged(db, { vehicleId, cause: 'hold_lifted' })
 }

@@ -3,6 +3,7 @@ import { appendHistory } from '../../db/history'
 import type { AssignSpace } from '../../shared/schemas/spaces'
 import type { User } from '../../shared/schemas/users'
 import { conflict, unprocessable } from '../errors'
+import { boardChanged } from '../live/index'
 import { spaceOf } from '../vehicles/vehicle-page.queries'
 import { bumpVersion, vehicleForUser } from '../vehicles/vehicles.queries'
 import { freeSpace, isSpaceConflict, spaceTaken } from './spaces.queries'
@@ -10,7 +11,7 @@ import { freeSpace, isSpaceConflict, spaceTaken } from './spaces.queries'
 /** Puts a vehicle in a space (or takes it out of one); a space holds one vehicle at a time. */
 export async function assignSpace(db: Database, actor: User, vehicleId: string, input: AssignSpace) {
   try {
-    return await db.transaction(async (tx) => {
+    const assigned = await db.transaction(async (tx) => {
       const { vehicle, yard } = await vehicleForUser(tx, actor.id, vehicleId, true)
       if (input.version !== vehicle.version) {
         throw conflict('Someone else changed this vehicle after you opened it. Reload and choose the space again.', { version: vehicle.version })
@@ -30,6 +31,8 @@ export async function assignSpace(db: Database, actor: User, vehicleId: string, 
       })
       return { version: version!, space: to }
     })
+    await boardChanged(db, { vehicleId, cause: 'space_assigned' })
+    return assigned
   } catch (err) {
     if (isSpaceConflict(err)) throw spaceTaken(null, 'spaceId')
     throw err

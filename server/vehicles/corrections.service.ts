@@ -6,6 +6,7 @@ import type { correctVehicleSchema } from '../../shared/schemas/tow-in'
 import type { User } from '../../shared/schemas/users'
 import type { z } from 'zod'
 import { conflict, unprocessable } from '../errors'
+import { boardChanged } from '../live/index'
 import { assertKnownClass, classesOfVersion } from './rules'
 import { towColumns } from './tow-charge'
 import { bumpVersion, vehicleForUser } from './vehicles.queries'
@@ -37,7 +38,7 @@ function differences(current: Values, next: Values, fields: readonly string[]) {
  * one is a conflict) and a reason; the history keeps each changed field's old and new value.
  */
 export async function correctVehicle(db: Database, actor: User, vehicleId: string, input: Correction) {
-  return db.transaction(async (tx) => {
+  const corrected = await db.transaction(async (tx) => {
     const { vehicle, yard } = await vehicleForUser(tx, actor.id, vehicleId, true)
     if (input.version !== vehicle.version) {
       throw conflict('Someone else changed this vehicle after you opened it. Reload to see their change, then correct it again.', { version: vehicle.version })
@@ -75,4 +76,6 @@ export async function correctVehicle(db: Database, actor: User, vehicleId: strin
     await appendHistory(tx, { vehicleId, actorId: actor.id, actorLabel: actor.name, kind: 'corrected', reason: input.reason, before, after })
     return { version }
   })
+  await boardChanged(db, { vehicleId, cause: 'corrected' })
+  return corrected
 }

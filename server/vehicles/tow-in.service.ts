@@ -10,6 +10,7 @@ import { badRequest, notFound } from '../errors'
 import { putFiles, recordFiles, type StoredFile } from '../files/files.service'
 import type { FileStore } from '../files/file-store'
 import { prepareUploads, type Incoming } from '../files/prepare'
+import { boardChanged } from '../live/index'
 import { freeSpace, isSpaceConflict, spaceTaken } from '../spaces/spaces.queries'
 import { yardOfUser } from '../yards/yards.queries'
 import { assertKnownClass, intakeRules } from './rules'
@@ -32,7 +33,9 @@ export async function createTowIn(db: Database, store: FileStore, actor: User, i
   const vehicleId = randomUUID()
   const { stored, discard } = await putFiles(store, vehicleId, prepared)
   try {
-    return await db.transaction((tx) => insertTowIn(tx, yard, actor, input, { vehicleId, ruleSetVersionId: rules.versionId, photos: stored }))
+    const created = await db.transaction((tx) => insertTowIn(tx, yard, actor, input, { vehicleId, ruleSetVersionId: rules.versionId, photos: stored }))
+    await boardChanged(db, { yardId: yard.id, vehicleId, cause: 'towed_in' })
+    return created
   } catch (err) {
     await discard()
     if (isSpaceConflict(err)) throw spaceTaken(null, 'spaceId')

@@ -1,8 +1,28 @@
 import { z } from 'zod'
-import { BOARD_COLUMNS, VEHICLE_STATES } from '../domain/columns'
+import { BOARD_COLUMNS, DISPOSITIONS, VEHICLE_STATES } from '../domain/columns'
+import { HOLD_KINDS } from '../domain/hold-kinds'
 import { vehicleSummarySchema } from './charges'
 
-export const boardCardSchema = z.object({
+export const cardHoldSchema = z.object({
+  kind: z.enum(HOLD_KINDS),
+  agency: z.string().nullable(),
+  caseNumber: z.string().nullable(),
+  until: z.string().nullable(),
+})
+
+/**
+ * What the yard has recorded toward handing the vehicle over. Payments, waivers, the claimant's
+ * ID and the signed release arrive with billing and release; until then they read as not recorded.
+ */
+export const handoverSchema = z.object({
+  paidCents: z.number(),
+  waived: z.boolean(),
+  claimantIdRecorded: z.boolean(),
+  releaseSigned: z.boolean(),
+})
+
+/** How a vehicle is named wherever it is listed: the board, the archive. */
+export const vehicleIdentityShape = {
   id: z.uuid(),
   stockNumber: z.string(),
   year: z.number().nullable(),
@@ -11,12 +31,20 @@ export const boardCardSchema = z.object({
   colour: z.string().nullable(),
   plate: z.string().nullable(),
   plateState: z.string().nullable(),
+}
+
+export const boardCardSchema = z.object({
+  ...vehicleIdentityShape,
   state: z.enum(VEHICLE_STATES),
+  disposition: z.enum(DISPOSITIONS).nullable(),
   version: z.number(),
   arrivedAt: z.string(),
+  towReason: z.string().nullable(),
   space: z.string().nullable(),
   rolls: z.boolean().nullable(),
-  holds: z.array(z.object({ kind: z.string(), until: z.string().nullable() })),
+  inspectedAt: z.string().nullable(),
+  holds: z.array(cardHoldSchema),
+  handover: handoverSchema,
   photoCount: z.number(),
   /** Null when the vehicle has no rule set to bill it by (shown as "no rule set"). */
   summary: vehicleSummarySchema.nullable(),
@@ -24,8 +52,20 @@ export const boardCardSchema = z.object({
 export type BoardCard = z.infer<typeof boardCardSchema>
 
 export const boardSchema = z.object({
+  /** The last live event this board already includes; the event stream resumes after it. */
+  eventId: z.string(),
   yard: z.object({ id: z.uuid(), name: z.string(), timeZone: z.string() }),
   asOf: z.string(),
   columns: z.array(z.object({ column: z.enum(BOARD_COLUMNS), cards: z.array(boardCardSchema) })),
 })
 export type Board = z.infer<typeof boardSchema>
+
+/** One message on the board's live stream (GET /api/board/events). */
+export const boardEventSchema = z.discriminatedUnion('type', [
+  z.object({ type: z.literal('card'), card: boardCardSchema }),
+  /** Closed (or gone from this yard): it leaves the board. */
+  z.object({ type: z.literal('removed'), id: z.uuid() }),
+  /** Events may have been missed: fetch the whole board again. */
+  z.object({ type: z.literal('resync') }),
+])
+export type BoardEvent = z.infer<typeof boardEventSchema>

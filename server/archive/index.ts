@@ -1,0 +1,1 @@
+export { archiveRouter } from './archive.routes'

@@ -1,0 +1,67 @@
+import type { Executor } from '../../db/client'
+import type { BoardCard } from '../../shared/schemas/board'
+import { summarizeVehicles, type YardForCharges } from '../charges/index'
+import { notFound } from '../errors'
+import { yardOfUser } from '../yards/yards.queries'
+import { activeHolds, activeInYard, cardRows, oneInYard, type CardRow } from './board.queries'
+
+export interface BoardYard extends YardForCharges {
+  id: string
+  name: string
+}
+
+// Payments, waivers, the claimant's ID and the signed release are not recorded anywhere yet, so
+// every guard that needs them refuses with its reason until billing and release land.
+const NOTHING_RECORDED: BoardCard['handover'] = { paidCents: 0, waived: false, claimantIdRecorded: false, releaseSigned: false }
+
+/** Every active vehicle of the yard as a card, oldest arrival first. */
+export async function activeCards(db: Executor, yard: BoardYard, asOf: Date): Promise<BoardCard[]> {
+  return cards(db, yard, asOf, await cardRows(db, activeInYard(yard.id)))
+}
+
+/** One vehicle of the yard as a card, whatever its state; undefined when it is not in this yard. */
+export async function cardOf(db: Executor, yard: BoardYard, vehicleId: string, asOf: Date): Promise<BoardCard | undefined> {
+  const [card] = await cards(db, yard, asOf, await cardRows(db, oneInYard(yard.id, vehicleId)), [vehicleId])
+  return card
+}
+
+async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[], ids?: string[]): Promise<BoardCard[]> {
+  if (rows.length === 0) return []
+  const holdRows = await activeHolds(db, yard.id, ids)
+  const summaries = await summarizeVehicles(db, yard, rows, asOf)
+  const holdsByVehicle = new Map<string, BoardCard['holds']>()
+  for (const h of holdRows) {
+    const list = holdsByVehicle.get(h.vehicleId) ?? []
+    list.push({ kind: h.kind, agency: h.agency, caseNumber: h.caseNumber, until: h.until?.toISOString() ?? null })
+    holdsByVehicle.set(h.vehicleId, list)
+  }
+  return rows.map((r) => ({
+    id: r.id,
+    stockNumber: r.stockNumber,
+    year: r.year,
+    make: r.make,
+    model: r.model,
+    colour: r.colour,
+    plate: r.plate,
+    plateState: r.plateState,
+    state: r.state,
+    disposition: r.disposition,
+    version: r.version,
+    arrivedAt: r.arrivedAt.toISOString(),
+    towReason: r.towReason,
+    space: r.spaceRow ? `${r.spaceRow}-${r.spaceNumber}` : null,
+    rolls: r.rolls,
+    inspectedAt: r.inspectedAt?.toISOString() ?? null,
+    holds: holdsByVehicle.get(r.id) ?? [],
+    handover: NOTHING_RECORDED,
+    photoCount: Number(r.photoCount),
+    summary: summaries.get(r.id) ?? null,
+  }))
+}
+
+/** The yard whose board this staff member sees. */
+export async function boardYardOf(db: Executor, userId: string): Promise<BoardYard> {
+  const yard = await yardOfUser(db, userId)
+  if (!yard) throw notFound('A yard for your company')
+  return yard
+}

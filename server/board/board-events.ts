@@ -1,0 +1,45 @@
+import type { RequestHandler } from 'express'
+import type { Database } from '../../db/client'
+import { boardYardOf } from './board-cards'
+import type { BoardHub } from './board-hub'
+
+export interface StreamTiming {
+  /** A comment line now and then keeps proxies and the browser from dropping a quiet stream. */
+  heartbeatMs: number
+  /** The stream ends after this long and the browser reconnects (resuming from Last-Event-ID),
+   * so a signed-out or deactivated account stops hearing within minutes. */
+  lifetimeMs: number
+}
+
+const DEFAULT_TIMING: StreamTiming = { heartbeatMs: 20_000, lifetimeMs: 5 * 60_000 }
+// EventSource waits this long before reconnecting by itself.
+const RETRY_MS = 2_000
+
+/** GET /api/board/events: Server-Sent Events with every change to the signed-in yard's board. */
+export function boardEvents(db: Database, hub: BoardHub, timing: StreamTiming = DEFAULT_TIMING): RequestHandler {
+  return async (req, res) => {
+    const yard = await boardYardOf(db, req.user!.id)
+    const since = req.get('last-event-id') || (typeof req.query.since === 'string' ? req.query.since.slice(0, 60) : undefined)
+    res.writeHead(200, {
+      'content-type': 'text/event-stream; charset=utf-8',
+      'cache-control': 'no-store, no-transform',
+      connection: 'keep-alive',
+      // nginx and similar proxies buffer responses unless told not to.
+      'x-accel-buffering': 'no',
+    })
+    res.write(`retry: ${RETRY_MS}\n\n`)
+    let open = true
+    const end = () => {
+      if (!open) return
+      open = false
+      clearInterval(heartbeat)
+      clearTimeout(lifetime)
+      unsubscribe()
+      res.end()
+    }
+    const unsubscribe = hub.subscribe(yard, { send: (m) => res.write(`id: ${m.id}\ndata: ${m.data}\n\n`), end }, since)
+    const heartbeat = setInterval(() => res.write(': keep-alive\n\n'), timing.heartbeatMs)
+    const lifetime = setTimeout(end, timing.lifetimeMs)
+    req.on('close', end)
+  }
+}

@@ -1,0 +1,131 @@
+import { randomUUID } from 'node:crypto'
+import type { Logger } from 'pino'
+import type { Database } from '../../db/client'
+import type { BoardChange, BoardNotifier, LiveBus, VehicleChange } from '../live/index'
+import { activeCards, cardOf, type BoardYard } from './board-cards'
+import { yardOfVehicle } from './board.queries'
+import { BoardFeed, type FeedClient } from './board-feed'
+import { BoardSnapshot } from './board-snapshot'
+
+export interface BoardHubOptions {
+  /** How long a computed board is served before balances and days are worked out again. */
+  bucketMs?: number
+}
+
+const noop = () => undefined
+
+/**
+ * The boards this app server shows: per yard, a cached snapshot and a live feed. A change (from
+ * this server or, through the bus, from another) re-reads one card, patches the snapshot and goes
+ * out on the feed. Per yard, rebuilds and changes run one after another, so a snapshot never
+ * misses a change that raced it.
+ */
+export class BoardHub implements BoardNotifier {
+  private readonly origin = randomUUID().slice(0, 8)
+  private readonly bucketMs: number
+  private readonly yards = new Map<string, BoardYard>()
+  private readonly snapshots = new Map<string, BoardSnapshot>()
+  private readonly feeds = new Map<string, BoardFeed>()
+  private readonly queues = new Map<string, Promise<unknown>>()
+  private readonly unsubscribe: () => void
+
+  constructor(
+    private readonly db: Database,
+    private readonly bus: LiveBus,
+    private readonly log: Pick<Logger, 'warn'>,
+    options: BoardHubOptions = {},
+  ) {
+    this.bucketMs = options.bucketMs ?? 60_000
+    this.unsubscribe = bus.subscribe({
+      change: (c) => c.origin !== this.origin && this.apply(c),
+      lost: () => this.startOver(),
+      closed: () => this.endClients(),
+    })
+  }
+
+  /**
+   * A vehicle changed on this server: refresh it here at once, then tell the other servers. Never
+   * throws — the change itself has committed; a board that misses it catches up within a bucket.
+   */
+  async changed(change: VehicleChange): Promise<void> {
+    try {
+      const yardId = change.yardId ?? (await yardOfVehicle(this.db, change.vehicleId))
+      if (!yardId) return
+      const full: BoardChange = { ...change, yardId, origin: this.origin }
+      this.apply(full)
+      await this.bus.publish(full)
+    } catch (err) {
+      this.log.warn({ err, change }, 'could not announce a board change')
+    }
+  }
+
+  /** The board as GET /api/board sends it, after every change already heard. */
+  boardBody(yard: BoardYard, now = new Date()): Promise<Buffer> {
+    this.yards.set(yard.id, yard)
+    return this.inOrder(yard.id, async () => {
+      const bucket = Math.floor(now.getTime() / this.bucketMs)
+      let snapshot = this.snapshots.get(yard.id)
+      if (snapshot?.bucket !== bucket) {
+        snapshot = new BoardSnapshot(bucket, yard, now, await activeCards(this.db, yard, now))
+        this.snapshots.set(yard.id, snapshot)
+      }
+      return snapshot.body(this.feed(yard.id).lastId)
+    })
+  }
+
+  /** A board's event stream: what it missed since `lastEventId`, then every change as it happens. */
+  subscribe(yard: BoardYard, client: FeedClient, lastEventId?: string): () => void {
+    this.yards.set(yard.id, yard)
+    const feed = this.feed(yard.id)
+    if (lastEventId) {
+      const missed = feed.since(lastEventId)
+      if (missed) missed.forEach((m) => client.send(m))
+      else client.send(feed.resyncMessage())
+    }
+    feed.clients.add(client)
+    return () => feed.clients.delete(client)
+  }
+
+  close(): void {
+    this.unsubscribe()
+    this.endClients()
+  }
+
+  private apply(change: BoardChange): void {
+    const yard = this.yards.get(change.yardId)
+    // A yard whose board this server has never shown has nothing here to refresh.
+    if (!yard) return
+    void this.inOrder(yard.id, async () => {
+      const card = await cardOf(this.db, yard, change.vehicleId, new Date())
+      const snapshot = this.snapshots.get(yard.id)
+      if (!card || card.state === 'closed') {
+        snapshot?.remove(change.vehicleId)
+        this.feed(yard.id).push({ type: 'removed', id: change.vehicleId })
+      } else {
+        snapshot?.put(card)
+        this.feed(yard.id).push({ type: 'card', card })
+      }
+    }).catch((err) => this.log.warn({ err, change }, 'could not refresh a board card'))
+  }
+
+  private startOver(): void {
+    this.snapshots.clear()
+    for (const feed of this.feeds.values()) feed.push({ type: 'resync' })
+  }
+
+  private endClients(): void {
+    for (const feed of this.feeds.values()) for (const c of [...feed.clients]) c.end()
+  }
+
+  private feed(yardId: string): BoardFeed {
+    let feed = this.feeds.get(yardId)
+    if (!feed) this.feeds.set(yardId, (feed = new BoardFeed(this.origin)))
+    return feed
+  }
+
+  private inOrder<T>(yardId: string, task: () => Promise<T>): Promise<T> {
+    const run = (this.queues.get(yardId) ?? Promise.resolve()).then(task)
+    this.queues.set(yardId, run.then(noop, noop))
+    return run
+  }
+}

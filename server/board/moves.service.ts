@@ -1,0 +1,61 @@
+import { and, eq, sql } from 'drizzle-orm'
+import type { Database } from '../../db/client'
+import { appendHistory } from '../../db/history'
+import { vehicles } from '../../db/schema/index'
+import { COLUMN_LABELS } from '../../shared/domain/columns'
+import { checkMove } from '../../shared/domain/lifecycle'
+import { factsOfCard } from '../../shared/domain/lifecycle-facts'
+import type { BoardCard } from '../../shared/schemas/board'
+import type { moveRequestSchema } from '../../shared/schemas/moves'
+import type { User } from '../../shared/schemas/users'
+import type { z } from 'zod'
+import { AppError, conflict, notFound, unprocessable } from '../errors'
+import { boardChanged } from '../live/index'
+import { boardYardOf, cardOf } from './board-cards'
+import { oneInYard } from './board.queries'
+
+export type Move = z.output<typeof moveRequestSchema>
+
+/**
+ * Moves one vehicle if the lifecycle allows it for this person now, with its history entry in the
+ * same transaction. The vehicle row is locked first, so of two moves made from the same version
+ * exactly one succeeds and the other sees the new version (409). A refused move writes nothing.
+ */
+export async function moveVehicle(db: Database, user: User, vehicleId: string, move: Move, now = new Date()): Promise<BoardCard> {
+  const yard = await boardYardOf(db, user.id)
+  const card = await db.transaction(async (tx) => {
+    const [row] = await tx.select({ state: vehicles.state, version: vehicles.version }).from(vehicles).where(oneInYard(yard.id, vehicleId)).for('update')
+    if (!row) throw notFound('That vehicle')
+    const before = (await cardOf(tx, yard, vehicleId, now))!
+    if (row.version !== move.version) {
+      throw conflict(
+        `Someone else changed ${before.stockNumber} a moment ago; it is now in ${COLUMN_LABELS[row.state]}. The board shows it as it is now — move it again if it still needs moving.`,
+        { current: before },
+      )
+    }
+    const verdict = checkMove({ from: row.state, to: move.to, role: user.role, facts: factsOfCard(before, yard.timeZone), disposition: move.disposition, reason: move.reason, now })
+    if (!verdict.allowed) {
+      const message = verdict.reasons.map((r) => r.message).join(' ')
+      throw verdict.forbidden ? new AppError(403, message, { reasons: verdict.reasons }) : unprocessable(message, { reasons: verdict.reasons })
+    }
+    const closing = move.to === 'closed'
+    await tx
+      .update(vehicles)
+      .set({ state: move.to, version: sql`${vehicles.version} + 1`, updatedAt: now, ...(closing ? { disposition: move.disposition, closedAt: now, spaceId: null } : {}) })
+      .where(and(eq(vehicles.id, vehicleId), eq(vehicles.version, move.version)))
+    await appendHistory(tx, {
+      vehicleId,
+      actorId: user.id,
+      actorLabel: user.name,
+      kind: 'moved',
+      fromState: row.state,
+      toState: move.to,
+      reason: move.reason,
+      after: closing ? { disposition: move.disposition, spaceGivenBack: before.space } : null,
+      at: now,
+    })
+    return (await cardOf(tx, yard, vehicleId, now))!
+  })
+  await boardChanged(db, { yardId: yard.id, vehicleId, cause: 'moved' })
+  return card
+}

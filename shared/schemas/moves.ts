@@ -1,0 +1,27 @@
+import { z } from 'zod'
+import { DISPOSITIONS, VEHICLE_STATES } from '../domain/columns'
+import { boardCardSchema } from './board'
+
+export const moveRequestSchema = z.object({
+  to: z.enum(VEHICLE_STATES, { error: 'Choose where the vehicle goes.' }),
+  version: z
+    .number({ error: 'Send the version of the card you saw; reload the board if it is missing.' })
+    .int('The version is a whole number.')
+    .positive('The version is a positive number.'),
+  reason: z
+    .string({ error: 'The reason is text.' })
+    .trim()
+    .max(500, 'Keep the reason under 500 characters.')
+    .nullish()
+    .transform((v) => v || null),
+  disposition: z.enum(DISPOSITIONS, { error: 'Choose how the vehicle leaves the yard.' }).nullish().transform((v) => v ?? null),
+})
+export type MoveRequest = z.input<typeof moveRequestSchema>
+
+export const reasonSchema = z.object({ code: z.string(), message: z.string() })
+
+/** 403 or 422: the move was refused and nothing was written. */
+export const moveRefusalSchema = z.object({ error: z.string(), reasons: z.array(reasonSchema) })
+
+/** 409: someone moved the card first; `current` is where it is now. */
+export const moveConflictSchema = z.object({ error: z.string(), current: boardCardSchema })

@@ -1,0 +1,142 @@
+import { eq } from 'drizzle-orm'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import * as tables from '../../db/schema/index'
+import { makeTestApp, type TestApp } from '../helpers/app'
+import { DAY, sampleVersion, setHold } from '../helpers/board'
+import { fetchSession, listening, openStream } from '../helpers/live'
+import { makeStaff, makeVehicle } from '../helpers/factories'
+import { DEMO_RATES, towInBody } from '../helpers/tow-in'
+
+let t: TestApp
+let server: Awaited<ReturnType<typeof listening>>
+beforeAll(async () => {
+  t = await makeTestApp()
+  server = await listening(t.app)
+})
+afterAll(async () => {
+  await server.close()
+  await t.close()
+})
+
+type Card = { id: string; state: string; version: number }
+const cardEvent = (id: string, state: string) => (b: Record<string, unknown>) => b.type === 'card' && (b.card as Card).id === id && (b.card as Card).state === state
+
+describe('GET /api/board/events', () => {
+  it('events_aMoveByOnePerson_reachesASecondBoard', async () => {
+    const staff = await makeStaff(t.db)
+    const v = await makeVehicle(t.db, staff.yard.id)
+    const [mover, watcher] = await Promise.all([fetchSession(server.url, staff.dispatcher), fetchSession(server.url, staff.office)])
+    const stream = await openStream(server.url, watcher.cookie)
+    expect(stream.status).toBe(200)
+    expect(stream.contentType).toMatch(/^text\/event-stream/)
+    expect((await stream.first())?.retry).toBeGreaterThan(0)
+    expect((await mover.post(`/api/vehicles/${v.id}/moves`, { to: 'teardown', version: 1 })).status).toBe(200)
+    const got = await stream.next(cardEvent(v.id, 'teardown'))
+    expect(got.body.card).toMatchObject({ id: v.id, state: 'teardown', version: 2, stockNumber: v.stockNumber })
+    expect(got.id).toMatch(/^\w+\.\d+$/)
+    stream.close()
+  })
+
+  it('events_anotherCompanysMove_isNotSent', async () => {
+    const ours = await makeStaff(t.db)
+    const theirs = await makeStaff(t.db)
+    const mine = await makeVehicle(t.db, ours.yard.id)
+    const other = await makeVehicle(t.db, theirs.yard.id)
+    const watcher = await fetchSession(server.url, ours.manager)
+    const stream = await openStream(server.url, watcher.cookie)
+    const them = await fetchSession(server.url, theirs.manager)
+    const us = await fetchSession(server.url, ours.manager)
+    // Both boards have been shown once, so both yards are live on this server.
+    await them.get('/api/board')
+    expect((await them.post(`/api/vehicles/${other.id}/moves`, { to: 'teardown', version: 1 })).status).toBe(200)
+    expect((await us.post(`/api/vehicles/${mine.id}/moves`, { to: 'teardown', version: 1 })).status).toBe(200)
+    // The first card event this board hears is its own yard's: the other yard's move came first and was not sent.
+    const first = await stream.next((b) => b.type === 'card')
+    expect((first.body.card as Card).id).toBe(mine.id)
+    stream.close()
+  })
+
+  it('events_reconnectWithLastEventId_replaysWhatWasMissed', async () => {
+    const staff = await makeStaff(t.db)
+    const [a, b] = [await makeVehicle(t.db, staff.yard.id), await makeVehicle(t.db, staff.yard.id)]
+    const s = await fetchSession(server.url, staff.manager)
+    const board = (await (await s.get('/api/board')).json()) as { eventId: string }
+    const firstStream = await openStream(server.url, s.cookie, { since: board.eventId })
+    await s.post(`/api/vehicles/${a.id}/moves`, { to: 'teardown', version: 1 })
+    const seen = await firstStream.next(cardEvent(a.id, 'teardown'))
+    firstStream.close()
+    // Gone for a moment: two changes happen meanwhile.
+    await s.post(`/api/vehicles/${b.id}/moves`, { to: 'teardown', version: 1 })
+    await s.post(`/api/vehicles/${a.id}/moves`, { to: 'arrival', version: 2, reason: 'logged into Teardown by mistake' })
+    const again = await openStream(server.url, s.cookie, { lastEventId: seen.id })
+    expect((await again.next((x) => x.type !== undefined)).body).toMatchObject({ type: 'card', card: { id: b.id, state: 'teardown' } })
+    expect((await again.next((x) => x.type !== undefined)).body).toMatchObject({ type: 'card', card: { id: a.id, state: 'arrival' } })
+    again.close()
+  })
+
+  it('events_lastEventIdFromAnotherServer_asksTheBoardToStartOver', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await fetchSession(server.url, staff.manager)
+    const stream = await openStream(server.url, s.cookie, { lastEventId: 'elsewhere.41' })
+    expect((await stream.next()).body).toEqual({ type: 'resync' })
+    stream.close()
+  })
+
+  it('events_closedVehicle_isSentAsRemoved', async () => {
+    const staff = await makeStaff(t.db)
+    const ruleSetVersionId = await sampleVersion(t.db, 'florida-sample')
+    const v = await makeVehicle(t.db, staff.yard.id, { state: 'storage', ruleSetVersionId, year: 2009, arrivedAt: new Date(Date.now() - 60 * DAY) })
+    const s = await fetchSession(server.url, staff.manager)
+    const stream = await openStream(server.url, s.cookie)
+    expect((await s.post(`/api/vehicles/${v.id}/moves`, { to: 'closed', version: 1, disposition: 'lien_sale' })).status).toBe(200)
+    expect((await stream.next((b) => b.type !== undefined)).body).toEqual({ type: 'removed', id: v.id })
+    stream.close()
+  })
+
+  it('events_refusedMove_sendsNothing', async () => {
+    const staff = await makeStaff(t.db)
+    const held = await makeVehicle(t.db, staff.yard.id, { state: 'storage' })
+    await setHold(t.db, held.id, 'lien')
+    const free = await makeVehicle(t.db, staff.yard.id)
+    const s = await fetchSession(server.url, staff.manager)
+    const stream = await openStream(server.url, s.cookie)
+    expect((await s.post(`/api/vehicles/${held.id}/moves`, { to: 'release', version: 1 })).status).toBe(422)
+    expect((await s.post(`/api/vehicles/${free.id}/moves`, { to: 'teardown', version: 1 })).status).toBe(200)
+    const first = await stream.next((b) => b.type !== undefined)
+    expect((first.body.card as Card).id).toBe(free.id)
+    stream.close()
+  })
+
+  it('events_aTowInLogged_appearsInArrivalOnAnotherBoard', async () => {
+    const staff = await makeStaff(t.db)
+    const [version] = await t.db.select().from(tables.ruleSetVersions).where(eq(tables.ruleSetVersions.id, await sampleVersion(t.db, 'california-sample')))
+    await t.db.update(tables.yards).set({ towRates: DEMO_RATES, ruleSetId: version!.ruleSetId }).where(eq(tables.yards.id, staff.yard.id))
+    const [dispatcher, watcher] = await Promise.all([fetchSession(server.url, staff.dispatcher), fetchSession(server.url, staff.office)])
+    const stream = await openStream(server.url, watcher.cookie)
+    const res = await dispatcher.post('/api/vehicles', towInBody(staff.dispatcher.id))
+    expect(res.status).toBe(201)
+    const { id } = (await res.json()) as { id: string }
+    expect((await stream.next((b) => b.type === 'card')).body.card).toMatchObject({ id, state: 'arrival', make: 'Orlan', model: 'Sparrow' })
+    stream.close()
+  })
+
+  it('events_aHoldSetAndLifted_updateTheCardOnAnotherBoard', async () => {
+    const staff = await makeStaff(t.db)
+    const v = await makeVehicle(t.db, staff.yard.id, { state: 'storage' })
+    const [dispatcher, watcher] = await Promise.all([fetchSession(server.url, staff.dispatcher), fetchSession(server.url, staff.office)])
+    const stream = await openStream(server.url, watcher.cookie)
+    const set = await dispatcher.post(`/api/vehicles/${v.id}/holds`, { kind: 'law_enforcement', agency: 'Orrin Flats PD', caseNumber: 'OF-26-12001' })
+    expect(set.status).toBe(201)
+    const held = await stream.next((b) => b.type === 'card')
+    expect(held.body.card).toMatchObject({ id: v.id, holds: [{ kind: 'law_enforcement', agency: 'Orrin Flats PD', caseNumber: 'OF-26-12001' }] })
+    const { holds } = (await set.json()) as { holds: { id: string }[] }
+    expect((await dispatcher.post(`/api/vehicles/${v.id}/holds/${holds[0]!.id}/lift`, { reason: 'Release letter from OFPD, signed Sgt. Imrie' })).status).toBe(200)
+    expect((await stream.next((b) => b.type === 'card')).body.card).toMatchObject({ id: v.id, holds: [] })
+    stream.close()
+  })
+
+  it('events_signedOut_answers401', async () => {
+    const res = await fetch(`${server.url}/api/board/events`)
+    expect(res.status).toBe(401)
+  })
+})

@@ -1,0 +1,36 @@
+import { eq } from 'drizzle-orm'
+import type { Database } from '../../db/client'
+import { historyOf } from '../../db/history'
+import * as t from '../../db/schema/index'
+import { loadSampleRuleSets } from '../../db/seed'
+import type { HoldKind } from '../../shared/domain/hold-kinds'
+
+const samples = new WeakMap<Database, Promise<Map<string, string>>>()
+
+/** The shipped sample rule sets, loaded once per test database: slug → version id. */
+export function sampleRuleSets(db: Database): Promise<Map<string, string>> {
+  let loaded = samples.get(db)
+  if (!loaded) samples.set(db, (loaded = loadSampleRuleSets(db)))
+  return loaded
+}
+
+/** The version id of a sample rule set, e.g. "florida-sample", to bill a test vehicle by. */
+export async function sampleVersion(db: Database, slug: string): Promise<string> {
+  const id = (await sampleRuleSets(db)).get(slug)
+  if (!id) throw new Error(`no sample rule set ${slug}`)
+  return id
+}
+
+export async function setHold(db: Database, vehicleId: string, kind: HoldKind, more: Partial<typeof t.holds.$inferInsert> = {}) {
+  const [hold] = await db.insert(t.holds).values({ vehicleId, kind, ...more }).returning()
+  return hold!
+}
+
+export async function vehicleRow(db: Database, id: string) {
+  const [row] = await db.select().from(t.vehicles).where(eq(t.vehicles.id, id))
+  return row!
+}
+
+export const historyCount = async (db: Database, id: string) => (await historyOf(db, id)).length
+
+export const DAY = 24 * 3_600_000
