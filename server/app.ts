@@ -13,6 +13,7 @@ import { errorHandler, notFoundHandler } from './errors'
 import { fakesRouter } from './fakes/fakes.routes'
 import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
 import { holdsRouter } from './holds/index'
+import { inspectionsRouter } from './inspections/index'
 import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
 import { quotesRouter } from './quotes/quotes.routes'
 import { ruleSetsRouter } from './rule-sets/rule-sets.routes'
@@ -95,6 +96,7 @@ export function createApp(deps: AppDeps): Express {
   // Before any /api/vehicles/:id router, so that "closed" is never read as a vehicle id.
   app.use('/api/vehicles/closed', archiveRouter(db))
   app.use('/api/vehicles/:id/moves', movesRouter(db))
+  app.use('/api/vehicles/:id/inspection', inspectionsRouter(db, files))
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(db))

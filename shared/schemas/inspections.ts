@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { VEHICLE_STATES } from '../domain/columns'
 import { FINDING_STATUSES, ITEM_CODES } from '../domain/inspection-checklist'
 import { hoursToHundredths, LIMITS } from '../domain/inspection-estimate'
 import { formatCents } from '../domain/money'
@@ -146,7 +147,7 @@ export const inspectionPageSchema = z.object({
     id: z.uuid(),
     stockNumber: z.string(),
     title: z.string(),
-    state: z.string(),
+    state: z.enum(VEHICLE_STATES),
     version: z.number(),
     rolls: z.boolean().nullable(),
     steers: z.boolean().nullable(),
@@ -154,6 +155,8 @@ export const inspectionPageSchema = z.object({
     keys: z.enum(['yes', 'no', 'unknown']),
     conditionNotes: z.string().nullable(),
   }),
+  /** The yard's time zone, for showing when each step was done. */
+  timeZone: z.string(),
   /** The yard's rate per hour now; each line keeps the rate it was written at. */
   labourRateCents: z.number(),
   ruleSet: z.object({ name: z.string(), caution: z.string() }).nullable(),

@@ -18,6 +18,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/', redirect: '/board' },
   { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { public: true, title: 'Sign in' } },
   { path: '/board', name: 'board', component: () => import('@/views/BoardView.vue'), meta: { permission: 'board.view', nav: 'Board', title: 'Board' } },
+  { path: '/archive', name: 'archive', component: () => import('@/views/ArchiveView.vue'), meta: { permission: 'board.view', nav: 'Archive', title: 'Archive' } },
   { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'Staff', title: 'Staff' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
 ]

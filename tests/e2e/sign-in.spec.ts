@@ -2,10 +2,10 @@ import { expect, test } from '@playwright/test'
 import { DEMO, signInAs, watchConsole, type DemoRole } from './helpers'
 
 const NAV: Record<DemoRole, string[]> = {
-  manager: ['Board', 'Staff'],
-  dispatcher: ['Board'],
-  technician: ['Board'],
-  office: ['Board'],
+  manager: ['Board', 'Archive', 'Staff'],
+  dispatcher: ['Board', 'Archive'],
+  technician: ['Board', 'Archive'],
+  office: ['Board', 'Archive'],
 }
 
 for (const role of Object.keys(NAV) as DemoRole[]) {

@@ -1,0 +1,66 @@
+import { and, count, eq } from 'drizzle-orm'
+import type { Database } from '../../db/client'
+import { appendHistory } from '../../db/history'
+import { files, inspectionItems, inspectionPhotos } from '../../db/schema/index'
+import { itemName } from '../../shared/domain/inspection-checklist'
+import { MAX_FILES_PER_VEHICLE } from '../../shared/schemas/files'
+import type { itemFindingSchema } from '../../shared/schemas/inspections'
+import type { User } from '../../shared/schemas/users'
+import type { z } from 'zod'
+import { unprocessable } from '../errors'
+import { prepareUploads, putFiles, recordFiles, type FileStore } from '../files/index'
+import type { Incoming } from '../files/prepare'
+import { actorOf, lockInspection } from './inspection-lock'
+
+type Finding = z.output<typeof itemFindingSchema>
+
+/** Marks one checklist item; a mark that changes nothing writes nothing. */
+export async function setFinding(db: Database, actor: User, vehicleId: string, itemCode: string, finding: Finding): Promise<void> {
+  await db.transaction(async (tx) => {
+    const { inspection } = await lockInspection(tx, actor.id, vehicleId, 'open')
+    const [before] = await tx
+      .select()
+      .from(inspectionItems)
+      .where(and(eq(inspectionItems.inspectionId, inspection.id), eq(inspectionItems.itemCode, itemCode)))
+    if (before && before.status === finding.status && before.note === finding.note) return
+    if (!before && finding.status === 'not_checked' && finding.note === null) return
+    const values = { status: finding.status, note: finding.note, updatedById: actor.id, updatedAt: new Date() }
+    await tx
+      .insert(inspectionItems)
+      .values({ inspectionId: inspection.id, itemCode, ...values })
+      .onConflictDoUpdate({ target: [inspectionItems.inspectionId, inspectionItems.itemCode], set: values })
+    await appendHistory(tx, {
+      vehicleId,
+      ...actorOf(actor),
+      kind: 'inspection_item_marked',
+      before: before ? { item: itemCode, status: before.status, note: before.note } : null,
+      after: { inspectionId: inspection.id, item: itemCode, name: itemName(itemCode), status: finding.status, note: finding.note },
+    })
+  })
+}
+
+/**
+ * Photos of one finding, through the tow-in's upload pipeline (sniffed, re-encoded, stripped of
+ * metadata, hashed into the history); the link row says which item they show. All or none.
+ */
+export async function addItemPhotos(db: Database, store: FileStore, actor: User, vehicleId: string, itemCode: string, incoming: Incoming[]) {
+  if (incoming.length === 0) throw unprocessable('Take or choose a photo first.', { issues: [{ path: 'files', message: 'Take or choose a photo first.' }] })
+  // Refuse before decoding a dozen photos for an inspection that cannot take them.
+  await db.transaction((tx) => lockInspection(tx, actor.id, vehicleId, 'open'))
+  const [have] = await db.select({ n: count() }).from(files).where(eq(files.vehicleId, vehicleId))
+  if ((have?.n ?? 0) + incoming.length > MAX_FILES_PER_VEHICLE) {
+    throw unprocessable(`A vehicle keeps at most ${MAX_FILES_PER_VEHICLE} files; this one has ${have?.n ?? 0}.`)
+  }
+  const prepared = await prepareUploads(incoming, 'photo', 'files', itemName(itemCode))
+  const { stored, discard } = await putFiles(store, vehicleId, prepared)
+  try {
+    await db.transaction(async (tx) => {
+      const { inspection } = await lockInspection(tx, actor.id, vehicleId, 'open')
+      await recordFiles(tx, vehicleId, stored, actor)
+      await tx.insert(inspectionPhotos).values(stored.map((f) => ({ fileId: f.id, inspectionId: inspection.id, itemCode })))
+    })
+  } catch (err) {
+    await discard()
+    throw err
+  }
+}

@@ -1,0 +1,1 @@
+export { inspectionsRouter } from './inspections.routes'

@@ -1,0 +1,112 @@
+import { eq } from 'drizzle-orm'
+import type { Database } from '../../db/client'
+import { appendHistory } from '../../db/history'
+import { inspections } from '../../db/schema/index'
+import { estimateTotals } from '../../shared/domain/inspection-estimate'
+import { pickupBadge } from '../../shared/domain/pickup-badge'
+import { repairOrSalvage } from '../../shared/domain/repair-or-salvage'
+import { CAUTIONS } from '../../shared/domain/workshop-safety'
+import type { User } from '../../shared/schemas/users'
+import { conflict, unprocessable, type Issue } from '../errors'
+import { boardChanged } from '../live/index'
+import { versionsById } from '../rule-sets/rule-sets.queries'
+import { vehicleForUser } from '../vehicles/vehicles.queries'
+import { actorOf, lockInspection, updateVehicle } from './inspection-lock'
+import { itemsOf, latestInspection, linesOf } from './inspections.queries'
+
+/**
+ * Starts an inspection on a vehicle in Teardown (the board's move API puts it there). Starting
+ * again while one is under way answers the one under way; a re-inspection clears the vehicle's
+ * "inspected" mark, so it cannot go on to Owner decision until this one is finished too.
+ */
+export async function startInspection(db: Database, actor: User, vehicleId: string): Promise<{ created: boolean }> {
+  const result = await db.transaction(async (tx) => {
+    const { vehicle } = await vehicleForUser(tx, actor.id, vehicleId, true)
+    if (vehicle.state !== 'teardown') {
+      throw conflict(`Move ${vehicle.stockNumber} to Teardown first: the inspection is done there.`)
+    }
+    const current = await latestInspection(tx, vehicleId)
+    if (current && !current.finishedAt) return { created: false, yardId: vehicle.yardId, cleared: false }
+    const [row] = await tx.insert(inspections).values({ vehicleId, startedById: actor.id }).returning({ id: inspections.id })
+    const cleared = vehicle.inspectedAt !== null
+    if (cleared) await updateVehicle(tx, vehicleId, { inspectedAt: null, inspectedById: null })
+    await appendHistory(tx, {
+      vehicleId,
+      ...actorOf(actor),
+      kind: 'inspection_started',
+      before: cleared ? { inspectedAt: vehicle.inspectedAt!.toISOString(), previousInspectionId: current?.id ?? null } : null,
+      after: { inspectionId: row!.id, reinspection: current !== undefined },
+    })
+    return { created: true, yardId: vehicle.yardId, cleared }
+  })
+  if (result.cleared) await boardChanged(db, { yardId: result.yardId, vehicleId, cause: 'inspection' })
+  return { created: result.created }
+}
+
+/** Once per inspection: the technician has read the cautions. A second tap records nothing. */
+export async function acknowledgeSafety(db: Database, actor: User, vehicleId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    const { inspection } = await lockInspection(tx, actor.id, vehicleId, 'any')
+    if (inspection.safetyAcknowledgedAt) return
+    const at = new Date()
+    await tx.update(inspections).set({ safetyAcknowledgedAt: at, safetyAcknowledgedById: actor.id }).where(eq(inspections.id, inspection.id))
+    await appendHistory(tx, {
+      vehicleId,
+      ...actorOf(actor),
+      kind: 'safety_acknowledged',
+      after: { inspectionId: inspection.id, cautions: CAUTIONS.map((c) => c.text) },
+      at,
+    })
+  })
+}
+
+export const NOT_ACKNOWLEDGED = 'Read the safety cautions and tap “I have read them” first.'
+
+/**
+ * Finishes the inspection: who and when, on the inspection and on the vehicle (the board's
+ * "inspection finished" guard reads the vehicle). Refused, with every reason, until the safety
+ * cautions are acknowledged, something has been checked, and rolls, steers and brakes are marked.
+ */
+export async function finishInspection(db: Database, actor: User, vehicleId: string): Promise<void> {
+  const yardId = await db.transaction(async (tx) => {
+    const { vehicle, inspection } = await lockInspection(tx, actor.id, vehicleId, 'open')
+    const items = await itemsOf(tx, inspection.id)
+    const issues: Issue[] = []
+    if (!inspection.safetyAcknowledgedAt) issues.push({ path: 'safety', message: NOT_ACKNOWLEDGED })
+    if (!items.some((i) => i.status !== 'not_checked')) {
+      issues.push({ path: 'items', message: 'No findings yet: mark at least one item OK, worn or broken.' })
+    }
+    for (const [field, question] of [['rolls', 'Does it roll?'], ['steers', 'Does it steer?'], ['brakes', 'Does it brake?']] as const) {
+      if (vehicle[field] === null) issues.push({ path: field, message: `Answer “${question}” for the pickup.` })
+    }
+    if (issues.length > 0) {
+      throw unprocessable(`The inspection cannot be finished yet. ${issues.map((i) => i.message).join(' ')}`, { issues })
+    }
+    const at = new Date()
+    await tx.update(inspections).set({ finishedAt: at, finishedById: actor.id }).where(eq(inspections.id, inspection.id))
+    await updateVehicle(tx, vehicleId, { inspectedAt: at, inspectedById: actor.id })
+    const totals = estimateTotals(await linesOf(tx, inspection.id))
+    const count = (status: string) => items.filter((i) => i.status === status).map((i) => i.itemCode)
+    const ruleSet = vehicle.ruleSetVersionId ? (await versionsById(tx, [vehicle.ruleSetVersionId])).get(vehicle.ruleSetVersionId) : undefined
+    const verdict =
+      ruleSet && inspection.actualCashValueCents !== null
+        ? repairOrSalvage(totals.totalCents, inspection.actualCashValueCents, inspection.salvageValueCents ?? 0, ruleSet).recommendation
+        : null
+    await appendHistory(tx, {
+      vehicleId,
+      ...actorOf(actor),
+      kind: 'inspection_finished',
+      after: {
+        inspectionId: inspection.id,
+        broken: count('broken'),
+        worn: count('worn'),
+        estimateCents: totals.totalCents,
+        recommendation: verdict,
+        pickup: pickupBadge(vehicle)?.label ?? null,
+      },
+      at,
+    })
+    return vehicle.yardId
+  })
+  await boardChanged(db, { yardId, vehicleId, cause: 'inspection' })
+}

@@ -1,0 +1,54 @@
+import { eq } from 'drizzle-orm'
+import type { z } from 'zod'
+import type { Database } from '../../db/client'
+import { appendHistory } from '../../db/history'
+import { inspections } from '../../db/schema/index'
+import { pickupBadge } from '../../shared/domain/pickup-badge'
+import type { rollAbilitySchema } from '../../shared/schemas/inspections'
+import type { User } from '../../shared/schemas/users'
+import { badRequest, unprocessable } from '../errors'
+import { boardChanged } from '../live/index'
+import { actorOf, lockInspection, updateVehicle } from './inspection-lock'
+import { NOT_ACKNOWLEDGED } from './inspections.service'
+
+type Marks = z.output<typeof rollAbilitySchema>
+
+/**
+ * Rolls, steers, brakes, keys, and a wheel refitted to make it roll: what the pickup needs follows
+ * from these (shared/domain/pickup-badge.ts). Someone may be under the vehicle to find out, so the
+ * safety cautions must have been acknowledged on this inspection first.
+ */
+export async function markRollAbility(db: Database, actor: User, vehicleId: string, marks: Marks): Promise<void> {
+  const yardId = await db.transaction(async (tx) => {
+    const { vehicle, inspection } = await lockInspection(tx, actor.id, vehicleId, 'any')
+    if (!inspection.safetyAcknowledgedAt) throw unprocessable(NOT_ACKNOWLEDGED, { issues: [{ path: 'safety', message: NOT_ACKNOWLEDGED }] })
+    const wheelRefitted = marks.wheelRefitted ?? inspection.wheelRefitted
+    const lugTorqueFtLbf = wheelRefitted ? (marks.lugTorqueFtLbf ?? inspection.lugTorqueFtLbf) : null
+    if (wheelRefitted && lugTorqueFtLbf === null) {
+      const message = "Enter the maker's lug-nut torque the refitted wheel was tightened to."
+      throw badRequest(message, [{ path: 'lugTorqueFtLbf', message }])
+    }
+    const before = { rolls: vehicle.rolls, steers: vehicle.steers, brakes: vehicle.brakes, keys: vehicle.keys, wheelRefitted: inspection.wheelRefitted, lugTorqueFtLbf: inspection.lugTorqueFtLbf }
+    const after = {
+      rolls: marks.rolls ?? vehicle.rolls,
+      steers: marks.steers ?? vehicle.steers,
+      brakes: marks.brakes ?? vehicle.brakes,
+      keys: marks.keys === undefined ? vehicle.keys : marks.keys ? ('yes' as const) : ('no' as const),
+      wheelRefitted,
+      lugTorqueFtLbf,
+    }
+    const changed = (Object.keys(after) as (keyof typeof after)[]).filter((k) => after[k] !== before[k])
+    if (changed.length === 0) return null
+    await updateVehicle(tx, vehicleId, { rolls: after.rolls, steers: after.steers, brakes: after.brakes, keys: after.keys })
+    await tx.update(inspections).set({ wheelRefitted, lugTorqueFtLbf }).where(eq(inspections.id, inspection.id))
+    await appendHistory(tx, {
+      vehicleId,
+      ...actorOf(actor),
+      kind: 'roll_ability_marked',
+      before: Object.fromEntries(changed.map((k) => [k, before[k]])),
+      after: { inspectionId: inspection.id, ...Object.fromEntries(changed.map((k) => [k, after[k]])), pickup: pickupBadge(after)?.label ?? null },
+    })
+    return vehicle.yardId
+  })
+  if (yardId) await boardChanged(db, { yardId, vehicleId, cause: 'roll-ability' })
+}

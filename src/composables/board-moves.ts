@@ -1,0 +1,64 @@
+import { reactive } from 'vue'
+import { COLUMN_LABELS, DISPOSITION_LABELS, type Disposition, type VehicleState } from '@shared/domain/columns'
+import { checkMove, moveOptions } from '@shared/domain/lifecycle'
+import { factsOfCard } from '@shared/domain/lifecycle-facts'
+import type { BoardCard } from '@shared/schemas/board'
+import { moveConflictSchema, moveRefusalSchema } from '@shared/schemas/moves'
+import { moveVehicle } from '@/api/board'
+import { ApiError } from '@/api/http'
+import { useSessionStore } from '@/stores/session'
+import { useBoardCache } from './board-cache'
+
+export interface MoveDetails {
+  reason?: string | null
+  disposition?: Disposition | null
+}
+
+export type MoveOutcome =
+  | { ok: true; card: BoardCard; title: string }
+  | { ok: false; title: string; reasons: string[]; conflict?: true }
+
+const where = (to: VehicleState, d?: Disposition | null) =>
+  to === 'closed' ? `closed as ${d ? DISPOSITION_LABELS[d].toLowerCase() : 'gone'}` : `in ${COLUMN_LABELS[to]}`
+const cannot = (card: BoardCard, to: VehicleState) => `${card.stockNumber} cannot ${to === 'closed' ? 'be closed' : `go to ${COLUMN_LABELS[to]}`}`
+
+/**
+ * Board moves through the shared lifecycle: refused at once with its reasons when the rules say no,
+ * otherwise shown in the new column straight away and put back if the server refuses.
+ */
+export function useBoardMoves() {
+  const cache = useBoardCache()
+  const session = useSessionStore()
+  const pending = reactive(new Set<string>())
+  const zone = () => cache.get()?.yard.timeZone ?? 'UTC'
+
+  const verdict = (card: BoardCard, to: VehicleState, details: MoveDetails = {}) =>
+    checkMove({ from: card.state, to, role: session.user!.role, facts: factsOfCard(card, zone()), ...details })
+
+  const options = (card: BoardCard) => moveOptions(card.state, session.user!.role, factsOfCard(card, zone()))
+
+  async function move(card: BoardCard, to: VehicleState, details: MoveDetails = {}): Promise<MoveOutcome> {
+    const v = verdict(card, to, details)
+    if (!v.allowed) return { ok: false, title: cannot(card, to), reasons: v.reasons.map((r) => r.message) }
+    pending.add(card.id)
+    cache.place(card, to === 'closed' ? 'closed' : to)
+    try {
+      const updated = await moveVehicle(card.id, { to, version: card.version, reason: details.reason, disposition: details.disposition })
+      cache.put(updated)
+      return { ok: true, card: updated, title: `${card.stockNumber} is now ${where(to, details.disposition)}.` }
+    } catch (e) {
+      const conflict = e instanceof ApiError && e.status === 409 ? moveConflictSchema.safeParse(e.body) : null
+      if (conflict?.success) {
+        cache.put(conflict.data.current)
+        return { ok: false, conflict: true, title: `${card.stockNumber} was changed by someone else`, reasons: [conflict.data.error] }
+      }
+      cache.put(card)
+      const refusal = e instanceof ApiError ? moveRefusalSchema.safeParse(e.body) : null
+      return { ok: false, title: cannot(card, to), reasons: refusal?.success ? refusal.data.reasons.map((r) => r.message) : [(e as Error).message] }
+    } finally {
+      pending.delete(card.id)
+    }
+  }
+
+  return { move, verdict, options, pending }
+}

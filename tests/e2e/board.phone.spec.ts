@@ -1,0 +1,20 @@
+import { expect, test } from '@playwright/test'
+import { signInAs } from './helpers'
+
+test('on a phone the board shows one column at a time and moves through the menu', async ({ page }) => {
+  await signInAs(page, 'technician')
+  const tabs = page.getByRole('navigation', { name: 'Columns' })
+  await expect(tabs.getByRole('button', { name: /Arrival/ })).toHaveAttribute('aria-current', 'true')
+  await expect(page.locator('[data-column]')).toHaveCount(1)
+  const card = page.locator('[data-column="arrival"] [data-stock]').filter({ hasText: 'Veyland Solace' })
+  const stock = (await card.getAttribute('data-stock'))!
+  await card.getByRole('button', { name: `Move ${stock} to…` }).click()
+  const dialog = page.getByRole('dialog')
+  await expect(dialog.getByLabel('Owner collects — go to Release')).toBeDisabled()
+  await expect(dialog).toContainText('Only managers and office staff can move a vehicle from Arrival to Release.')
+  await dialog.getByRole('button', { name: 'Start the teardown' }).click()
+  await expect(page.getByTestId('board-notice')).toContainText(`${stock} is now in Teardown.`)
+  await tabs.getByRole('button', { name: /Teardown/ }).click()
+  await expect(page).toHaveURL(/col=teardown/)
+  await expect(page.locator('[data-column="teardown"] [data-stock]').filter({ hasText: 'Veyland Solace' })).toBeVisible()
+})

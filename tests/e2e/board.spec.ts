@@ -1,0 +1,106 @@
+import { expect, test, type Page } from '@playwright/test'
+import { dragCard } from './drag'
+import { signInAs, watchConsole } from './helpers'
+
+const inColumn = (page: Page, column: string, text: string) => page.locator(`[data-column="${column}"] [data-stock]`).filter({ hasText: text })
+const notice = (page: Page) => page.getByTestId('board-notice')
+
+test('a dispatcher drags a card from Arrival to Teardown, and a second board sees it move', async ({ page, browser }) => {
+  const problems = watchConsole(page)
+  const watcherContext = await browser.newContext()
+  const watcher = await watcherContext.newPage()
+  await signInAs(watcher, 'technician')
+  await expect(watcher.getByRole('status').filter({ hasText: 'Live' })).toBeVisible()
+  await expect(inColumn(watcher, 'arrival', 'Orlan Sparrow')).toBeVisible()
+
+  await signInAs(page, 'dispatcher')
+  const card = inColumn(page, 'arrival', 'Orlan Sparrow')
+  const stock = (await card.getAttribute('data-stock'))!
+  await dragCard(page, card, page.locator('[data-drop="teardown"]'))
+
+  await expect(notice(page)).toContainText(`${stock} is now in Teardown.`)
+  await expect(inColumn(page, 'teardown', 'Orlan Sparrow')).toBeVisible()
+  await expect(inColumn(watcher, 'teardown', 'Orlan Sparrow')).toBeVisible()
+  await expect(inColumn(watcher, 'arrival', 'Orlan Sparrow')).toHaveCount(0)
+  await page.reload()
+  await expect(inColumn(page, 'teardown', 'Orlan Sparrow')).toBeVisible()
+  await watcherContext.close()
+  expect(problems).toEqual([])
+})
+
+test('a move blocked by a police hold shows the reason and the card goes back', async ({ page }) => {
+  await signInAs(page, 'manager')
+  const card = inColumn(page, 'storage', 'Orlan Scout')
+  await dragCard(page, card, page.locator('[data-drop="release"]'))
+  await expect(notice(page)).toContainText('cannot go to Release')
+  await expect(notice(page)).toContainText('Law-enforcement hold (Orrin Flats Police Department, case OF-26-11602) until')
+  await expect(card).toBeVisible()
+  await expect(inColumn(page, 'release', 'Orlan Scout')).toHaveCount(0)
+  await page.reload()
+  await expect(inColumn(page, 'storage', 'Orlan Scout')).toBeVisible()
+})
+
+test('without a mouse: Shift+→ moves a card on, and "Move to…" lists every way with why not', async ({ page }) => {
+  await signInAs(page, 'technician')
+  await inColumn(page, 'arrival', 'Pellam Aster').focus()
+  await page.keyboard.press('Shift+ArrowRight')
+  const moved = inColumn(page, 'teardown', 'Pellam Aster')
+  await expect(moved).toBeVisible()
+  await expect(moved).toBeFocused()
+
+  await page.keyboard.press('Enter')
+  const dialog = page.getByRole('dialog')
+  await expect(dialog.getByLabel('Inspection done — owner decides')).toBeDisabled()
+  await expect(dialog).toContainText('Not now: The inspection is not finished — the technician finishes it in Teardown first.')
+  await dialog.getByLabel('Back to Arrival').check()
+  const confirm = dialog.getByRole('button', { name: 'Back to Arrival' })
+  await expect(confirm).toBeDisabled()
+  await dialog.getByRole('textbox').fill('Moved on by mistake: not our yard’s to inspect yet')
+  await confirm.click()
+  await expect(inColumn(page, 'arrival', 'Pellam Aster')).toBeVisible()
+  await expect(notice(page)).toContainText('is now in Arrival.')
+})
+
+test('a board that missed a change gets a conflict and shows the card where it now is', async ({ page, browser }) => {
+  // This board hears nothing live, so it still shows the card where it was.
+  await page.route('**/api/board/events*', (route) => route.abort())
+  await signInAs(page, 'dispatcher')
+  const otherContext = await browser.newContext()
+  const other = await otherContext.newPage()
+  await signInAs(other, 'dispatcher')
+  await other.locator('[data-column="arrival"] [data-stock]').filter({ hasText: 'Brisk Tundrel' }).getByRole('button', { name: /^Move .* to…$/ }).click()
+  await other.getByRole('dialog').getByRole('button', { name: 'Start the teardown' }).click()
+  await expect(inColumn(other, 'teardown', 'Brisk Tundrel')).toBeVisible()
+
+  await dragCard(page, inColumn(page, 'arrival', 'Brisk Tundrel'), page.locator('[data-drop="teardown"]'))
+  await expect(notice(page)).toContainText('was changed by someone else')
+  await expect(notice(page)).toContainText('it is now in Teardown')
+  await expect(inColumn(page, 'teardown', 'Brisk Tundrel')).toBeVisible()
+  await otherContext.close()
+})
+
+test('filters live in the address and survive a reload', async ({ page }) => {
+  await signInAs(page, 'office')
+  await page.getByLabel('Search the board').fill('Kestra')
+  await expect(page).toHaveURL(/[?&]q=Kestra/)
+  const cards = page.locator('[data-stock]')
+  await expect(cards.first()).toBeVisible()
+  for (const text of await cards.allInnerTexts()) expect(text).toContain('Kestra')
+  await page.reload()
+  await expect(page.getByLabel('Search the board')).toHaveValue('Kestra')
+  await page.goto('/board?hold=law_enforcement')
+  await expect(cards.first()).toBeVisible()
+  for (const text of await cards.allInnerTexts()) expect(text).toContain('Law-enforcement hold')
+})
+
+test('closed vehicles are in the archive with how they left, and can be searched', async ({ page }) => {
+  await signInAs(page, 'office')
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Archive' }).click()
+  const rows = page.locator('.el-table__body tr')
+  await expect(rows.first()).toBeVisible()
+  const first = (await rows.first().innerText()).split('\n')
+  await page.getByLabel('Search closed vehicles').fill(first[0]!.trim())
+  await expect(page).toHaveURL(/[?&]q=/)
+  await expect(rows).toHaveCount(1)
+  await expect(rows.first()).toContainText(/Returned to owner|Released to a third party|Title transferred|Lien sale|Scrapped/)
+})
