@@ -2,6 +2,7 @@
 import { execSync } from 'node:child_process'
 
 const steps = [
+  ['Debian packages', 'node scripts/ensure-debian-packages.mjs'],
   ['typecheck', 'npm run typecheck'],
   ['unit and reference tests', 'npx vitest run --project unit --project reference'],
   ['API tests', 'npx vitest run --project api'],

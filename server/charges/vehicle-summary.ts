@@ -31,7 +31,8 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
     at.toISOString(),
     { timeZone },
   )
-  const events: ClockEvent[] = [{ kind: 'stored', at: input.arrivedAt.toISOString() }, ...input.clockEvents]
+  const atArrival = (ruleSet.arrivalEvents?.kinds ?? ['stored']).map((kind) => ({ kind, at: input.arrivedAt.toISOString() }))
+  const events: ClockEvent[] = [...atArrival, ...input.clockEvents]
   const clocks = legalClocks({ modelYear: input.modelYear, valueCents: input.valueCents }, events, ruleSet, holidays, at.toISOString(), { timeZone })
   const open = clocks.deadlines
     .filter((d) => d.dueDate && URGENCY[d.status] !== undefined && !(d.kind === 'earliest' && d.status === 'missed'))

@@ -1,10 +1,12 @@
+import { randomUUID } from 'node:crypto'
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
+import pg from 'pg'
 import { pino } from 'pino'
 import request from 'supertest'
 import { inject } from 'vitest'
-import { openDatabase, type Database } from '../../db/client'
+import { openDatabase, type Database, type DatabaseHandle } from '../../db/client'
 import { createApp, type AppDeps } from '../../server/app'
 import { localFileStore } from '../../server/files/index'
 
@@ -14,11 +16,15 @@ let template: Buffer | undefined
 export async function makeTestApp(overrides: Partial<AppDeps> = {}) {
   template ??= readFileSync(inject('templateDataDir'))
   const handle = await openDatabase({ kind: 'memory', loadDataDir: new Blob([new Uint8Array(template)]) })
+  return appOn(handle, overrides)
+}
+
+function appOn(handle: DatabaseHandle, overrides: Partial<AppDeps>, afterClose = async () => {}) {
   const filesDir = mkdtempSync(path.join(tmpdir(), 'holdfast-files-'))
   const app = createApp({
     files: localFileStore(filesDir),
     db: handle.db,
-    log: pino({ level: 'silent' }),
+    log: pino({ level: process.env.TEST_LOG ?? 'silent' }),
     sessionSecret: 'test-secret-that-is-long-enough-for-signing',
     version: 'test',
     signInLimits: { perAccount: 1000, perIp: 1000, windowMs: 60_000 },
@@ -31,6 +37,7 @@ export async function makeTestApp(overrides: Partial<AppDeps> = {}) {
     async close() {
       await handle.close()
       rmSync(filesDir, { recursive: true, force: true })
+      await afterClose()
     },
   }
 }
@@ -69,3 +76,21 @@ export async function signedIn(app: TestApp['app'], user: { email: string; passw
 }
 
 export type { Database }
+
+/**
+ * The same app on a real PostgreSQL database of its own (created, migrated, dropped afterwards),
+ * for what PGlite cannot show: it runs one query at a time, so races never happen on it.
+ */
+export async function makePostgresTestApp(overrides: Partial<AppDeps> = {}) {
+  const admin = inject('postgresUrl')
+  const name = `t_${randomUUID().replaceAll('-', '').slice(0, 16)}`
+  const adminClient = new pg.Client({ connectionString: admin })
+  await adminClient.connect()
+  await adminClient.query(`create database ${name}`)
+  const handle = await openDatabase({ kind: 'postgres', url: admin.replace(/\/[^/]*$/, `/${name}`) })
+  await handle.migrate()
+  return appOn(handle, overrides, async () => {
+    await adminClient.query(`drop database ${name} with (force)`)
+    await adminClient.end()
+  })
+}
