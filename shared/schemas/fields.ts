@@ -35,3 +35,10 @@ export function optionalInt(min: number, max: number, what: string) {
 }
 
 export const uuidSchema = (message: string) => z.uuid({ error: message })
+
+/**
+ * For an object's cross-field checks: run them even when another field is already wrong, so a form
+ * shows every problem at once (zod skips them otherwise), but only once the value is an object.
+ * Such a check must read its fields defensively: they may not have parsed.
+ */
+export const alongsideFieldIssues = { when: (payload: { value: unknown }) => typeof payload.value === 'object' && payload.value !== null }

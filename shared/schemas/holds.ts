@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { HOLD_KINDS } from '../domain/hold-kinds'
-import { optionalInstant, optionalText, requiredText } from './fields'
+import { alongsideFieldIssues, optionalInstant, optionalText, requiredText } from './fields'
 
 export const holdInputSchema = z
   .object({
@@ -16,7 +16,7 @@ export const holdInputSchema = z
       if (!h.caseNumber) ctx.addIssue({ code: 'custom', path: ['caseNumber'], message: "Enter the agency's case number." })
     }
     if (h.kind === 'other' && !h.note) ctx.addIssue({ code: 'custom', path: ['note'], message: 'Say what the hold is for.' })
-  })
+  }, alongsideFieldIssues)
 export type HoldInput = z.input<typeof holdInputSchema>
 export type Hold = z.output<typeof holdInputSchema>
 

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { TOW_REASONS } from '../domain/tow-reasons'
-import { instantSchema, optionalInstant, optionalText, requiredText } from './fields'
+import { alongsideFieldIssues, instantSchema, optionalInstant, optionalText, requiredText } from './fields'
 
 /** Arrival may be typed a little ahead of the server's clock; beyond that it is a typing mistake. */
 const FUTURE_SLACK_MS = 10 * 60_000
@@ -38,6 +38,7 @@ export const towSchema = z
     if (t.reason === 'law_enforcement' && !t.requesterAgency) {
       ctx.addIssue({ code: 'custom', path: ['requesterAgency'], message: 'Name the agency that asked for the tow.' })
     }
+    // Also runs when another field is wrong: an unparsed time is NaN and compares false.
     const called = t.calledAt ? Date.parse(t.calledAt) : null
     const hooked = t.hookedAt ? Date.parse(t.hookedAt) : null
     const arrived = Date.parse(t.arrivedAt)
@@ -48,7 +49,7 @@ export const towSchema = z
       ctx.addIssue({ code: 'custom', path: ['arrivedAt'], message: `Arrival at the gate cannot be before ${hooked !== null ? 'the hook-up' : 'the call'}.` })
     }
     if (arrived > Date.now() + FUTURE_SLACK_MS) ctx.addIssue({ code: 'custom', path: ['arrivedAt'], message: 'Arrival at the gate cannot be in the future.' })
-  })
+  }, alongsideFieldIssues)
 export type TowInput = z.input<typeof towSchema>
 export type Tow = z.output<typeof towSchema>
 

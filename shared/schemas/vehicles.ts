@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { normalizeVin, vin as readVin } from '../domain/vin'
-import { optionalInt, optionalText, requiredText } from './fields'
+import { alongsideFieldIssues, optionalInt, optionalText, requiredText } from './fields'
 
 export const KEYS = ['yes', 'no', 'unknown'] as const
 export const KEYS_LABELS: Record<(typeof KEYS)[number], string> = { yes: 'Yes', no: 'No', unknown: 'Not known' }
@@ -42,12 +42,15 @@ export const vehicleSchema = z
     drivableAsFound: z.boolean().nullish().transform((v) => v ?? null),
     ownerName: optionalText(120),
   })
-  .superRefine((v, ctx) => {
-    for (const issue of vinIssues(v)) ctx.addIssue({ code: 'custom', ...issue })
-    if (!v.odometerUnreadable && v.odometer === null) {
-      ctx.addIssue({ code: 'custom', path: ['odometer'], message: 'Enter the odometer reading, or mark it "Not readable".' })
-    }
-  })
+  .superRefine(
+    (v, ctx) => {
+      for (const issue of vinIssues(v)) ctx.addIssue({ code: 'custom', ...issue })
+      if (v.odometerUnreadable !== true && v.odometer == null) {
+        ctx.addIssue({ code: 'custom', path: ['odometer'], message: 'Enter the odometer reading, or mark it "Not readable".' })
+      }
+    },
+    alongsideFieldIssues,
+  )
   // A reading and "not readable" together would say two things; the box wins.
   .transform((v) => (v.odometerUnreadable ? { ...v, odometer: null } : v))
 export type VehicleInput = z.input<typeof vehicleSchema>
@@ -59,7 +62,14 @@ type VinFields = { vin: string | null; vinOverrideReason: string | null; year: n
  * A VIN that fails its check (49 CFR 565) is refused unless the dispatcher says why it is recorded
  * as read; no VIN at all needs the same reason (plate-only, VIN plate missing or burnt).
  */
-export function vinIssues(v: VinFields): { path: string[]; message: string }[] {
+export function vinIssues(fields: VinFields): { path: string[]; message: string }[] {
+  // The fields may not have parsed yet (alongsideFieldIssues): anything not of its type counts as empty.
+  const v = {
+    vin: typeof fields.vin === 'string' ? fields.vin : null,
+    vinOverrideReason: typeof fields.vinOverrideReason === 'string' ? fields.vinOverrideReason : null,
+    year: typeof fields.year === 'number' ? fields.year : null,
+    vehicleClass: fields.vehicleClass,
+  }
   const override = v.vinOverrideReason !== null
   if (v.vin === null) {
     return override ? [] : [{ path: ['vin'], message: 'Enter the VIN, or give the reason it cannot be read (plate-only, VIN plate missing or damaged).' }]

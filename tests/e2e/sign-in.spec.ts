@@ -2,8 +2,8 @@ import { expect, test } from '@playwright/test'
 import { DEMO, signInAs, watchConsole, type DemoRole } from './helpers'
 
 const NAV: Record<DemoRole, string[]> = {
-  manager: ['Board', 'Archive', 'Staff'],
-  dispatcher: ['Board', 'Archive'],
+  manager: ['Board', 'Archive', 'Log a tow-in', 'Staff'],
+  dispatcher: ['Board', 'Archive', 'Log a tow-in'],
   technician: ['Board', 'Archive'],
   office: ['Board', 'Archive'],
 }

@@ -1,0 +1,8 @@
+import { z } from 'zod'
+import { spacesSchema, type AssignSpace } from '@shared/schemas/spaces'
+import { request } from './http'
+
+export const fetchSpaces = () => request('GET', '/api/spaces', spacesSchema)
+
+export const assignSpace = (vehicleId: string, input: AssignSpace) =>
+  request('PUT', `/api/vehicles/${vehicleId}/space`, z.object({ version: z.number(), space: z.string().nullable() }), input)

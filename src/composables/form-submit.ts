@@ -1,0 +1,35 @@
+import { ref } from 'vue'
+import type { z } from 'zod'
+import { useFieldErrors } from './field-errors'
+
+/**
+ * Checks a form with its shared schema, sends it, and puts any refusal beside the fields (or in
+ * `message` when it is not about one). Resolves true when the server accepted it.
+ */
+export function useFormSubmit<S extends z.ZodType>(schema: S, send: (input: z.output<S>) => Promise<unknown>) {
+  const { errors, fromZod, fromApi, clear } = useFieldErrors()
+  const message = ref('')
+  const busy = ref(false)
+
+  async function submit(draft: unknown): Promise<boolean> {
+    message.value = ''
+    const parsed = schema.safeParse(draft)
+    if (!parsed.success) {
+      fromZod(parsed.error)
+      return false
+    }
+    clear()
+    busy.value = true
+    try {
+      await send(parsed.data)
+      return true
+    } catch (e) {
+      message.value = fromApi(e) ? 'Nothing was saved. Check the fields marked in red.' : `Nothing was saved: ${(e as Error).message}`
+      return false
+    } finally {
+      busy.value = false
+    }
+  }
+
+  return { errors, message, busy, submit, clear }
+}

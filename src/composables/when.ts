@@ -1,0 +1,24 @@
+const pad = (n: number) => String(Math.abs(n)).padStart(2, '0')
+
+/** The browser's wall-clock time with its offset, the shape the date pickers read and write. */
+export function localIso(d = new Date()): string {
+  const off = -d.getTimezoneOffset()
+  const zone = `${off >= 0 ? '+' : '-'}${pad(Math.floor(Math.abs(off) / 60))}:${pad(off % 60)}`
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}:${pad(d.getSeconds())}${zone}`
+}
+
+/** The value format of every date-and-time picker: ISO 8601 with the offset, as the schemas require. */
+export const PICKER_FORMAT = 'YYYY-MM-DDTHH:mm:ssZ'
+
+const formatters = new Map<string, Intl.DateTimeFormat>()
+
+/** An instant as the yard's clock shows it, e.g. "Tue 1 Dec 2026, 14:05". */
+export function yardTime(iso: string | null, timeZone: string): string {
+  if (!iso) return '—'
+  let f = formatters.get(timeZone)
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-GB', { timeZone, weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' })
+    formatters.set(timeZone, f)
+  }
+  return f.format(new Date(iso))
+}

@@ -1,0 +1,99 @@
+import { expect, test, type Page } from '@playwright/test'
+import sharp from 'sharp'
+import { signInAs, watchConsole } from './helpers'
+
+// 49 CFR 565's own sample VIN: check digit 4, model year 2005.
+const VIN = '1G4AH59H45G118341'
+
+const jpeg = (colour: string) => sharp({ create: { width: 640, height: 480, channels: 3, background: colour } }).jpeg().toBuffer()
+
+async function openForm(page: Page) {
+  await signInAs(page, 'dispatcher')
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Log a tow-in' }).click()
+  await expect(page.getByRole('heading', { name: 'Log a tow-in' })).toBeVisible()
+}
+
+test('a dispatcher logs a tow-in with a map pin and two photos, finds it on the board and sees its history', async ({ page }) => {
+  // The whole intake, save and board round trip in one test: give it more than the default time.
+  test.slow()
+  const problems = watchConsole(page)
+  await openForm(page)
+
+  // Drop the pin north-east of the yard: the coordinates, the address and the charge follow.
+  const map = page.getByTestId('map')
+  await expect(map.locator('img.leaflet-tile-loaded').first()).toBeVisible()
+  const box = (await map.boundingBox())!
+  await page.mouse.click(box.x + box.width * 0.75, box.y + box.height * 0.3)
+  // Leaflet copies the pin's markup into its marker pane; that copy is the one on the map.
+  await expect(map.locator('.leaflet-marker-pane [data-testid="map-pin"]')).toBeVisible()
+  await expect(page.getByLabel('Latitude')).not.toHaveValue('')
+  await expect(page.getByTestId('tow-total')).toHaveText(/^\$\d{3},?\d*\.\d{2}$/)
+
+  await page.getByText('Accident', { exact: true }).click()
+  await page.getByLabel('Who asked for the tow').fill('Tule County Sheriff dispatch')
+  await page.getByLabel('Agency or company (where one applies)').fill('Tule County Sheriff')
+  await page.getByLabel('Driver', { exact: true }).fill('Jody Kincaid')
+
+  await page.getByLabel('VIN', { exact: true }).fill(VIN.replace('4', '7'))
+  await expect(page.getByTestId('vin-status')).toContainText('check digit')
+  await page.getByLabel('VIN', { exact: true }).fill(VIN)
+  await expect(page.getByTestId('vin-status')).toHaveText('Check digit correct. Model year 2005.')
+  await expect(page.getByLabel('Year', { exact: true })).toHaveValue('2005')
+  await page.getByLabel('Plate', { exact: true }).fill('8QAE310')
+  await page.getByLabel('Plate state', { exact: true }).fill('CA')
+  await page.getByLabel('Make', { exact: true }).fill('Veyland')
+  await page.getByLabel('Model', { exact: true }).fill('Solace')
+  await page.getByLabel('Colour', { exact: true }).fill('Teal')
+  await page.getByLabel('Odometer', { exact: true }).fill('118204')
+  await page.getByRole('radiogroup', { name: 'Keys with the vehicle' }).getByText('Yes', { exact: true }).click()
+
+  await page.getByLabel('Choose photos').setInputFiles([
+    { name: 'front.jpg', mimeType: 'image/jpeg', buffer: await jpeg('#3e6a8a') },
+    { name: 'rear.jpg', mimeType: 'image/jpeg', buffer: await jpeg('#b4443a') },
+  ])
+  await expect(page.getByRole('img', { name: /^Photo \d: / })).toHaveCount(2)
+  await page.getByLabel('Damage and condition notes').fill('Front bumper cracked; headlamp out.')
+
+  await page.getByRole('button', { name: 'Log the vehicle' }).click()
+  await expect(page).toHaveURL(/\/vehicles\/[0-9a-f-]{36}$/)
+  const stock = (await page.getByTestId('stock-number').textContent())!.trim()
+  expect(stock).toMatch(/^TC-\d{4}-\d{5}$/)
+  await expect(page.getByTestId('gallery').getByRole('img')).toHaveCount(2)
+
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Board' }).click()
+  const card = page.locator(`[data-stock="${stock}"]`)
+  await expect(card).toBeVisible()
+  await card.getByRole('link', { name: stock }).click()
+  await expect(page.getByTestId('vehicle-state')).toHaveText('Arrival')
+  const towedIn = page.getByTestId('history').locator('[data-kind="towed_in"]')
+  await expect(towedIn).toContainText('Towed in')
+  await expect(towedIn).toContainText('Ruben Okafor')
+  await expect(page.getByTestId('history').locator('[data-kind="file_added"]')).toContainText('Ruben Okafor')
+  await page.getByRole('button', { name: 'Check the chain' }).click()
+  await expect(page.getByRole('status').filter({ hasText: 'Intact' })).toHaveText(/Intact: all \d+ entries link and match\./)
+  expect(problems).toEqual([])
+})
+
+test('an incomplete tow-in shows each message beside its field and saves nothing', async ({ page }) => {
+  await openForm(page)
+  await page.getByLabel('VIN', { exact: true }).fill('1G4AH59H45G11834O')
+  await page.getByRole('button', { name: 'Log the vehicle' }).click()
+  await expect(page.getByText('Drop a pin on the map or search for the address.')).toBeVisible()
+  await expect(page.getByText('Choose why the vehicle was towed.')).toBeVisible()
+  await expect(page.getByText('Enter the make, or "Unknown".')).toBeVisible()
+  await expect(page.locator('.el-form-item.is-error').filter({ hasText: 'VIN' }).first()).toContainText('is the letter O')
+  await expect(page).toHaveURL(/\/tow-in$/)
+})
+
+test('the address search places the pin and the top-bar search finds a vehicle by plate', async ({ page }) => {
+  await openForm(page)
+  await page.getByLabel('Search for the address or a place').fill('Sunridge')
+  await page.getByRole('option', { name: /Sunridge Plaza, 300 Harrow Way/ }).click()
+  await expect(page.getByLabel('Pickup address as you would tell the driver')).toHaveValue('Sunridge Plaza, 300 Harrow Way, Orrin Flats')
+  await expect(page.getByLabel('Latitude')).toHaveValue('36.418800')
+
+  await page.getByRole('textbox', { name: /Find a vehicle/ }).fill('7KQM214')
+  await page.getByRole('option', { name: /Orlan Sparrow/ }).click()
+  await expect(page.getByTestId('stock-number')).toHaveText(/^TC-\d{4}-\d{5}$/)
+  await expect(page.getByText('7KQM214').first()).toBeVisible()
+})
