@@ -7,6 +7,7 @@ import { formatStockNumber, yearInZone } from '../shared/domain/stock-number'
 import { towCharge } from '../shared/domain/tow-charge'
 import { vinWithCheckDigit } from '../shared/domain/vin'
 import type { Database } from './client'
+import { demoTeardown, insertDemoTeardowns, withTeardown } from './demo/inspections'
 import { DEMO_VEHICLES, type DemoVehicle } from './demo/vehicles'
 import { DEMO_COMPANY, DEMO_DRIVERS, DEMO_PASSWORD, DEMO_SPACES, DEMO_STAFF, DEMO_YARD } from './demo/scenario'
 import { chainFromStart, type NewHistoryEvent } from './history'
@@ -161,7 +162,12 @@ async function loadDemo(db: Database, now: Date): Promise<void> {
       setAt: rows[i]!.arrivedAt,
     })),
   )
-  await db.insert(t.historyEvents).values(sorted.flatMap((v, i) => chainFromStart(vehicleIds[i]!, demoHistory(v, rows[i]!.arrivedAt, now, byRole))))
+  const teardowns = sorted.map((v, i) => {
+    const { inspectedAt, estimatedValueCents } = rows[i]!
+    return inspectedAt ? demoTeardown(v, vehicleIds[i]!, estimatedValueCents, yard!.labourRateCents, inspectedAt, byRole.technician!) : null
+  })
+  await insertDemoTeardowns(db, teardowns)
+  await db.insert(t.historyEvents).values(sorted.flatMap((v, i) => chainFromStart(vehicleIds[i]!, withTeardown(demoHistory(v, rows[i]!.arrivedAt, now, byRole), teardowns[i] ?? null))))
   await db.insert(t.stockCounters).values([...sequences].map(([year, last]) => ({ yardId: yard!.id, year, last })))
 }
 
