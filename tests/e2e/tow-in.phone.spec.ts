@@ -1,0 +1,23 @@
+import { expect, test } from '@playwright/test'
+import { signInAs, watchConsole } from './helpers'
+
+test('on a phone the dispatcher reaches the tow-in form, taps the pickup on the map and can use the camera', async ({ page }) => {
+  const problems = watchConsole(page)
+  await signInAs(page, 'dispatcher')
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Log a tow-in' }).tap()
+  await expect(page.getByRole('heading', { name: 'Log a tow-in' })).toBeVisible()
+
+  const map = page.getByTestId('map')
+  await expect(map.locator('img.leaflet-tile-loaded').first()).toBeVisible()
+  const box = (await map.boundingBox())!
+  await page.touchscreen.tap(box.x + box.width * 0.3, box.y + box.height * 0.6)
+  await expect(map.locator('.leaflet-marker-pane [data-testid="map-pin"]')).toBeVisible()
+  await expect(page.getByTestId('tow-total')).toBeVisible()
+
+  // One column: nothing wider than the screen, so nothing needs a sideways scroll.
+  const widths = await page.evaluate(() => [document.documentElement.scrollWidth, document.documentElement.clientWidth])
+  expect(widths[0]).toBeLessThanOrEqual(widths[1]!)
+  await expect(page.locator('input[type=file][capture=environment]')).toHaveCount(1)
+  await expect(page.getByRole('button', { name: 'Log the vehicle' })).toBeInViewport()
+  expect(problems).toEqual([])
+})
