@@ -26,7 +26,9 @@ export async function reencodeImage(input: Buffer): Promise<Reencoded> {
       .rotate()
       .resize({ width: MAX_SIDE, height: MAX_SIDE, fit: 'inside', withoutEnlargement: true })
       .flatten({ background: '#ffffff' })
-      .jpeg({ quality: 84, mozjpeg: true })
+      // libjpeg-turbo, not mozjpeg: mozjpeg saves a little space but took nine times as long here
+      // (4.4 s against 0.5 s for a 12-megapixel phone photo), and a tow-in carries several.
+      .jpeg({ quality: 84 })
       .toBuffer({ resolveWithObject: true })
     const thumb = await sharp(data).resize({ width: THUMB_SIDE, height: THUMB_SIDE, fit: 'inside' }).jpeg({ quality: 72 }).toBuffer()
     return { data, thumb, width: info.width, height: info.height }
