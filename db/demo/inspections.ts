@@ -152,8 +152,8 @@ export function demoTeardown(v: DemoVehicle, vehicleId: string, valueCents: numb
   const valuesAt = at()
   events.push({ ...by, kind: 'vehicle_values_entered', at: valuesAt, after: { inspectionId: id, ...values, estimatedValueCents: valueCents } })
   const found = (status: FindingStatus) => demo.findings.filter((f) => f.status === status).map((f) => f.item)
-  const pickup = pickupBadge({ rolls, steers: rolls, brakes: rolls, keys: v.keys })?.label ?? null
-  events.push({ ...by, kind: 'inspection_finished', at: finishedAt, after: { inspectionId: id, broken: found('broken'), worn: found('worn'), estimateCents: estimateTotals(lines).totalCents, pickup } })
+  const pickupNeeds = pickupBadge({ rolls, steers: rolls, brakes: rolls, keys: v.keys })?.label ?? null
+  events.push({ ...by, kind: 'inspection_finished', at: finishedAt, after: { inspectionId: id, broken: found('broken'), worn: found('worn'), estimateCents: estimateTotals(lines).totalCents, pickupNeeds } })
   return {
     inspection: { id, vehicleId, startedById: tech.id, startedAt, safetyAcknowledgedById: tech.id, safetyAcknowledgedAt: safetyAt, ...values, valuesEnteredById: tech.id, valuesEnteredAt: valuesAt, finishedById: tech.id, finishedAt },
     items,

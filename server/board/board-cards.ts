@@ -1,4 +1,5 @@
 import type { Executor } from '../../db/client'
+import { pickupBadge } from '../../shared/domain/pickup-badge'
 import type { BoardCard } from '../../shared/schemas/board'
 import { summarizeVehicles, type YardForCharges } from '../charges/index'
 import { notFound } from '../errors'
@@ -55,6 +56,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
     holds: holdsByVehicle.get(r.id) ?? [],
     handover: NOTHING_RECORDED,
     photoCount: Number(r.photoCount),
+    pickup: pickupBadge(r),
     summary: summaries.get(r.id) ?? null,
   }))
 }

@@ -102,7 +102,7 @@ export async function finishInspection(db: Database, actor: User, vehicleId: str
         worn: count('worn'),
         estimateCents: totals.totalCents,
         recommendation: verdict,
-        pickup: pickupBadge(vehicle)?.label ?? null,
+        pickupNeeds: pickupBadge(vehicle)?.label ?? null,
       },
       at,
     })

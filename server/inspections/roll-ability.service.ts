@@ -46,7 +46,7 @@ export async function markRollAbility(db: Database, actor: User, vehicleId: stri
       ...actorOf(actor),
       kind: 'roll_ability_marked',
       before: Object.fromEntries(changed.map((k) => [k, before[k]])),
-      after: { inspectionId: inspection.id, ...Object.fromEntries(changed.map((k) => [k, after[k]])), pickup: pickupBadge(after)?.label ?? null },
+      after: { inspectionId: inspection.id, ...Object.fromEntries(changed.map((k) => [k, after[k]])), pickupNeeds: pickupBadge(after)?.label ?? null },
     })
     return vehicle.yardId
   })

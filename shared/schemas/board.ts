@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { BOARD_COLUMNS, DISPOSITIONS, VEHICLE_STATES } from '../domain/columns'
 import { HOLD_KINDS } from '../domain/hold-kinds'
 import { vehicleSummarySchema } from './charges'
+import { pickupBadgeSchema } from './inspections'
 
 export const cardHoldSchema = z.object({
   kind: z.enum(HOLD_KINDS),
@@ -46,6 +47,8 @@ export const boardCardSchema = z.object({
   holds: z.array(cardHoldSchema),
   handover: handoverSchema,
   photoCount: z.number(),
+  /** What the pickup must bring (the teardown's roll marks); null until rolls, steers and brakes are marked. */
+  pickup: pickupBadgeSchema.nullable(),
   /** Null when the vehicle has no rule set to bill it by (shown as "no rule set"). */
   summary: vehicleSummarySchema.nullable(),
 })

@@ -33,4 +33,13 @@ export const HISTORY_LABELS: Record<string, string> = {
   space_assigned: 'Space assigned',
   property_added: 'Property listed',
   moved: 'Moved',
+  inspection_started: 'Inspection started',
+  safety_acknowledged: 'Safety cautions read',
+  inspection_item_marked: 'Finding marked',
+  estimate_line_added: 'Estimate line added',
+  estimate_line_changed: 'Estimate line changed',
+  estimate_line_removed: 'Estimate line removed',
+  vehicle_values_entered: 'Value entered',
+  roll_ability_marked: 'Rolls, steers, brakes marked',
+  inspection_finished: 'Inspection finished',
 }

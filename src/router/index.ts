@@ -21,6 +21,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/archive', name: 'archive', component: () => import('@/views/ArchiveView.vue'), meta: { permission: 'board.view', nav: 'Archive', title: 'Archive' } },
   { path: '/tow-in', name: 'tow-in', component: () => import('@/views/TowInView.vue'), meta: { permission: 'towin.write', nav: 'Log a tow-in', title: 'Log a tow-in' } },
   { path: '/vehicles/:id', name: 'vehicle', component: () => import('@/views/VehicleView.vue'), meta: { permission: 'board.view', title: 'Vehicle' } },
+  { path: '/vehicles/:id/inspection', name: 'inspection', component: () => import('@/views/InspectionView.vue'), meta: { permission: 'board.view', title: 'Teardown' } },
   { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'Staff', title: 'Staff' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
 ]

@@ -112,6 +112,19 @@ describe('roll-ability drives the pickup badge (pickupNeeds, common trade practi
     expect(res.body.pickup).toMatchObject({ label, equipment })
   })
 
+  it('theBoardCard_carriesTheSameBadge_fromBeforeTheMarksToAfterThem', async () => {
+    const f = await started()
+    const cardOf = async () => {
+      const board = (await f.tech.get('/api/board').expect(200)).body
+      return board.columns.flatMap((c: { cards: { id: string }[] }) => c.cards).find((c: { id: string }) => c.id === f.vehicle.id)
+    }
+    expect((await cardOf()).pickup).toBeNull()
+    await f.tech.post(`${f.base}/safety`).expect(200)
+    const res = await f.tech.patch(`${f.base}/roll-ability`, { rolls: false, steers: true, brakes: true }).expect(200)
+    expect((await cardOf()).pickup).toEqual(res.body.pickup)
+    expect((await cardOf()).pickup.label).toBe('Flatbed or dollies')
+  })
+
   it('aWheelRefittedToMakeItRoll_recordsTheMakersTorque_andTheBadgeFollowsTheNewMarks', async () => {
     const f = await started()
     await f.tech.post(`${f.base}/safety`).expect(200)

@@ -82,7 +82,7 @@ describe('inspection lifecycle', () => {
     ])
     const events = await historyOf(app.db, f.vehicle.id)
     expect(verifyChain(events).ok).toBe(true)
-    expect(events.at(-1)!.after).toMatchObject({ broken: ['ball-joints', 'drive-shafts'], pickup: 'Flatbed or dollies' })
+    expect(events.at(-1)!.after).toMatchObject({ broken: ['ball-joints', 'drive-shafts'], pickupNeeds: 'Flatbed or dollies' })
     expect(events.find((e) => e.kind === 'roll_ability_marked')!.before).toEqual({ rolls: null, steers: null, brakes: null })
 
     await f.tech.post(`/api/vehicles/${f.vehicle.id}/moves`, { to: 'decision', version: v.version }).expect(200)

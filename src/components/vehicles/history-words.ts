@@ -2,6 +2,7 @@ import { COLUMN_LABELS, type VehicleState } from '@shared/domain/columns'
 import { HOLD_LABELS, type HoldKind } from '@shared/domain/hold-kinds'
 import { formatCents } from '@shared/domain/money'
 import { TOW_REASON_LABELS, type TowReason } from '@shared/domain/tow-reasons'
+import { INSPECTION_FIELD_LABELS, INSPECTION_HIDDEN, inspectionValue } from '@/components/inspections/inspection-history-words'
 
 // Plain words for the fields a history event names; anything unlisted shows its own name.
 const FIELD_LABELS: Record<string, string> = {
@@ -13,10 +14,10 @@ const FIELD_LABELS: Record<string, string> = {
   requesterAgency: 'Agency', requesterReference: 'Their reference', calledAt: 'Called', hookedAt: 'Hooked up', arrivedAt: 'Arrived',
   truck: 'Truck', driver: 'Driver', roadMiles: 'Road miles', winchingUnits: 'Winching units', dollies: 'Dollies', afterHours: 'After hours',
   chargeCents: 'Tow charge', space: 'Space', propertyItems: 'Property items', kind: 'Kind', agency: 'Agency', caseNumber: 'Case number',
-  until: 'Until', note: 'Note', files: 'Files',
+  until: 'Until', note: 'Note', files: 'Files', ...INSPECTION_FIELD_LABELS,
 }
 
-const HIDDEN = new Set(['holdId'])
+const HIDDEN = new Set(['holdId', ...INSPECTION_HIDDEN])
 
 export function fieldLabel(key: string): string {
   return FIELD_LABELS[key] ?? key
@@ -24,6 +25,8 @@ export function fieldLabel(key: string): string {
 
 export function fieldValue(key: string, value: unknown, at: (iso: string) => string): string {
   if (value === null || value === undefined || value === '') return '—'
+  const teardown = inspectionValue(key, value)
+  if (teardown !== undefined) return teardown
   if (typeof value === 'boolean') return value ? 'Yes' : 'No'
   if (key === 'chargeCents' && typeof value === 'number') return formatCents(value)
   if (key === 'reason' && typeof value === 'string' && value in TOW_REASON_LABELS) return TOW_REASON_LABELS[value as TowReason]
