@@ -2,6 +2,7 @@ import { VueQueryPlugin } from '@tanstack/vue-query'
 import { createPinia } from 'pinia'
 import { createApp } from 'vue'
 import App from './App.vue'
+import { queryClient } from './api/query-client'
 import { router } from './router'
 import 'element-plus/theme-chalk/base.css'
 import './assets/theme.css'
@@ -9,5 +10,5 @@ import './assets/theme.css'
 createApp(App)
   .use(createPinia())
   .use(router)
-  .use(VueQueryPlugin, { queryClientConfig: { defaultOptions: { queries: { staleTime: 5_000, retry: 1 } } } })
+  .use(VueQueryPlugin, { queryClient })
   .mount('#app')

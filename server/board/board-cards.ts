@@ -1,6 +1,7 @@
 import type { Executor } from '../../db/client'
 import { pickupBadge } from '../../shared/domain/pickup-badge'
 import type { BoardCard } from '../../shared/schemas/board'
+import type { VehicleSummary } from '../../shared/schemas/charges'
 import { summarizeVehicles, type YardForCharges } from '../charges/index'
 import { notFound } from '../errors'
 import { yardOfUser } from '../yards/yards.queries'
@@ -57,8 +58,14 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
     handover: NOTHING_RECORDED,
     photoCount: Number(r.photoCount),
     pickup: pickupBadge(r),
-    summary: summaries.get(r.id) ?? null,
+    summary: cardSummary(summaries.get(r.id)),
   }))
+}
+
+function cardSummary(summary: VehicleSummary | null | undefined): BoardCard['summary'] {
+  if (!summary) return null
+  const { warnings, ...shown } = summary
+  return shown
 }
 
 /** The yard whose board this staff member sees. */

@@ -1,11 +1,12 @@
 import { randomUUID } from 'node:crypto'
 import type { Logger } from 'pino'
 import type { Database } from '../../db/client'
+import type { BoardCard } from '../../shared/schemas/board'
 import type { BoardChange, BoardNotifier, LiveBus, VehicleChange } from '../live/index'
 import { activeCards, cardOf, type BoardYard } from './board-cards'
 import { yardOfVehicle } from './board.queries'
 import { BoardFeed, type FeedClient } from './board-feed'
-import { BoardSnapshot } from './board-snapshot'
+import { BoardSnapshot, type BoardBody } from './board-snapshot'
 
 export interface BoardHubOptions {
   /** How long a computed board is served before balances and days are worked out again. */
@@ -51,8 +52,8 @@ export class BoardHub implements BoardNotifier {
     try {
       const yardId = change.yardId ?? (await yardOfVehicle(this.db, change.vehicleId))
       if (!yardId) return
-      const full: BoardChange = { ...change, yardId, origin: this.origin }
-      this.apply(full)
+      const full: BoardChange = { vehicleId: change.vehicleId, cause: change.cause, yardId, origin: this.origin }
+      this.apply(full, change.card)
       await this.bus.publish(full)
     } catch (err) {
       this.log.warn({ err, change }, 'could not announce a board change')
@@ -60,7 +61,7 @@ export class BoardHub implements BoardNotifier {
   }
 
   /** The board as GET /api/board sends it, after every change already heard. */
-  boardBody(yard: BoardYard, now = new Date()): Promise<Buffer> {
+  boardBody(yard: BoardYard, now = new Date()): Promise<BoardBody> {
     this.yards.set(yard.id, yard)
     return this.inOrder(yard.id, async () => {
       const bucket = Math.floor(now.getTime() / this.bucketMs)
@@ -91,12 +92,12 @@ export class BoardHub implements BoardNotifier {
     this.endClients()
   }
 
-  private apply(change: BoardChange): void {
+  private apply(change: BoardChange, known?: BoardCard): void {
     const yard = this.yards.get(change.yardId)
     // A yard whose board this server has never shown has nothing here to refresh.
     if (!yard) return
     void this.inOrder(yard.id, async () => {
-      const card = await cardOf(this.db, yard, change.vehicleId, new Date())
+      const card = known ?? (await cardOf(this.db, yard, change.vehicleId, new Date()))
       const snapshot = this.snapshots.get(yard.id)
       if (!card || card.state === 'closed') {
         snapshot?.remove(change.vehicleId)

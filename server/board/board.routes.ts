@@ -8,7 +8,11 @@ export function boardRouter(db: Database, hub: BoardHub, timing?: StreamTiming):
   const router = Router()
   router.get('/', async (req, res) => {
     const body = await hub.boardBody(await boardYardOf(db, req.user!.id))
-    res.set('cache-control', 'no-store').type('application/json').send(body)
+    // Revalidated on every load: res.send answers 304 itself when the board has not changed.
+    res.set({ 'cache-control': 'private, no-cache', etag: body.etag, vary: 'accept-encoding' }).type('application/json')
+    if (req.fresh) return void res.status(304).end()
+    if (req.acceptsEncodings('gzip') === 'gzip') res.set('content-encoding', 'gzip').send(await body.gzip())
+    else res.send(body.json)
   })
   router.get('/events', boardEvents(db, hub, timing))
   return router

@@ -9,10 +9,10 @@ import type { BoardCard } from '../../shared/schemas/board'
 import type { moveRequestSchema } from '../../shared/schemas/moves'
 import type { User } from '../../shared/schemas/users'
 import type { z } from 'zod'
-import { AppError, conflict, notFound, unprocessable } from '../errors'
+import { AppError, conflict, unprocessable } from '../errors'
 import { boardChanged } from '../live/index'
-import { boardYardOf, cardOf } from './board-cards'
-import { oneInYard } from './board.queries'
+import { vehicleForUser } from '../vehicles/vehicles.queries'
+import { cardOf } from './board-cards'
 
 export type Move = z.output<typeof moveRequestSchema>
 
@@ -22,10 +22,8 @@ export type Move = z.output<typeof moveRequestSchema>
  * exactly one succeeds and the other sees the new version (409). A refused move writes nothing.
  */
 export async function moveVehicle(db: Database, user: User, vehicleId: string, move: Move, now = new Date()): Promise<BoardCard> {
-  const yard = await boardYardOf(db, user.id)
-  const card = await db.transaction(async (tx) => {
-    const [row] = await tx.select({ state: vehicles.state, version: vehicles.version }).from(vehicles).where(oneInYard(yard.id, vehicleId)).for('update')
-    if (!row) throw notFound('That vehicle')
+  const { card, yardId } = await db.transaction(async (tx) => {
+    const { vehicle: row, yard } = await vehicleForUser(tx, user.id, vehicleId, true)
     const before = (await cardOf(tx, yard, vehicleId, now))!
     if (row.version !== move.version) {
       throw conflict(
@@ -54,8 +52,10 @@ export async function moveVehicle(db: Database, user: User, vehicleId: string, m
       after: closing ? { disposition: move.disposition, spaceGivenBack: before.space } : null,
       at: now,
     })
-    return (await cardOf(tx, yard, vehicleId, now))!
+    // Only the column, the version and (when closing) the way out and the space change: the rest of the card stands.
+    const after: BoardCard = { ...before, state: move.to, version: row.version + 1, ...(closing ? { disposition: move.disposition, space: null } : {}) }
+    return { card: after, yardId: yard.id }
   })
-  await boardChanged(db, { yardId: yard.id, vehicleId, cause: 'moved' })
+  await boardChanged(db, { yardId, vehicleId, cause: 'moved', card })
   return card
 }

@@ -15,6 +15,8 @@ export interface SummarizedVehicle {
   year: number | null
   estimatedValueCents: number | null
   ruleSetVersionId: string | null
+  /** The tow charge, when the caller has read it already: the board reads 2,000 at once. */
+  towCents?: number
 }
 
 export interface YardForCharges {
@@ -31,8 +33,11 @@ export async function summarizeVehicles(db: Executor, yard: YardForCharges, vehi
   const out = new Map<string, VehicleSummary | null>()
   if (vehicles.length === 0) return out
   const versions = await versionsById(db, vehicles.flatMap((v) => (v.ruleSetVersionId ? [v.ruleSetVersionId] : [])))
-  const fallback: RuleSet | undefined = yard.ruleSetId ? (await latestVersionOf(db, yard.ruleSetId))?.ruleSet : undefined
-  const towRows = await db.select({ vehicleId: tows.vehicleId, cents: tows.chargeCents }).from(tows).where(inArray(tows.vehicleId, vehicles.map((v) => v.id)))
+  // The yard's current rule set only bills vehicles that arrived without a version of their own.
+  const needFallback = yard.ruleSetId !== null && vehicles.some((v) => !v.ruleSetVersionId || !versions.has(v.ruleSetVersionId))
+  const fallback: RuleSet | undefined = needFallback ? (await latestVersionOf(db, yard.ruleSetId!))?.ruleSet : undefined
+  const unread = vehicles.filter((v) => v.towCents === undefined).map((v) => v.id)
+  const towRows = unread.length > 0 ? await db.select({ vehicleId: tows.vehicleId, cents: tows.chargeCents }).from(tows).where(inArray(tows.vehicleId, unread)) : []
   const towCents = new Map(towRows.map((t) => [t.vehicleId, t.cents]))
   for (const v of vehicles) {
     const ruleSet = (v.ruleSetVersionId && versions.get(v.ruleSetVersionId)) || fallback
@@ -46,7 +51,7 @@ export async function summarizeVehicles(db: Executor, yard: YardForCharges, vehi
       vehicleClass: v.vehicleClass,
       modelYear: v.year,
       valueCents: v.estimatedValueCents,
-      towCents: towCents.get(v.id) ?? 0,
+      towCents: v.towCents ?? towCents.get(v.id) ?? 0,
       clockEvents: [],
     }
     out.set(v.id, summarizeVehicle(input, ruleSet, holidayCalendar(ruleSet.holidayCalendar), asOf, yard.timeZone))

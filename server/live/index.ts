@@ -1,12 +1,16 @@
 import type { Executor } from '../../db/client'
+import type { BoardCard } from '../../shared/schemas/board'
 import type { BoardChange } from './live-bus'
 
 export { boardChangeSchema, type BoardChange, type LiveBus, type LiveListener } from './live-bus'
 export { memoryBus } from './memory-bus'
 export { postgresBus } from './postgres-bus'
 
-/** The yard is looked up from the vehicle when the caller does not have it at hand. */
-export type VehicleChange = Omit<BoardChange, 'origin' | 'yardId'> & { yardId?: string }
+/**
+ * The yard is looked up from the vehicle when the caller does not have it at hand; a caller that
+ * already holds the vehicle's new card passes it, and this server's boards use it as it is.
+ */
+export type VehicleChange = Omit<BoardChange, 'origin' | 'yardId'> & { yardId?: string; card?: BoardCard }
 
 export interface BoardNotifier {
   changed(change: VehicleChange): Promise<void>

@@ -34,6 +34,9 @@ export const vehicleIdentityShape = {
   plateState: z.string().nullable(),
 }
 
+/** The card's share of the running summary: the rule set's sample warnings are the vehicle page's to show. */
+export const cardSummarySchema = vehicleSummarySchema.omit({ warnings: true })
+
 export const boardCardSchema = z.object({
   ...vehicleIdentityShape,
   state: z.enum(VEHICLE_STATES),
@@ -50,7 +53,7 @@ export const boardCardSchema = z.object({
   /** What the pickup must bring (the teardown's roll marks); null until rolls, steers and brakes are marked. */
   pickup: pickupBadgeSchema.nullable(),
   /** Null when the vehicle has no rule set to bill it by (shown as "no rule set"). */
-  summary: vehicleSummarySchema.nullable(),
+  summary: cardSummarySchema.nullable(),
 })
 export type BoardCard = z.infer<typeof boardCardSchema>
 

@@ -1,8 +1,7 @@
 import { useQueryClient } from '@tanstack/vue-query'
 import type { BoardColumn } from '@shared/domain/columns'
 import type { Board, BoardCard } from '@shared/schemas/board'
-
-export const BOARD_KEY = ['board'] as const
+import { BOARD_KEY } from '@/api/board'
 
 const order = (c: BoardCard) => c.arrivedAt + c.stockNumber
 

@@ -42,8 +42,9 @@ export function useBoardLive(boardEventId: Ref<string | undefined>) {
     else if (event.type === 'removed') cache.remove(event.id)
     else {
       const known = cache.find(event.card.id)
-      // An answer to this board's own move may already have put a newer version in.
-      if (!known || known.version <= event.card.version) cache.put(event.card)
+      // An answer to this board's own move may already have put this or a newer version in.
+      if (known && (known.version > event.card.version || JSON.stringify(known) === JSON.stringify(event.card))) return
+      cache.put(event.card)
     }
   }
 

@@ -1,5 +1,6 @@
 import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
 import type { Permission } from '@shared/domain/permissions'
+import { prefetchBoard } from '@/api/board'
 import { useSessionStore } from '@/stores/session'
 
 declare module 'vue-router' {
@@ -11,13 +12,15 @@ declare module 'vue-router' {
     /** Shown in the top bar's navigation with this label. */
     nav?: string
     title?: string
+    /** Starts the page's data loading as soon as the route is allowed. */
+    prefetch?: () => void
   }
 }
 
 export const routes: RouteRecordRaw[] = [
   { path: '/', redirect: '/board' },
   { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { public: true, title: 'Sign in' } },
-  { path: '/board', name: 'board', component: () => import('@/views/BoardView.vue'), meta: { permission: 'board.view', nav: 'Board', title: 'Board' } },
+  { path: '/board', name: 'board', component: () => import('@/views/BoardView.vue'), meta: { permission: 'board.view', nav: 'Board', title: 'Board', prefetch: prefetchBoard } },
   { path: '/archive', name: 'archive', component: () => import('@/views/ArchiveView.vue'), meta: { permission: 'board.view', nav: 'Archive', title: 'Archive' } },
   { path: '/tow-in', name: 'tow-in', component: () => import('@/views/TowInView.vue'), meta: { permission: 'towin.write', nav: 'Log a tow-in', title: 'Log a tow-in' } },
   { path: '/vehicles/:id', name: 'vehicle', component: () => import('@/views/VehicleView.vue'), meta: { permission: 'board.view', title: 'Vehicle' } },
@@ -30,13 +33,24 @@ export const router = createRouter({ history: createWebHistory(), routes })
 
 router.beforeEach(async (to) => {
   const session = useSessionStore()
-  if (!session.loaded) await session.load()
+  if (!session.loaded) {
+    // First visit: fetch the page's code while the session is checked, not after.
+    for (const record of to.matched) void loadComponent(record.components?.default)
+    await session.load()
+  }
   if (to.name === 'sign-in' && session.signedIn) return { path: typeof to.query.next === 'string' ? to.query.next : '/board' }
   if (to.meta.public) return true
   if (!session.signedIn) return { name: 'sign-in', query: { next: to.fullPath } }
   if (to.meta.permission && !session.allows(to.meta.permission)) return { name: 'board' }
+  to.meta.prefetch?.()
   return true
 })
+
+// A lazy route component is a function returning its module; the router imports it again later
+// and gets the same module from the browser's cache.
+function loadComponent(component: unknown) {
+  if (typeof component === 'function' && component.length === 0) return (component as () => Promise<unknown>)().catch(() => undefined)
+}
 
 router.afterEach((to) => {
   document.title = to.meta.title ? `${to.meta.title} · Holdfast` : 'Holdfast'

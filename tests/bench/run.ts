@@ -8,6 +8,7 @@ if (!existsSync('dist/server/index.js')) execSync('npm run build', { stdio: 'inh
 const benches: Record<string, () => Promise<{ met: boolean }>> = {
   startup: async () => (await import('./startup.bench')).run(),
   core: async () => (await import('./core.bench')).run(),
+  board: async () => (await import('./board.bench')).run(),
 }
 const only = process.argv.slice(2)
 let allMet = true

@@ -1,0 +1,62 @@
+import request from 'supertest'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { makeStaff, makeVehicle } from '../helpers/factories'
+
+let t: TestApp
+beforeAll(async () => {
+  t = await makeTestApp()
+})
+afterAll(() => t.close())
+
+type Board = { eventId: string; columns: { column: string; cards: { id: string; state: string }[] }[] }
+const idsIn = (b: Board, column: string) => b.columns.find((c) => c.column === column)!.cards.map((c) => c.id)
+
+describe('GET /api/board', () => {
+  it('board_columnsInOrder_oldestArrivalFirstAndClosedLeftOut', async () => {
+    const staff = await makeStaff(t.db)
+    const now = Date.now()
+    const newer = await makeVehicle(t.db, staff.yard.id, { arrivedAt: new Date(now - 3_600_000) })
+    const older = await makeVehicle(t.db, staff.yard.id, { arrivedAt: new Date(now - 7_200_000) })
+    await makeVehicle(t.db, staff.yard.id, { state: 'closed', disposition: 'scrapped', closedAt: new Date() })
+    const s = await signedIn(t.app, staff.technician)
+    const board = (await s.get('/api/board').expect(200)).body as Board
+    expect(board.columns.map((c) => c.column)).toEqual(['arrival', 'teardown', 'decision', 'storage', 'release'])
+    expect(idsIn(board, 'arrival')).toEqual([older.id, newer.id])
+    expect(board.columns.flatMap((c) => c.cards)).toHaveLength(2)
+  })
+
+  it('board_unchangedSinceLastLoad_answers304AndAMoveChangesIt', async () => {
+    const staff = await makeStaff(t.db)
+    const v = await makeVehicle(t.db, staff.yard.id)
+    const s = await signedIn(t.app, staff.dispatcher)
+    const first = await s.get('/api/board').expect(200)
+    const etag = first.headers.etag as string
+    expect(etag).toMatch(/^W\//)
+    expect((await s.agent.get('/api/board').set('if-none-match', etag)).status).toBe(304)
+    await s.post(`/api/vehicles/${v.id}/moves`, { to: 'teardown', version: 1 }).expect(200)
+    const after = await s.agent.get('/api/board').set('if-none-match', etag)
+    expect(after.status).toBe(200)
+    expect(idsIn(after.body as Board, 'teardown')).toEqual([v.id])
+  })
+
+  it('board_browserAcceptingGzip_getsTheSameBoardCompressed', async () => {
+    const staff = await makeStaff(t.db)
+    await makeVehicle(t.db, staff.yard.id)
+    const s = await signedIn(t.app, staff.office)
+    const plain = await s.agent.get('/api/board').set('accept-encoding', 'identity')
+    expect(plain.headers['content-encoding']).toBeUndefined()
+    const raw = await s.agent.get('/api/board').set('accept-encoding', 'gzip').buffer(true).parse((res, done) => {
+      const chunks: Buffer[] = []
+      res.on('data', (c: Buffer) => chunks.push(c))
+      res.on('end', () => done(null, Buffer.concat(chunks)))
+    })
+    expect(raw.headers['content-encoding']).toBe('gzip')
+    // supertest has already inflated it: the same board, byte for byte as JSON.
+    expect(JSON.parse((raw.body as Buffer).toString())).toEqual(plain.body)
+  })
+
+  it('board_signedOut_answers401', async () => {
+    expect((await request(t.app).get('/api/board')).status).toBe(401)
+  })
+})
