@@ -1,3 +1,3 @@
 export { boardRouter } from './board.routes'
-export { BoardHub, type BoardHubOptions } from './board-hub'
+export { BoardHub } from './board-hub'
 export { movesRouter } from './moves.routes'
