@@ -90,6 +90,13 @@ export async function makePostgresTestApp(overrides: Partial<AppDeps> = {}) {
   const handle = await openDatabase({ kind: 'postgres', url: admin.replace(/\/[^/]*$/, `/${name}`) })
   await handle.migrate()
   return appOn(handle, overrides, async () => {
+    // pool.end() resolves before the server has seen every connection go: a forced drop in that moment
+    // kills a closing connection, whose error then surfaces as an unhandled one. Wait for them to leave.
+    for (let i = 0; i < 100; i++) {
+      const { rows } = await adminClient.query('select count(*)::int as n from pg_stat_activity where datname = $1', [name])
+      if (rows[0].n === 0) break
+      await new Promise((r) => setTimeout(r, 20))
+    }
     await adminClient.query(`drop database ${name} with (force)`)
     await adminClient.end()
   })
