@@ -53,10 +53,11 @@ const linked = (row: UnhashedRow, prevHash: string) => ({ ...row, prevHash, hash
 
 /**
  * Appends one event to a vehicle's chain of custody. Call it inside the transaction that makes the
- * change it records; it locks the vehicle row so two appends cannot take the same sequence number.
+ * change it records; the vehicle row is locked so two appends cannot take the same sequence number.
  */
-export async function appendHistory(tx: Executor, e: NewHistoryEvent): Promise<HistoryRow> {
-  await tx.execute(sql`select 1 from ${vehicles} where ${vehicles.id} = ${e.vehicleId} for update`)
+export async function appendHistory(tx: Executor, e: NewHistoryEvent, options: { vehicleLocked?: boolean } = {}): Promise<HistoryRow> {
+  // A caller that already holds the vehicle row (select … for update) saves a round trip.
+  if (!options.vehicleLocked) await tx.execute(sql`select 1 from ${vehicles} where ${vehicles.id} = ${e.vehicleId} for update`)
   const [last] = await tx
     .select({ seq: historyEvents.seq, hash: historyEvents.hash })
     .from(historyEvents)

@@ -84,7 +84,7 @@ export function createApp(deps: AppDeps): Express {
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }))
   app.use(express.json({ limit: '1mb' }))
   app.use('/api', sessionMiddleware(db, deps.sessionSecret, deps.https ?? false))
-  app.use('/api', currentUser(db))
+  app.use('/api', currentUser())
   app.use('/api', csrfProtection(deps.origins ?? []))
   app.use('/api', enforceAccess)
 

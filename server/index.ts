@@ -30,7 +30,9 @@ try {
   }
   throw err
 }
+const opened = performance.now()
 await handle.migrate()
+const migrated = performance.now()
 const { db } = handle
 if (config.demo) {
   const demo = await loadDemoIfEmpty(db)
@@ -61,6 +63,7 @@ const app = createApp({
 const server = app.listen(config.port, config.host, () => {
   const where = config.database.kind === 'postgres' ? 'PostgreSQL' : `embedded database in ${config.dataDir}`
   log.info(`Holdfast is serving http://localhost:${config.port} (${where}), ready in ${Math.round(performance.now() - started)} ms`)
+  log.debug(`start-up: modules and database open ${Math.round(opened - started)} ms, migrations ${Math.round(migrated - opened)} ms`)
 })
 
 const pruning = setInterval(() => void pruneExpiredSessions(db).catch((err) => log.warn({ err }, 'session prune failed')), 15 * 60_000)

@@ -51,7 +51,7 @@ export async function moveVehicle(db: Database, user: User, vehicleId: string, m
       reason: move.reason,
       after: closing ? { disposition: move.disposition, spaceGivenBack: before.space } : null,
       at: now,
-    })
+    }, { vehicleLocked: true })
     // Only the column, the version and (when closing) the way out and the space change: the rest of the card stands.
     const after: BoardCard = { ...before, state: move.to, version: row.version + 1, ...(closing ? { disposition: move.disposition, space: null } : {}) }
     return { card: after, yardId: yard.id }

@@ -1,4 +1,5 @@
-import sharp from 'sharp'
+// sharp is loaded on first use, not at start-up.
+const loadSharp = () => import('sharp').then((m) => m.default)
 import { STREETS, type Point } from './orrin-flats'
 
 const SIZE = 256
@@ -65,6 +66,7 @@ export async function tile(z: number, x: number, y: number): Promise<Buffer> {
     `<path d="M0,0.5H${SIZE}M0.5,0V${SIZE}" stroke="#e3ded2" stroke-width="1"/>` +
     streetsSvg(z, x, y) +
     '</svg>'
+  const sharp = await loadSharp()
   const png = await sharp(Buffer.from(svg)).png({ compressionLevel: 9, palette: true }).toBuffer()
   if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!)
   cache.set(key, png)

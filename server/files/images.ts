@@ -1,4 +1,5 @@
-import sharp from 'sharp'
+// sharp is loaded on first use, not at start-up.
+const loadSharp = () => import('sharp').then((m) => m.default)
 
 /** The longest side kept: enough to read a VIN plate or a scratch, without phone-size originals. */
 const MAX_SIDE = 3200
@@ -21,6 +22,7 @@ export class UnreadableImageError extends Error {}
  * editing history are dropped with the rest.
  */
 export async function reencodeImage(input: Buffer): Promise<Reencoded> {
+  const sharp = await loadSharp()
   try {
     const { data, info } = await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS })
       .rotate()

@@ -1,4 +1,5 @@
-import { PDFDocument, PDFName } from 'pdf-lib'
+// pdf-lib is loaded on the first PDF, not at start-up: importing it costs about a third of a second.
+const pdfLib = () => import('pdf-lib')
 
 export class UnreadablePdfError extends Error {}
 
@@ -7,7 +8,8 @@ const CATALOG_KEYS = ['Metadata', 'OpenAction', 'AA', 'Names']
 
 /** Re-saves a PDF without its document information, XMP metadata and open actions. */
 export async function cleanPdf(input: Buffer): Promise<Buffer> {
-  let doc: PDFDocument
+  const { PDFDocument, PDFName } = await pdfLib()
+  let doc: Awaited<ReturnType<typeof PDFDocument.load>>
   try {
     doc = await PDFDocument.load(input, { updateMetadata: false })
   } catch (err) {

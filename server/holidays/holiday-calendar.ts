@@ -1,4 +1,5 @@
-import Holidays from 'date-holidays'
+import { createRequire } from 'node:module'
+import type HolidaysType from 'date-holidays'
 import { civilFromDay } from '../../shared/domain/calendar-dates'
 import { holidayCalendarFromList, type DatedHoliday, type Holiday, type HolidayCalendar } from '../../shared/domain/holidays'
 
@@ -9,6 +10,10 @@ export interface CalendarKey {
 
 const calendars = new Map<string, HolidayCalendar>()
 
+// date-holidays takes about 0.3 s to load: it is required on the first legal clock, not at start-up.
+let Holidays: typeof HolidaysType | undefined
+const holidaysLibrary = () => (Holidays ??= createRequire(import.meta.url)('date-holidays') as typeof HolidaysType)
+
 /**
  * The public holidays of a jurisdiction (date-holidays' `public` type, which includes its observed
  * substitutes for weekend holidays), worked out a year at a time on first use and kept.
@@ -18,20 +23,20 @@ export function holidayCalendar(key: CalendarKey): HolidayCalendar {
   const id = `${key.country}/${key.state ?? ''}`
   let calendar = calendars.get(id)
   if (!calendar) {
-    calendar = yearByYear(new Holidays(key.country, key.state ?? ''))
+    calendar = yearByYear(new (holidaysLibrary())(key.country, key.state ?? ''))
     calendars.set(id, calendar)
   }
   return calendar
 }
 
-export function publicHolidays(source: Holidays, year: number): Holiday[] {
+export function publicHolidays(source: HolidaysType, year: number): Holiday[] {
   return source
     .getHolidays(year)
     .filter((h) => h.type === 'public')
     .map((h) => ({ date: h.date.slice(0, 10), name: h.name }))
 }
 
-function yearByYear(source: Holidays): HolidayCalendar {
+function yearByYear(source: HolidaysType): HolidayCalendar {
   const years = new Map<number, HolidayCalendar>()
   const ofYear = (year: number) => {
     let cal = years.get(year)

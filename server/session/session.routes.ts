@@ -54,7 +54,7 @@ export function sessionRouter(db: Database, limits: SignInLimits): Router {
     const user = await signIn(db, input)
     // A new session id at sign-in: an id planted before sign-in is worth nothing after it.
     await promisify((cb) => req.session.regenerate(cb))
-    req.session.userId = user.id
+    req.session.user = user
     req.session.signedInAt = Date.now()
     req.session.csrfToken = newCsrfToken()
     await promisify((cb) => req.session.save(cb))

@@ -1,7 +1,7 @@
 import type { Database } from '../../db/client'
 import type { CreateUser, UpdateUser, User } from '../../shared/schemas/users'
 import { conflict, notFound, unprocessable } from '../errors'
-import { endSessionsOf } from '../session/session-store'
+import { endSessionsOf, renameInSessions } from '../session/session-store'
 import { hashPassword } from './passwords'
 import * as q from './users.queries'
 
@@ -37,6 +37,7 @@ export async function changeUser(db: Database, actor: User, id: string, input: U
     }
     const row = await q.updateUser(tx, id, input)
     if (input.active === false || input.role) await endSessionsOf(tx, id)
+    else if (input.name) await renameInSessions(tx, id, input.name)
     return toRow(row!)
   })
 }

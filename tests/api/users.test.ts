@@ -62,6 +62,14 @@ describe('staff management', () => {
     expect((await again.get('/api/users')).status).toBe(200)
   })
 
+  it('renaming a user keeps them signed in and their session says the new name', async () => {
+    const m = await signedIn(t.app, staff.manager)
+    const o = await signedIn(t.app, staff.office)
+    await m.patch(`/api/users/${staff.office.id}`, { name: 'Priya C. Okonjo' }).expect(200)
+    const me = await o.get('/api/session').expect(200)
+    expect(me.body.user).toMatchObject({ id: staff.office.id, name: 'Priya C. Okonjo', role: 'office' })
+  })
+
   it('the last active manager cannot be deactivated or demoted', async () => {
     const m = await signedIn(t.app, staff.manager)
     expect((await m.patch(`/api/users/${staff.manager.id}`, { active: false })).status).toBe(422)
