@@ -9,6 +9,9 @@ export default defineConfig({
   workers: 1,
   retries: 0,
   timeout: 30_000,
+  // A 2-core machine building or testing something else can take more than the default 5 s to
+  // sign in or draw a page; a real failure still fails, only later.
+  expect: { timeout: 10_000 },
   reporter: [['list']],
   outputDir: 'test-results',
   use: {

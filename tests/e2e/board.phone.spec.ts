@@ -18,3 +18,17 @@ test('on a phone the board shows one column at a time and moves through the menu
   await expect(page).toHaveURL(/col=teardown/)
   await expect(page.locator('[data-column="teardown"] [data-stock]').filter({ hasText: 'Veyland Solace' })).toBeVisible()
 })
+
+test('on a phone the archive shows how each closed vehicle left without scrolling sideways', async ({ page }) => {
+  await signInAs(page, 'office')
+  await page.goto('/archive')
+  const items = page.getByTestId('archive-item')
+  await expect(items.first()).toBeVisible()
+  for (const item of await items.all()) {
+    await expect(item).toContainText(/Returned to owner|Released to a third party|Title transferred|Lien sale|Scrapped/)
+    const box = (await item.boundingBox())!
+    expect(box.x + box.width).toBeLessThanOrEqual(page.viewportSize()!.width)
+  }
+  const scrollsSideways = await page.evaluate(() => document.documentElement.scrollWidth > window.innerWidth)
+  expect(scrollsSideways).toBe(false)
+})
