@@ -5,7 +5,7 @@ import type { Database } from '../../db/client'
 import { signInSchema } from '../../shared/schemas/session'
 import { AppError } from '../errors'
 import { newCsrfToken } from '../middleware/session'
-import { signIn } from './session.service'
+import { signIn, signInRefused, stillAsVerified } from './session.service'
 
 export interface SignInLimits {
   /** Failed sign-ins allowed per account in the window. */
@@ -51,13 +51,18 @@ export function sessionRouter(db: Database, limits: SignInLimits): Router {
 
   router.post('/', byIp, byAccount, async (req, res) => {
     const input = signInSchema.parse(req.body)
-    const user = await signIn(db, input)
+    const verified = await signIn(db, input)
+    const { user } = verified
     // A new session id at sign-in: an id planted before sign-in is worth nothing after it.
     await promisify((cb) => req.session.regenerate(cb))
     req.session.user = user
     req.session.signedInAt = Date.now()
     req.session.csrfToken = newCsrfToken()
     await promisify((cb) => req.session.save(cb))
+    if (!(await stillAsVerified(db, verified))) {
+      await promisify((cb) => req.session.destroy(cb))
+      throw signInRefused()
+    }
     res.json({ user, csrfToken: req.session.csrfToken })
   })
 

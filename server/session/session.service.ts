@@ -1,4 +1,6 @@
+import { eq } from 'drizzle-orm'
 import type { Database } from '../../db/client'
+import { users } from '../../db/schema/index'
 import type { SignIn } from '../../shared/schemas/session'
 import type { User } from '../../shared/schemas/users'
 import { AppError } from '../errors'
@@ -8,9 +10,32 @@ import { findUserByEmail } from '../users/users.queries'
 // One message for an unknown e-mail, a wrong password and a deactivated account: no account discovery.
 const REFUSED = 'That e-mail and password do not match an active account.'
 
-export async function signIn(db: Database, input: SignIn): Promise<User> {
+export const signInRefused = () => new AppError(401, REFUSED)
+
+/** Who signed in, and the password hash their password was checked against. */
+export interface Verified {
+  user: User
+  passwordHash: string
+}
+
+export async function signIn(db: Database, input: SignIn): Promise<Verified> {
   const row = await findUserByEmail(db, input.email)
   const ok = await verifyPassword(row?.passwordHash, input.password)
-  if (!row || !ok || !row.active) throw new AppError(401, REFUSED)
-  return { id: row.id, email: row.email, name: row.name, role: row.role }
+  if (!row || !ok || !row.active) throw signInRefused()
+  return { user: { id: row.id, email: row.email, name: row.name, role: row.role }, passwordHash: row.passwordHash }
+}
+
+/**
+ * Whether the account is still as it was when its password was checked. Call it once the new
+ * session row is saved: a deactivation, role change or password reset that committed in between
+ * ended that user's sessions before this one existed. FOR SHARE waits for such a change still
+ * under way, and one that starts later finds the saved row and ends it.
+ */
+export async function stillAsVerified(db: Database, { user, passwordHash }: Verified): Promise<boolean> {
+  const [row] = await db
+    .select({ active: users.active, role: users.role, passwordHash: users.passwordHash })
+    .from(users)
+    .where(eq(users.id, user.id))
+    .for('share')
+  return !!row && row.active && row.role === user.role && row.passwordHash === passwordHash
 }

@@ -46,7 +46,10 @@ export async function resetPassword(db: Database, actor: User, id: string, passw
   const target = await q.findUser(db, id)
   const me = await q.findUser(db, actor.id)
   if (!target || target.companyId !== me!.companyId) throw notFound('That user')
-  await q.updateUser(db, id, { passwordHash: await hashPassword(password) })
-  // Whoever knew the old password is signed out everywhere.
-  await endSessionsOf(db, id)
+  const passwordHash = await hashPassword(password)
+  // Whoever knew the old password is signed out everywhere, in the same transaction as the change.
+  await db.transaction(async (tx) => {
+    await q.updateUser(tx, id, { passwordHash })
+    await endSessionsOf(tx, id)
+  })
 }
