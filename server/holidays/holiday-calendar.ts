@@ -29,10 +29,18 @@ export function holidayCalendar(key: CalendarKey): HolidayCalendar {
   return calendar
 }
 
+const SUBSTITUTE = / \(substitute day\)$/
+
+/**
+ * The public holidays of a year, with the weekday a weekend holiday is observed on. date-holidays
+ * types some of those substitutes otherwise (the US Veterans Day one is "bank"), so a substitute
+ * counts whenever the holiday it stands for is public: 5 U.S.C. 6103(b) and OPM's weekend rule.
+ */
 export function publicHolidays(source: HolidaysType, year: number): Holiday[] {
-  return source
-    .getHolidays(year)
-    .filter((h) => h.type === 'public')
+  const all = source.getHolidays(year)
+  const publicNames = new Set(all.filter((h) => h.type === 'public').map((h) => h.name))
+  return all
+    .filter((h) => h.type === 'public' || (h.substitute === true && publicNames.has(h.name.replace(SUBSTITUTE, ''))))
     .map((h) => ({ date: h.date.slice(0, 10), name: h.name }))
 }
 

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { loadSampleRuleSets } from '../../db/seed'
+import { usFederalHolidays } from '../../shared/domain/holidays'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
 
@@ -82,6 +83,45 @@ describe('rule sets and quotes API', () => {
     const notice = res.body.clocks.deadlines.find((d: { code: string }) => d.code === 'notice-of-lien')
     expect(notice.dueDate).toBe('2026-07-13')
     expect(notice.holidaysSkipped.map((h: { date: string }) => h.date)).toContain('2026-07-03')
+  })
+
+  // Same rule; stored Wed 1 Nov 2028. Veterans Day falls on Sat 11 Nov 2028 and is observed Fri 10 Nov
+  // (5 U.S.C. 6103(b), OPM weekend rule), so the seventh business day is Mon 13 Nov 2028 [C].
+  it('POST /api/quotes/clocks skips the observed Veterans Day, which date-holidays types as a bank holiday', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    const res = await s.post('/api/quotes/clocks', {
+      ruleSetId: 'florida-sample',
+      vehicle: { modelYear: 2015 },
+      events: [{ kind: 'stored', at: '2028-11-01T10:00:00-04:00' }],
+      asOf: '2028-11-02T10:00:00-04:00',
+    })
+    expect(res.status).toBe(200)
+    const notice = res.body.clocks.deadlines.find((d: { code: string }) => d.code === 'notice-of-lien')
+    expect(notice.dueDate).toBe('2028-11-13')
+    expect(notice.holidaysSkipped.map((h: { date: string }) => h.date)).toContain('2028-11-10')
+  })
+
+  // The federal template's calendar, on weekdays, is exactly the days federal holidays are observed on
+  // (5 U.S.C. 6103 with OPM's weekend rule, computed independently in shared/domain/holidays.ts).
+  it('GET /api/rule-sets/ordinance-24h-template/holidays is the observed federal holidays, 2021 to 2030', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    const res = await s.get('/api/rule-sets/ordinance-24h-template/holidays?from=2021&to=2030').expect(200)
+    const federal = Array.from({ length: 10 }, (_, i) => usFederalHolidays(2021 + i)).flat().map((h) => h.date)
+    // The calendar also names the weekend day itself; business days skip that anyway.
+    const weekday = (d: string) => ![0, 6].includes(new Date(`${d}T12:00:00Z`).getUTCDay())
+    expect(res.body.holidays.map((h: { date: string }) => h.date).filter(weekday).sort()).toEqual(federal.sort())
+  })
+
+  // State calendars keep their own list (neither state closes for Columbus Day), but each moves its
+  // weekend holidays by the same rule: REFERENCES.md's check dates [C].
+  it.each(['florida-sample', 'california-sample'])('GET /api/rule-sets/%s/holidays has the weekday each weekend holiday is observed on', async (id) => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    const res = await s.get(`/api/rule-sets/${id}/holidays?from=2026&to=2029`).expect(200)
+    const dates = res.body.holidays.map((h: { date: string }) => h.date)
+    expect(dates).toEqual(expect.arrayContaining(['2026-07-03', '2027-07-05', '2027-12-24', '2027-12-31', '2028-11-10', '2029-11-12']))
   })
 
   it('GET /api/rule-sets/:id/holidays refuses more than ten years', async () => {
