@@ -56,6 +56,8 @@ export const vehicleSchema = z
 export type VehicleInput = z.input<typeof vehicleSchema>
 export type Vehicle = z.output<typeof vehicleSchema>
 
+const FIRST_17_CHARACTER_YEAR = 1981
+
 type VinFields = { vin: string | null; vinOverrideReason: string | null; year: number | null; vehicleClass: string }
 
 /**
@@ -77,6 +79,19 @@ export function vinIssues(fields: VinFields): { path: string[]; message: string 
   const reading = readVin(v.vin, v.vehicleClass === 'heavy' ? 'heavy-or-trailer' : 'light')
   if (!reading.ok) {
     return override ? [] : [{ path: ['vin'], message: `${reading.problems[0]!.message} Correct it, or record it as read and give the reason.` }]
+  }
+  // 49 CFR 565 has required 17 characters since model year 1981: a shorter VIN on a newer vehicle is a misread.
+  if (!override && reading.normalized.length < 17 && (v.year === null || v.year >= FIRST_17_CHARACTER_YEAR)) {
+    const n = reading.normalized.length
+    return [
+      {
+        path: ['vin'],
+        message:
+          v.year === null
+            ? `This VIN has ${n} characters, not 17. Only vehicles made before 1981 have shorter VINs: enter the model year, correct the VIN, or record it as read and give the reason.`
+            : `A ${v.year} vehicle has a 17-character VIN; this one has ${n}. Correct it, or record it as read and give the reason.`,
+      },
+    ]
   }
   const vinYear = reading.modelYear?.readable ? reading.modelYear.year : undefined
   if (!override && vinYear !== undefined && v.year !== null && v.year !== vinYear) {

@@ -88,6 +88,19 @@ describe('VIN messages', () => {
     expect(message(await refused((b) => (b.vehicle.vin = vin)), 'vehicle.vin')).toContain(text)
   })
 
+  // 49 CFR 565: 17 characters from model year 1981; shorter VINs belong to older vehicles only.
+  it('a short VIN on a vehicle from 1981 on', async () => {
+    expect(message(await refused((b) => Object.assign(b.vehicle, { vin: '1G4AH59H45G11834', year: 2005 })), 'vehicle.vin')).toBe(
+      'A 2005 vehicle has a 17-character VIN; this one has 16. Correct it, or record it as read and give the reason.',
+    )
+  })
+
+  it('a short VIN with no model year', async () => {
+    expect(message(await refused((b) => Object.assign(b.vehicle, { vin: '1', year: null })), 'vehicle.vin')).toContain(
+      'Only vehicles made before 1981 have shorter VINs',
+    )
+  })
+
   it('no VIN needs a reason', async () => {
     expect(message(await refused((b) => (b.vehicle.vin = '')), 'vehicle.vin')).toBe(
       'Enter the VIN, or give the reason it cannot be read (plate-only, VIN plate missing or damaged).',
@@ -104,6 +117,13 @@ describe('VIN messages', () => {
     const res = await d.post('/api/vehicles', body).expect(201)
     const [v] = await app.db.select().from(t.vehicles).where(eq(t.vehicles.id, res.body.id))
     expect(v).toMatchObject({ vin: '1G4AH59H45G118351', vinOverrideReason: 'VIN plate bent; last digits hard to read' })
+  })
+
+  it('a short VIN on a 1978 vehicle is accepted without a reason (before the 17-character rule)', async () => {
+    const body = towInBody(staff.dispatcher.id, (b) => Object.assign(b.vehicle, { vin: '1J57H8R123456', year: 1978 }))
+    const res = await d.post('/api/vehicles', body).expect(201)
+    const [v] = await app.db.select().from(t.vehicles).where(eq(t.vehicles.id, res.body.id))
+    expect(v).toMatchObject({ vin: '1J57H8R123456', vinOverrideReason: null, year: 1978 })
   })
 
   it('a plate-only tow-in is recorded with its reason', async () => {
