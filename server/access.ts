@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express'
 import { match } from 'path-to-regexp'
 import { can, type Permission } from '../shared/domain/permissions'
-import { forbidden, unauthorized } from './errors'
+import { badRequest, forbidden, unauthorized } from './errors'
 
 type Rule = 'public' | 'staff' | Permission
 
@@ -77,7 +77,14 @@ export function ruleFor(method: string, path: string): Rule | undefined {
 }
 
 export const enforceAccess: RequestHandler = (req, _res, next) => {
-  const rule = ruleFor(req.method, req.baseUrl + req.path)
+  let rule: Rule | undefined
+  try {
+    rule = ruleFor(req.method, req.baseUrl + req.path)
+  } catch (err) {
+    // path-to-regexp decodes each parameter: a broken %-escape cannot name anything.
+    if (err instanceof URIError) return next(badRequest('That address has a broken %-escape.'))
+    throw err
+  }
   if (rule === 'public') return next()
   if (!req.user) return next(unauthorized())
   if (rule === undefined) return next(forbidden('This action is not available.'))

@@ -21,6 +21,7 @@ import { healthRouter } from './health/health.routes'
 import { memoryBus, registerBoardNotifier, type LiveBus } from './live/index'
 import { csrfProtection } from './middleware/csrf'
 import { currentUser } from './middleware/current-user'
+import { refuseNulCharacters } from './middleware/no-nul'
 import { sessionMiddleware } from './middleware/session'
 import { sessionRouter, type SignInLimits } from './session/index'
 import { spacesRouter, vehicleSpaceRouter } from './spaces/index'
@@ -83,6 +84,7 @@ export function createApp(deps: AppDeps): Express {
   )
   app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }))
   app.use(express.json({ limit: '1mb' }))
+  app.use('/api', refuseNulCharacters)
   app.use('/api', sessionMiddleware(db, deps.sessionSecret, deps.https ?? false))
   app.use('/api', currentUser())
   app.use('/api', csrfProtection(deps.origins ?? []))

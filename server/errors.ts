@@ -34,6 +34,9 @@ export const notFoundHandler: RequestHandler = (req, res) => {
   res.status(404).json({ error: `No such route: ${req.method} ${req.path}` })
 }
 
+// PostgreSQL: 22021 character_not_in_repertoire (a NUL in text), 22P05 untranslatable_character (\u0000 in jsonb).
+const UNSTORABLE_TEXT = new Set(['22021', '22P05'])
+
 interface Logger {
   error(obj: unknown, msg?: string): void
 }
@@ -53,6 +56,11 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
     }
     if (err instanceof AppError) {
       res.status(err.status).json({ error: err.message, ...err.extra })
+      return
+    }
+    // The database's own refusal of text it cannot store (a NUL character that came another way).
+    if (UNSTORABLE_TEXT.has(err?.cause?.code ?? err?.code)) {
+      res.status(400).json({ error: 'Some text contains a character that cannot be stored (NUL). Remove it and try again.' })
       return
     }
     // body-parser and multer errors carry a status and a safe message.

@@ -20,7 +20,7 @@ export const storageQuoteRequestSchema = z.object({
   stay: staySchema,
   asOf: instantSchema,
   /** The yard's zone when it differs from the rule set's default. */
-  timeZone: z.string().min(1).optional(),
+  timeZone: z.string().min(1).max(64, 'A time zone name is at most 64 characters, like America/Los_Angeles.').optional(),
 })
 
 export const clockVehicleSchema = z.object({
@@ -35,7 +35,7 @@ export const legalClocksRequestSchema = z.object({
   vehicle: clockVehicleSchema,
   events: z.array(clockEventSchema).max(500),
   asOf: instantSchema,
-  timeZone: z.string().min(1).optional(),
+  timeZone: z.string().min(1).max(64, 'A time zone name is at most 64 characters, like America/Los_Angeles.').optional(),
 })
 
 export type Stay = z.infer<typeof staySchema>

@@ -76,3 +76,22 @@ describe('errors', () => {
     expect(res.headers['strict-transport-security']).toBeUndefined()
   })
 })
+
+describe('input the database cannot store or the router cannot read', () => {
+  it('a NUL character in a query or a JSON body answers 400 naming the field, and writes nothing', async () => {
+    const staff = await makeStaff(t.db)
+    const m = await signedIn(t.app, staff.manager)
+    const search = await m.get('/api/vehicles/search?q=%00%00')
+    expect(search.status).toBe(400)
+    expect(search.body.issues[0].path).toBe('q')
+    const before = (await m.get('/api/users')).body.users.length
+    const create = await m.post('/api/users', { email: 'nul@test.example', name: 'a\u0000b', role: 'office', password: 'a long passphrase' })
+    expect(create.status).toBe(400)
+    expect(create.body.issues[0]).toMatchObject({ path: 'name' })
+    expect((await m.get('/api/users')).body.users).toHaveLength(before)
+  })
+
+  it('a broken %-escape in the address answers 400, signed in or not', async () => {
+    expect((await request(t.app).get('/api/vehicles/%E0%A4%A')).status).toBe(400)
+  })
+})
