@@ -3,6 +3,7 @@ import type { Executor } from '../../db/client'
 import { tows } from '../../db/schema/index'
 import type { VehicleSummary } from '../../shared/schemas/charges'
 import type { RuleSet } from '../../shared/schemas/rule-sets'
+import { DomainError } from '../../shared/domain/errors'
 import { holidayCalendar } from '../holidays/holiday-calendar'
 import { latestVersionOf, versionsById } from '../rule-sets/rule-sets.queries'
 import { summarizeVehicle } from './vehicle-summary'
@@ -28,8 +29,16 @@ export interface YardForCharges {
  * Running bills and next legal dates for many vehicles at once: one query for their tow charges,
  * one per rule-set version not yet parsed. A vehicle is billed under the version it arrived under;
  * one without (or whose class the rule set does not know) gets no summary rather than a wrong one.
+ * One whose record the core refuses to bill (an arrival decades ago) gets none either, and the
+ * core's reason goes into `problems` when the caller passes it: one bad record never stops a board.
  */
-export async function summarizeVehicles(db: Executor, yard: YardForCharges, vehicles: SummarizedVehicle[], asOf = new Date()): Promise<Map<string, VehicleSummary | null>> {
+export async function summarizeVehicles(
+  db: Executor,
+  yard: YardForCharges,
+  vehicles: SummarizedVehicle[],
+  asOf = new Date(),
+  problems?: Map<string, string>,
+): Promise<Map<string, VehicleSummary | null>> {
   const out = new Map<string, VehicleSummary | null>()
   if (vehicles.length === 0) return out
   const versions = await versionsById(db, vehicles.flatMap((v) => (v.ruleSetVersionId ? [v.ruleSetVersionId] : [])))
@@ -54,7 +63,13 @@ export async function summarizeVehicles(db: Executor, yard: YardForCharges, vehi
       towCents: v.towCents ?? towCents.get(v.id) ?? 0,
       clockEvents: [],
     }
-    out.set(v.id, summarizeVehicle(input, ruleSet, holidayCalendar(ruleSet.holidayCalendar), asOf, yard.timeZone))
+    try {
+      out.set(v.id, summarizeVehicle(input, ruleSet, holidayCalendar(ruleSet.holidayCalendar), asOf, yard.timeZone))
+    } catch (err) {
+      if (!(err instanceof DomainError)) throw err
+      out.set(v.id, null)
+      problems?.set(v.id, err.message)
+    }
   }
   return out
 }

@@ -12,7 +12,8 @@ export async function vehiclePage(db: Database, userId: string, vehicleId: strin
   const { vehicle: v, yard } = await vehicleForUser(db, userId, vehicleId)
   const classes = await classesOfVersion(db, v.ruleSetVersionId)
   const ruleSet = v.ruleSetVersionId ? (await versionsById(db, [v.ruleSetVersionId])).get(v.ruleSetVersionId) : undefined
-  const summaries = await summarizeVehicles(db, yard, [v], asOf)
+  const problems = new Map<string, string>()
+  const summaries = await summarizeVehicles(db, yard, [v], asOf, problems)
   return {
     vehicle: {
       id: v.id,
@@ -54,5 +55,6 @@ export async function vehiclePage(db: Database, userId: string, vehicleId: strin
     property: await propertyOf(db, v.id),
     history: await historyEvents(db, v.id),
     summary: summaries.get(v.id) ?? null,
+    billProblem: problems.get(v.id) ?? null,
   }
 }

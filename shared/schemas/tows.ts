@@ -4,11 +4,13 @@ import { alongsideFieldIssues, instantSchema, optionalInstant, optionalText, req
 
 /** Arrival may be typed a little ahead of the server's clock; beyond that it is a typing mistake. */
 const FUTURE_SLACK_MS = 10 * 60_000
+/** An arrival further back than this is a mistyped year: nothing stays on a storage lot for a decade. */
+const OLDEST_ARRIVAL_YEARS = 10
 
 export const pickupSchema = z.object(
   {
-    lat: z.number({ error: 'Drop a pin on the map or search for the address.' }).min(-90).max(90),
-    lng: z.number({ error: 'Drop a pin on the map or search for the address.' }).min(-180).max(180),
+    lat: z.number({ error: 'Drop a pin on the map or search for the address.' }).min(-90, 'Latitude is between -90 and 90.').max(90, 'Latitude is between -90 and 90.'),
+    lng: z.number({ error: 'Drop a pin on the map or search for the address.' }).min(-180, 'Longitude is between -180 and 180.').max(180, 'Longitude is between -180 and 180.'),
     address: optionalText(200),
   },
   { error: 'Drop a pin on the map or search for the address.' },
@@ -49,6 +51,11 @@ export const towSchema = z
       ctx.addIssue({ code: 'custom', path: ['arrivedAt'], message: `Arrival at the gate cannot be before ${hooked !== null ? 'the hook-up' : 'the call'}.` })
     }
     if (arrived > Date.now() + FUTURE_SLACK_MS) ctx.addIssue({ code: 'custom', path: ['arrivedAt'], message: 'Arrival at the gate cannot be in the future.' })
+    const oldest = new Date()
+    oldest.setFullYear(oldest.getFullYear() - OLDEST_ARRIVAL_YEARS)
+    if (arrived < oldest.getTime()) {
+      ctx.addIssue({ code: 'custom', path: ['arrivedAt'], message: `Arrival at the gate cannot be more than ${OLDEST_ARRIVAL_YEARS} years ago: check the year.` })
+    }
   }, alongsideFieldIssues)
 export type TowInput = z.input<typeof towSchema>
 export type Tow = z.output<typeof towSchema>

@@ -80,5 +80,7 @@ export const vehiclePageSchema = z.object({
   history: z.array(historyEventSchema),
   /** The running bill and next legal date (server/charges); null when no rule set can bill it. */
   summary: vehicleSummarySchema.nullable(),
+  /** Why no bill could be worked out for this record, in the core's words (then `summary` is null). */
+  billProblem: z.string().nullable(),
 })
 export type VehiclePage = z.infer<typeof vehiclePageSchema>

@@ -50,6 +50,8 @@ describe('a refused tow-in names the field, says why, and writes nothing', () =>
     ['police tow without agency', (b) => (b.tow.reason = 'law_enforcement'), 'tow.requesterAgency', 'Name the agency that asked for the tow.'],
     ['hooked before the call', (b) => (b.tow.hookedAt = new Date(Date.now() - 3 * 3_600_000).toISOString()), 'tow.hookedAt', 'Hooked up cannot be before the call.'],
     ['arrival in the future', (b) => Object.assign(b.tow, { calledAt: null, hookedAt: null, arrivedAt: new Date(Date.now() + 3_600_000).toISOString() }), 'tow.arrivedAt', 'Arrival at the gate cannot be in the future.'],
+    ['arrival in 1990, a mistyped year', (b) => Object.assign(b.tow, { calledAt: null, hookedAt: null, arrivedAt: '1990-01-01T08:00:00Z' }), 'tow.arrivedAt', 'Arrival at the gate cannot be more than 10 years ago: check the year.'],
+    ['a latitude off the globe', (b) => (b.tow.pickup = { lat: 95, lng: -119.3, address: null }), 'tow.pickup.lat', 'Latitude is between -90 and 90.'],
     ['no odometer and not marked unreadable', (b) => (b.vehicle.odometer = null), 'vehicle.odometer', 'Enter the odometer reading, or mark it "Not readable".'],
     ['a state name for the plate state', (b) => (b.vehicle.plateState = 'Calif'), 'vehicle.plateState', 'Use the two-letter state code, e.g. CA.'],
     ['police hold without case number', (b) => (b.holds = [{ kind: 'law_enforcement', agency: 'Orrin Flats Police Department' }]), 'holds.0.caseNumber', "Enter the agency's case number."],

@@ -34,6 +34,18 @@ describe('the vehicle page', () => {
     expect(body.summary).toMatchObject({ daysOnLot: 1, towCents: 19_500, balanceCents: 6_500 + 9_500 + 19_500 })
   })
 
+  it('a record the core refuses to bill (arrival 25 years ago) still opens, says why, and leaves the board working', async () => {
+    const arrivedAt = new Date()
+    arrivedAt.setFullYear(arrivedAt.getFullYear() - 25)
+    await app.db.update(t.vehicles).set({ arrivedAt }).where(eq(t.vehicles.id, id))
+    const body = await page()
+    expect(body.summary).toBeNull()
+    expect(body.billProblem).toMatch(/longer than 20 years/)
+    const board = (await d.get('/api/board').expect(200)).body
+    const card = board.columns.flatMap((c: { cards: { id: string }[] }) => c.cards).find((c: { id: string }) => c.id === id)
+    expect(card.summary).toBeNull()
+  })
+
   it('another company gets "not found" for the vehicle and its history', async () => {
     const other = await makeCompany(app.db, 'Rival Recovery')
     const s = await signedIn(app.app, await makeUser(app.db, other.company.id, 'manager'))
