@@ -1,4 +1,4 @@
-import { Router, type Response } from 'express'
+import { Router, type Request, type Response } from 'express'
 import { z } from 'zod'
 import type { Database } from '../../db/client'
 import { uploadFieldsSchema } from '../../shared/schemas/files'
@@ -27,11 +27,20 @@ export function vehicleFilesRouter(db: Database, store: FileStore): Router {
 /** GET /api/files/:id and /api/files/:id/thumb — streamed only to signed-in staff of the company. */
 export function filesRouter(db: Database, store: FileStore): Router {
   const router = Router()
-  const send = async (res: Response, userId: string, id: string, thumb: boolean) => {
-    const found = await fileForUser(db, userId, id)
+  const send = async (req: Request, res: Response, id: string, thumb: boolean) => {
+    const found = await fileForUser(db, req.user!.id, id)
     const key = thumb ? found?.file.thumbKey : found?.file.storageKey
     if (!found || !key) throw notFound('That file')
     const { file, stockNumber } = found
+    // A file id never names other bytes, but the browser asks each time (no-cache): after signing out
+    // on a shared yard computer, its cached photos are not shown again. The answer is a 304 with no bytes.
+    const etag = `"${file.id}${thumb ? '-small' : ''}"`
+    res.setHeader('ETag', etag)
+    res.setHeader('Cache-Control', 'private, no-cache')
+    if (req.headers['if-none-match'] === etag) {
+      res.status(304).end()
+      return
+    }
     const opened = await store.get(key).catch((err) => {
       if (err instanceof FileMissingError) throw notFound('That file')
       throw err
@@ -44,12 +53,10 @@ export function filesRouter(db: Database, store: FileStore): Router {
     res.setHeader('Content-Disposition', `${file.mime === 'application/pdf' ? 'attachment' : 'inline'}; filename="${name}"`)
     res.setHeader('X-Content-Type-Options', 'nosniff')
     res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox")
-    // A file id never names other bytes, so the browser may keep it; "private" keeps shared caches out.
-    res.setHeader('Cache-Control', 'private, max-age=86400, immutable')
     opened.stream.on('error', (err) => res.destroy(err))
     opened.stream.pipe(res)
   }
-  router.get('/:id', async (req, res) => send(res, req.user!.id, fileParam.parse(req.params).id, false))
-  router.get('/:id/thumb', async (req, res) => send(res, req.user!.id, fileParam.parse(req.params).id, true))
+  router.get('/:id', async (req, res) => send(req, res, fileParam.parse(req.params).id, false))
+  router.get('/:id/thumb', async (req, res) => send(req, res, fileParam.parse(req.params).id, true))
   return router
 }

@@ -15,6 +15,10 @@ export const holdInputSchema = z
       if (!h.agency) ctx.addIssue({ code: 'custom', path: ['agency'], message: 'Name the agency that placed the hold.' })
       if (!h.caseNumber) ctx.addIssue({ code: 'custom', path: ['caseNumber'], message: "Enter the agency's case number." })
     }
+    // A few minutes' slack for a clock that runs behind; a hold that has already ended need not be set.
+    if (h.until && Date.parse(h.until) < Date.now() - 10 * 60_000) {
+      ctx.addIssue({ code: 'custom', path: ['until'], message: 'This date has passed: a hold that has already ended need not be set.' })
+    }
     if (h.kind === 'other' && !h.note) ctx.addIssue({ code: 'custom', path: ['note'], message: 'Say what the hold is for.' })
   }, alongsideFieldIssues)
 export type HoldInput = z.input<typeof holdInputSchema>

@@ -52,6 +52,14 @@ describe('holds', () => {
     expect(await counts(app.db)).toEqual(before)
   })
 
+  it('a hold that ended in the past is refused on its date, and nothing is written', async () => {
+    const before = await counts(app.db)
+    const res = await d.post(`/api/vehicles/${id}/holds`, { kind: 'dispute', note: 'Owner disputes the tow', until: '2000-01-01T00:00:00Z' })
+    expect(res.status).toBe(400)
+    expect(res.body.issues).toEqual([{ path: 'until', message: 'This date has passed: a hold that has already ended need not be set.' }])
+    expect(await counts(app.db)).toEqual(before)
+  })
+
   it('an office clerk may not set a hold', async () => {
     const o = await signedIn(app.app, staff.office)
     expect((await o.post(`/api/vehicles/${id}/holds`, { kind: 'dispute', note: 'x' })).status).toBe(403)

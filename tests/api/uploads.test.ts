@@ -155,6 +155,19 @@ describe('adding files later and reading them back', () => {
     expect((await stranger.get(url)).status).toBe(404)
   })
 
+  it('a photo is revalidated on every view: 304 with the same ETag for staff, 401 once signed out', async () => {
+    const id = await vehicleId()
+    const res = await d.agent.post(`/api/vehicles/${id}/files`).set('x-csrf-token', d.csrf).attach('files', await photo(), 'door.jpg').expect(201)
+    const { url } = res.body.files[0]
+    const first = await d.get(url).expect(200)
+    expect(first.headers['cache-control']).toBe('private, no-cache')
+    const again = await d.agent.get(url).set('if-none-match', String(first.headers.etag))
+    expect(again.status).toBe(304)
+    expect(again.body).toEqual({})
+    await d.del('/api/session').expect(204)
+    expect((await d.agent.get(url).set('if-none-match', String(first.headers.etag))).status).toBe(401)
+  })
+
   it('a technician may not add files to the tow-in record', async () => {
     const id = await vehicleId()
     const tech = await signedIn(app.app, staff.technician)
