@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test'
-import { dragCard } from './drag'
+import { dragCard, dragVia } from './drag'
 import { signInAs, watchConsole } from './helpers'
 
 const inColumn = (page: Page, column: string, text: string) => page.locator(`[data-column="${column}"] [data-stock]`).filter({ hasText: text })
@@ -26,6 +26,27 @@ test('a dispatcher drags a card from Arrival to Teardown, and a second board see
   await expect(inColumn(page, 'teardown', 'Orlan Sparrow')).toBeVisible()
   await watcherContext.close()
   expect(problems).toEqual([])
+})
+
+test('a card let go outside every column goes back where it was, whatever it passed over', async ({ page }) => {
+  await signInAs(page, 'dispatcher')
+  let posted = 0
+  page.on('request', (r) => r.method() === 'POST' && r.url().includes('/moves') && posted++)
+  const card = inColumn(page, 'arrival', 'Stanmore Larkin')
+  await dragVia(page, card, page.locator('[data-drop="teardown"]'), page.getByRole('heading', { level: 1 }))
+  await expect(inColumn(page, 'arrival', 'Stanmore Larkin')).toBeVisible()
+  await expect(inColumn(page, 'teardown', 'Stanmore Larkin')).toHaveCount(0)
+  expect(posted).toBe(0)
+})
+
+test("a card let go on a column's head is dropped on that column", async ({ page }) => {
+  await signInAs(page, 'dispatcher')
+  const card = inColumn(page, 'arrival', 'Halvard Ridgeback')
+  const stock = (await card.getAttribute('data-stock'))!
+  const teardownHead = page.locator('[data-column="teardown"] .board-column__head')
+  await dragVia(page, card, page.locator('[data-drop="decision"]'), teardownHead)
+  await expect(notice(page)).toContainText(`${stock} is now in Teardown.`)
+  await expect(inColumn(page, 'teardown', 'Halvard Ridgeback')).toBeVisible()
 })
 
 test('a move blocked by a police hold shows the reason and the card goes back', async ({ page }) => {
