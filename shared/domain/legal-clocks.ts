@@ -95,7 +95,7 @@ function deadline(
   let status: ClockStatus
   let statusReason: string
   if (branch.applies === 'unknown') [status, statusReason] = ['needs-information', branch.why]
-  else if (!due) [status, statusReason] = ['not-started', `Starts when ${clockEventLabels[step.from]} is recorded.`]
+  else if (!due) [status, statusReason] = ['not-started', `Starts once the record shows ${clockEventLabels[step.from]}.`]
   else [status, statusReason] = judge(step, due, done, asOfMs)
   return {
     code: step.code,

@@ -82,6 +82,16 @@ test('without a mouse: Shift+→ moves a card on, and "Move to…" lists every w
   await expect(notice(page)).toContainText('is now in Arrival.')
 })
 
+test('Shift+→ on a Release card that cannot close yet chooses nothing and shows why', async ({ page }) => {
+  await signInAs(page, 'manager')
+  await inColumn(page, 'release', 'Halvard Yardling').focus()
+  await page.keyboard.press('Shift+ArrowRight')
+  const dialog = page.getByRole('dialog')
+  await expect(dialog).toContainText('Not now:')
+  await expect(dialog.locator('input[type="radio"]:checked')).toHaveCount(0)
+  await expect(dialog.getByRole('button', { name: 'Move' })).toBeDisabled()
+})
+
 test('a board that missed a change gets a conflict and shows the card where it now is', async ({ page, browser }) => {
   // This board hears nothing live, so it still shows the card where it was.
   await page.route('**/api/board/events*', (route) => route.abort())

@@ -30,7 +30,7 @@ describe('lienSaleGate', () => {
   it('lienSaleGate_clockStartsFromANoticeNotYetMailed_isShutWithoutADate', () => {
     const g = gate(california, 2018, '2026-08-10T00:00:00Z')
     expect(g).toMatchObject({ open: false, date: null })
-    expect(g.why).toMatch(/^Starts when .* is recorded\.$/)
+    expect(g.why).toMatch(/^Starts once the record shows .*\.$/)
   })
 
   it('lienSaleGate_ruleSetWithoutASaleDate_isShut', () => {
