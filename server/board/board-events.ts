@@ -6,8 +6,7 @@ import type { BoardHub } from './board-hub'
 export interface StreamTiming {
   /** A comment line now and then keeps proxies and the browser from dropping a quiet stream. */
   heartbeatMs: number
-  /** The stream ends after this long and the browser reconnects (resuming from Last-Event-ID),
-   * so a signed-out or deactivated account stops hearing within minutes. */
+  /** The stream ends after this long and the browser reconnects (resuming from Last-Event-ID). */
   lifetimeMs: number
 }
 
@@ -38,7 +37,14 @@ export function boardEvents(db: Database, hub: BoardHub, timing: StreamTiming = 
       res.end()
     }
     const unsubscribe = hub.subscribe(yard, { send: (m) => res.write(`id: ${m.id}\ndata: ${m.data}\n\n`), end }, since)
-    const heartbeat = setInterval(() => res.write(': keep-alive\n\n'), timing.heartbeatMs)
+    // Each heartbeat also looks the session up again: signing out, a deactivation or a new role
+    // deletes the session row, and the stream ends within a heartbeat rather than at its lifetime.
+    const heartbeat = setInterval(() => {
+      res.write(': keep-alive\n\n')
+      req.sessionStore.get(req.sessionID, (err, current) => {
+        if (!err && current?.user?.id !== req.user!.id) end()
+      })
+    }, timing.heartbeatMs)
     const lifetime = setTimeout(end, timing.lifetimeMs)
     req.on('close', end)
   }

@@ -140,3 +140,37 @@ describe('GET /api/board/events', () => {
     expect(res.status).toBe(401)
   })
 })
+
+describe('GET /api/board/events for an account that is changed while it listens', () => {
+  let quick: TestApp
+  let quickServer: Awaited<ReturnType<typeof listening>>
+  beforeAll(async () => {
+    quick = await makeTestApp({ boardStream: { heartbeatMs: 50, lifetimeMs: 60_000 } })
+    quickServer = await listening(quick.app)
+  })
+  afterAll(async () => {
+    await quickServer.close()
+    await quick.close()
+  })
+
+  it('events_listenerDeactivated_streamEndsAtTheNextHeartbeat', async () => {
+    const staff = await makeStaff(quick.db)
+    const [manager, watcher] = await Promise.all([fetchSession(quickServer.url, staff.manager), fetchSession(quickServer.url, staff.office)])
+    const stream = await openStream(quickServer.url, watcher.cookie)
+    expect((await stream.first())?.retry).toBeGreaterThan(0)
+    expect((await manager.patch(`/api/users/${staff.office.id}`, { active: false })).status).toBe(200)
+    // The stream ends (no further message) instead of running on for its five-minute lifetime.
+    expect(await stream.first()).toBeNull()
+  })
+
+  it('events_listenerStillSignedIn_streamStaysOpenAcrossHeartbeats', async () => {
+    const staff = await makeStaff(quick.db)
+    const [mover, watcher] = await Promise.all([fetchSession(quickServer.url, staff.dispatcher), fetchSession(quickServer.url, staff.office)])
+    const v = await makeVehicle(quick.db, staff.yard.id)
+    const stream = await openStream(quickServer.url, watcher.cookie)
+    await new Promise((r) => setTimeout(r, 300))
+    expect((await mover.post(`/api/vehicles/${v.id}/moves`, { to: 'teardown', version: 1 })).status).toBe(200)
+    expect((await stream.next(cardEvent(v.id, 'teardown'))).body.card).toMatchObject({ id: v.id })
+    stream.close()
+  })
+})

@@ -32,6 +32,8 @@ export async function fetchSession(base: string, user: { email: string; password
     cookie,
     post: (url: string, body: unknown) =>
       fetch(`${base}${url}`, { method: 'POST', headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrf }, body: JSON.stringify(body) }),
+    patch: (url: string, body: unknown) =>
+      fetch(`${base}${url}`, { method: 'PATCH', headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrf }, body: JSON.stringify(body) }),
     get: (url: string) => fetch(`${base}${url}`, { headers: { cookie } }),
   }
 }
