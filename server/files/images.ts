@@ -1,3 +1,5 @@
+import { decodeHeic } from './heic'
+
 // sharp is loaded on first use, not at start-up.
 const loadSharp = () => import('sharp').then((m) => m.default)
 
@@ -21,10 +23,14 @@ export class UnreadableImageError extends Error {}
  * stays the right way up, and the output carries no metadata at all: GPS, camera serials and
  * editing history are dropped with the rest.
  */
-export async function reencodeImage(input: Buffer): Promise<Reencoded> {
+export async function reencodeImage(input: Buffer, format: 'heic' | 'other' = 'other'): Promise<Reencoded> {
   const sharp = await loadSharp()
   try {
-    const { data, info } = await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS })
+    const source =
+      format === 'heic'
+        ? await decodeHeic(input, MAX_INPUT_PIXELS).then((px) => sharp(px.data, { raw: { width: px.width, height: px.height, channels: 4 } }))
+        : sharp(input, { limitInputPixels: MAX_INPUT_PIXELS })
+    const { data, info } = await source
       .rotate()
       .resize({ width: MAX_SIDE, height: MAX_SIDE, fit: 'inside', withoutEnlargement: true })
       .flatten({ background: '#ffffff' })

@@ -38,13 +38,14 @@ async function prepareOne(file: Incoming, kind: FileKind, label: string | null):
       throw err
     }
   }
+  const heic = type.mime === 'image/heic' || type.mime === 'image/heif'
   try {
-    const img = await reencodeImage(file.buffer)
+    const img = await reencodeImage(file.buffer, heic ? 'heic' : 'other')
     return { kind, mime: 'image/jpeg', ext: 'jpg', data: img.data, thumb: img.thumb, width: img.width, height: img.height, sha256: sha(img.data), label }
   } catch (err) {
     if (!(err instanceof UnreadableImageError)) throw err
-    if (type.mime === 'image/heic' || type.mime === 'image/heif') {
-      return "This HEIC photo cannot be read here. On the phone, set the camera to 'Most compatible' or share the photo as JPEG, then add it again."
+    if (heic) {
+      return "This HEIC photo could not be read: it may be damaged or too large. On the phone, set the camera to 'Most compatible' or share the photo as JPEG, then add it again."
     }
     return 'The image could not be read: it may be damaged, cut short or too large to open.'
   }

@@ -110,11 +110,25 @@ describe('refused uploads leave no row and no file', () => {
     expect(body.error).toBe('cut.jpg: The image could not be read: it may be damaged, cut short or too large to open.')
   })
 
-  it('an HEIC photo the server cannot decode is refused with what to do instead', async () => {
-    // An ISO-BMFF "ftyp heic" header: sniffed as HEIC, but there is no HEVC decoder to open it.
+  it('an iPhone-style HEIC photo is decoded and kept as a JPEG of the same size', async () => {
+    // tests/fixtures/photo-640x480.heic: made with libheif's heif-enc (HEVC) from a 640×480 JPEG.
+    const heic = readFileSync(path.join(import.meta.dirname, '../fixtures/photo-640x480.heic'))
+    const res = await towInWithPhotos([{ data: heic, name: 'IMG_0042.HEIC', type: 'image/heic' }])
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    const [row] = await app.db.select().from(t.files).where(eq(t.files.vehicleId, res.body.id))
+    expect(row).toMatchObject({ mime: 'image/jpeg', width: 640, height: 480 })
+    const stored = await sharp(readFileSync(path.join(app.filesDir, row!.storageKey))).metadata()
+    expect(stored).toMatchObject({ format: 'jpeg', width: 640, height: 480 })
+    // The source had an amber (#E9A23B) block at 40-240 × 40-160 on grey: the pixels survive the trip.
+    const { data } = await sharp(readFileSync(path.join(app.filesDir, row!.storageKey))).extract({ left: 140, top: 100, width: 1, height: 1 }).raw().toBuffer({ resolveWithObject: true })
+    expect([...data].map((c, i) => Math.abs(c - [0xe9, 0xa2, 0x3b][i]!)).every((d) => d < 24)).toBe(true)
+  })
+
+  it('a damaged HEIC photo is refused with what to do instead', async () => {
+    // An ISO-BMFF "ftyp heic" header with nothing behind it: sniffed as HEIC, but it holds no image.
     const heic = Buffer.concat([Buffer.from([0, 0, 0, 24]), Buffer.from('ftypheic\0\0\0\0mif1heic'), Buffer.alloc(64)])
     const body = await refusedUpload([{ data: heic, name: 'IMG_0042.HEIC', type: 'image/heic' }], 400)
-    expect(body.error).toBe("IMG_0042.HEIC: This HEIC photo cannot be read here. On the phone, set the camera to 'Most compatible' or share the photo as JPEG, then add it again.")
+    expect(body.error).toBe("IMG_0042.HEIC: This HEIC photo could not be read: it may be damaged or too large. On the phone, set the camera to 'Most compatible' or share the photo as JPEG, then add it again.")
   })
 
   it('a valid tow-in with a refused photo writes neither the vehicle nor the good photo', async () => {
