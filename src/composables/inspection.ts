@@ -9,6 +9,20 @@ export interface Problem {
   reasons: string[]
 }
 
+/** A refusal put in the technician's words; the fields it names get their own messages beside them. */
+export function problemOf(e: unknown, inline: readonly string[] = []): Problem | null {
+  if (!(e instanceof ApiError)) return { title: 'Not saved', reasons: [(e as Error).message] }
+  // A move made against an older version: the server's words point at the board, not this page.
+  if (e.status === 409 && 'current' in e.body) {
+    return { title: 'Someone else changed this vehicle', reasons: ['Nothing was saved. The page now shows their change: check it, then tap again.'] }
+  }
+  if (e.status === 409) return { title: 'Not saved', reasons: [e.message, 'The page now shows the vehicle as it is.'] }
+  if (e.issues.length === 0) return { title: 'Not saved', reasons: [e.message] }
+  // The top-level message of a 400 names fields by their code names; each issue has its own words.
+  const elsewhere = [...new Set(e.issues.filter((i) => !inline.includes(i.path)).map((i) => i.message))]
+  return elsewhere.length ? { title: 'Not saved', reasons: elsewhere } : null
+}
+
 /**
  * The teardown page from the server, and one way to change it: each call answers with the whole
  * page, which replaces the cached one, and the board and vehicle page are told to look again.
@@ -28,7 +42,8 @@ export function useInspection(vehicleId: Ref<string>) {
     void queryClient.invalidateQueries({ queryKey: ['vehicle', vehicleId.value] })
   }
 
-  async function run(what: string, call: () => Promise<InspectionPage>): Promise<boolean> {
+  /** `inline`: the issue paths the caller shows beside their fields, so no popup covers them. */
+  async function run(what: string, call: () => Promise<InspectionPage>, inline: readonly string[] = []): Promise<boolean> {
     busy.value = what
     problem.value = null
     for (const k of Object.keys(errors)) delete errors[k]
@@ -36,9 +51,13 @@ export function useInspection(vehicleId: Ref<string>) {
       apply(await call())
       return true
     } catch (e) {
-      const issues = e instanceof ApiError ? e.issues : []
-      for (const i of issues) errors[i.path] ??= i.message
-      problem.value = { title: 'Not saved', reasons: issues.length > 1 ? issues.map((i) => i.message) : [(e as Error).message] }
+      // Someone else changed the vehicle: the page is stale (its version, its figures), so the next
+      // tap would be refused too until it is fetched again.
+      if (e instanceof ApiError && e.status === 409) {
+        await Promise.all([key.value, ['board'], ['vehicle', vehicleId.value]].map((k) => queryClient.invalidateQueries({ queryKey: k })))
+      }
+      for (const i of e instanceof ApiError ? e.issues : []) errors[i.path] ??= i.message
+      problem.value = problemOf(e, inline)
       return false
     } finally {
       busy.value = null
