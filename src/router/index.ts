@@ -29,7 +29,19 @@ export const routes: RouteRecordRaw[] = [
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
 ]
 
-export const router = createRouter({ history: createWebHistory(), routes })
+export const router = createRouter({
+  history: createWebHistory(),
+  routes,
+  // Back and forward return to where the page was; a new page opens at its top (or at its anchor,
+  // clear of the sticky top bar), not at the last page's scroll position.
+  scrollBehavior(to, from, saved) {
+    if (saved) return saved
+    if (to.hash) return { el: to.hash, top: 64 }
+    // Filters and paging written into the query keep the same page where it is.
+    if (to.path === from.path) return false
+    return { top: 0 }
+  },
+})
 
 router.beforeEach(async (to) => {
   const session = useSessionStore()
