@@ -10,6 +10,12 @@ export function localIso(d = new Date()): string {
 /** The value format of every date-and-time picker: ISO 8601 with the offset, as the schemas require. */
 export const PICKER_FORMAT = 'YYYY-MM-DDTHH:mm:ssZ'
 
+/**
+ * Lets a picker's panel slide up over its own field to stay on screen: on a phone there is room for the
+ * whole calendar, Now and OK included, but not always below or above the field.
+ */
+export const PICKER_POPPER_OPTIONS = { modifiers: [{ name: 'preventOverflow', options: { altAxis: true, tether: false, padding: 8 } }] }
+
 const formatters = new Map<string, Intl.DateTimeFormat>()
 
 /** An instant as the yard's clock shows it, e.g. "Tue 1 Dec 2026, 14:05". */

@@ -21,3 +21,12 @@ test('on a phone the dispatcher reaches the tow-in form, taps the pickup on the 
   await expect(page.getByRole('button', { name: 'Log the vehicle' })).toBeInViewport()
   expect(problems).toEqual([])
 })
+
+test('on a phone a time picker opens whole, with Now and OK on the screen', async ({ page }) => {
+  await signInAs(page, 'dispatcher')
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Log a tow-in' }).tap()
+  await page.getByLabel('Called', { exact: true }).tap()
+  const panel = page.locator('.el-picker-panel').filter({ visible: true })
+  await expect(panel.getByRole('button', { name: 'Now' })).toBeInViewport({ ratio: 1 })
+  await expect(panel.getByRole('button', { name: 'OK' })).toBeInViewport({ ratio: 1 })
+})
