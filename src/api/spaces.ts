@@ -2,6 +2,9 @@ import { z } from 'zod'
 import { spacesSchema, type AssignSpace } from '@shared/schemas/spaces'
 import { request } from './http'
 
+/** The cache key of the yard's spaces: whatever places or moves a vehicle marks it stale. */
+export const spacesKey = ['spaces'] as const
+
 export const fetchSpaces = () => request('GET', '/api/spaces', spacesSchema)
 
 export const assignSpace = (vehicleId: string, input: AssignSpace) =>
