@@ -30,6 +30,12 @@ export function zodIssues(err: ZodError): Issue[] {
   return err.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: i.message }))
 }
 
+/** The refusal in words for a person: each issue's own message, not the field paths a program reads in `issues`. */
+export function summaryOf(issues: Issue[]): string {
+  if (issues.length === 1) return issues[0]!.message
+  return `${issues.length} things to fix. First: ${issues[0]!.message}`
+}
+
 export const notFoundHandler: RequestHandler = (req, res) => {
   res.status(404).json({ error: `No such route: ${req.method} ${req.path}` })
 }
@@ -46,7 +52,7 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
     if (res.headersSent) return
     if (err instanceof ZodError) {
       const issues = zodIssues(err)
-      res.status(400).json({ error: `Please check ${issues.map((i) => i.path).join(', ')}.`, issues })
+      res.status(400).json({ error: summaryOf(issues), issues })
       return
     }
     // A computation refused its input: the person gets the core's own words, pointed at the field.

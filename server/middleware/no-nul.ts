@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express'
-import { badRequest, type Issue } from '../errors'
+import { badRequest, summaryOf, type Issue } from '../errors'
 
 const MESSAGE = 'Contains a NUL character (\\u0000), which cannot be stored. Remove it and try again.'
 const MAX_DEPTH = 20
@@ -24,5 +24,5 @@ export const refuseNulCharacters: RequestHandler = (req, _res, next) => {
   const found: Issue[] = []
   findNul(req.query, [], found)
   findNul(req.body, [], found)
-  next(found.length > 0 ? badRequest(`Please check ${found[0]!.path}.`, found) : undefined)
+  next(found.length > 0 ? badRequest(summaryOf(found), found) : undefined)
 }
