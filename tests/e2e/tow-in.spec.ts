@@ -1,17 +1,9 @@
-import { expect, test, type Page } from '@playwright/test'
+import { expect, test } from '@playwright/test'
 import sharp from 'sharp'
-import { signInAs, watchConsole } from './helpers'
-
-// 49 CFR 565's own sample VIN: check digit 4, model year 2005.
-const VIN = '1G4AH59H45G118341'
+import { watchConsole } from './helpers'
+import { fillTheMinimum, openForm, VIN } from './tow-in-form'
 
 const jpeg = (colour: string) => sharp({ create: { width: 640, height: 480, channels: 3, background: colour } }).jpeg().toBuffer()
-
-async function openForm(page: Page) {
-  await signInAs(page, 'dispatcher')
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Log a tow-in' }).click()
-  await expect(page.getByRole('heading', { name: 'Log a tow-in' })).toBeVisible()
-}
 
 test('a dispatcher logs a tow-in with a map pin and two photos, finds it on the board and sees its history', async ({ page }) => {
   // The whole intake, save and board round trip in one test: give it more than the default time.
@@ -91,9 +83,62 @@ test('the address search places the pin and the top-bar search finds a vehicle b
   await page.getByRole('option', { name: /Sunridge Plaza, 300 Harrow Way/ }).click()
   await expect(page.getByLabel('Pickup address as you would tell the driver')).toHaveValue('Sunridge Plaza, 300 Harrow Way, Orrin Flats')
   await expect(page.getByLabel('Latitude')).toHaveValue('36.418800')
+  // Coordinates typed by hand move the pin somewhere else: the searched place no longer describes it.
+  await page.getByLabel('Latitude').fill('36.4109')
+  await page.getByLabel('Longitude').fill('-119.3455')
+  await expect(page.getByLabel('Pickup address as you would tell the driver')).not.toHaveValue(/Sunridge Plaza/)
 
   await page.getByRole('textbox', { name: /Find a vehicle/ }).fill('7KQM214')
   await page.getByRole('option', { name: /Orlan Sparrow/ }).click()
+  await page.getByRole('dialog', { name: 'Leave this tow-in?' }).getByRole('button', { name: 'Leave without saving' }).click()
   await expect(page.getByTestId('stock-number')).toHaveText(/^TC-\d{4}-\d{5}$/)
   await expect(page.getByText('7KQM214').first()).toBeVisible()
+})
+
+test('road miles to the tenth are saved, the toast is styled and the vehicle page opens at its top', async ({ page }) => {
+  await openForm(page)
+  await fillTheMinimum(page)
+  await page.getByLabel('Road miles from the driver (leave empty to use the pin)').fill('12.3')
+  await page.getByRole('button', { name: 'Log the vehicle' }).click()
+  await expect(page).toHaveURL(/\/vehicles\/[0-9a-f-]{36}$/)
+  // Its own stylesheet places the message over the page; unstyled it would sit in the page's flow.
+  await expect(page.locator('.el-message').filter({ hasText: 'It is in Arrival on the board.' })).toHaveCSS('position', 'fixed')
+  await expect(page.getByText(/^12\.3 road miles/).first()).toBeVisible()
+  expect(await page.evaluate(() => window.scrollY)).toBe(0)
+})
+
+test('a space taken while the form was open is refused beside the field and shown as taken at once', async ({ page }) => {
+  await openForm(page)
+  await fillTheMinimum(page)
+  const { label, spaceId, occupantId } = await page.evaluate(async () => {
+    const { spaces } = (await (await fetch('/api/spaces')).json()) as { spaces: { id: string; label: string; size: string; occupant: { id: string } | null }[] }
+    const free = spaces.find((s) => s.size === 'standard' && !s.occupant)!
+    return { label: free.label, spaceId: free.id, occupantId: spaces.find((s) => s.occupant)!.occupant!.id }
+  })
+  await page.getByRole('combobox', { name: 'Yard space' }).click()
+  await page.keyboard.type(label)
+  const option = page.locator('.el-select-dropdown__item').filter({ hasText: new RegExp(`^${label}(?!\\d)`) })
+  await option.click()
+
+  // Another dispatcher moves a vehicle into that space first.
+  const moved = await page.evaluate(
+    async ({ spaceId, occupantId }) => {
+      const { csrfToken } = (await (await fetch('/api/session')).json()) as { csrfToken: string }
+      const { vehicle } = (await (await fetch(`/api/vehicles/${occupantId}`)).json()) as { vehicle: { version: number } }
+      const res = await fetch(`/api/vehicles/${occupantId}/space`, {
+        method: 'PUT',
+        headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken },
+        body: JSON.stringify({ version: vehicle.version, spaceId }),
+      })
+      return res.status
+    },
+    { spaceId, occupantId },
+  )
+  expect(moved).toBe(200)
+
+  await page.getByRole('button', { name: 'Log the vehicle' }).click()
+  await expect(page.locator('.el-form-item.is-error').filter({ hasText: 'Yard space' })).toContainText(`Space ${label} already holds`)
+  await expect(page).toHaveURL(/\/tow-in$/)
+  await page.getByRole('combobox', { name: 'Yard space' }).click()
+  await expect(option).toContainText('taken by')
 })
