@@ -5,6 +5,10 @@ import App from './App.vue'
 import { queryClient } from './api/query-client'
 import { router } from './router'
 import 'element-plus/theme-chalk/base.css'
+// The resolver styles only the components a template names; these are called from code (ElMessage,
+// ElMessageBox), so their styles are loaded here, once for every view.
+import 'element-plus/es/components/message/style/css'
+import 'element-plus/es/components/message-box/style/css'
 import './assets/theme.css'
 
 createApp(App)

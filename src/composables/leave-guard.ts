@@ -1,4 +1,3 @@
-import 'element-plus/es/components/message-box/style/css'
 import { ElMessageBox } from 'element-plus'
 import { onBeforeUnmount, onMounted } from 'vue'
 import { onBeforeRouteLeave } from 'vue-router'
