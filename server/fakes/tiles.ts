@@ -1,5 +1,4 @@
-// sharp is loaded on first use, not at start-up.
-const loadSharp = () => import('sharp').then((m) => m.default)
+import { loadSharp } from '../files/images'
 import { STREETS, type Point } from './orrin-flats'
 
 const SIZE = 256

@@ -1,7 +1,7 @@
 import { decodeHeic } from './heic'
 
-// sharp is loaded on first use, not at start-up.
-const loadSharp = () => import('sharp').then((m) => m.default)
+/** sharp, loaded on first use rather than at start-up; the fake tile server draws with it too. */
+export const loadSharp = () => import('sharp').then((m) => m.default)
 
 /** The longest side kept: enough to read a VIN plate or a scratch, without phone-size originals. */
 const MAX_SIDE = 3200
