@@ -67,39 +67,27 @@ describe('rule sets and quotes API', () => {
     expect(res.body.issues.map((i: { path: string }) => i.path)).toContain('stay.arrivedAt')
   })
 
-  // Fla. Stat. 713.78 [S]: notice of lien within 7 business days of storage. Stored Wed 1 Jul 2026;
-  // Fri 3 Jul 2026 is the observed Independence Day (5 U.S.C. 6103, OPM weekend rule), so the seventh
-  // business day is Mon 13 Jul 2026 [C].
-  it('POST /api/quotes/clocks skips the observed Independence Day in Florida business days', async () => {
+  // Fla. Stat. 713.78 [S]: notice of lien within 7 business days of storage. Observed holidays by
+  // 5 U.S.C. 6103 and OPM's weekend rule [C]:
+  // - stored Wed 1 Jul 2026; Independence Day (Sat 4 Jul) is observed Fri 3 Jul → due Mon 13 Jul 2026;
+  // - stored Wed 1 Nov 2028; Veterans Day (Sat 11 Nov) is observed Fri 10 Nov → due Mon 13 Nov 2028.
+  //   date-holidays types that substitute as a bank holiday, not a public one.
+  it.each([
+    { holiday: 'Independence Day', stored: '2026-07-01T10:00:00-04:00', observed: '2026-07-03', due: '2026-07-13' },
+    { holiday: 'Veterans Day', stored: '2028-11-01T10:00:00-04:00', observed: '2028-11-10', due: '2028-11-13' },
+  ])('POST /api/quotes/clocks skips the observed $holiday in Florida business days', async ({ stored, observed, due }) => {
     const staff = await makeStaff(t.db)
     const s = await signedIn(t.app, staff.office)
     const res = await s.post('/api/quotes/clocks', {
       ruleSetId: 'florida-sample',
       vehicle: { modelYear: 2015 },
-      events: [{ kind: 'stored', at: '2026-07-01T10:00:00-04:00' }],
-      asOf: '2026-07-02T10:00:00-04:00',
+      events: [{ kind: 'stored', at: stored }],
+      asOf: new Date(Date.parse(stored) + 86_400_000).toISOString(),
     })
     expect(res.status).toBe(200)
     const notice = res.body.clocks.deadlines.find((d: { code: string }) => d.code === 'notice-of-lien')
-    expect(notice.dueDate).toBe('2026-07-13')
-    expect(notice.holidaysSkipped.map((h: { date: string }) => h.date)).toContain('2026-07-03')
-  })
-
-  // Same rule; stored Wed 1 Nov 2028. Veterans Day falls on Sat 11 Nov 2028 and is observed Fri 10 Nov
-  // (5 U.S.C. 6103(b), OPM weekend rule), so the seventh business day is Mon 13 Nov 2028 [C].
-  it('POST /api/quotes/clocks skips the observed Veterans Day, which date-holidays types as a bank holiday', async () => {
-    const staff = await makeStaff(t.db)
-    const s = await signedIn(t.app, staff.office)
-    const res = await s.post('/api/quotes/clocks', {
-      ruleSetId: 'florida-sample',
-      vehicle: { modelYear: 2015 },
-      events: [{ kind: 'stored', at: '2028-11-01T10:00:00-04:00' }],
-      asOf: '2028-11-02T10:00:00-04:00',
-    })
-    expect(res.status).toBe(200)
-    const notice = res.body.clocks.deadlines.find((d: { code: string }) => d.code === 'notice-of-lien')
-    expect(notice.dueDate).toBe('2028-11-13')
-    expect(notice.holidaysSkipped.map((h: { date: string }) => h.date)).toContain('2028-11-10')
+    expect(notice.dueDate).toBe(due)
+    expect(notice.holidaysSkipped.map((h: { date: string }) => h.date)).toContain(observed)
   })
 
   // The federal template's calendar, on weekdays, is exactly the days federal holidays are observed on
