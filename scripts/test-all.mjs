@@ -4,6 +4,7 @@ import { execSync } from 'node:child_process'
 const steps = [
   ['Debian packages', 'node scripts/ensure-debian-packages.mjs'],
   ['typecheck', 'npm run typecheck'],
+  ['lint and import rules', 'npm run lint'],
   ['unit and reference tests', 'npx vitest run --project unit --project reference'],
   ['API tests', 'npx vitest run --project api'],
   ['build', 'npm run build'],

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express'
 import { match } from 'path-to-regexp'
-import { can, type Permission } from '../shared/domain/permissions'
+import { can, type Permission } from '@shared/domain/access'
 import { badRequest, forbidden, unauthorized } from './errors'
 
 type Rule = 'public' | 'staff' | Permission
@@ -24,8 +24,8 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/yards/current': 'board.view',
   'GET /api/board': 'board.view',
   'GET /api/board/events': 'board.view',
-  // Which moves a role may make is the lifecycle's to say (shared/domain/lifecycle.ts), per move.
-  'POST /api/vehicles/:id/moves': 'board.view',
+  // Which moves a role may make is the lifecycle's to say (shared/domain/lifecycle/lifecycle.ts), per move.
+  'POST /api/vehicles/:vehicleId/moves': 'board.view',
   'GET /api/vehicles/closed': 'board.view',
 
   'GET /api/rule-sets': 'board.view',
@@ -38,21 +38,21 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/vehicles/intake-options': 'towin.write',
   'GET /api/vehicles/search': 'board.view',
   'POST /api/vehicles': 'towin.write',
-  'GET /api/vehicles/:id': 'board.view',
-  'PATCH /api/vehicles/:id': 'towin.write',
-  'GET /api/vehicles/:id/history': 'board.view',
-  'GET /api/vehicles/:id/history/verify': 'board.view',
-  'GET /api/vehicles/:id/inspection': 'board.view',
-  'POST /api/vehicles/:id/inspection': 'inspection.write',
-  'POST /api/vehicles/:id/inspection/safety': 'inspection.write',
-  'PUT /api/vehicles/:id/inspection/items/:code': 'inspection.write',
-  'POST /api/vehicles/:id/inspection/items/:code/photos': 'inspection.write',
-  'POST /api/vehicles/:id/inspection/lines': 'inspection.write',
-  'PUT /api/vehicles/:id/inspection/lines/:lineId': 'inspection.write',
-  'DELETE /api/vehicles/:id/inspection/lines/:lineId': 'inspection.write',
-  'PUT /api/vehicles/:id/inspection/values': 'inspection.values',
-  'PATCH /api/vehicles/:id/inspection/roll-ability': 'inspection.write',
-  'POST /api/vehicles/:id/inspection/finish': 'inspection.write',
+  'GET /api/vehicles/:vehicleId': 'board.view',
+  'PATCH /api/vehicles/:vehicleId': 'towin.write',
+  'GET /api/vehicles/:vehicleId/history': 'board.view',
+  'GET /api/vehicles/:vehicleId/history/verify': 'board.view',
+  'GET /api/vehicles/:vehicleId/inspection': 'board.view',
+  'POST /api/vehicles/:vehicleId/inspection': 'inspection.write',
+  'POST /api/vehicles/:vehicleId/inspection/safety': 'inspection.write',
+  'PUT /api/vehicles/:vehicleId/inspection/items/:code': 'inspection.write',
+  'POST /api/vehicles/:vehicleId/inspection/items/:code/photos': 'inspection.write',
+  'POST /api/vehicles/:vehicleId/inspection/lines': 'inspection.write',
+  'PUT /api/vehicles/:vehicleId/inspection/lines/:lineId': 'inspection.write',
+  'DELETE /api/vehicles/:vehicleId/inspection/lines/:lineId': 'inspection.write',
+  'PUT /api/vehicles/:vehicleId/inspection/values': 'inspection.values',
+  'PATCH /api/vehicles/:vehicleId/inspection/roll-ability': 'inspection.write',
+  'POST /api/vehicles/:vehicleId/inspection/finish': 'inspection.write',
   'POST /api/vehicles/:vehicleId/holds': 'towin.write',
   'POST /api/vehicles/:vehicleId/holds/:holdId/lift': 'towin.write',
   'PUT /api/vehicles/:vehicleId/space': 'towin.write',

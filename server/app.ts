@@ -4,25 +4,21 @@ import { pinoHttp } from 'pino-http'
 import type { Logger } from 'pino'
 import path from 'node:path'
 import { existsSync } from 'node:fs'
-import type { Database } from '../db/client'
+import type { Database } from '@db/client'
 import { enforceAccess } from './access'
 import { archiveRouter } from './archive/index'
-import { BoardHub, boardRouter, movesRouter } from './board/index'
-import type { StreamTiming } from './board/board-events'
+import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
 import { errorHandler, notFoundHandler } from './errors'
-import { fakesRouter } from './fakes/fakes.routes'
+import { fakesRouter } from './fakes/index'
 import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
 import { holdsRouter } from './holds/index'
 import { inspectionsRouter } from './inspections/index'
 import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
-import { quotesRouter } from './quotes/quotes.routes'
-import { ruleSetsRouter } from './rule-sets/rule-sets.routes'
-import { healthRouter } from './health/health.routes'
+import { quotesRouter } from './quotes/index'
+import { ruleSetsRouter } from './rule-sets/index'
+import { healthRouter } from './health/index'
 import { memoryBus, registerBoardNotifier, type LiveBus } from './live/index'
-import { csrfProtection } from './middleware/csrf'
-import { currentUser } from './middleware/current-user'
-import { refuseNulCharacters } from './middleware/no-nul'
-import { sessionMiddleware } from './middleware/session'
+import { csrfProtection, currentUser, refuseNulCharacters, sessionMiddleware } from './middleware/index'
 import { sessionRouter, type SignInLimits } from './session/index'
 import { spacesRouter, vehicleSpaceRouter } from './spaces/index'
 import { usersRouter } from './users/index'
@@ -97,8 +93,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/board', boardRouter(db, hub, deps.boardStream))
   // Before any /api/vehicles/:id router, so that "closed" is never read as a vehicle id.
   app.use('/api/vehicles/closed', archiveRouter(db))
-  app.use('/api/vehicles/:id/moves', movesRouter(db))
-  app.use('/api/vehicles/:id/inspection', inspectionsRouter(db, files))
+  app.use('/api/vehicles/:vehicleId/moves', movesRouter(db))
+  app.use('/api/vehicles/:vehicleId/inspection', inspectionsRouter(db, files))
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(db))

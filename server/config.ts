@@ -1,6 +1,6 @@
 import path from 'node:path'
 import { z } from 'zod'
-import { LOCAL_MAP, type MapConfig } from './map/map-config'
+import { LOCAL_MAP, type MapConfig } from './map/index'
 
 const flag = z
   .enum(['0', '1', 'true', 'false', 'yes', 'no'])

@@ -1,6 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
-import { DomainError } from '../shared/domain/errors'
+import { DomainError } from '@shared/domain/errors'
 
 export interface Issue {
   path: string

@@ -1,12 +1,11 @@
 import { pino } from 'pino'
-import { openDatabase, DataDirLockedError, type DatabaseHandle } from '../db/client'
-import { loadDemoIfEmpty } from '../db/seed'
+import { openDatabase, DataDirLockedError, type DatabaseHandle } from '@db/client'
+import { loadDemoIfEmpty } from './demo/index'
 import { createApp } from './app'
 import { localFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
-import { pruneExpiredSessions } from './session/index'
-import { sessionSecret } from './session/secret'
+import { pruneExpiredSessions, sessionSecret } from './session/index'
 import { appVersion } from './version'
 
 const started = performance.now()

@@ -1,4 +1,4 @@
-import type { User } from '../shared/schemas/users'
+import type { User } from '@shared/schemas/users'
 
 declare module 'express-session' {
   interface SessionData {

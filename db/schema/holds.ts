@@ -1,5 +1,5 @@
 import { index, pgTable, text, uuid } from 'drizzle-orm/pg-core'
-import { HOLD_KINDS } from '../../shared/domain/hold-kinds'
+import { HOLD_KINDS } from '@shared/domain/lifecycle'
 import { users } from './users'
 import { vehicles } from './vehicles'
 import { at, createdAt, id } from './columns'

@@ -1,7 +1,6 @@
 import { sql } from 'drizzle-orm'
 import { boolean, check, index, integer, pgTable, primaryKey, text, unique, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import { FINDING_STATUSES } from '../../shared/domain/inspection-checklist'
-import { LIMITS } from '../../shared/domain/inspection-estimate'
+import { FINDING_STATUSES, LIMITS } from '@shared/domain/inspection'
 import { files } from './files'
 import { users } from './users'
 import { vehicles } from './vehicles'

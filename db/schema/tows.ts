@@ -1,5 +1,5 @@
 import { boolean, doublePrecision, integer, jsonb, pgTable, text, uuid } from 'drizzle-orm/pg-core'
-import { TOW_REASONS } from '../../shared/domain/tow-reasons'
+import { TOW_REASONS } from '@shared/domain/tow'
 import { vehicles } from './vehicles'
 import { at, createdAt, id } from './columns'
 

@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm'
 import { boolean, index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import { ROLES } from '../../shared/domain/roles'
+import { ROLES } from '@shared/domain/access'
 import { companies } from './companies'
 import { at, createdAt, id } from './columns'
 

@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm'
 import { boolean, check, index, integer, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import { DISPOSITIONS, VEHICLE_STATES } from '../../shared/domain/columns'
+import { DISPOSITIONS, VEHICLE_STATES } from '@shared/domain/lifecycle'
 import { users } from './users'
 import { yardSpaces, yards } from './yards'
 import { at, createdAt, id } from './columns'

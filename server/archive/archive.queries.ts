@@ -1,8 +1,8 @@
 import { and, count, desc, eq, ilike, or, sql } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { vehicles } from '../../db/schema/index'
-import type { Disposition } from '../../shared/domain/columns'
-import { identityColumns } from '../board/board.queries'
+import type { Executor } from '@db/client'
+import { vehicles } from '@db/schema'
+import type { Disposition } from '@shared/domain/lifecycle'
+import { identityColumns } from '../board/index'
 
 export interface ArchiveFilter {
   yardId: string

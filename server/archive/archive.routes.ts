@@ -1,7 +1,7 @@
 import { Router } from 'express'
-import type { Database } from '../../db/client'
-import { archiveQuerySchema, type ArchivePage } from '../../shared/schemas/archive'
-import { boardYardOf } from '../board/board-cards'
+import type { Database } from '@db/client'
+import { archiveQuerySchema, type ArchivePage } from '@shared/schemas/archive'
+import { boardYardOf } from '../board/index'
 import { closedVehicles, countClosed } from './archive.queries'
 
 /** Mounted at /api/vehicles/closed: closed vehicles stay findable with how they left. */

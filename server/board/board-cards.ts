@@ -1,10 +1,10 @@
-import type { Executor } from '../../db/client'
-import { pickupBadge } from '../../shared/domain/pickup-badge'
-import type { BoardCard } from '../../shared/schemas/board'
-import type { VehicleSummary } from '../../shared/schemas/charges'
+import type { Executor } from '@db/client'
+import { pickupBadge } from '@shared/domain/inspection'
+import type { BoardCard } from '@shared/schemas/board'
+import type { VehicleSummary } from '@shared/schemas/charges'
 import { summarizeVehicles, type YardForCharges } from '../charges/index'
 import { notFound } from '../errors'
-import { yardOfUser } from '../yards/yards.queries'
+import { yardOfUser } from '../yards/index'
 import { activeHolds, activeInYard, cardRows, oneInYard, type CardRow } from './board.queries'
 
 export interface BoardYard extends YardForCharges {

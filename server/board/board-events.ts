@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express'
-import type { Database } from '../../db/client'
+import type { Database } from '@db/client'
 import { boardYardOf } from './board-cards'
 import type { BoardHub } from './board-hub'
 

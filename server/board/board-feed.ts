@@ -1,4 +1,4 @@
-import type { BoardEvent } from '../../shared/schemas/board'
+import type { BoardEvent } from '@shared/schemas/board'
 
 export interface FeedMessage {
   id: string

@@ -1,7 +1,7 @@
 import { promisify } from 'node:util'
 import { gzip } from 'node:zlib'
-import { BOARD_COLUMNS, type BoardColumn } from '../../shared/domain/columns'
-import type { BoardCard } from '../../shared/schemas/board'
+import { BOARD_COLUMNS, type BoardColumn } from '@shared/domain/lifecycle'
+import type { BoardCard } from '@shared/schemas/board'
 import type { BoardYard } from './board-cards'
 
 const gzipAsync = promisify(gzip)

@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { files, holds, tows, vehicles, yardSpaces } from '../../db/schema/index'
-import { BOARD_COLUMNS } from '../../shared/domain/columns'
+import type { Executor } from '@db/client'
+import { files, holds, tows, vehicles, yardSpaces } from '@db/schema'
+import { BOARD_COLUMNS } from '@shared/domain/lifecycle'
 
 
 /** The columns behind shared/schemas/board.ts vehicleIdentityShape. */

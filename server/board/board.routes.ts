@@ -1,5 +1,5 @@
 import { Router } from 'express'
-import type { Database } from '../../db/client'
+import type { Database } from '@db/client'
 import { boardYardOf } from './board-cards'
 import { boardEvents, type StreamTiming } from './board-events'
 import type { BoardHub } from './board-hub'

@@ -1,3 +1,6 @@
 export { boardRouter } from './board.routes'
 export { BoardHub } from './board-hub'
 export { movesRouter } from './moves.routes'
+export type { StreamTiming } from './board-events'
+export { identityColumns } from './board.queries'
+export { boardYardOf } from './board-cards'

@@ -1,11 +1,11 @@
 import { inArray } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { tows } from '../../db/schema/index'
-import type { VehicleSummary } from '../../shared/schemas/charges'
-import type { RuleSet } from '../../shared/schemas/rule-sets'
-import { DomainError } from '../../shared/domain/errors'
-import { holidayCalendar } from '../holidays/holiday-calendar'
-import { latestVersionOf, versionsById } from '../rule-sets/rule-sets.queries'
+import type { Executor } from '@db/client'
+import { tows } from '@db/schema'
+import type { VehicleSummary } from '@shared/schemas/charges'
+import type { RuleSet } from '@shared/schemas/rule-sets'
+import { DomainError } from '@shared/domain/errors'
+import { holidayCalendar } from '../holidays/index'
+import { latestVersionOf, versionsById } from '../rule-sets/index'
 import { summarizeVehicle } from './vehicle-summary'
 
 export interface SummarizedVehicle {

@@ -1,12 +1,8 @@
-import { dayFromIsoDate } from '../../shared/domain/calendar-dates'
-import type { ClockEvent, Deadline } from '../../shared/domain/legal-clocks'
-import { legalClocks } from '../../shared/domain/legal-clocks'
-import { lienSaleGate } from '../../shared/domain/lien-sale-gate'
-import type { HolidayCalendar } from '../../shared/domain/holidays'
-import { localDay } from '../../shared/domain/local-time'
-import { storageBill } from '../../shared/domain/storage-bill'
-import type { NextDeadline, VehicleSummary } from '../../shared/schemas/charges'
-import type { RuleSet } from '../../shared/schemas/rule-sets'
+import { dayFromIsoDate, type HolidayCalendar, localDay } from '@shared/domain/time'
+import { type ClockEvent, type Deadline, legalClocks, lienSaleGate } from '@shared/domain/clocks'
+import { storageBill } from '@shared/domain/billing'
+import type { NextDeadline, VehicleSummary } from '@shared/schemas/charges'
+import type { RuleSet } from '@shared/schemas/rule-sets'
 
 export interface SummaryInput {
   arrivedAt: Date

@@ -1,4 +1,4 @@
-import { loadDemoIfEmpty } from '../../db/seed'
+import { loadDemoIfEmpty } from '../demo/index'
 import { withDatabase } from './open'
 
 await withDatabase(async ({ db }) => {

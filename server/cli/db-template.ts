@@ -3,7 +3,7 @@
 import { writeFileSync } from 'node:fs'
 import path from 'node:path'
 import type { PGlite } from '@electric-sql/pglite'
-import { openDatabase } from '../../db/client'
+import { openDatabase } from '@db/client'
 
 const out = path.resolve(process.argv[2] ?? 'dist/db-template.tar.gz')
 const handle = await openDatabase({ kind: 'memory' })

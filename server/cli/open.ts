@@ -1,4 +1,4 @@
-import { openDatabase, type DatabaseHandle } from '../../db/client'
+import { openDatabase, type DatabaseHandle } from '@db/client'
 import { loadConfig } from '../config'
 
 /** Opens and migrates the configured database for a one-off command, and closes it afterwards. */

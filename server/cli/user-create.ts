@@ -1,12 +1,11 @@
 import { parseArgs } from 'node:util'
 import { createInterface } from 'node:readline/promises'
 import { count } from 'drizzle-orm'
-import { companies, yards } from '../../db/schema/index'
-import { createUserSchema } from '../../shared/schemas/users'
-import { yardSetupSchema } from '../../shared/schemas/yards'
-import { createYard } from '../yards/yards.service'
-import { hashPassword } from '../users/passwords'
-import { findUserByEmail, insertUser } from '../users/users.queries'
+import { companies, yards } from '@db/schema'
+import { createUserSchema } from '@shared/schemas/users'
+import { yardSetupSchema } from '@shared/schemas/yards'
+import { createYard } from '../yards/index'
+import { findUserByEmail, hashPassword, insertUser } from '../users/index'
 import { fail, withDatabase } from './open'
 
 const { values } = parseArgs({

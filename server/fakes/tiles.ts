@@ -1,4 +1,4 @@
-import { loadSharp } from '../files/images'
+import { loadSharp } from '../files/index'
 import { STREETS, type Point } from './orrin-flats'
 
 const SIZE = 256

@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { files, users, vehicles, yards } from '../../db/schema/index'
-import type { FileRecord } from '../../shared/schemas/files'
+import type { Executor } from '@db/client'
+import { files, users, vehicles, yards } from '@db/schema'
+import type { FileRecord } from '@shared/schemas/files'
 
 function toRecord(r: { file: typeof files.$inferSelect; uploadedBy: string | null }): FileRecord {
   const f = r.file

@@ -1,21 +1,21 @@
 import { Router, type Request, type Response } from 'express'
 import { z } from 'zod'
-import type { Database } from '../../db/client'
-import { uploadFieldsSchema } from '../../shared/schemas/files'
+import type { Database } from '@db/client'
+import { vehicleParamsSchema } from '@shared/schemas/vehicles'
+import { uploadFieldsSchema } from '@shared/schemas/files'
 import { notFound } from '../errors'
 import { FileMissingError, type FileStore } from './file-store'
 import { fileForUser, filesOf } from './files.queries'
 import { addFiles } from './files.service'
 import { receiveFiles } from './upload'
 
-const vehicleParam = z.object({ vehicleId: z.uuid({ error: 'That is not a vehicle id.' }) })
 const fileParam = z.object({ id: z.uuid({ error: 'That is not a file id.' }) })
 
 /** POST /api/vehicles/:vehicleId/files — photos, IDs and papers added to a vehicle's record. */
 export function vehicleFilesRouter(db: Database, store: FileStore): Router {
   const router = Router({ mergeParams: true })
   router.post('/', receiveFiles('files'), async (req, res) => {
-    const { vehicleId } = vehicleParam.parse(req.params)
+    const { vehicleId } = vehicleParamsSchema.parse(req.params)
     const { kind, label } = uploadFieldsSchema.parse(req.body ?? {})
     const incoming = (req.files as Express.Multer.File[] | undefined) ?? []
     const ids = await addFiles(db, store, req.user!, vehicleId, incoming, kind, label)

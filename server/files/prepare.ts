@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto'
-import type { FileKind } from '../../shared/schemas/files'
+import type { FileKind } from '@shared/schemas/files'
 import { badRequest, type Issue } from '../errors'
 import { reencodeImage, UnreadableImageError } from './images'
 import { cleanPdf, UnreadablePdfError } from './pdfs'

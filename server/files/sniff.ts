@@ -1,5 +1,5 @@
 import { fileTypeFromBuffer } from 'file-type'
-import { ACCEPTED_TYPES, MAX_FILE_BYTES, type FileKind } from '../../shared/schemas/files'
+import { ACCEPTED_TYPES, MAX_FILE_BYTES, type FileKind } from '@shared/schemas/files'
 
 export type Sniffed = { ok: true; mime: string } | { ok: false; message: string }
 

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express'
 import multer from 'multer'
-import { MAX_FILE_BYTES, MAX_FILES_PER_REQUEST } from '../../shared/schemas/files'
+import { MAX_FILE_BYTES, MAX_FILES_PER_REQUEST } from '@shared/schemas/files'
 import { AppError } from '../errors'
 
 const MB = MAX_FILE_BYTES / 1024 / 1024

@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm'
 import { Router } from 'express'
-import type { Database } from '../../db/client'
+import type { Database } from '@db/client'
 
 export function healthRouter(db: Database, version: string): Router {
   const router = Router()

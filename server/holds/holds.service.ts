@@ -1,12 +1,12 @@
 import { and, eq } from 'drizzle-orm'
-import type { Database } from '../../db/client'
-import { appendHistory } from '../../db/history'
-import { holds } from '../../db/schema/index'
-import type { Hold, LiftHold } from '../../shared/schemas/holds'
-import type { User } from '../../shared/schemas/users'
+import type { Database } from '@db/client'
+import { appendHistory } from '@db/history'
+import { holds } from '@db/schema'
+import type { Hold, LiftHold } from '@shared/schemas/holds'
+import type { User } from '@shared/schemas/users'
 import { conflict, notFound } from '../errors'
 import { boardChanged } from '../live/index'
-import { bumpVersion, vehicleForUser } from '../vehicles/vehicles.queries'
+import { bumpVersion, vehicleForUser } from '../vehicles/index'
 
 /**
  * Holds are added and lifted, never edited or removed: a lifted hold keeps who lifted it and why.

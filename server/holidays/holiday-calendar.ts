@@ -1,7 +1,6 @@
 import { createRequire } from 'node:module'
 import type HolidaysType from 'date-holidays'
-import { civilFromDay } from '../../shared/domain/calendar-dates'
-import { holidayCalendarFromList, type DatedHoliday, type Holiday, type HolidayCalendar } from '../../shared/domain/holidays'
+import { civilFromDay, type DatedHoliday, type Holiday, type HolidayCalendar, holidayCalendarFromList } from '@shared/domain/time'
 
 export interface CalendarKey {
   country: string

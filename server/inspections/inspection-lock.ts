@@ -1,8 +1,8 @@
 import { eq, sql } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { vehicles } from '../../db/schema/index'
+import type { Executor } from '@db/client'
+import { vehicles } from '@db/schema'
 import { conflict } from '../errors'
-import { vehicleForUser, type VehicleRow } from '../vehicles/vehicles.queries'
+import { vehicleForUser, type VehicleRow } from '../vehicles/index'
 import { latestInspection, type InspectionRow } from './inspections.queries'
 
 export interface Locked {

@@ -1,9 +1,9 @@
 import { asc, desc, eq, inArray } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { inspectionItems, inspectionLines, inspectionPhotos, inspections, users } from '../../db/schema/index'
-import { hundredthsToHours, lineCents } from '../../shared/domain/inspection-estimate'
-import type { LineView } from '../../shared/schemas/inspections'
-import { filesOf } from '../files/files.queries'
+import type { Executor } from '@db/client'
+import { inspectionItems, inspectionLines, inspectionPhotos, inspections, users } from '@db/schema'
+import { hundredthsToHours, lineCents } from '@shared/domain/inspection'
+import type { LineView } from '@shared/schemas/inspections'
+import { filesOf } from '../files/index'
 
 export type InspectionRow = typeof inspections.$inferSelect
 export type LineRow = typeof inspectionLines.$inferSelect

@@ -1,72 +1,71 @@
 import { Router, type Request } from 'express'
 import { z } from 'zod'
-import type { Database } from '../../db/client'
-import { estimateLineSchema, itemCodeSchema, itemFindingSchema, rollAbilitySchema, valuesSchema } from '../../shared/schemas/inspections'
-import type { FileStore } from '../files/file-store'
-import { receiveFiles } from '../files/upload'
+import type { Database } from '@db/client'
+import { vehicleParamsSchema } from '@shared/schemas/vehicles'
+import { estimateLineSchema, itemCodeSchema, itemFindingSchema, rollAbilitySchema, valuesSchema } from '@shared/schemas/inspections'
+import { type FileStore, receiveFiles } from '../files/index'
 import { addLine, changeLine, removeLine, setValues } from './estimate.service'
 import { addItemPhotos, setFinding } from './findings.service'
 import { inspectionPage } from './inspection-page'
 import { acknowledgeSafety, finishInspection, startInspection } from './inspections.service'
 import { markRollAbility } from './roll-ability.service'
 
-const vehicleParam = z.object({ id: z.uuid({ error: 'That is not a vehicle id.' }) })
-const itemParam = vehicleParam.extend({ code: itemCodeSchema })
-const lineParam = vehicleParam.extend({ lineId: z.uuid({ error: 'That is not an estimate line id.' }) })
+const itemParam = vehicleParamsSchema.extend({ code: itemCodeSchema })
+const lineParam = vehicleParamsSchema.extend({ lineId: z.uuid({ error: 'That is not an estimate line id.' }) })
 
 /**
- * Mounted at /api/vehicles/:id/inspection. Every change answers with the whole teardown page, so
+ * Mounted at /api/vehicles/:vehicleId/inspection. Every change answers with the whole teardown page, so
  * the phone shows the totals, the recommendation and the pickup badge as the server worked them out.
  */
 export function inspectionsRouter(db: Database, store: FileStore): Router {
   const router = Router({ mergeParams: true })
-  const page = (req: Request) => inspectionPage(db, req.user!.id, vehicleParam.parse(req.params).id)
+  const page = (req: Request) => inspectionPage(db, req.user!.id, vehicleParamsSchema.parse(req.params).vehicleId)
 
   router.get('/', async (req, res) => {
     res.json(await page(req))
   })
   router.post('/', async (req, res) => {
-    const { created } = await startInspection(db, req.user!, vehicleParam.parse(req.params).id)
+    const { created } = await startInspection(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId)
     res.status(created ? 201 : 200).json(await page(req))
   })
   router.post('/safety', async (req, res) => {
-    await acknowledgeSafety(db, req.user!, vehicleParam.parse(req.params).id)
+    await acknowledgeSafety(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId)
     res.json(await page(req))
   })
   router.put('/items/:code', async (req, res) => {
-    const { id, code } = itemParam.parse(req.params)
-    await setFinding(db, req.user!, id, code, itemFindingSchema.parse(req.body))
+    const { vehicleId, code } = itemParam.parse(req.params)
+    await setFinding(db, req.user!, vehicleId, code, itemFindingSchema.parse(req.body))
     res.json(await page(req))
   })
   router.post('/items/:code/photos', receiveFiles('files'), async (req, res) => {
-    const { id, code } = itemParam.parse(req.params)
-    await addItemPhotos(db, store, req.user!, id, code, (req.files as Express.Multer.File[] | undefined) ?? [])
+    const { vehicleId, code } = itemParam.parse(req.params)
+    await addItemPhotos(db, store, req.user!, vehicleId, code, (req.files as Express.Multer.File[] | undefined) ?? [])
     res.status(201).json(await page(req))
   })
   router.post('/lines', async (req, res) => {
-    await addLine(db, req.user!, vehicleParam.parse(req.params).id, estimateLineSchema.parse(req.body))
+    await addLine(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId, estimateLineSchema.parse(req.body))
     res.status(201).json(await page(req))
   })
   router.put('/lines/:lineId', async (req, res) => {
-    const { id, lineId } = lineParam.parse(req.params)
-    await changeLine(db, req.user!, id, lineId, estimateLineSchema.parse(req.body))
+    const { vehicleId, lineId } = lineParam.parse(req.params)
+    await changeLine(db, req.user!, vehicleId, lineId, estimateLineSchema.parse(req.body))
     res.json(await page(req))
   })
   router.delete('/lines/:lineId', async (req, res) => {
-    const { id, lineId } = lineParam.parse(req.params)
-    await removeLine(db, req.user!, id, lineId)
+    const { vehicleId, lineId } = lineParam.parse(req.params)
+    await removeLine(db, req.user!, vehicleId, lineId)
     res.json(await page(req))
   })
   router.put('/values', async (req, res) => {
-    await setValues(db, req.user!, vehicleParam.parse(req.params).id, valuesSchema.parse(req.body))
+    await setValues(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId, valuesSchema.parse(req.body))
     res.json(await page(req))
   })
   router.patch('/roll-ability', async (req, res) => {
-    await markRollAbility(db, req.user!, vehicleParam.parse(req.params).id, rollAbilitySchema.parse(req.body))
+    await markRollAbility(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId, rollAbilitySchema.parse(req.body))
     res.json(await page(req))
   })
   router.post('/finish', async (req, res) => {
-    await finishInspection(db, req.user!, vehicleParam.parse(req.params).id)
+    await finishInspection(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId)
     res.json(await page(req))
   })
   return router

@@ -1,11 +1,11 @@
 import { eq } from 'drizzle-orm'
 import type { z } from 'zod'
-import type { Database } from '../../db/client'
-import { appendHistory } from '../../db/history'
-import { inspections } from '../../db/schema/index'
-import { pickupBadge } from '../../shared/domain/pickup-badge'
-import type { rollAbilitySchema } from '../../shared/schemas/inspections'
-import type { User } from '../../shared/schemas/users'
+import type { Database } from '@db/client'
+import { appendHistory } from '@db/history'
+import { inspections } from '@db/schema'
+import { pickupBadge } from '@shared/domain/inspection'
+import type { rollAbilitySchema } from '@shared/schemas/inspections'
+import type { User } from '@shared/schemas/users'
 import { badRequest, unprocessable } from '../errors'
 import { boardChanged } from '../live/index'
 import { actorOf, lockInspection, updateVehicle } from './inspection-lock'
@@ -15,7 +15,7 @@ type Marks = z.output<typeof rollAbilitySchema>
 
 /**
  * Rolls, steers, brakes, keys, and a wheel refitted to make it roll: what the pickup needs follows
- * from these (shared/domain/pickup-badge.ts). Someone may be under the vehicle to find out, so the
+ * from these (shared/domain/inspection/pickup-badge.ts). Someone may be under the vehicle to find out, so the
  * safety cautions must have been acknowledged on this inspection first.
  */
 export async function markRollAbility(db: Database, actor: User, vehicleId: string, marks: Marks): Promise<void> {

@@ -1,5 +1,5 @@
-import type { Executor } from '../../db/client'
-import type { BoardCard } from '../../shared/schemas/board'
+import type { Executor } from '@db/client'
+import type { BoardCard } from '@shared/schemas/board'
 import type { BoardChange } from './live-bus'
 
 export { boardChangeSchema, type BoardChange, type LiveBus, type LiveListener } from './live-bus'

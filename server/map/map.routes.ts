@@ -1,8 +1,8 @@
 import { Router } from 'express'
-import type { Database } from '../../db/client'
-import type { MapSettings } from '../../shared/schemas/map'
+import type { Database } from '@db/client'
+import type { MapSettings } from '@shared/schemas/map'
 import { notFound } from '../errors'
-import { yardOfUser } from '../yards/yards.queries'
+import { yardOfUser } from '../yards/index'
 import type { MapConfig } from './map-config'
 
 /** GET /api/map/settings — the client reads its tile and geocoder URLs here, never from its bundle. */

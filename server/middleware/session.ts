@@ -1,8 +1,8 @@
 import { randomBytes } from 'node:crypto'
 import type { RequestHandler } from 'express'
 import session from 'express-session'
-import type { Database } from '../../db/client'
-import { DatabaseSessionStore } from '../session/session-store'
+import type { Database } from '@db/client'
+import { DatabaseSessionStore } from '../session/index'
 
 export const IDLE_TIMEOUT_MS = 30 * 60_000
 export const ABSOLUTE_TIMEOUT_MS = 12 * 60 * 60_000

@@ -1,12 +1,12 @@
 import { Router } from 'express'
-import type { Database } from '../../db/client'
-import { legalClocks } from '../../shared/domain/legal-clocks'
-import { storageBill } from '../../shared/domain/storage-bill'
-import { legalClocksRequestSchema, storageQuoteRequestSchema } from '../../shared/schemas/quotes'
+import type { Database } from '@db/client'
+import { legalClocks } from '@shared/domain/clocks'
+import { storageBill } from '@shared/domain/billing'
+import { legalClocksRequestSchema, storageQuoteRequestSchema } from '@shared/schemas/quotes'
 import { AppError } from '../errors'
-import { holidayCalendar } from '../holidays/holiday-calendar'
-import { latestRuleSetBySlug } from '../rule-sets/rule-sets.queries'
-import { companyOf } from '../users/users.queries'
+import { holidayCalendar } from '../holidays/index'
+import { latestRuleSetBySlug } from '../rule-sets/index'
+import { companyOf } from '../users/index'
 
 /** What a stay would cost and when its notices fall due, under a rule set — nothing is written. */
 export function quotesRouter(db: Database): Router {

@@ -1,7 +1,7 @@
 import { and, desc, eq, isNull, or } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { ruleSets, ruleSetVersions } from '../../db/schema/index'
-import { ruleSetSchema, type RuleSet } from '../../shared/schemas/rule-sets'
+import type { Executor } from '@db/client'
+import { ruleSets, ruleSetVersions } from '@db/schema'
+import { ruleSetSchema, type RuleSet } from '@shared/schemas/rule-sets'
 
 // Versions never change once written, so a parsed version can be kept for the life of the process.
 const parsedVersions = new Map<string, RuleSet>()

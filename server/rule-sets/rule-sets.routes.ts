@@ -1,10 +1,10 @@
 import { Router } from 'express'
 import { z } from 'zod'
-import type { Database } from '../../db/client'
-import { dayFromCivil } from '../../shared/domain/calendar-dates'
+import type { Database } from '@db/client'
+import { dayFromCivil } from '@shared/domain/time'
 import { notFound } from '../errors'
-import { holidayCalendar } from '../holidays/holiday-calendar'
-import { companyOf } from '../users/users.queries'
+import { holidayCalendar } from '../holidays/index'
+import { companyOf } from '../users/index'
 import { latestRuleSetBySlug, latestRuleSets } from './rule-sets.queries'
 
 const slugParam = z.object({ id: z.string().min(1).max(80) })

@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto'
 import { eq } from 'drizzle-orm'
-import type { Database } from '../../db/client'
-import { appSettings } from '../../db/schema/index'
+import type { Database } from '@db/client'
+import { appSettings } from '@db/schema'
 
 /**
  * The cookie-signing secret: SESSION_SECRET when set, otherwise one made at first start and kept in

@@ -1,7 +1,7 @@
 import { and, eq, gt, lt, sql } from 'drizzle-orm'
 import session from 'express-session'
-import type { Database, Executor } from '../../db/client'
-import { sessions } from '../../db/schema/index'
+import type { Database, Executor } from '@db/client'
+import { sessions } from '@db/schema'
 
 const DAY = 86_400_000
 // A touch writes at most once a minute per session and process: the idle expiry is 30 minutes.

@@ -1,10 +1,9 @@
-import type { Request } from 'express'
-import { Router } from 'express'
+import { type Request, Router } from 'express'
 import { rateLimit } from 'express-rate-limit'
-import type { Database } from '../../db/client'
-import { signInSchema } from '../../shared/schemas/session'
+import type { Database } from '@db/client'
+import { signInSchema } from '@shared/schemas/session'
 import { AppError } from '../errors'
-import { newCsrfToken } from '../middleware/session'
+import { newCsrfToken } from '../middleware/index'
 import { signIn, signInRefused, stillAsVerified } from './session.service'
 
 export interface SignInLimits {

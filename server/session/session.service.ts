@@ -1,11 +1,10 @@
 import { eq } from 'drizzle-orm'
-import type { Database } from '../../db/client'
-import { users } from '../../db/schema/index'
-import type { SignIn } from '../../shared/schemas/session'
-import type { User } from '../../shared/schemas/users'
+import type { Database } from '@db/client'
+import { users } from '@db/schema'
+import type { SignIn } from '@shared/schemas/session'
+import type { User } from '@shared/schemas/users'
 import { AppError } from '../errors'
-import { verifyPassword } from '../users/passwords'
-import { findUserByEmail } from '../users/users.queries'
+import { findUserByEmail, verifyPassword } from '../users/index'
 
 // One message for an unknown e-mail, a wrong password and a deactivated account: no account discovery.
 const REFUSED = 'That e-mail and password do not match an active account.'

@@ -1,1 +1,2 @@
 export { spacesRouter, vehicleSpaceRouter } from './spaces.routes'
+export { freeSpace, isSpaceConflict, spaceTaken } from './spaces.queries'

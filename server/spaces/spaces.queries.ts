@@ -1,7 +1,7 @@
 import { and, asc, eq, ne } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { vehicles, yardSpaces } from '../../db/schema/index'
-import { spaceLabel, type Space } from '../../shared/schemas/spaces'
+import type { Executor } from '@db/client'
+import { vehicles, yardSpaces } from '@db/schema'
+import { spaceLabel, type Space } from '@shared/schemas/spaces'
 import { badRequest, conflict } from '../errors'
 
 export async function spacesOfYard(db: Executor, yardId: string): Promise<Space[]> {

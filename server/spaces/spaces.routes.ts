@@ -1,13 +1,12 @@
 import { Router } from 'express'
-import { z } from 'zod'
-import type { Database } from '../../db/client'
-import { assignSpaceSchema } from '../../shared/schemas/spaces'
+import type { Database } from '@db/client'
+import { vehicleParamsSchema } from '@shared/schemas/vehicles'
+import { assignSpaceSchema } from '@shared/schemas/spaces'
 import { notFound } from '../errors'
-import { yardOfUser } from '../yards/yards.queries'
+import { yardOfUser } from '../yards/index'
 import { spacesOfYard } from './spaces.queries'
 import { assignSpace } from './spaces.service'
 
-const vehicleParam = z.object({ vehicleId: z.uuid({ error: 'That is not a vehicle id.' }) })
 
 /** GET /api/spaces — the yard's spaces and who is in each. */
 export function spacesRouter(db: Database): Router {
@@ -24,7 +23,7 @@ export function spacesRouter(db: Database): Router {
 export function vehicleSpaceRouter(db: Database): Router {
   const router = Router({ mergeParams: true })
   router.put('/', async (req, res) => {
-    const { vehicleId } = vehicleParam.parse(req.params)
+    const { vehicleId } = vehicleParamsSchema.parse(req.params)
     res.json(await assignSpace(db, req.user!, vehicleId, assignSpaceSchema.parse(req.body)))
   })
   return router

@@ -1,11 +1,10 @@
-import type { Database } from '../../db/client'
-import { appendHistory } from '../../db/history'
-import type { AssignSpace } from '../../shared/schemas/spaces'
-import type { User } from '../../shared/schemas/users'
+import type { Database } from '@db/client'
+import { appendHistory } from '@db/history'
+import type { AssignSpace } from '@shared/schemas/spaces'
+import type { User } from '@shared/schemas/users'
 import { conflict, unprocessable } from '../errors'
 import { boardChanged } from '../live/index'
-import { spaceOf } from '../vehicles/vehicle-page.queries'
-import { bumpVersion, vehicleForUser } from '../vehicles/vehicles.queries'
+import { bumpVersion, spaceOf, vehicleForUser } from '../vehicles/index'
 import { freeSpace, isSpaceConflict, spaceTaken } from './spaces.queries'
 
 /** Puts a vehicle in a space (or takes it out of one); a space holds one vehicle at a time. */

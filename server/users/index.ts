@@ -1,2 +1,3 @@
 export { usersRouter } from './users.routes'
 export { hashPassword, verifyPassword } from './passwords'
+export { companyOf, findUserByEmail, insertUser } from './users.queries'

@@ -1,6 +1,6 @@
 import { asc, count, eq, and, sql } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { users } from '../../db/schema/index'
+import type { Executor } from '@db/client'
+import { users } from '@db/schema'
 
 const publicColumns = {
   id: users.id,

@@ -1,7 +1,7 @@
 import { Router } from 'express'
 import { z } from 'zod'
-import type { Database } from '../../db/client'
-import { createUserSchema, resetPasswordSchema, updateUserSchema } from '../../shared/schemas/users'
+import type { Database } from '@db/client'
+import { createUserSchema, resetPasswordSchema, updateUserSchema } from '@shared/schemas/users'
 import * as service from './users.service'
 
 const idParam = z.object({ id: z.uuid({ error: 'That is not a valid user id.' }) })

@@ -1,7 +1,7 @@
-import type { Database } from '../../db/client'
-import type { CreateUser, UpdateUser, User } from '../../shared/schemas/users'
+import type { Database } from '@db/client'
+import type { CreateUser, UpdateUser, User } from '@shared/schemas/users'
 import { conflict, notFound, unprocessable } from '../errors'
-import { endSessionsOf, renameInSessions } from '../session/session-store'
+import { endSessionsOf, renameInSessions } from '../session/index'
 import { hashPassword } from './passwords'
 import * as q from './users.queries'
 

@@ -1,9 +1,9 @@
 import { and, asc, eq } from 'drizzle-orm'
-import type { Database } from '../../db/client'
-import { users } from '../../db/schema/index'
-import type { IntakeOptions } from '../../shared/schemas/tow-in'
+import type { Database } from '@db/client'
+import { users } from '@db/schema'
+import type { IntakeOptions } from '@shared/schemas/tow-in'
 import { notFound } from '../errors'
-import { yardOfUser } from '../yards/yards.queries'
+import { yardOfUser } from '../yards/index'
 import { intakeRules, yardTowRates } from './rules'
 
 /** What the tow-in form needs to offer: yard position and rates, billing classes, who can check a vehicle. */

@@ -1,8 +1,8 @@
-import type { Executor } from '../../db/client'
-import type { yards } from '../../db/schema/index'
-import { towRatesSchema } from '../../shared/schemas/tows'
+import type { Executor } from '@db/client'
+import type { yards } from '@db/schema'
+import { towRatesSchema } from '@shared/schemas/tows'
 import { badRequest } from '../errors'
-import { latestVersionOf, versionsById } from '../rule-sets/rule-sets.queries'
+import { latestVersionOf, versionsById } from '../rule-sets/index'
 
 type Yard = typeof yards.$inferSelect
 

@@ -1,7 +1,7 @@
 import { and, desc, eq, or, sql, type SQLWrapper } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { users, vehicles, yards } from '../../db/schema/index'
-import type { SearchHit } from '../../shared/schemas/search'
+import type { Executor } from '@db/client'
+import { users, vehicles, yards } from '@db/schema'
+import type { SearchHit } from '@shared/schemas/search'
 
 const LIMIT = 20
 /** A VIN fragment shorter than this matches too many vehicles to be a search. */

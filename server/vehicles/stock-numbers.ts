@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { stockCounters } from '../../db/schema/index'
-import { formatStockNumber, yearInZone } from '../../shared/domain/stock-number'
+import type { Executor } from '@db/client'
+import { stockCounters } from '@db/schema'
+import { formatStockNumber, yearInZone } from '@shared/domain/vehicle'
 
 /**
  * The next stock number of a yard for the arrival's year, in the transaction that inserts the vehicle:

@@ -1,13 +1,11 @@
-import { haversineMiles } from '../../shared/domain/distance'
-import { towCharge } from '../../shared/domain/tow-charge'
-import type { Tow } from '../../shared/schemas/tows'
+import { haversineMiles, towCharge } from '@shared/domain/tow'
+import type { Tow } from '@shared/schemas/tows'
 import type { YardRow } from './vehicles.queries'
 import { yardTowRates } from './rules'
 
 /** The tow's columns as stored: miles and charge worked out here, never taken from the client. */
 export function towColumns(tow: Tow, yard: YardRow) {
-  const pickup = { lat: tow.pickup.lat, lon: tow.pickup.lng }
-  const charge = towCharge(pickup, { lat: yard.lat, lon: yard.lng }, yardTowRates(yard).rates, {
+  const charge = towCharge(tow.pickup, yard, yardTowRates(yard).rates, {
     roadMiles: tow.roadMiles,
     winchingUnits: tow.winchingUnits,
     dollies: tow.dollies,
@@ -27,7 +25,7 @@ export function towColumns(tow: Tow, yard: YardRow) {
     arrivedAt: new Date(tow.arrivedAt),
     truck: tow.truck,
     driver: tow.driver,
-    straightMiles: Math.round(haversineMiles(pickup, { lat: yard.lat, lon: yard.lng }) * 100) / 100,
+    straightMiles: Math.round(haversineMiles(tow.pickup, yard) * 100) / 100,
     roadMiles: tow.roadMiles,
     winchingUnits: tow.winchingUnits,
     dollies: tow.dollies,

@@ -1,13 +1,13 @@
 import { asc, eq } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/pg-core'
-import type { Executor } from '../../db/client'
-import { historyOf } from '../../db/history'
-import { holds, propertyItems, ruleSetVersions, tows, users, yardSpaces } from '../../db/schema/index'
-import type { HistoryEvent } from '../../shared/schemas/history'
-import type { HoldRecord } from '../../shared/schemas/holds'
-import type { TowRecord } from '../../shared/schemas/vehicle-page'
-import { spaceLabel } from '../../shared/schemas/spaces'
-import type { TowLine } from '../../shared/domain/tow-charge'
+import type { Executor } from '@db/client'
+import { historyOf } from '@db/history'
+import { holds, propertyItems, ruleSetVersions, tows, users, yardSpaces } from '@db/schema'
+import type { HistoryEvent } from '@shared/schemas/history'
+import type { HoldRecord } from '@shared/schemas/holds'
+import type { TowRecord } from '@shared/schemas/vehicle-page'
+import { spaceLabel } from '@shared/schemas/spaces'
+import type { TowLine } from '@shared/domain/tow'
 
 const iso = (d: Date | null) => d?.toISOString() ?? null
 

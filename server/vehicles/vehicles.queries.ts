@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { users, vehicles, yards } from '../../db/schema/index'
+import type { Executor } from '@db/client'
+import { users, vehicles, yards } from '@db/schema'
 import { notFound } from '../errors'
 
 export type VehicleRow = typeof vehicles.$inferSelect

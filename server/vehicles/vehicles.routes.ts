@@ -1,12 +1,11 @@
 import { Router, type Request } from 'express'
-import { z } from 'zod'
-import type { Database } from '../../db/client'
-import { historyOf, verifyChain } from '../../db/history'
-import { searchQuerySchema } from '../../shared/schemas/search'
-import { correctVehicleSchema, towInSchema } from '../../shared/schemas/tow-in'
+import type { Database } from '@db/client'
+import { historyOf, verifyChain } from '@db/history'
+import { searchQuerySchema } from '@shared/schemas/search'
+import { correctVehicleSchema, towInSchema } from '@shared/schemas/tow-in'
+import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { badRequest } from '../errors'
-import type { FileStore } from '../files/file-store'
-import { receiveFiles } from '../files/upload'
+import { type FileStore, receiveFiles } from '../files/index'
 import { correctVehicle } from './corrections.service'
 import { intakeOptions } from './intake-options'
 import { searchVehicles } from './search.queries'
@@ -14,8 +13,6 @@ import { createTowIn } from './tow-in.service'
 import { historyEvents } from './vehicle-page.queries'
 import { vehiclePage } from './vehicle-page.service'
 import { vehicleForUser } from './vehicles.queries'
-
-const idParam = z.object({ id: z.uuid({ error: 'That is not a vehicle id.' }) })
 
 /** A tow-in arrives as JSON, or as a form with the record in `data` and the photos in `photos`. */
 function towInBody(req: Request): unknown {
@@ -42,23 +39,23 @@ export function vehiclesRouter(db: Database, store: FileStore): Router {
     const photos = (req.files as Express.Multer.File[] | undefined) ?? []
     res.status(201).json(await createTowIn(db, store, req.user!, input, photos))
   })
-  router.get('/:id', async (req, res) => {
-    res.json(await vehiclePage(db, req.user!.id, idParam.parse(req.params).id))
+  router.get('/:vehicleId', async (req, res) => {
+    res.json(await vehiclePage(db, req.user!.id, vehicleParamsSchema.parse(req.params).vehicleId))
   })
-  router.patch('/:id', async (req, res) => {
-    const { id } = idParam.parse(req.params)
-    res.json(await correctVehicle(db, req.user!, id, correctVehicleSchema.parse(req.body)))
+  router.patch('/:vehicleId', async (req, res) => {
+    const { vehicleId } = vehicleParamsSchema.parse(req.params)
+    res.json(await correctVehicle(db, req.user!, vehicleId, correctVehicleSchema.parse(req.body)))
   })
-  router.get('/:id/history', async (req, res) => {
-    const { id } = idParam.parse(req.params)
-    await vehicleForUser(db, req.user!.id, id)
-    res.json({ events: await historyEvents(db, id) })
+  router.get('/:vehicleId/history', async (req, res) => {
+    const { vehicleId } = vehicleParamsSchema.parse(req.params)
+    await vehicleForUser(db, req.user!.id, vehicleId)
+    res.json({ events: await historyEvents(db, vehicleId) })
   })
   // Recomputes every link of the chain: a row edited or removed behind the app's back shows here.
-  router.get('/:id/history/verify', async (req, res) => {
-    const { id } = idParam.parse(req.params)
-    await vehicleForUser(db, req.user!.id, id)
-    res.json(verifyChain(await historyOf(db, id)))
+  router.get('/:vehicleId/history/verify', async (req, res) => {
+    const { vehicleId } = vehicleParamsSchema.parse(req.params)
+    await vehicleForUser(db, req.user!.id, vehicleId)
+    res.json(verifyChain(await historyOf(db, vehicleId)))
   })
   return router
 }

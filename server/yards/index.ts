@@ -1,2 +1,3 @@
 export { yardsRouter } from './yards.routes'
 export { yardOfUser } from './yards.queries'
+export { createYard } from './yards.service'

@@ -1,6 +1,6 @@
 import { asc, eq } from 'drizzle-orm'
-import type { Executor } from '../../db/client'
-import { users, yards } from '../../db/schema/index'
+import type { Executor } from '@db/client'
+import { users, yards } from '@db/schema'
 
 /** The yard a staff member works in: the first of their company's yards until users pick one. */
 export async function yardOfUser(db: Executor, userId: string) {

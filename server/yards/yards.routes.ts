@@ -1,5 +1,5 @@
 import { Router } from 'express'
-import type { Database } from '../../db/client'
+import type { Database } from '@db/client'
 import { notFound } from '../errors'
 import { yardOfUser } from './yards.queries'
 

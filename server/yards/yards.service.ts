@@ -1,8 +1,8 @@
 import { eq } from 'drizzle-orm'
-import type { Database } from '../../db/client'
-import { ruleSets, yards } from '../../db/schema/index'
-import { loadSampleRuleSets } from '../../db/seed'
-import type { YardSetup } from '../../shared/schemas/yards'
+import type { Database } from '@db/client'
+import { ruleSets, yards } from '@db/schema'
+import { loadSampleRuleSets } from '../rule-sets/index'
+import type { YardSetup } from '@shared/schemas/yards'
 import { AppError, conflict } from '../errors'
 
 /** A company's yard, under one of the rule sets (the shipped samples are loaded on first use). */

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { DISPOSITIONS } from '../domain/columns'
+import { DISPOSITIONS } from '../domain/lifecycle/columns'
 import { vehicleIdentityShape } from './board'
 
 export const ARCHIVE_PAGE_SIZES = [25, 50, 100] as const

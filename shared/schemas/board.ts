@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { BOARD_COLUMNS, DISPOSITIONS, VEHICLE_STATES } from '../domain/columns'
-import { HOLD_KINDS } from '../domain/hold-kinds'
+import { BOARD_COLUMNS, DISPOSITIONS, VEHICLE_STATES } from '../domain/lifecycle/columns'
+import { HOLD_KINDS } from '../domain/lifecycle/hold-kinds'
 import { vehicleSummarySchema } from './charges'
 import { pickupBadgeSchema } from './inspections'
 

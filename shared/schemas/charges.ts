@@ -15,7 +15,7 @@ export const nextDeadlineSchema = z.object({
 })
 export type NextDeadline = z.infer<typeof nextDeadlineSchema>
 
-/** Whether the law already allows a lien sale or disposal (shared/domain/lien-sale-gate.ts). */
+/** Whether the law already allows a lien sale or disposal (shared/domain/clocks/lien-sale-gate.ts). */
 export const lienSaleGateSchema = z.object({ open: z.boolean(), date: z.string().nullable(), why: z.string() })
 
 export const vehicleSummarySchema = z.object({

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { HOLD_KINDS } from '../domain/hold-kinds'
+import { HOLD_KINDS } from '../domain/lifecycle/hold-kinds'
 import { alongsideFieldIssues, optionalInstant, optionalText, requiredText } from './fields'
 
 export const holdInputSchema = z

@@ -1,8 +1,8 @@
 import { z } from 'zod'
-import { VEHICLE_STATES } from '../domain/columns'
-import { FINDING_STATUSES, ITEM_CODES } from '../domain/inspection-checklist'
-import { hoursToHundredths, LIMITS } from '../domain/inspection-estimate'
-import { formatCents } from '../domain/money'
+import { VEHICLE_STATES } from '../domain/lifecycle/columns'
+import { FINDING_STATUSES, ITEM_CODES } from '../domain/inspection/inspection-checklist'
+import { hoursToHundredths, LIMITS } from '../domain/inspection/inspection-estimate'
+import { formatCents } from '../domain/billing/money'
 import { optionalText, requiredText } from './fields'
 import { fileRecordSchema } from './files'
 

@@ -11,8 +11,11 @@ export const mapSettingsSchema = z.object({
 })
 export type MapSettings = z.infer<typeof mapSettingsSchema>
 
-// Nominatim's answer carries coordinates as strings; only the fields the form uses are read.
-const place = z.object({ display_name: z.string(), lat: z.coerce.number(), lon: z.coerce.number() })
+// Nominatim's answer carries coordinates as strings and says `lon`; only the fields the form uses
+// are read, and `lon` becomes `lng` here, the one name for longitude everywhere else.
+const place = z
+  .object({ display_name: z.string(), lat: z.coerce.number(), lon: z.coerce.number() })
+  .transform(({ display_name, lat, lon }) => ({ display_name, lat, lng: lon }))
 export const geocoderSearchSchema = z.array(place)
 export const geocoderReverseSchema = z.union([place, z.object({ error: z.string() })])
-export type Place = z.infer<typeof place>
+export type Place = z.output<typeof place>

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { DISPOSITIONS, VEHICLE_STATES } from '../domain/columns'
+import { DISPOSITIONS, VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { boardCardSchema } from './board'
 
 export const moveRequestSchema = z.object({

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { isTimeZone } from '../domain/local-time'
+import { isTimeZone } from '../domain/time/local-time'
 
 /**
  * A local rule set: how a jurisdiction (or a yard's own ordinance) bills storage and runs its

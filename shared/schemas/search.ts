@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { VEHICLE_STATES } from '../domain/columns'
+import { VEHICLE_STATES } from '../domain/lifecycle/columns'
 
 export const searchQuerySchema = z.object({
   q: z.string({ error: 'Type a stock number, plate, VIN or owner name.' }).trim().min(2, 'Type at least 2 characters.').max(60),

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { TOW_REASONS } from '../domain/tow-reasons'
+import { TOW_REASONS } from '../domain/tow/tow-reasons'
 import { alongsideFieldIssues, instantSchema, optionalInstant, optionalText, requiredText } from './fields'
 
 /** Arrival may be typed a little ahead of the server's clock; beyond that it is a typing mistake. */
@@ -69,7 +69,7 @@ export const towLineSchema = z.object({
   reason: z.string(),
 })
 
-/** A yard's tow rates (shared/domain/tow-charge.ts TowRates); a yard that has none bills nothing yet. */
+/** A yard's tow rates (shared/domain/tow/tow-charge.ts TowRates); a yard that has none bills nothing yet. */
 export const towRatesSchema = z.object({
   hookUpCents: z.number().int().nonnegative().default(0),
   perMileCents: z.number().int().nonnegative().default(0),

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { ROLES } from '../domain/roles'
+import { ROLES } from '../domain/access/roles'
 
 export const roleSchema = z.enum(ROLES, { error: 'Choose a role: manager, dispatcher, technician or office.' })
 

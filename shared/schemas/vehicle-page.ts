@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { DISPOSITIONS, VEHICLE_STATES } from '../domain/columns'
-import { TOW_REASONS } from '../domain/tow-reasons'
+import { DISPOSITIONS, VEHICLE_STATES } from '../domain/lifecycle/columns'
+import { TOW_REASONS } from '../domain/tow/tow-reasons'
 import { vehicleSummarySchema } from './charges'
 import { fileRecordSchema } from './files'
 import { historyEventSchema } from './history'

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { normalizeVin, vin as readVin } from '../domain/vin'
+import { normalizeVin, vin as readVin } from '../domain/vehicle/vin'
 import { alongsideFieldIssues, optionalInt, optionalText, requiredText } from './fields'
 
 export const KEYS = ['yes', 'no', 'unknown'] as const
@@ -114,3 +114,6 @@ export const conditionSchema = z.object({
   property: z.array(propertyItemSchema).max(100, 'At most 100 items; group small ones.').default([]),
 })
 export type ConditionInput = z.input<typeof conditionSchema>
+
+/** The one route parameter that names a vehicle: `/api/vehicles/:vehicleId/…`. */
+export const vehicleParamsSchema = z.object({ vehicleId: z.uuid({ error: 'That is not a vehicle id.' }) })

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { isTimeZone } from '../domain/local-time'
+import { isTimeZone } from '../domain/time/local-time'
 
 export const yardSetupSchema = z.object({
   name: z.string().trim().min(1, 'Give the yard a name.').max(120),

@@ -1,5 +1,5 @@
 import { useQueryClient } from '@tanstack/vue-query'
-import type { BoardColumn } from '@shared/domain/columns'
+import type { BoardColumn } from '@shared/domain/lifecycle'
 import type { Board, BoardCard } from '@shared/schemas/board'
 import { BOARD_KEY } from '@/api/board'
 

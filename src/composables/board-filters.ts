@@ -1,6 +1,6 @@
 import { computed } from 'vue'
 import { useRoute, useRouter, type LocationQuery } from 'vue-router'
-import { HOLD_KINDS, type HoldKind } from '@shared/domain/hold-kinds'
+import { HOLD_KINDS, type HoldKind } from '@shared/domain/lifecycle'
 import type { BoardCard } from '@shared/schemas/board'
 
 export type HoldFilter = '' | 'any' | 'none' | HoldKind

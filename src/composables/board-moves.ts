@@ -1,7 +1,5 @@
 import { reactive } from 'vue'
-import { COLUMN_LABELS, DISPOSITION_LABELS, type Disposition, type VehicleState } from '@shared/domain/columns'
-import { checkMove, moveOptions } from '@shared/domain/lifecycle'
-import { factsOfCard } from '@shared/domain/lifecycle-facts'
+import { checkMove, COLUMN_LABELS, type Disposition, DISPOSITION_LABELS, factsOfCard, moveOptions, type VehicleState } from '@shared/domain/lifecycle'
 import type { BoardCard } from '@shared/schemas/board'
 import { moveConflictSchema, moveRefusalSchema } from '@shared/schemas/moves'
 import { moveVehicle } from '@/api/board'

@@ -1,6 +1,5 @@
 import { computed, type Ref } from 'vue'
-import { haversineMiles } from '@shared/domain/distance'
-import { towCharge } from '@shared/domain/tow-charge'
+import { haversineMiles, towCharge } from '@shared/domain/tow'
 import type { HoldInput } from '@shared/schemas/holds'
 import type { IntakeOptions, TowInInput } from '@shared/schemas/tow-in'
 import type { TowInput } from '@shared/schemas/tows'
@@ -68,16 +67,14 @@ export function useTowQuote(tow: Ref<TowDraft | null>, options: Ref<IntakeOption
     const t = tow.value
     const pickup = t?.pickup
     if (!o || !t || !pickup || !Number.isFinite(pickup.lat) || !Number.isFinite(pickup.lng)) return null
-    const from = { lat: pickup.lat, lon: pickup.lng }
-    const yard = { lat: o.yard.lat, lon: o.yard.lng }
     try {
-      const charge = towCharge(from, yard, o.yard.towRates, {
+      const charge = towCharge(pickup, o.yard, o.yard.towRates, {
         roadMiles: t.roadMiles ?? null,
         winchingUnits: t.winchingUnits ?? 0,
         dollies: t.dollies,
         afterHours: t.afterHours,
       })
-      return { straightMiles: haversineMiles(from, yard), charge, ratesSet: o.yard.ratesSet }
+      return { straightMiles: haversineMiles(pickup, o.yard), charge, ratesSet: o.yard.ratesSet }
     } catch {
       // A half-typed number (negative miles, a fraction of a winching unit) shows no quote until fixed.
       return null

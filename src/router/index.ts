@@ -1,5 +1,5 @@
 import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
-import type { Permission } from '@shared/domain/permissions'
+import type { Permission } from '@shared/domain/access'
 import { prefetchBoard } from '@/api/board'
 import { useSessionStore } from '@/stores/session'
 
@@ -7,7 +7,7 @@ declare module 'vue-router' {
   interface RouteMeta {
     /** Reachable without signing in. */
     public?: boolean
-    /** The permission (shared/domain/permissions.ts) a role needs to open this page. */
+    /** The permission (shared/domain/access/permissions.ts) a role needs to open this page. */
     permission?: Permission
     /** Shown in the top bar's navigation with this label. */
     nav?: string
@@ -23,8 +23,8 @@ export const routes: RouteRecordRaw[] = [
   { path: '/board', name: 'board', component: () => import('@/views/BoardView.vue'), meta: { permission: 'board.view', nav: 'Board', title: 'Board', prefetch: prefetchBoard } },
   { path: '/archive', name: 'archive', component: () => import('@/views/ArchiveView.vue'), meta: { permission: 'board.view', nav: 'Archive', title: 'Archive' } },
   { path: '/tow-in', name: 'tow-in', component: () => import('@/views/TowInView.vue'), meta: { permission: 'towin.write', nav: 'Log a tow-in', title: 'Log a tow-in' } },
-  { path: '/vehicles/:id', name: 'vehicle', component: () => import('@/views/VehicleView.vue'), meta: { permission: 'board.view', title: 'Vehicle' } },
-  { path: '/vehicles/:id/inspection', name: 'inspection', component: () => import('@/views/InspectionView.vue'), meta: { permission: 'board.view', title: 'Teardown' } },
+  { path: '/vehicles/:vehicleId', name: 'vehicle', component: () => import('@/views/VehicleView.vue'), meta: { permission: 'board.view', title: 'Vehicle' } },
+  { path: '/vehicles/:vehicleId/inspection', name: 'inspection', component: () => import('@/views/InspectionView.vue'), meta: { permission: 'board.view', title: 'Teardown' } },
   { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'Staff', title: 'Staff' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
 ]

@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
-import { can, type Permission } from '@shared/domain/permissions'
+import { can, type Permission } from '@shared/domain/access'
 import type { SignIn } from '@shared/schemas/session'
 import type { User } from '@shared/schemas/users'
 import * as api from '@/api/session'

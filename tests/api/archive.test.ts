@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DISPOSITIONS } from '../../shared/domain/columns'
+import { DISPOSITIONS } from '@shared/domain/lifecycle'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { DAY } from '../helpers/board'
 import { makeStaff, makeVehicle } from '../helpers/factories'

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import * as tables from '../../db/schema/index'
+import * as tables from '@db/schema'
 import { makeTestApp, type TestApp } from '../helpers/app'
 import { DAY, sampleVersion, setHold } from '../helpers/board'
 import { fetchSession, listening, openStream } from '../helpers/live'

@@ -1,9 +1,9 @@
 import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { historyOf, verifyChain } from '../../db/history'
-import * as t from '../../db/schema/index'
-import { DEMO_PASSWORD } from '../../db/demo/scenario'
-import { loadDemoIfEmpty } from '../../db/seed'
+import { historyOf, verifyChain } from '@db/history'
+import * as t from '@db/schema'
+import { DEMO_PASSWORD } from '../../server/demo/scenario'
+import { loadDemoIfEmpty } from '../../server/demo/seed'
 import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
 
 let app: TestApp

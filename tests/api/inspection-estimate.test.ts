@@ -1,10 +1,10 @@
 import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import * as t from '../../db/schema/index'
-import { repairOrSalvage } from '../../shared/domain/repair-or-salvage'
-import { ruleSetSchema } from '../../shared/schemas/rule-sets'
-import californiaJson from '../../db/rule-sets/california.json' with { type: 'json' }
-import floridaJson from '../../db/rule-sets/florida.json' with { type: 'json' }
+import * as t from '@db/schema'
+import { repairOrSalvage } from '@shared/domain/inspection'
+import { ruleSetSchema } from '@shared/schemas/rule-sets'
+import californiaJson from '../../server/rule-sets/samples/california.json' with { type: 'json' }
+import floridaJson from '../../server/rule-sets/samples/florida.json' with { type: 'json' }
 import { makeTestApp, type TestApp } from '../helpers/app'
 import { line, put, sampleVersionId, teardownFixture, type Fixture } from '../helpers/inspection'
 

@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import * as t from '../../db/schema/index'
-import { historyOf } from '../../db/history'
+import * as t from '@db/schema'
+import { historyOf } from '@db/history'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { DAY, historyCount, sampleVersion, setHold, vehicleRow } from '../helpers/board'
 import { makeStaff, makeVehicle } from '../helpers/factories'
@@ -14,7 +14,7 @@ afterAll(() => t_.close())
 
 const move = (id: string) => `/api/vehicles/${id}/moves`
 
-describe('POST /api/vehicles/:id/moves', () => {
+describe('POST /api/vehicles/:vehicleId/moves', () => {
   it('move_dispatcherArrivalToTeardown_movesItBumpsTheVersionAndRecordsWhoAndWhen', async () => {
     const staff = await makeStaff(t_.db)
     const v = await makeVehicle(t_.db, staff.yard.id)
@@ -163,7 +163,7 @@ describe('POST /api/vehicles/:id/moves', () => {
     const s = await signedIn(t_.app, staff.manager)
     const res = await s.post(move('not-a-uuid'), { to: 'teardown', version: 1 })
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'id', message: 'That is not a vehicle id.' }])
+    expect(res.body.issues).toEqual([{ path: 'vehicleId', message: 'That is not a vehicle id.' }])
   })
 
   it('move_anotherCompanysVehicle_answers404AndLeavesItAlone', async () => {

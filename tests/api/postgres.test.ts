@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { historyEvents } from '../../db/schema/index'
-import { appendHistory } from '../../db/history'
+import { historyEvents } from '@db/schema'
+import { appendHistory } from '@db/history'
 import { makePostgresTestApp, signedIn } from '../helpers/app'
 import { makeStaff, makeVehicle } from '../helpers/factories'
 

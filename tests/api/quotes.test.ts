@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { loadSampleRuleSets } from '../../db/seed'
-import { usFederalHolidays } from '../../shared/domain/holidays'
+import { loadSampleRuleSets } from '../../server/rule-sets/index'
+import { usFederalHolidays } from '../helpers/us-federal-holidays'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
 
@@ -12,7 +12,7 @@ beforeAll(async () => {
 })
 afterAll(() => t.close())
 
-const california = JSON.parse(readFileSync('db/rule-sets/california.json', 'utf8'))
+const california = JSON.parse(readFileSync('server/rule-sets/samples/california.json', 'utf8'))
 
 describe('rule sets and quotes API', () => {
   it('GET /api/rule-sets lists the shipped samples with their caution', async () => {
@@ -91,7 +91,7 @@ describe('rule sets and quotes API', () => {
   })
 
   // The federal template's calendar, on weekdays, is exactly the days federal holidays are observed on
-  // (5 U.S.C. 6103 with OPM's weekend rule, computed independently in shared/domain/holidays.ts).
+  // (5 U.S.C. 6103 with OPM's weekend rule, computed independently in tests/helpers/us-federal-holidays.ts).
   it('GET /api/rule-sets/ordinance-24h-template/holidays is the observed federal holidays, 2021 to 2030', async () => {
     const staff = await makeStaff(t.db)
     const s = await signedIn(t.app, staff.office)

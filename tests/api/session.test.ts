@@ -1,6 +1,6 @@
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { sessions } from '../../db/schema/index'
+import { sessions } from '@db/schema'
 import { browserSession, makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { makeStaff, makeUser } from '../helpers/factories'
 

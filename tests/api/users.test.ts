@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
-import { users } from '../../db/schema/index'
+import { users } from '@db/schema'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { makeCompany, makeStaff, makeUser } from '../helpers/factories'
 

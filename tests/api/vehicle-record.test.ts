@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
-import * as t from '../../db/schema/index'
+import * as t from '@db/schema'
 import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
 import { makeCompany, makeStaff, makeUser } from '../helpers/factories'
 import { counts, DEMO_RATES, sampleRuleSet, towInBody } from '../helpers/tow-in'

@@ -1,10 +1,9 @@
 import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { ruleSets, yards } from '../../db/schema/index'
+import { companies, ruleSets, yards } from '@db/schema'
 import { createYard } from '../../server/yards/yards.service'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { makeUser } from '../helpers/factories'
-import { companies } from '../../db/schema/index'
 
 let t: TestApp
 beforeAll(async () => {

@@ -1,5 +1,5 @@
 import { sql, type SQL } from 'drizzle-orm'
-import { openDatabase, type Database } from '../../db/client'
+import { openDatabase, type Database } from '@db/client'
 
 const MAKES = ['Orlan', 'Halvard', 'Kestra', 'Veyland', 'Brisk', 'Stanmore', 'Pellam', 'Corvane', 'Belcourt', 'Nimbus', 'Marrow', 'Dunmore']
 const MODELS = ['Sparrow', 'Finch', 'Pip', 'Solace', 'Tundrel', 'Larkin', 'Aster', 'Meridian', 'Trailhand', 'Regatta', 'Ember', 'Homestead']

@@ -1,11 +1,12 @@
 import { pathToFileURL } from 'node:url'
-import california from '../../db/rule-sets/california.json' with { type: 'json' }
-import florida from '../../db/rule-sets/florida.json' with { type: 'json' }
-import ordinance from '../../db/rule-sets/ordinance-24h.json' with { type: 'json' }
-import { type HolidayCalendar, usFederalCalendar } from '../../shared/domain/holidays'
-import { legalClocks } from '../../shared/domain/legal-clocks'
-import { storageBill } from '../../shared/domain/storage-bill'
-import { ruleSetSchema } from '../../shared/schemas/rule-sets'
+import california from '../../server/rule-sets/samples/california.json' with { type: 'json' }
+import florida from '../../server/rule-sets/samples/florida.json' with { type: 'json' }
+import ordinance from '../../server/rule-sets/samples/ordinance-24h.json' with { type: 'json' }
+import { type HolidayCalendar } from '@shared/domain/time'
+import { usFederalCalendar } from '../helpers/us-federal-holidays'
+import { legalClocks } from '@shared/domain/clocks'
+import { storageBill } from '@shared/domain/billing'
+import { ruleSetSchema } from '@shared/schemas/rule-sets'
 import { naiveDueDates, naiveTotalCents } from './naive-core'
 import { writeBenchResult } from './results'
 import { type SyntheticVehicle, syntheticVehicles } from './synthetic-stays'

@@ -1,5 +1,5 @@
-import { usFederalHolidays } from '../../shared/domain/holidays'
-import type { RuleSet, TimelineStep } from '../../shared/schemas/rule-sets'
+import { usFederalHolidays } from '../helpers/us-federal-holidays'
+import type { RuleSet, TimelineStep } from '@shared/schemas/rule-sets'
 import type { SyntheticVehicle } from './synthetic-stays'
 
 /**

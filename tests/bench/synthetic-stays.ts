@@ -1,6 +1,6 @@
-import type { ClockEvent, ClockVehicle } from '../../shared/domain/legal-clocks'
-import type { StayInput } from '../../shared/domain/storage-bill'
-import type { RuleSet } from '../../shared/schemas/rule-sets'
+import type { ClockEvent, ClockVehicle } from '@shared/domain/clocks'
+import type { StayInput } from '@shared/domain/billing'
+import type { RuleSet } from '@shared/schemas/rule-sets'
 
 export type SyntheticVehicle = {
   ruleSet: RuleSet

@@ -6,7 +6,7 @@ import pg from 'pg'
 import { pino } from 'pino'
 import request from 'supertest'
 import { inject } from 'vitest'
-import { openDatabase, type Database, type DatabaseHandle } from '../../db/client'
+import { openDatabase, type Database, type DatabaseHandle } from '@db/client'
 import { createApp, type AppDeps } from '../../server/app'
 import { localFileStore } from '../../server/files/index'
 

@@ -1,9 +1,9 @@
 import { eq } from 'drizzle-orm'
-import type { Database } from '../../db/client'
-import { historyOf } from '../../db/history'
-import * as t from '../../db/schema/index'
-import { loadSampleRuleSets } from '../../db/seed'
-import type { HoldKind } from '../../shared/domain/hold-kinds'
+import type { Database } from '@db/client'
+import { historyOf } from '@db/history'
+import * as t from '@db/schema'
+import { loadSampleRuleSets } from '../../server/rule-sets/index'
+import type { HoldKind } from '@shared/domain/lifecycle'
 
 const samples = new WeakMap<Database, Promise<Map<string, string>>>()
 

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto'
-import type { Database } from '../../db/client'
-import * as t from '../../db/schema/index'
-import type { Role } from '../../shared/domain/roles'
+import type { Database } from '@db/client'
+import * as t from '@db/schema'
+import type { Role } from '@shared/domain/access'
 import { hashPassword } from '../../server/users/passwords'
 
 export const TEST_PASSWORD = 'correct horse battery'

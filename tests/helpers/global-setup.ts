@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os'
 import path from 'node:path'
 import type { PGlite } from '@electric-sql/pglite'
 import type { TestProject } from 'vitest/node'
-import { openDatabase } from '../../db/client'
+import { openDatabase } from '@db/client'
 import { startThrowawayPostgres } from './postgres'
 
 declare module 'vitest' {

@@ -1,8 +1,8 @@
 import { eq } from 'drizzle-orm'
-import type { Database } from '../../db/client'
-import { historyOf } from '../../db/history'
-import * as t from '../../db/schema/index'
-import { loadSampleRuleSets } from '../../db/seed'
+import type { Database } from '@db/client'
+import { historyOf } from '@db/history'
+import * as t from '@db/schema'
+import { loadSampleRuleSets } from '../../server/rule-sets/index'
 import { signedIn, type TestApp } from './app'
 import { makeStaff, makeVehicle } from './factories'
 

@@ -1,10 +1,10 @@
 import turfDistance from '@turf/distance'
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { haversineKm, haversineMiles, KM_PER_MILE } from '../../shared/domain/distance'
+import { haversineKm, haversineMiles, KM_PER_MILE } from '@shared/domain/tow'
 
-const BNA = { lat: 36.12, lon: -86.67 }
-const LAX = { lat: 33.94, lon: -118.4 }
+const BNA = { lat: 36.12, lng: -86.67 }
+const LAX = { lat: 33.94, lng: -118.4 }
 
 describe('haversine — Rosetta Code task "Haversine formula" [V]', () => {
   it.each([
@@ -24,13 +24,13 @@ describe('haversine — Rosetta Code task "Haversine formula" [V]', () => {
 describe('haversine against @turf/distance (oracle library)', () => {
   const point = fc.record({
     lat: fc.double({ min: -89.9, max: 89.9, noNaN: true }),
-    lon: fc.double({ min: -179.9, max: 179.9, noNaN: true }),
+    lng: fc.double({ min: -179.9, max: 179.9, noNaN: true }),
   })
 
   it('haversineKm_anyTwoPointsAtLeast100mApart_agreesWithTurfWithin0.01Percent', () => {
     fc.assert(
       fc.property(point, point, (a, b) => {
-        const turf = turfDistance([a.lon, a.lat], [b.lon, b.lat], { units: 'kilometers' })
+        const turf = turfDistance([a.lng, a.lat], [b.lng, b.lat], { units: 'kilometers' })
         fc.pre(turf > 0.1)
         expect(Math.abs(haversineKm(a, b) - turf) / turf).toBeLessThan(1e-4)
       }),

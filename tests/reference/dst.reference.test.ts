@@ -1,10 +1,9 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import ordinanceJson from '../../db/rule-sets/ordinance-24h.json' with { type: 'json' }
-import { dayFromIsoDate } from '../../shared/domain/calendar-dates'
-import { localDay, startOfLocalDay } from '../../shared/domain/local-time'
-import { storageBill } from '../../shared/domain/storage-bill'
-import { type RuleSet, ruleSetSchema } from '../../shared/schemas/rule-sets'
+import ordinanceJson from '../../server/rule-sets/samples/ordinance-24h.json' with { type: 'json' }
+import { dayFromIsoDate, localDay, startOfLocalDay } from '@shared/domain/time'
+import { storageBill } from '@shared/domain/billing'
+import { type RuleSet, ruleSetSchema } from '@shared/schemas/rule-sets'
 
 // The oracle: the IANA time zone database as the runtime's Intl exposes it, read through
 // formatToParts — a different path from the implementation's cached offsets.

@@ -1,6 +1,6 @@
 import Holidays from 'date-holidays'
 import { describe, expect, it } from 'vitest'
-import { usFederalHolidays } from '../../shared/domain/holidays'
+import { usFederalHolidays } from '../helpers/us-federal-holidays'
 
 const observedIn = (year: number) => usFederalHolidays(year).map((h) => h.date)
 

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest'
-import californiaJson from '../../db/rule-sets/california.json' with { type: 'json' }
-import floridaJson from '../../db/rule-sets/florida.json' with { type: 'json' }
-import { usFederalCalendar } from '../../shared/domain/holidays'
-import { type ClockEvent, legalClocks } from '../../shared/domain/legal-clocks'
-import { ruleSetSchema } from '../../shared/schemas/rule-sets'
+import californiaJson from '../../server/rule-sets/samples/california.json' with { type: 'json' }
+import floridaJson from '../../server/rule-sets/samples/florida.json' with { type: 'json' }
+import { usFederalCalendar } from '../helpers/us-federal-holidays'
+import { type ClockEvent, legalClocks } from '@shared/domain/clocks'
+import { ruleSetSchema } from '@shared/schemas/rule-sets'
 
 const california = ruleSetSchema.parse(californiaJson)
 const florida = ruleSetSchema.parse(floridaJson)

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { footPoundsToNewtonMetres, NEWTON_METRES_PER_FOOT_POUND_FORCE, newtonMetresToFootPounds } from '../../shared/domain/units'
+import { footPoundsToNewtonMetres, NEWTON_METRES_PER_FOOT_POUND_FORCE, newtonMetresToFootPounds } from '@shared/domain/inspection'
 
 describe('torque units — foot and pound-force by definition (NIST SP 811, appendix B)', () => {
   it('newtonMetresPerFootPoundForce_isTheExactProductOfTheDefinitions', () => {
@@ -16,7 +16,7 @@ describe('torque units — foot and pound-force by definition (NIST SP 811, appe
   it.each([
     // A typical passenger-car lug nut spec, converted both ways (common practice figures).
     { ftLbf: 100, newtonMetres: 135.58179483314004 },
-    { ftLbf: 80, newtonMetres: 108.46543586651203 },
+    { ftLbf: 80, newtonMetres: 108.465435866512 },
   ])('newtonMetresToFootPounds_$newtonMetres_isBackTo$ftLbf', ({ ftLbf, newtonMetres }) => {
     expect(footPoundsToNewtonMetres(ftLbf)).toBeCloseTo(newtonMetres, 10)
     expect(newtonMetresToFootPounds(newtonMetres)).toBeCloseTo(ftLbf, 10)

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { vin, vinWithCheckDigit } from '../../shared/domain/vin'
+import { vin, vinWithCheckDigit } from '@shared/domain/vehicle'
 
 describe('vin check digit — 49 CFR 565.15(c)', () => {
   it.each([

@@ -1,5 +1,5 @@
-import { FINDING_LABELS, itemName, type FindingStatus } from '@shared/domain/inspection-checklist'
-import { formatCents } from '@shared/domain/money'
+import { FINDING_LABELS, itemName, type FindingStatus } from '@shared/domain/inspection'
+import { formatCents } from '@shared/domain/billing'
 
 // Plain words for what the teardown's history entries record (server/inspections), for the timeline.
 export const INSPECTION_FIELD_LABELS: Record<string, string> = {

@@ -1,7 +1,6 @@
-import { COLUMN_LABELS, type VehicleState } from '@shared/domain/columns'
-import { HOLD_LABELS, type HoldKind } from '@shared/domain/hold-kinds'
-import { formatCents } from '@shared/domain/money'
-import { TOW_REASON_LABELS, type TowReason } from '@shared/domain/tow-reasons'
+import { COLUMN_LABELS, HOLD_LABELS, type HoldKind, type VehicleState } from '@shared/domain/lifecycle'
+import { formatCents } from '@shared/domain/billing'
+import { TOW_REASON_LABELS, type TowReason } from '@shared/domain/tow'
 import { INSPECTION_FIELD_LABELS, INSPECTION_HIDDEN, inspectionValue } from '@/components/inspections/inspection-history-words'
 
 // Plain words for the fields a history event names; anything unlisted shows its own name.

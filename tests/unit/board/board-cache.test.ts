@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import type { Board, BoardCard } from '../../../shared/schemas/board'
+import type { Board, BoardCard } from '@shared/schemas/board'
 import { findCard, withCard, withoutCard } from '../../../src/composables/board-cache'
 
 const card = (id: string, state: BoardCard['state'], arrivedAt: string, version = 1) =>

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import type { BoardCard } from '../../../shared/schemas/board'
+import type { BoardCard } from '@shared/schemas/board'
 import { cardMatches, filtersFromQuery, type BoardFilters } from '../../../src/composables/board-filters'
 
 const none: BoardFilters = { q: '', reason: '', hold: '', minDays: null, overdue: false }

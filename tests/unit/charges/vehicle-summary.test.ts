@@ -1,10 +1,10 @@
 import { readFileSync } from 'node:fs'
 import { describe, expect, it } from 'vitest'
 import { summarizeVehicle } from '../../../server/charges/vehicle-summary'
-import { usFederalCalendar } from '../../../shared/domain/holidays'
-import { ruleSetSchema } from '../../../shared/schemas/rule-sets'
+import { usFederalCalendar } from '../../helpers/us-federal-holidays'
+import { ruleSetSchema } from '@shared/schemas/rule-sets'
 
-const california = ruleSetSchema.parse(JSON.parse(readFileSync('db/rule-sets/california.json', 'utf8')))
+const california = ruleSetSchema.parse(JSON.parse(readFileSync('server/rule-sets/samples/california.json', 'utf8')))
 const standardRate = california.vehicleClasses.find((c) => c.code === 'standard')!.dailyRateCents
 // The sample charges its impound fee once per stay, untaxed (tax rate 0 in the sample).
 const impound = california.fees.find((f) => f.code === 'impound')!.amountCents

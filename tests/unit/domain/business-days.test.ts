@@ -1,8 +1,7 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { countBusinessDays } from '../../../shared/domain/business-days'
-import { dayFromIsoDate, isoDate, isWeekend } from '../../../shared/domain/calendar-dates'
-import { holidayCalendarFromList, usFederalCalendar } from '../../../shared/domain/holidays'
+import { countBusinessDays, dayFromIsoDate, holidayCalendarFromList, isoDate, isWeekend } from '@shared/domain/time'
+import { usFederalCalendar } from '../../helpers/us-federal-holidays'
 
 const federal = usFederalCalendar()
 const day = (text: string) => dayFromIsoDate(text)

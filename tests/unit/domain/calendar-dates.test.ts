@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { civilFromDay, dayFromCivil, dayFromIsoDate, isoDate, isoInstant, weekday } from '../../../shared/domain/calendar-dates'
+import { civilFromDay, dayFromCivil, dayFromIsoDate, isoDate, isoInstant, weekday } from '@shared/domain/time'
 
 const DAY = 86_400_000
 const days = fc.integer({ min: -40_000, max: 120_000 })

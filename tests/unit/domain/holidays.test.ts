@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { dayFromIsoDate } from '../../../shared/domain/calendar-dates'
-import { holidayCalendarFromList, usFederalCalendar } from '../../../shared/domain/holidays'
+import { dayFromIsoDate, holidayCalendarFromList } from '@shared/domain/time'
+import { usFederalCalendar } from '../../helpers/us-federal-holidays'
 
 const day = (text: string) => dayFromIsoDate(text)
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { estimateTotals, hoursToHundredths, lineCents } from '../../../shared/domain/inspection-estimate'
+import { estimateTotals, hoursToHundredths, lineCents } from '@shared/domain/inspection'
 
 describe('lineCents — parts exact, labour half-up to the cent on each line', () => {
   it.each([

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest'
-import floridaJson from '../../../db/rule-sets/florida.json' with { type: 'json' }
-import { holidayCalendarFromList, usFederalCalendar } from '../../../shared/domain/holidays'
-import { type ClockEvent, legalClocks } from '../../../shared/domain/legal-clocks'
-import { type RuleSet, ruleSetSchema } from '../../../shared/schemas/rule-sets'
+import floridaJson from '../../../server/rule-sets/samples/florida.json' with { type: 'json' }
+import { holidayCalendarFromList } from '@shared/domain/time'
+import { usFederalCalendar } from '../../helpers/us-federal-holidays'
+import { type ClockEvent, legalClocks } from '@shared/domain/clocks'
+import { type RuleSet, ruleSetSchema } from '@shared/schemas/rule-sets'
 
 const florida = ruleSetSchema.parse(floridaJson)
 const federal = usFederalCalendar()

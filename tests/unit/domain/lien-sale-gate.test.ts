@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest'
-import californiaJson from '../../../db/rule-sets/california.json' with { type: 'json' }
-import floridaJson from '../../../db/rule-sets/florida.json' with { type: 'json' }
-import { usFederalCalendar } from '../../../shared/domain/holidays'
-import { legalClocks, type ClockEvent } from '../../../shared/domain/legal-clocks'
-import { lienSaleGate } from '../../../shared/domain/lien-sale-gate'
-import { ruleSetSchema } from '../../../shared/schemas/rule-sets'
+import californiaJson from '../../../server/rule-sets/samples/california.json' with { type: 'json' }
+import floridaJson from '../../../server/rule-sets/samples/florida.json' with { type: 'json' }
+import { usFederalCalendar } from '../../helpers/us-federal-holidays'
+import { type ClockEvent, legalClocks, lienSaleGate } from '@shared/domain/clocks'
+import { ruleSetSchema } from '@shared/schemas/rule-sets'
 
 const florida = ruleSetSchema.parse(floridaJson)
 const california = ruleSetSchema.parse(californiaJson)

@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { VEHICLE_STATES, type Disposition, type VehicleState } from '../../../shared/domain/columns'
-import { checkMove, moveOptions, type MoveFacts } from '../../../shared/domain/lifecycle'
-import { ROLES, type Role } from '../../../shared/domain/roles'
+import { checkMove, type Disposition, type MoveFacts, moveOptions, VEHICLE_STATES, type VehicleState } from '@shared/domain/lifecycle'
+import { ROLES, type Role } from '@shared/domain/access'
 
 const NOW = new Date('2026-12-03T18:00:00Z')
 const ZONE = 'America/Los_Angeles'
@@ -23,7 +22,7 @@ const facts = (over: Partial<MoveFacts>): MoveFacts => ({ ...clear, ...over })
 const policeHold = { kind: 'law_enforcement' as const, agency: 'Orrin Flats PD', caseNumber: 'OF-26-11873', until: '2026-12-12T20:00:00Z' }
 
 // DESIGN.md's access table and the yard's real moves, written out by hand: the test fails if
-// shared/domain/lifecycle.ts lets anyone else make a move or adds a move nobody asked for.
+// shared/domain/lifecycle/lifecycle.ts lets anyone else make a move or adds a move nobody asked for.
 const WHO_MAY: Record<string, Role[]> = {
   'arrival→teardown': ['manager', 'dispatcher', 'technician'],
   'arrival→release': ['manager', 'office'],

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { assertTimeZone, isTimeZone, toEpochMs } from '../../../shared/domain/local-time'
+import { assertTimeZone, isTimeZone, toEpochMs } from '@shared/domain/time'
 
 describe('instants', () => {
   it.each([

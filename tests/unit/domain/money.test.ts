@@ -1,7 +1,7 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { DomainError } from '../../../shared/domain/errors'
-import { assertCents, formatCents, multiplyRounded, taxOnLine, times } from '../../../shared/domain/money'
+import { DomainError } from '@shared/domain/errors'
+import { assertCents, formatCents, multiplyRounded, taxOnLine, times } from '@shared/domain/billing'
 
 describe('taxOnLine (half-up per line)', () => {
   it.each([

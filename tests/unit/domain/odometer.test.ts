@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { odometerDisclosure } from '../../../shared/domain/odometer'
+import { odometerDisclosure } from '@shared/domain/vehicle'
 
 describe('odometerDisclosure input', () => {
   it.each([

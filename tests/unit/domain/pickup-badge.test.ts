@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { pickupBadge } from '../../../shared/domain/pickup-badge'
-import { torqueInBothUnits } from '../../../shared/domain/workshop-safety'
+import { pickupBadge, torqueInBothUnits } from '@shared/domain/inspection'
 
 // The equipment is pickupNeeds' (common trade practice); the badge puts it in a driver's words.
 describe('pickupBadge', () => {

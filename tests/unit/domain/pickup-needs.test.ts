@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { pickupNeeds } from '../../../shared/domain/pickup-needs'
+import { pickupNeeds } from '@shared/domain/inspection'
 
 // Common trade practice (REFERENCES.md, "A fact of the trade"): no published source.
 describe('pickupNeeds — common trade practice', () => {

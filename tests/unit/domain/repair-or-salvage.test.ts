@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import californiaJson from '../../../db/rule-sets/california.json' with { type: 'json' }
-import floridaJson from '../../../db/rule-sets/florida.json' with { type: 'json' }
-import { repairOrSalvage } from '../../../shared/domain/repair-or-salvage'
-import { ruleSetSchema } from '../../../shared/schemas/rule-sets'
+import californiaJson from '../../../server/rule-sets/samples/california.json' with { type: 'json' }
+import floridaJson from '../../../server/rule-sets/samples/florida.json' with { type: 'json' }
+import { repairOrSalvage } from '@shared/domain/inspection'
+import { ruleSetSchema } from '@shared/schemas/rule-sets'
 
 const florida = ruleSetSchema.parse(floridaJson)
 const california = ruleSetSchema.parse(californiaJson)

@@ -1,10 +1,10 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import californiaJson from '../../../db/rule-sets/california.json' with { type: 'json' }
-import floridaJson from '../../../db/rule-sets/florida.json' with { type: 'json' }
-import ordinanceJson from '../../../db/rule-sets/ordinance-24h.json' with { type: 'json' }
-import { storageBill } from '../../../shared/domain/storage-bill'
-import { type RuleSet, ruleSetSchema } from '../../../shared/schemas/rule-sets'
+import californiaJson from '../../../server/rule-sets/samples/california.json' with { type: 'json' }
+import floridaJson from '../../../server/rule-sets/samples/florida.json' with { type: 'json' }
+import ordinanceJson from '../../../server/rule-sets/samples/ordinance-24h.json' with { type: 'json' }
+import { storageBill } from '@shared/domain/billing'
+import { type RuleSet, ruleSetSchema } from '@shared/schemas/rule-sets'
 
 const california = ruleSetSchema.parse(californiaJson)
 const florida = ruleSetSchema.parse(floridaJson)

@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { haversineMiles } from '../../../shared/domain/distance'
-import { towCharge } from '../../../shared/domain/tow-charge'
+import { haversineMiles, towCharge } from '@shared/domain/tow'
 
-const yard = { lat: 36.12, lon: -86.67 }
-const pickup = { lat: 36.2, lon: -86.7 }
+const yard = { lat: 36.12, lng: -86.67 }
+const pickup = { lat: 36.2, lng: -86.7 }
 const rates = { hookUpCents: 19_500, perMileCents: 650, includedMiles: 5, winchingCentsPerUnit: 9_500, dolliesCents: 7_500, afterHoursCents: 8_500 }
 
 describe('towCharge', () => {
@@ -45,7 +44,7 @@ describe('towCharge', () => {
     { why: 'negative road miles', call: () => towCharge(pickup, yard, rates, { roadMiles: -1 }), field: 'roadMiles' },
     { why: 'a fractional winching unit', call: () => towCharge(pickup, yard, rates, { winchingUnits: 1.5 }), field: 'winchingUnits' },
     { why: 'a fractional rate', call: () => towCharge(pickup, yard, { ...rates, perMileCents: 6.5 }), field: 'perMileCents' },
-    { why: 'a latitude past the pole', call: () => towCharge({ lat: 91, lon: 0 }, yard, rates), field: 'pickup' },
+    { why: 'a latitude past the pole', call: () => towCharge({ lat: 91, lng: 0 }, yard, rates), field: 'pickup' },
   ])('towCharge_$why_throwsAtItsField', ({ call, field }) => {
     expect(call).toThrow(expect.objectContaining({ field }))
   })

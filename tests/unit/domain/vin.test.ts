@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { normalizeVin, vin, vinWithCheckDigit } from '../../../shared/domain/vin'
+import { normalizeVin, vin, vinWithCheckDigit } from '@shared/domain/vehicle'
 
 describe('vin input', () => {
   it.each([

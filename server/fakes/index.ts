@@ -1,0 +1,1 @@
+export { fakesRouter } from './fakes.routes'

@@ -1,0 +1,1 @@
+export { holidayCalendar } from './holiday-calendar'

@@ -1,0 +1,1 @@
+export { quotesRouter } from './quotes.routes'

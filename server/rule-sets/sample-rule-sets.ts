@@ -1,0 +1,38 @@
+import { readdirSync, readFileSync } from 'node:fs'
+import path from 'node:path'
+import type { Database } from '@db/client'
+import { ruleSets, ruleSetVersions } from '@db/schema'
+
+/**
+ * Where the shipped sample rule sets are read from: `server/rule-sets/samples` in the source tree,
+ * found from the working directory because a bundle moves `import.meta.url`.
+ */
+export function sampleRuleSetsDir(): string {
+  return process.env.HOLDFAST_RULE_SETS ?? path.resolve(process.cwd(), 'server/rule-sets/samples')
+}
+
+/**
+ * Loads the shipped sample rule sets, each as version 1; those already loaded are left as they
+ * are. Runs whenever a yard is created, so a new company starts with the samples to copy from.
+ * Returns slug → version id of the ones it added.
+ */
+export async function loadSampleRuleSets(db: Database, dir = sampleRuleSetsDir()): Promise<Map<string, string>> {
+  const versions = new Map<string, string>()
+  const names = readdirSync(dir).filter((f) => f.endsWith('.json')).sort()
+  for (const file of names) {
+    const body = JSON.parse(readFileSync(path.join(dir, file), 'utf8')) as Record<string, unknown>
+    const slug = String(body.id ?? path.basename(file, '.json'))
+    const [set] = await db
+      .insert(ruleSets)
+      .values({ slug, name: String(body.name ?? slug), sample: 'sample' })
+      .onConflictDoNothing({ target: ruleSets.slug })
+      .returning({ id: ruleSets.id })
+    if (!set) continue
+    const [version] = await db
+      .insert(ruleSetVersions)
+      .values({ ruleSetId: set.id, version: 1, body })
+      .returning({ id: ruleSetVersions.id })
+    versions.set(slug, version!.id)
+  }
+  return versions
+}

@@ -1,0 +1,5 @@
+export * from './clock-branches'
+export * from './clock-events'
+export * from './due-dates'
+export * from './legal-clocks'
+export * from './lien-sale-gate'

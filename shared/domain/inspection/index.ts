@@ -1,0 +1,7 @@
+export * from './inspection-checklist'
+export * from './inspection-estimate'
+export * from './pickup-badge'
+export * from './pickup-needs'
+export * from './repair-or-salvage'
+export * from './workshop-safety'
+export * from './units'

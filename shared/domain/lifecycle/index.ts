@@ -1,0 +1,5 @@
+export * from './columns'
+export * from './hold-kinds'
+export * from './lifecycle'
+export * from './lifecycle-facts'
+export * from './lifecycle-guards'

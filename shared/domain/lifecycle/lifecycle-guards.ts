@@ -1,0 +1,99 @@
+import { COLUMN_LABELS, type VehicleState } from './columns'
+import { HOLD_LABELS, type HoldKind } from './hold-kinds'
+import type { LienSaleGate } from '../clocks/lien-sale-gate'
+import { formatCents } from '../billing/money'
+
+export interface HoldFact {
+  kind: HoldKind
+  agency: string | null
+  caseNumber: string | null
+  /** The date the placing agency gave, if any; a hold blocks until it is lifted, date or not. */
+  until: string | null
+}
+
+/**
+ * What the server knows about a vehicle when someone moves it. Features that have not landed
+ * (payments, waivers, the claimant's ID, the signed release) read as "not recorded" until they do.
+ */
+export interface MoveFacts {
+  timeZone: string
+  /** Active holds only. */
+  holds: readonly HoldFact[]
+  inspected: boolean
+  /** The running balance; null when no rule set bills the vehicle. */
+  balanceCents: number | null
+  paidCents: number
+  /** A manager waived what is left, with a reason. */
+  waived: boolean
+  claimantIdRecorded: boolean
+  releaseSigned: boolean
+  /** Null when no rule set gives the vehicle legal clocks. */
+  lienSale: LienSaleGate | null
+}
+
+export type ReasonCode =
+  | 'not-a-move' | 'role' | 'hold' | 'inspection' | 'balance' | 'claimant-id' | 'release-signed'
+  | 'lien-sale' | 'disposition' | 'reason'
+
+export interface Reason {
+  code: ReasonCode
+  message: string
+}
+
+export interface GuardContext {
+  to: VehicleState
+  now: Date
+}
+
+export type Guard = (facts: MoveFacts, ctx: GuardContext) => Reason[]
+
+// A date-only value ("2026-12-12") is a calendar day; an instant is shown on the yard's calendar.
+function shortDate(value: string, timeZone: string, now: Date): string {
+  const dateOnly = /^\d{4}-\d{2}-\d{2}$/.test(value)
+  const zone = dateOnly ? 'UTC' : timeZone
+  const at = new Date(dateOnly ? `${value}T12:00:00Z` : value)
+  const year = (d: Date, z: string) => new Intl.DateTimeFormat('en-GB', { year: 'numeric', timeZone: z }).format(d)
+  const showYear = year(at, zone) !== year(now, timeZone)
+  return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: showYear ? 'numeric' : undefined, timeZone: zone }).format(at)
+}
+
+const destination = (to: VehicleState) => (to === 'closed' ? 'be closed' : `go to ${COLUMN_LABELS[to]}`)
+
+/** "Law-enforcement hold (Orrin Flats Police Department, case OF-26-11873) until 12 Dec". */
+export function describeHold(h: HoldFact, timeZone: string, now: Date): string {
+  const who = [h.agency, h.caseNumber && `case ${h.caseNumber}`].filter(Boolean).join(', ')
+  const what = `${HOLD_LABELS[h.kind]}${who ? ` (${who})` : ''}`
+  if (!h.until) return what
+  const when = shortDate(h.until, timeZone, now)
+  return new Date(h.until).getTime() > now.getTime() ? `${what} until ${when}` : `${what}, set until ${when} and not yet lifted`
+}
+
+export const noActiveHold: Guard = (f, ctx) =>
+  f.holds.map((h) => ({ code: 'hold', message: `${describeHold(h, f.timeZone, ctx.now)} — it cannot ${destination(ctx.to)}.` }))
+
+export const inspectionFinished: Guard = (f) =>
+  f.inspected ? [] : [{ code: 'inspection', message: 'The inspection is not finished — the technician finishes it in Teardown first.' }]
+
+export const balanceSettled: Guard = (f) => {
+  if (f.waived) return []
+  if (f.balanceCents === null) return [{ code: 'balance', message: 'No rule set bills this vehicle, so its balance cannot be settled.' }]
+  const due = f.balanceCents - f.paidCents
+  if (due <= 0) return []
+  return [{ code: 'balance', message: `Balance unpaid: ${formatCents(due)} due. Take the payment, or a manager waives it with a reason.` }]
+}
+
+export const claimantIdRecorded: Guard = (f) =>
+  f.claimantIdRecorded ? [] : [{ code: 'claimant-id', message: "The claimant's ID is not recorded." }]
+
+export const releaseSigned: Guard = (f) => (f.releaseSigned ? [] : [{ code: 'release-signed', message: 'The release is not signed.' }])
+
+export const transferSigned: Guard = (f) =>
+  f.releaseSigned ? [] : [{ code: 'release-signed', message: 'The title transfer is not signed.' }]
+
+export const lienSaleAllowed: Guard = (f, ctx) => {
+  const gate = f.lienSale
+  if (!gate) return [{ code: 'lien-sale', message: 'No rule set gives this vehicle a lien-sale date, so the law has not been shown to allow a sale or disposal.' }]
+  if (gate.open) return []
+  if (gate.date) return [{ code: 'lien-sale', message: `The law does not allow a lien sale or disposal before ${shortDate(gate.date, f.timeZone, ctx.now)}.` }]
+  return [{ code: 'lien-sale', message: `No lien-sale date yet. ${gate.why}` }]
+}

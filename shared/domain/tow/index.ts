@@ -1,0 +1,3 @@
+export * from './distance'
+export * from './tow-charge'
+export * from './tow-reasons'

@@ -1,0 +1,108 @@
+import { DomainError } from '../errors'
+import { readModelYear, type ModelYearReading, type VinVehicleKind } from './vin-model-year'
+
+export type { ModelYearReading, VinVehicleKind } from './vin-model-year'
+
+export type VinProblem = {
+  code: 'empty' | 'too-long' | 'illegal-character' | 'illegal-letter' | 'check-digit' | 'model-year-code'
+  message: string
+  /** 1-based position in the normalised VIN. */
+  position?: number
+}
+
+export type VinReading = {
+  input: string
+  normalized: string
+  /** True when the VIN can be recorded: a valid 17-character VIN, or a short pre-1981 one. */
+  ok: boolean
+  problems: VinProblem[]
+  warnings: string[]
+  checkDigit?: { found: string; expected: string; valid: boolean }
+  modelYear?: ModelYearReading
+}
+
+// 49 CFR 565.15(c): transliteration of letters and the weight of each position.
+const VALUES: Record<string, number> = {
+  A: 1, B: 2, C: 3, D: 4, E: 5, F: 6, G: 7, H: 8,
+  J: 1, K: 2, L: 3, M: 4, N: 5, P: 7, R: 9,
+  S: 2, T: 3, U: 4, V: 5, W: 6, X: 7, Y: 8, Z: 9,
+  '0': 0, '1': 1, '2': 2, '3': 3, '4': 4, '5': 5, '6': 6, '7': 7, '8': 8, '9': 9,
+}
+const WEIGHTS = [8, 7, 6, 5, 4, 3, 2, 10, 0, 9, 8, 7, 6, 5, 4, 3, 2]
+
+/** The check digit of a 17-character VIN of legal characters: the weighted sum mod 11, 10 → X. */
+export function expectedCheckDigit(vin: string): string {
+  let sum = 0
+  for (let i = 0; i < 17; i++) sum += (VALUES[vin[i] as string] as number) * (WEIGHTS[i] as number)
+  const remainder = sum % 11
+  return remainder === 10 ? 'X' : String(remainder)
+}
+
+export function normalizeVin(text: string): string {
+  return text.trim().toUpperCase().replace(/[\s-]+/g, '')
+}
+
+const ordinal = (n: number) => `${n}${n === 1 ? 'st' : n === 2 ? 'nd' : n === 3 ? 'rd' : 'th'}`
+
+/** Read a VIN as typed: what is wrong with it, if anything, and its model year. */
+export function vin(text: string, kind: VinVehicleKind = 'light'): VinReading {
+  const normalized = normalizeVin(text)
+  const reading: VinReading = { input: text, normalized, ok: false, problems: [], warnings: [] }
+  if (normalized.length === 0) {
+    reading.problems.push({ code: 'empty', message: 'No VIN was entered.' })
+    return reading
+  }
+  if (normalized.length > 17) {
+    reading.problems.push({ code: 'too-long', message: `A VIN has 17 characters; this one has ${normalized.length}.` })
+    return reading
+  }
+  for (let i = 0; i < normalized.length; i++) {
+    const c = normalized[i] as string
+    if (!/[A-Z0-9]/.test(c)) {
+      reading.problems.push({ code: 'illegal-character', position: i + 1, message: `"${c}" (${ordinal(i + 1)} character) cannot be part of a VIN.` })
+    } else if (normalized.length === 17 && (c === 'I' || c === 'O' || c === 'Q')) {
+      const instead = c === 'I' ? '1' : '0'
+      reading.problems.push({
+        code: 'illegal-letter',
+        position: i + 1,
+        message: `The ${ordinal(i + 1)} character is the letter ${c}, which a VIN never uses — is it the digit ${instead}?`,
+      })
+    }
+  }
+  if (normalized.length < 17) {
+    reading.ok = reading.problems.length === 0
+    reading.warnings.push(
+      `This VIN has ${normalized.length} characters, not 17: accepted as a pre-1981 VIN, which has no check digit ` +
+        'or model-year code to verify — compare it with the title.',
+    )
+    return reading
+  }
+  if (reading.problems.length > 0) return reading
+
+  const found = normalized[8] as string
+  const expected = expectedCheckDigit(normalized)
+  reading.checkDigit = { found, expected, valid: found === expected }
+  if (found !== expected) {
+    reading.problems.push({
+      code: 'check-digit',
+      position: 9,
+      message: `The check digit (9th character) is ${found} but the other characters give ${expected}: a character is probably mistyped.`,
+    })
+  }
+  reading.modelYear = readModelYear(normalized, kind)
+  if (!reading.modelYear.readable) {
+    reading.problems.push({ code: 'model-year-code', position: 10, message: reading.modelYear.reason })
+  }
+  reading.ok = reading.problems.length === 0
+  return reading
+}
+
+/** A 17-character VIN from the 16 characters around position 9, with its check digit — for demo data. */
+export function vinWithCheckDigit(sixteen: string): string {
+  const chars = normalizeVin(sixteen)
+  if (chars.length !== 16 || /[^A-HJ-NPR-Z0-9]/.test(chars)) {
+    throw new DomainError('invalid-vin', `"${sixteen}" is not 16 VIN characters (no I, O or Q).`, 'vin')
+  }
+  const draft = `${chars.slice(0, 8)}0${chars.slice(8)}`
+  return `${chars.slice(0, 8)}${expectedCheckDigit(draft)}${chars.slice(8)}`
+}
