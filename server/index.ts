@@ -22,7 +22,7 @@ const log = pino({ level: config.logLevel, ...(process.stdout.isTTY ? { transpor
 
 let handle: DatabaseHandle
 try {
-  handle = await openDatabase(config.database)
+  handle = await openDatabase(config.database, config.migrationsFolder)
 } catch (err) {
   if (err instanceof DataDirLockedError) {
     log.fatal(err.message)
