@@ -5,6 +5,7 @@ import { createApp } from './app'
 import { localFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
+import { logSerializers } from './logging'
 import { pruneExpiredSessions } from './session/index'
 import { sessionSecret } from './session/secret'
 import { appVersion } from './version'
@@ -18,7 +19,7 @@ try {
   process.exit(78)
 }
 // Readable lines on a terminal, JSON lines for a log collector.
-const log = pino({ level: config.logLevel, ...(process.stdout.isTTY ? { transport: { target: 'pino-pretty', options: { ignore: 'pid,hostname' } } } : {}) })
+const log = pino({ level: config.logLevel, serializers: logSerializers, ...(process.stdout.isTTY ? { transport: { target: 'pino-pretty', options: { ignore: 'pid,hostname' } } } : {}) })
 
 let handle: DatabaseHandle
 try {
