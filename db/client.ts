@@ -18,7 +18,7 @@ export type Executor = Database | Tx
 export interface DatabaseHandle {
   db: Database
   driver: 'pglite' | 'postgres'
-  /** Applies the committed migrations in db/migrations. */
+  /** Applies the committed migrations (db/migrations unless the caller names another folder). */
   migrate(): Promise<void>
   close(): Promise<void>
 }
@@ -38,20 +38,20 @@ export class DataDirLockedError extends Error {
   }
 }
 
-export function migrationsFolder(): string {
-  return process.env.HOLDFAST_MIGRATIONS ?? path.resolve(process.cwd(), 'db/migrations')
-}
-
 const options = { schema, casing: 'snake_case' } as const
 
-export async function openDatabase(target: DatabaseTarget): Promise<DatabaseHandle> {
+/** The server passes `migrationsFolder` from its config (HOLDFAST_MIGRATIONS); db/ never imports server/. */
+export async function openDatabase(
+  target: DatabaseTarget,
+  migrationsFolder = path.resolve(process.cwd(), 'db/migrations'),
+): Promise<DatabaseHandle> {
   if (target.kind === 'postgres') {
     const pool = new pg.Pool({ connectionString: target.url, max: 10 })
     const db = drizzlePg(pool, options)
     return {
       db: db as unknown as Database,
       driver: 'postgres',
-      migrate: () => migratePg(db, { migrationsFolder: migrationsFolder() }),
+      migrate: () => migratePg(db, { migrationsFolder }),
       close: () => pool.end(),
     }
   }
@@ -73,7 +73,7 @@ export async function openDatabase(target: DatabaseTarget): Promise<DatabaseHand
   return {
     db: db as unknown as Database,
     driver: 'pglite',
-    migrate: () => migratePglite(db, { migrationsFolder: migrationsFolder() }),
+    migrate: () => migratePglite(db, { migrationsFolder }),
     async close() {
       await client.close()
       await release?.()

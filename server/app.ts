@@ -17,6 +17,7 @@ import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from
 import { quotesRouter } from './quotes/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { healthRouter } from './health/index'
+import { logSerializers, safeLogger } from './logging'
 import { memoryBus, registerBoardNotifier, type LiveBus } from './live/index'
 import { csrfProtection, currentUser, refuseNulCharacters, sessionMiddleware } from './middleware/index'
 import { sessionRouter, type SignInLimits } from './session/index'
@@ -51,7 +52,8 @@ export interface AppDeps {
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
 
 export function createApp(deps: AppDeps): Express {
-  const { db, log, files } = deps
+  const { db, files } = deps
+  const log = safeLogger(deps.log)
   const map = deps.map ?? LOCAL_MAP
   const hub = new BoardHub(db, deps.live ?? memoryBus(), log, { bucketMs: deps.boardBucketMs })
   registerBoardNotifier(db, hub)
@@ -78,7 +80,7 @@ export function createApp(deps: AppDeps): Express {
       strictTransportSecurity: deps.https ? { maxAge: 15_552_000 } : false,
     }),
   )
-  app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === '/api/health' } }))
+  app.use(pinoHttp({ logger: log, serializers: logSerializers, autoLogging: { ignore: (req) => req.url === '/api/health' } }))
   app.use(express.json({ limit: '1mb' }))
   app.use('/api', refuseNulCharacters)
   app.use('/api', sessionMiddleware(db, deps.sessionSecret, deps.https ?? false))

@@ -11,6 +11,14 @@ const envSchema = z.object({
   HOST: z.string().min(1).default('0.0.0.0'),
   DATABASE_URL: z.url({ protocol: /^postgres(ql)?$/ }).optional(),
   HOLDFAST_DATA_DIR: z.string().min(1).default('./data'),
+  // A migrated empty embedded database (npm run build makes it): a new data directory starts from it.
+  HOLDFAST_DB_TEMPLATE: z.string().min(1).default('dist/db-template.tar.gz'),
+  // The committed migrations, applied at every start; a bundle run from elsewhere points here.
+  HOLDFAST_MIGRATIONS: z.string().min(1).default('db/migrations'),
+  // The shipped sample rule sets (JSON), loaded with the demo or a company's first yard.
+  HOLDFAST_RULE_SETS: z.string().min(1).default('server/rule-sets/samples'),
+  // The built client the server serves.
+  HOLDFAST_CLIENT_DIR: z.string().min(1).default('dist/client'),
   HOLDFAST_DEMO: flag.default(true),
   // Behind a TLS-terminating proxy: Secure cookies, HSTS and upgrade-insecure-requests.
   HOLDFAST_HTTPS: flag.default(false),
@@ -33,6 +41,8 @@ export interface Config {
   port: number
   host: string
   database: { kind: 'postgres'; url: string } | { kind: 'pglite'; dataDir: string; template: string }
+  migrationsFolder: string
+  ruleSetsFolder: string
   dataDir: string
   demo: boolean
   https: boolean
@@ -58,7 +68,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   return {
     port: e.PORT,
     host: e.HOST,
-    database: e.DATABASE_URL ? { kind: 'postgres', url: e.DATABASE_URL } : { kind: 'pglite', dataDir, template: path.resolve(process.env.HOLDFAST_DB_TEMPLATE ?? 'dist/db-template.tar.gz') },
+    database: e.DATABASE_URL ? { kind: 'postgres', url: e.DATABASE_URL } : { kind: 'pglite', dataDir, template: path.resolve(e.HOLDFAST_DB_TEMPLATE) },
+    migrationsFolder: path.resolve(e.HOLDFAST_MIGRATIONS),
+    ruleSetsFolder: path.resolve(e.HOLDFAST_RULE_SETS),
     dataDir,
     demo: e.HOLDFAST_DEMO,
     https: e.HOLDFAST_HTTPS,
@@ -67,7 +79,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     sessionSecret: e.SESSION_SECRET,
     logLevel: e.LOG_LEVEL,
     signInLimits: { perIp: e.HOLDFAST_SIGNIN_PER_IP, perAccount: e.HOLDFAST_SIGNIN_PER_ACCOUNT, windowMs: 15 * 60_000 },
-    clientDir: path.resolve(process.env.HOLDFAST_CLIENT_DIR ?? 'dist/client'),
+    clientDir: path.resolve(e.HOLDFAST_CLIENT_DIR),
     filesDir: path.resolve(e.HOLDFAST_FILES_DIR ?? path.join(dataDir, 'files')),
     map: {
       tileUrl: e.HOLDFAST_TILE_URL ?? LOCAL_MAP.tileUrl,

@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
 import { DomainError } from '@shared/domain/errors'
+import { redactUrl } from './logging'
 
 export interface Issue {
   path: string
@@ -75,7 +76,7 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
       res.status(status).json({ error: err.expose === false ? 'The request was refused.' : String(err.message) })
       return
     }
-    log.error({ err, method: req.method, url: req.originalUrl }, 'request failed')
+    log.error({ err, method: req.method, url: redactUrl(req.originalUrl) }, 'request failed')
     res.status(500).json({ error: 'Something went wrong on the server. The error was logged.' })
   }
 }

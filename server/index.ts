@@ -6,6 +6,7 @@ import { localFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
 import { pruneExpiredSessions, sessionSecret } from './session/index'
+import { logSerializers } from './logging'
 import { appVersion } from './version'
 
 const started = performance.now()
@@ -17,11 +18,11 @@ try {
   process.exit(78)
 }
 // Readable lines on a terminal, JSON lines for a log collector.
-const log = pino({ level: config.logLevel, ...(process.stdout.isTTY ? { transport: { target: 'pino-pretty', options: { ignore: 'pid,hostname' } } } : {}) })
+const log = pino({ level: config.logLevel, serializers: logSerializers, ...(process.stdout.isTTY ? { transport: { target: 'pino-pretty', options: { ignore: 'pid,hostname' } } } : {}) })
 
 let handle: DatabaseHandle
 try {
-  handle = await openDatabase(config.database)
+  handle = await openDatabase(config.database, config.migrationsFolder)
 } catch (err) {
   if (err instanceof DataDirLockedError) {
     log.fatal(err.message)
@@ -34,7 +35,7 @@ await handle.migrate()
 const migrated = performance.now()
 const { db } = handle
 if (config.demo) {
-  const demo = await loadDemoIfEmpty(db)
+  const demo = await loadDemoIfEmpty(db, new Date(), config.ruleSetsFolder)
   if (demo) {
     log.info('Loaded the demo yard. Sign in with any of these (password: %s):', demo.password)
     for (const u of demo.users) log.info('  %s  %s', u.role.padEnd(10), u.email)

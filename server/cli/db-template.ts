@@ -4,9 +4,10 @@ import { writeFileSync } from 'node:fs'
 import path from 'node:path'
 import type { PGlite } from '@electric-sql/pglite'
 import { openDatabase } from '@db/client'
+import { loadConfig } from '../config'
 
 const out = path.resolve(process.argv[2] ?? 'dist/db-template.tar.gz')
-const handle = await openDatabase({ kind: 'memory' })
+const handle = await openDatabase({ kind: 'memory' }, loadConfig().migrationsFolder)
 await handle.migrate()
 const dump = await (handle.db as unknown as { $client: PGlite }).$client.dumpDataDir('gzip')
 writeFileSync(out, new Uint8Array(await dump.arrayBuffer()))

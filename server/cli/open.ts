@@ -3,7 +3,8 @@ import { loadConfig } from '../config'
 
 /** Opens and migrates the configured database for a one-off command, and closes it afterwards. */
 export async function withDatabase<T>(work: (handle: DatabaseHandle) => Promise<T>): Promise<T> {
-  const handle = await openDatabase(loadConfig().database)
+  const config = loadConfig()
+  const handle = await openDatabase(config.database, config.migrationsFolder)
   try {
     await handle.migrate()
     return await work(handle)

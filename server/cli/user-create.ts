@@ -6,6 +6,7 @@ import { createUserSchema } from '@shared/schemas/users'
 import { yardSetupSchema } from '@shared/schemas/yards'
 import { createYard } from '../yards/index'
 import { findUserByEmail, hashPassword, insertUser } from '../users/index'
+import { loadConfig } from '../config'
 import { fail, withDatabase } from './open'
 
 const { values } = parseArgs({
@@ -61,7 +62,7 @@ await withDatabase(async ({ db }) => {
   const user = await insertUser(db, { ...input, companyId: company!.id, passwordHash: await hashPassword(input.password) })
   console.log(`Created ${user.role} ${user.email} in ${company!.name}.`)
   if (yard?.success) {
-    const made = await createYard(db, company!.id, yard.data)
+    const made = await createYard(db, company!.id, yard.data, loadConfig().ruleSetsFolder)
     console.log(`Created the yard ${made.name} (stock numbers ${made.code}-…) under ${yard.data.ruleSet}.`)
   } else if ((await db.select({ n: count() }).from(yards))[0]!.n === 0) {
     console.log('There is no yard yet: run this again for a manager with --yard-name and the other yard options.')

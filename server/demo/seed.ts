@@ -19,16 +19,16 @@ export interface DemoLoaded {
 }
 
 /** Loads the demo yard when the database has no yard yet; returns null when it already has one. */
-export async function loadDemoIfEmpty(db: Database, now = new Date()): Promise<DemoLoaded | null> {
+export async function loadDemoIfEmpty(db: Database, now = new Date(), ruleSetsFolder?: string): Promise<DemoLoaded | null> {
   const [row] = await db.select({ n: count() }).from(t.yards)
   if ((row?.n ?? 0) > 0) return null
-  await db.transaction((tx) => loadDemo(tx as unknown as Database, now))
+  await db.transaction((tx) => loadDemo(tx as unknown as Database, now, ruleSetsFolder))
   return { password: DEMO_PASSWORD, users: DEMO_STAFF.map(({ email, role }) => ({ email, role })) }
 }
 
-async function loadDemo(db: Database, now: Date): Promise<void> {
+async function loadDemo(db: Database, now: Date, ruleSetsFolder: string | undefined): Promise<void> {
   const [company] = await db.insert(t.companies).values(DEMO_COMPANY).returning()
-  const ruleSetVersions = await loadSampleRuleSets(db)
+  const ruleSetVersions = await loadSampleRuleSets(db, ruleSetsFolder)
   const california = ruleSetVersions.get('california-sample')
   const [ruleSet] = california
     ? await db.select({ id: t.ruleSetVersions.ruleSetId }).from(t.ruleSetVersions).where(eq(t.ruleSetVersions.id, california))

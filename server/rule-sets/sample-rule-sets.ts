@@ -4,19 +4,18 @@ import type { Database } from '@db/client'
 import { ruleSets, ruleSetVersions } from '@db/schema'
 
 /**
- * Where the shipped sample rule sets are read from: `server/rule-sets/samples` in the source tree,
- * found from the working directory because a bundle moves `import.meta.url`.
+ * Where the shipped sample rule sets are read from unless the server's config (HOLDFAST_RULE_SETS)
+ * says otherwise: `server/rule-sets/samples`, found from the working directory because a bundle
+ * moves `import.meta.url`.
  */
-export function sampleRuleSetsDir(): string {
-  return process.env.HOLDFAST_RULE_SETS ?? path.resolve(process.cwd(), 'server/rule-sets/samples')
-}
+export const SAMPLE_RULE_SETS_DIR = path.resolve(process.cwd(), 'server/rule-sets/samples')
 
 /**
  * Loads the shipped sample rule sets, each as version 1; those already loaded are left as they
  * are. Runs whenever a yard is created, so a new company starts with the samples to copy from.
  * Returns slug → version id of the ones it added.
  */
-export async function loadSampleRuleSets(db: Database, dir = sampleRuleSetsDir()): Promise<Map<string, string>> {
+export async function loadSampleRuleSets(db: Database, dir: string = SAMPLE_RULE_SETS_DIR): Promise<Map<string, string>> {
   const versions = new Map<string, string>()
   const names = readdirSync(dir).filter((f) => f.endsWith('.json')).sort()
   for (const file of names) {
