@@ -5,6 +5,7 @@ import { companies, yards } from '../../db/schema/index'
 import { createUserSchema } from '../../shared/schemas/users'
 import { yardSetupSchema } from '../../shared/schemas/yards'
 import { createYard } from '../yards/yards.service'
+import { refusingCommonPasswords } from '../users/common-passwords'
 import { hashPassword } from '../users/passwords'
 import { findUserByEmail, insertUser } from '../users/users.queries'
 import { fail, withDatabase } from './open'
@@ -46,7 +47,7 @@ const yard = wantsYard
 if (yard && !yard.success) fail(`${USAGE}\n${yard.error.issues.map((i) => `  --yard ${i.path.join('.')}: ${i.message}`).join('\n')}`)
 
 const password = process.env.HOLDFAST_PASSWORD ?? (await ask('Password (at least 10 characters): '))
-const parsed = createUserSchema.safeParse({ ...values, password })
+const parsed = refusingCommonPasswords(createUserSchema).safeParse({ ...values, password })
 if (!parsed.success) {
   fail(
     `${USAGE}\n` +
