@@ -19,6 +19,7 @@ import { quotesRouter } from './quotes/quotes.routes'
 import { ruleSetsRouter } from './rule-sets/rule-sets.routes'
 import { healthRouter } from './health/health.routes'
 import { memoryBus, registerBoardNotifier, type LiveBus } from './live/index'
+import { anonymousCsrf } from './middleware/anonymous-csrf'
 import { csrfProtection } from './middleware/csrf'
 import { currentUser } from './middleware/current-user'
 import { refuseNulCharacters } from './middleware/no-nul'
@@ -87,11 +88,12 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', refuseNulCharacters)
   app.use('/api', sessionMiddleware(db, deps.sessionSecret, deps.https ?? false))
   app.use('/api', currentUser())
-  app.use('/api', csrfProtection(deps.origins ?? []))
+  const anonymous = anonymousCsrf(deps.sessionSecret, deps.https ?? false)
+  app.use('/api', csrfProtection(deps.origins ?? [], anonymous))
   app.use('/api', enforceAccess)
 
   app.use('/api/health', healthRouter(db, deps.version))
-  app.use('/api/session', sessionRouter(db, deps.signInLimits ?? DEFAULT_LIMITS))
+  app.use('/api/session', sessionRouter(db, anonymous, deps.signInLimits ?? DEFAULT_LIMITS))
   app.use('/api/users', usersRouter(db))
   app.use('/api/yards', yardsRouter(db))
   app.use('/api/board', boardRouter(db, hub, deps.boardStream))

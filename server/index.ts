@@ -66,7 +66,10 @@ const server = app.listen(config.port, config.host, () => {
   log.debug(`start-up: modules and database open ${Math.round(opened - started)} ms, migrations ${Math.round(migrated - opened)} ms`)
 })
 
-const pruning = setInterval(() => void pruneExpiredSessions(db).catch((err) => log.warn({ err }, 'session prune failed')), 15 * 60_000)
+// Expired sessions go at start (after a long stop many have) and every 15 minutes after.
+const prune = () => void pruneExpiredSessions(db).catch((err) => log.warn({ err }, 'session prune failed'))
+prune()
+const pruning = setInterval(prune, 15 * 60_000)
 pruning.unref()
 
 let stopping = false

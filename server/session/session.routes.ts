@@ -1,9 +1,9 @@
-import type { Request } from 'express'
 import { Router } from 'express'
 import { rateLimit } from 'express-rate-limit'
 import type { Database } from '../../db/client'
 import { signInSchema } from '../../shared/schemas/session'
 import { AppError } from '../errors'
+import type { AnonymousCsrf } from '../middleware/anonymous-csrf'
 import { newCsrfToken } from '../middleware/session'
 import { signIn, signInRefused, stillAsVerified } from './session.service'
 
@@ -21,12 +21,7 @@ function promisify(fn: (cb: (err?: unknown) => void) => void): Promise<void> {
   return new Promise((resolve, reject) => fn((err) => (err ? reject(err) : resolve())))
 }
 
-function csrfTokenOf(req: Request): string {
-  req.session.csrfToken ??= newCsrfToken()
-  return req.session.csrfToken
-}
-
-export function sessionRouter(db: Database, limits: SignInLimits): Router {
+export function sessionRouter(db: Database, anonymous: AnonymousCsrf, limits: SignInLimits): Router {
   const router = Router()
   const byIp = rateLimit({
     windowMs: limits.windowMs,
@@ -45,8 +40,10 @@ export function sessionRouter(db: Database, limits: SignInLimits): Router {
     handler: (_req, _res, next) => next(new AppError(429, TOO_MANY)),
   })
 
+  // Signed in: the session's own token. Signed out: nothing is kept, so no session row is written.
   router.get('/', (req, res) => {
-    res.json({ user: req.user ?? null, csrfToken: csrfTokenOf(req) })
+    const csrfToken = req.user && req.session.csrfToken ? req.session.csrfToken : anonymous.tokenFor(req, res)
+    res.json({ user: req.user ?? null, csrfToken })
   })
 
   router.post('/', byIp, byAccount, async (req, res) => {

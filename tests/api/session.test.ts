@@ -1,6 +1,7 @@
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { sessions } from '../../db/schema/index'
+import { pruneExpiredSessions } from '../../server/session/index'
 import { browserSession, makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { makeStaff, makeUser } from '../helpers/factories'
 
@@ -15,17 +16,18 @@ describe('session API', () => {
   it('GET /api/session when signed out returns no user and a CSRF token', async () => {
     const res = await request(t.app).get('/api/session').expect(200)
     expect(res.body.user).toBeNull()
-    expect(res.body.csrfToken).toMatch(/^[\w-]{40,}$/)
+    expect(res.body.csrfToken).toMatch(/^[\w.-]{40,}$/)
   })
 
   it('POST /api/session with the right password returns the user and regenerates the session id', async () => {
     const staff = await makeStaff(t.db)
     const s = await browserSession(t.app)
-    const before = (await s.get('/api/session')).headers['set-cookie']?.[0]
+    const sid = (r: { headers: Record<string, unknown> }) => ((r.headers['set-cookie'] as string[] | undefined) ?? []).find((c) => c.startsWith('holdfast.sid='))
+    const before = sid(await s.get('/api/session'))
     const res = await s.signIn(staff.office.email, staff.office.password)
     expect(res.status).toBe(200)
     expect(res.body.user).toEqual({ id: staff.office.id, email: staff.office.email, name: staff.office.name, role: 'office' })
-    const after = res.headers['set-cookie']?.[0]
+    const after = sid(res)
     expect(after).toBeDefined()
     expect(after!.split(';')[0]).not.toBe(before?.split(';')[0])
     expect(after).toMatch(/HttpOnly/)
@@ -94,6 +96,53 @@ describe('session API', () => {
     await signedIn(t.app, staff.manager)
     const rows = await t.db.select().from(sessions)
     expect(rows.some((r) => r.userId === staff.manager.id)).toBe(true)
+  })
+})
+
+describe('anonymous visits', () => {
+  it('GET /api/session when signed out writes no session row, however often it is asked', async () => {
+    const before = await t.db.$count(sessions)
+    for (let i = 0; i < 30; i++) await request(t.app).get('/api/session').expect(200)
+    expect(await t.db.$count(sessions)).toBe(before)
+  })
+
+  it('one browser keeps one anonymous token across page loads, so two tabs agree', async () => {
+    const agent = request.agent(t.app)
+    const first = (await agent.get('/api/session')).body.csrfToken
+    expect((await agent.get('/api/session')).body.csrfToken).toBe(first)
+  })
+
+  it('the anonymous token must come back in the header and in its own cookie: the header alone is refused', async () => {
+    const staff = await makeStaff(t.db)
+    const { csrfToken } = (await request(t.app).get('/api/session')).body
+    const res = await request(t.app).post('/api/session').set('x-csrf-token', csrfToken).send({ email: staff.manager.email, password: staff.manager.password })
+    expect(res.status).toBe(403)
+  })
+
+  it('a made-up token sent as both header and cookie is refused: the server signs the ones it hands out', async () => {
+    const staff = await makeStaff(t.db)
+    const made = `${Date.now().toString(36)}.bWFkZS11cC1ub25jZS1mb3ItdGVzdA.c2lnbmF0dXJlLXRoYXQtaXMtbm90LXJlYWw`
+    const res = await request(t.app)
+      .post('/api/session')
+      .set('cookie', `holdfast.csrf=${made}`)
+      .set('x-csrf-token', made)
+      .send({ email: staff.manager.email, password: staff.manager.password })
+    expect(res.status).toBe(403)
+  })
+})
+
+describe('pruning', () => {
+  it('pruneExpiredSessions deletes expired session rows and keeps live ones', async () => {
+    const staff = await makeStaff(t.db)
+    const sid = (s: string) => `prune-test-${s}-${staff.company.id}`
+    await t.db.insert(sessions).values([
+      { sid: sid('old'), userId: staff.office.id, data: {}, expiresAt: new Date(Date.now() - 1_000) },
+      { sid: sid('live'), userId: staff.office.id, data: {}, expiresAt: new Date(Date.now() + 60_000) },
+    ])
+    await pruneExpiredSessions(t.db)
+    const left = (await t.db.select().from(sessions)).map((r) => r.sid)
+    expect(left).toContain(sid('live'))
+    expect(left).not.toContain(sid('old'))
   })
 })
 
