@@ -24,7 +24,7 @@ import { csrfProtection } from './middleware/csrf'
 import { currentUser } from './middleware/current-user'
 import { refuseNulCharacters } from './middleware/no-nul'
 import { sessionMiddleware } from './middleware/session'
-import { sessionRouter, type SignInLimits } from './session/index'
+import { knownDevices, sessionRouter, signInThrottle, type SignInLimits } from './session/index'
 import { spacesRouter, vehicleSpaceRouter } from './spaces/index'
 import { usersRouter } from './users/index'
 import { vehiclesRouter } from './vehicles/index'
@@ -93,7 +93,11 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', enforceAccess)
 
   app.use('/api/health', healthRouter(db, deps.version))
-  app.use('/api/session', sessionRouter(db, anonymous, deps.signInLimits ?? DEFAULT_LIMITS))
+  const limits = deps.signInLimits ?? DEFAULT_LIMITS
+  app.use(
+    '/api/session',
+    sessionRouter(db, { anonymous, devices: knownDevices(deps.sessionSecret, deps.https ?? false, limits.now), throttle: signInThrottle(db, limits, log) }),
+  )
   app.use('/api/users', usersRouter(db))
   app.use('/api/yards', yardsRouter(db))
   app.use('/api/board', boardRouter(db, hub, deps.boardStream))

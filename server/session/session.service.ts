@@ -18,10 +18,11 @@ export interface Verified {
   passwordHash: string
 }
 
-export async function signIn(db: Database, input: SignIn): Promise<Verified> {
+/** The account the e-mail and password match, or null: unknown, wrong password or deactivated alike. */
+export async function signIn(db: Database, input: SignIn): Promise<Verified | null> {
   const row = await findUserByEmail(db, input.email)
   const ok = await verifyPassword(row?.passwordHash, input.password)
-  if (!row || !ok || !row.active) throw signInRefused()
+  if (!row || !ok || !row.active) return null
   return { user: { id: row.id, email: row.email, name: row.name, role: row.role }, passwordHash: row.passwordHash }
 }
 

@@ -2,6 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
 import { afterAll, describe, expect, it } from 'vitest'
+import { cookieSet } from '../helpers/live'
 import { startServer, waitForHealth } from '../helpers/server-process'
 
 const dataDir = mkdtempSync(path.join(tmpdir(), 'holdfast-lock-'))
@@ -10,14 +11,14 @@ afterAll(() => rmSync(dataDir, { recursive: true, force: true }))
 async function signInAndCount(port: number) {
   const base = `http://127.0.0.1:${port}`
   const first = await fetch(`${base}/api/session`)
-  const cookie = first.headers.get('set-cookie')!.split(';')[0]!
+  const cookie = cookieSet(first, 'holdfast.csrf')
   const { csrfToken } = (await first.json()) as { csrfToken: string }
   const signIn = await fetch(`${base}/api/session`, {
     method: 'POST',
     headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken },
     body: JSON.stringify({ email: 'delia@tamsincreek.example', password: 'quarry-spur-demo' }),
   })
-  const session = signIn.headers.get('set-cookie')!.split(';')[0]!
+  const session = cookieSet(signIn, 'holdfast.sid')
   const board = (await (await fetch(`${base}/api/board`, { headers: { cookie: session } })).json()) as { columns: { cards: unknown[] }[] }
   return board.columns.reduce((n, c) => n + c.cards.length, 0)
 }

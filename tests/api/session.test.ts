@@ -147,7 +147,7 @@ describe('pruning', () => {
 })
 
 describe('sign-in rate limits', () => {
-  it('a sixth failed sign-in for one account in the window answers 429, even with the right password', async () => {
+  it('after five failures for one account from one browser and address, the next attempt waits (429), even with the right password', async () => {
     const limited = await makeTestApp({ signInLimits: { perAccount: 5, perIp: 100, windowMs: 60_000 } })
     try {
       const staff = await makeStaff(limited.db)
@@ -155,13 +155,13 @@ describe('sign-in rate limits', () => {
       for (let i = 0; i < 5; i++) expect((await s.signIn(staff.manager.email, 'wrong password')).status).toBe(401)
       const res = await s.signIn(staff.manager.email, staff.manager.password)
       expect(res.status).toBe(429)
-      expect(res.body.error).toMatch(/Too many sign-in attempts/)
+      expect(res.body.error).toMatch(/Too many failed sign-ins/)
     } finally {
       await limited.close()
     }
   })
 
-  it('attempts past the per-IP limit answer 429 whatever the account', async () => {
+  it('failures past the per-IP limit make that address wait, whatever the account', async () => {
     const limited = await makeTestApp({ signInLimits: { perAccount: 100, perIp: 3, windowMs: 60_000 } })
     try {
       const s = await browserSession(limited.app)
