@@ -2,6 +2,7 @@ import { Router } from 'express'
 import type { Database } from '../../db/client'
 import { signInSchema } from '../../shared/schemas/session'
 import { AppError } from '../errors'
+import { sessionKey, sessionsEnded } from '../live/index'
 import type { AnonymousCsrf } from '../middleware/anonymous-csrf'
 import { newCsrfToken } from '../middleware/session'
 import type { KnownDevices } from './known-devices'
@@ -64,7 +65,10 @@ export function sessionRouter(db: Database, { anonymous, devices, throttle }: Se
   })
 
   router.delete('/', async (req, res) => {
+    const ended = sessionKey(req.sessionID)
     await promisify((cb) => req.session.destroy(cb))
+    // Its open board streams end now, on every app server, not at their next heartbeat.
+    await sessionsEnded(db, { sessionKey: ended })
     res.clearCookie('holdfast.sid', { path: '/' })
     res.status(204).end()
   })

@@ -1,6 +1,7 @@
 import type { Database } from '../../db/client'
 import type { CreateUser, UpdateUser, User } from '../../shared/schemas/users'
 import { conflict, notFound, unprocessable } from '../errors'
+import { sessionsEnded } from '../live/index'
 import { endSessionsOf, renameInSessions } from '../session/session-store'
 import { hashPassword } from './passwords'
 import * as q from './users.queries'
@@ -27,7 +28,8 @@ export async function createUser(db: Database, actor: User, input: CreateUser) {
 }
 
 export async function changeUser(db: Database, actor: User, id: string, input: UpdateUser) {
-  return db.transaction(async (tx) => {
+  const endsSessions = input.active === false || input.role !== undefined
+  const row = await db.transaction(async (tx) => {
     const target = await q.findUser(tx, id)
     const me = await q.findUser(tx, actor.id)
     if (!target || target.companyId !== me!.companyId) throw notFound('That user')
@@ -36,10 +38,13 @@ export async function changeUser(db: Database, actor: User, id: string, input: U
       throw unprocessable('The company must keep at least one active manager.')
     }
     const row = await q.updateUser(tx, id, input)
-    if (input.active === false || input.role) await endSessionsOf(tx, id)
+    if (endsSessions) await endSessionsOf(tx, id)
     else if (input.name) await renameInSessions(tx, id, input.name)
     return toRow(row!)
   })
+  // Their open board streams too, on every app server.
+  if (endsSessions) await sessionsEnded(db, { userId: id })
+  return row
 }
 
 export async function resetPassword(db: Database, actor: User, id: string, password: string) {
@@ -52,4 +57,5 @@ export async function resetPassword(db: Database, actor: User, id: string, passw
     await q.updateUser(tx, id, { passwordHash })
     await endSessionsOf(tx, id)
   })
+  await sessionsEnded(db, { userId: id })
 }
