@@ -17,7 +17,9 @@ export const users = pgTable(
     createdAt: createdAt(),
     updatedAt: at().notNull().defaultNow(),
   },
-  (t) => [uniqueIndex('users_email_lower').on(sql`lower(${t.email})`)],
+  // An address is unique within a company, not across them: refusing one another company uses would
+  // tell a manager that it does. Sign-in tries the password on each account with the address.
+  (t) => [uniqueIndex('users_company_email_lower').on(t.companyId, sql`lower(${t.email})`), index('users_email_lower').on(sql`lower(${t.email})`)],
 )
 
 // express-session rows; user_id lets a deactivation end every session of that user at once.

@@ -7,7 +7,7 @@ import { yardSetupSchema } from '../../shared/schemas/yards'
 import { createYard } from '../yards/yards.service'
 import { refusingCommonPasswords } from '../users/common-passwords'
 import { hashPassword } from '../users/passwords'
-import { findUserByEmail, insertUser } from '../users/users.queries'
+import { findUserByEmailInCompany, insertUser } from '../users/users.queries'
 import { fail, withDatabase } from './open'
 
 const { values } = parseArgs({
@@ -57,9 +57,9 @@ if (!parsed.success) {
 const input = parsed.data
 
 await withDatabase(async ({ db }) => {
-  if (await findUserByEmail(db, input.email)) fail(`A user with the e-mail ${input.email} already exists.`)
   const [n] = await db.select({ n: count() }).from(companies)
   const [company] = n!.n > 0 ? await db.select().from(companies).limit(1) : await db.insert(companies).values({ name: values.company! }).returning()
+  if (await findUserByEmailInCompany(db, company!.id, input.email)) fail(`A user with the e-mail ${input.email} already exists.`)
   const user = await insertUser(db, { ...input, companyId: company!.id, passwordHash: await hashPassword(input.password) })
   console.log(`Created ${user.role} ${user.email} in ${company!.name}.`)
   if (yard?.success) {

@@ -13,18 +13,27 @@ export async function listUsers(db: Database, actor: User) {
   return (await q.listUsers(db, me!.companyId)).map(toRow)
 }
 
+// Only the manager's own company is looked at: whether another company uses the address is not
+// theirs to learn, and an account there does not stand in the way (sign-in tells them apart by password).
+const alreadyOnStaff = (email: string) => conflict(`${email} is already on your staff list. Find them there, or use another address.`)
+
 export async function createUser(db: Database, actor: User, input: CreateUser) {
   const me = await q.findUser(db, actor.id)
-  if (await q.findUserByEmail(db, input.email)) throw conflict(`A user with the e-mail ${input.email} already exists.`)
+  if (await q.findUserByEmailInCompany(db, me!.companyId, input.email)) throw alreadyOnStaff(input.email)
   const passwordHash = await hashPassword(input.password)
-  const row = await q.insertUser(db, {
-    companyId: me!.companyId,
-    email: input.email,
-    name: input.name,
-    role: input.role,
-    passwordHash,
-  })
-  return toRow(row)
+  try {
+    const row = await q.insertUser(db, { companyId: me!.companyId, email: input.email, name: input.name, role: input.role, passwordHash })
+    return toRow(row)
+  } catch (err) {
+    // Two managers adding the same person at once: the unique index decides.
+    if (isUniqueViolation(err, 'users_company_email_lower')) throw alreadyOnStaff(input.email)
+    throw err
+  }
+}
+
+function isUniqueViolation(err: unknown, constraint: string): boolean {
+  const e = ((err as { cause?: unknown })?.cause ?? err) as { code?: string; constraint?: string; message?: string }
+  return e?.code === '23505' && (e.constraint === constraint || (e.message ?? '').includes(constraint))
 }
 
 export async function changeUser(db: Database, actor: User, id: string, input: UpdateUser) {
