@@ -99,6 +99,33 @@ describe('session API', () => {
   })
 })
 
+describe('behind a TLS-terminating proxy (HOLDFAST_HTTPS=1 with HOLDFAST_TRUST_PROXY)', () => {
+  it('a sign-in through the proxy gets a Secure session cookie that keeps it signed in', async () => {
+    const https = await makeTestApp({ https: true, trustProxy: 'loopback' })
+    try {
+      const staff = await makeStaff(https.db)
+      // Secure cookies, sent back by hand: supertest speaks plain HTTP to the app, as the proxy does.
+      const first = await request(https.app).get('/api/session').set('x-forwarded-proto', 'https').expect(200)
+      const csrf = (first.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith('holdfast.csrf='))!
+      expect(csrf).toMatch(/; Secure/)
+      const res = await request(https.app)
+        .post('/api/session')
+        .set('x-forwarded-proto', 'https')
+        .set('cookie', csrf.split(';')[0]!)
+        .set('x-csrf-token', first.body.csrfToken)
+        .send({ email: staff.office.email, password: staff.office.password })
+      expect(res.status).toBe(200)
+      const sid = (res.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith('holdfast.sid='))!
+      expect(sid).toMatch(/; Secure/)
+      const cookie = sid.split(';')[0]!
+      const me = await request(https.app).get('/api/session').set('x-forwarded-proto', 'https').set('cookie', cookie)
+      expect(me.body.user.id).toBe(staff.office.id)
+    } finally {
+      await https.close()
+    }
+  })
+})
+
 describe('anonymous visits', () => {
   it('GET /api/session when signed out writes no session row, however often it is asked', async () => {
     const before = await t.db.$count(sessions)
