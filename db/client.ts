@@ -7,8 +7,10 @@ import { drizzle as drizzlePg } from 'drizzle-orm/node-postgres'
 import { migrate as migratePglite } from 'drizzle-orm/pglite/migrator'
 import { migrate as migratePg } from 'drizzle-orm/node-postgres/migrator'
 import pg from 'pg'
-import lockfile from 'proper-lockfile'
+import { lockDataDir } from './data-dir-lock'
 import * as schema from './schema/index'
+
+export { DataDirLockedError } from './data-dir-lock'
 
 // One type for both drivers: a union of the two instances breaks `.returning()`.
 export type Database = PgDatabase<PgQueryResultHKT, typeof schema>
@@ -27,16 +29,6 @@ export type DatabaseTarget =
   | { kind: 'postgres'; url: string }
   | { kind: 'pglite'; dataDir: string; /** A migrated empty database (dumpDataDir) to start a new directory from. */ template?: string }
   | { kind: 'memory'; loadDataDir?: Blob | File }
-
-export class DataDirLockedError extends Error {
-  constructor(readonly dataDir: string) {
-    super(
-      `The data directory ${dataDir} is in use by another Holdfast process. ` +
-        'Two processes on one embedded database silently lose data, so this one will not start. ' +
-        'Stop the other process (or point HOLDFAST_DATA_DIR elsewhere) and try again.',
-    )
-  }
-}
 
 const options = { schema, casing: 'snake_case' } as const
 
@@ -59,7 +51,7 @@ export async function openDatabase(
   let client: PGlite
   if (target.kind === 'pglite') {
     mkdirSync(target.dataDir, { recursive: true })
-    release = await lockDataDir(target.dataDir)
+    release = lockDataDir(target.dataDir)
     try {
       client = await PGlite.create(path.join(target.dataDir, 'pg'), startingPoint(target))
     } catch (err) {
@@ -86,23 +78,4 @@ function startingPoint(target: { dataDir: string; template?: string }) {
   const fresh = !existsSync(path.join(target.dataDir, 'pg', 'PG_VERSION'))
   if (!fresh || !target.template || !existsSync(target.template)) return {}
   return { loadDataDir: new Blob([new Uint8Array(readFileSync(target.template))]) }
-}
-
-// PGlite takes no lock of its own: two processes on one directory both "work" and lose rows.
-async function lockDataDir(dataDir: string): Promise<() => Promise<void>> {
-  try {
-    return await lockfile.lock(dataDir, {
-      lockfilePath: path.join(dataDir, 'holdfast.lock'),
-      stale: 15_000,
-      update: 5_000,
-      retries: 0,
-      onCompromised: (err) => {
-        console.error(`Lost the lock on ${dataDir}; stopping to protect the data.`, err)
-        process.exit(70)
-      },
-    })
-  } catch (err) {
-    if ((err as NodeJS.ErrnoException).code === 'ELOCKED') throw new DataDirLockedError(dataDir)
-    throw err
-  }
 }

@@ -19,8 +19,8 @@ import { ruleSetsRouter } from './rule-sets/index'
 import { healthRouter } from './health/index'
 import { logSerializers, safeLogger } from './logging'
 import { memoryBus, registerBoardNotifier, type LiveBus } from './live/index'
-import { csrfProtection, currentUser, refuseNulCharacters, sessionMiddleware } from './middleware/index'
-import { sessionRouter, type SignInLimits } from './session/index'
+import { anonymousCsrf, csrfProtection, currentUser, refuseNulCharacters, sessionMiddleware } from './middleware/index'
+import { knownDevices, sessionRouter, type SignInLimits, signInThrottle } from './session/index'
 import { spacesRouter, vehicleSpaceRouter } from './spaces/index'
 import { usersRouter } from './users/index'
 import { vehiclesRouter } from './vehicles/index'
@@ -85,11 +85,16 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', refuseNulCharacters)
   app.use('/api', sessionMiddleware(db, deps.sessionSecret, deps.https ?? false))
   app.use('/api', currentUser())
-  app.use('/api', csrfProtection(deps.origins ?? []))
+  const anonymous = anonymousCsrf(deps.sessionSecret, deps.https ?? false)
+  app.use('/api', csrfProtection(deps.origins ?? [], anonymous))
   app.use('/api', enforceAccess)
 
   app.use('/api/health', healthRouter(db, deps.version))
-  app.use('/api/session', sessionRouter(db, deps.signInLimits ?? DEFAULT_LIMITS))
+  const limits = deps.signInLimits ?? DEFAULT_LIMITS
+  app.use(
+    '/api/session',
+    sessionRouter(db, { anonymous, devices: knownDevices(deps.sessionSecret, deps.https ?? false, limits.now), throttle: signInThrottle(db, limits, log) }),
+  )
   app.use('/api/users', usersRouter(db))
   app.use('/api/yards', yardsRouter(db))
   app.use('/api/board', boardRouter(db, hub, deps.boardStream))

@@ -64,6 +64,15 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     throw new Error(`Holdfast cannot start: the environment is not valid.\n${lines.join('\n')}`)
   }
   const e = parsed.data
+  // Holdfast serves plain HTTP; it only knows a request came over HTTPS from a trusted proxy's
+  // X-Forwarded-Proto, and without that no Secure session cookie is ever set: no one could sign in.
+  if (e.HOLDFAST_HTTPS && !e.HOLDFAST_TRUST_PROXY) {
+    throw new Error(
+      'Holdfast cannot start: HOLDFAST_HTTPS=1 needs HOLDFAST_TRUST_PROXY, the address of the proxy that ends TLS ' +
+        '(e.g. HOLDFAST_TRUST_PROXY=loopback when it runs on this machine, or its IP address), so that its ' +
+        'X-Forwarded-Proto header is believed. Or unset HOLDFAST_HTTPS for plain HTTP.',
+    )
+  }
   const dataDir = path.resolve(e.HOLDFAST_DATA_DIR)
   return {
     port: e.PORT,

@@ -5,7 +5,7 @@ import { createApp } from './app'
 import { localFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
-import { pruneExpiredSessions, sessionSecret } from './session/index'
+import { pruneExpiredSessions, pruneSignInFailures, sessionSecret } from './session/index'
 import { logSerializers } from './logging'
 import { appVersion } from './version'
 
@@ -66,7 +66,11 @@ const server = app.listen(config.port, config.host, () => {
   log.debug(`start-up: modules and database open ${Math.round(opened - started)} ms, migrations ${Math.round(migrated - opened)} ms`)
 })
 
-const pruning = setInterval(() => void pruneExpiredSessions(db).catch((err) => log.warn({ err }, 'session prune failed')), 15 * 60_000)
+// Expired sessions and sign-in counters go at start (after a long stop many have) and every 15 minutes after.
+const prune = () =>
+  void Promise.all([pruneExpiredSessions(db), pruneSignInFailures(db, config.signInLimits.windowMs)]).catch((err) => log.warn({ err }, 'session prune failed'))
+prune()
+const pruning = setInterval(prune, 15 * 60_000)
 pruning.unref()
 
 let stopping = false

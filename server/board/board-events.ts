@@ -1,7 +1,10 @@
 import type { RequestHandler } from 'express'
 import type { Database } from '@db/client'
+import { AppError } from '../errors'
+import { sessionKey } from '../live/index'
 import { boardYardOf } from './board-cards'
 import type { BoardHub } from './board-hub'
+import { STREAMS_PER_SESSION } from './session-streams'
 
 export interface StreamTiming {
   /** A comment line now and then keeps proxies and the browser from dropping a quiet stream. */
@@ -14,10 +17,25 @@ const DEFAULT_TIMING: StreamTiming = { heartbeatMs: 20_000, lifetimeMs: 5 * 60_0
 // EventSource waits this long before reconnecting by itself.
 const RETRY_MS = 2_000
 
+const TOO_MANY_STREAMS =
+  `This sign-in already has ${STREAMS_PER_SESSION} live board connections open, the most it may. ` +
+  'Close Holdfast in another tab or window and this board will connect.'
+
 /** GET /api/board/events: Server-Sent Events with every change to the signed-in yard's board. */
 export function boardEvents(db: Database, hub: BoardHub, timing: StreamTiming = DEFAULT_TIMING): RequestHandler {
   return async (req, res) => {
     const yard = await boardYardOf(db, req.user!.id)
+    let open = true
+    let stop = () => {}
+    const end = () => {
+      if (!open) return
+      open = false
+      stop()
+      res.end()
+    }
+    // Ended at once when its session ends (signed out, deactivated, new role or password), on any server.
+    const release = hub.holdStream({ sessionKey: sessionKey(req.sessionID), userId: req.user!.id }, end)
+    if (!release) throw new AppError(429, TOO_MANY_STREAMS)
     const since = req.get('last-event-id') || (typeof req.query.since === 'string' ? req.query.since.slice(0, 60) : undefined)
     res.writeHead(200, {
       'content-type': 'text/event-stream; charset=utf-8',
@@ -27,18 +45,9 @@ export function boardEvents(db: Database, hub: BoardHub, timing: StreamTiming = 
       'x-accel-buffering': 'no',
     })
     res.write(`retry: ${RETRY_MS}\n\n`)
-    let open = true
-    const end = () => {
-      if (!open) return
-      open = false
-      clearInterval(heartbeat)
-      clearTimeout(lifetime)
-      unsubscribe()
-      res.end()
-    }
     const unsubscribe = hub.subscribe(yard, { send: (m) => res.write(`id: ${m.id}\ndata: ${m.data}\n\n`), end }, since)
-    // Each heartbeat also looks the session up again: signing out, a deactivation or a new role
-    // deletes the session row, and the stream ends within a heartbeat rather than at its lifetime.
+    // Each heartbeat also looks the session up again, in case its end was not heard (a session
+    // that expired, a bus that was down): the stream ends within a heartbeat, not at its lifetime.
     const heartbeat = setInterval(() => {
       res.write(': keep-alive\n\n')
       req.sessionStore.get(req.sessionID, (err, current) => {
@@ -46,6 +55,12 @@ export function boardEvents(db: Database, hub: BoardHub, timing: StreamTiming = 
       })
     }, timing.heartbeatMs)
     const lifetime = setTimeout(end, timing.lifetimeMs)
+    stop = () => {
+      clearInterval(heartbeat)
+      clearTimeout(lifetime)
+      unsubscribe()
+      release()
+    }
     req.on('close', end)
   }
 }

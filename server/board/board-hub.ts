@@ -2,11 +2,12 @@ import { randomUUID } from 'node:crypto'
 import type { Logger } from 'pino'
 import type { Database } from '@db/client'
 import type { BoardCard } from '@shared/schemas/board'
-import type { BoardChange, BoardNotifier, LiveBus, VehicleChange } from '../live/index'
+import type { BoardChange, BoardNotifier, LiveBus, SessionsEnded, VehicleChange } from '../live/index'
 import { activeCards, cardOf, type BoardYard } from './board-cards'
 import { yardOfVehicle } from './board.queries'
 import { BoardFeed, type FeedClient } from './board-feed'
 import { BoardSnapshot, type BoardBody } from './board-snapshot'
+import { SessionStreams, type StreamOwner } from './session-streams'
 
 export interface BoardHubOptions {
   /** How long a computed board is served before balances and days are worked out again. */
@@ -28,6 +29,7 @@ export class BoardHub implements BoardNotifier {
   private readonly snapshots = new Map<string, BoardSnapshot>()
   private readonly feeds = new Map<string, BoardFeed>()
   private readonly queues = new Map<string, Promise<unknown>>()
+  private readonly streams = new SessionStreams()
   private readonly unsubscribe: () => void
 
   constructor(
@@ -39,6 +41,7 @@ export class BoardHub implements BoardNotifier {
     this.bucketMs = options.bucketMs ?? 60_000
     this.unsubscribe = bus.subscribe({
       change: (c) => c.origin !== this.origin && this.apply(c),
+      sessionsEnded: (ended) => this.streams.end(ended),
       lost: () => this.startOver(),
       closed: () => this.endClients(),
     })
@@ -58,6 +61,24 @@ export class BoardHub implements BoardNotifier {
     } catch (err) {
       this.log.warn({ err, change }, 'could not announce a board change')
     }
+  }
+
+  /** Sessions ended: their streams end here at once, then on every other server through the bus. */
+  async sessionsEnded(ended: SessionsEnded): Promise<void> {
+    this.streams.end(ended)
+    try {
+      await this.bus.endSessions(ended)
+    } catch (err) {
+      this.log.warn({ err }, 'could not announce the end of sessions; their streams end at their next heartbeat')
+    }
+  }
+
+  /**
+   * Counts a stream against its session; null when the session already has as many as it may.
+   * `end` is called when the session ends; the returned function releases the stream.
+   */
+  holdStream(owner: StreamOwner, end: () => void): (() => void) | null {
+    return this.streams.add(owner, end)
   }
 
   /** The board as GET /api/board sends it, after every change already heard. */

@@ -1,12 +1,12 @@
 import { parseArgs } from 'node:util'
 import { createInterface } from 'node:readline/promises'
 import { count } from 'drizzle-orm'
+import { findUserByEmailInCompany, hashPassword, insertUser, refusingCommonPasswords } from '../users/index'
+import { loadConfig } from '../config'
 import { companies, yards } from '@db/schema'
 import { createUserSchema } from '@shared/schemas/users'
 import { yardSetupSchema } from '@shared/schemas/yards'
 import { createYard } from '../yards/index'
-import { findUserByEmail, hashPassword, insertUser } from '../users/index'
-import { loadConfig } from '../config'
 import { fail, withDatabase } from './open'
 
 const { values } = parseArgs({
@@ -46,7 +46,7 @@ const yard = wantsYard
 if (yard && !yard.success) fail(`${USAGE}\n${yard.error.issues.map((i) => `  --yard ${i.path.join('.')}: ${i.message}`).join('\n')}`)
 
 const password = process.env.HOLDFAST_PASSWORD ?? (await ask('Password (at least 10 characters): '))
-const parsed = createUserSchema.safeParse({ ...values, password })
+const parsed = refusingCommonPasswords(createUserSchema).safeParse({ ...values, password })
 if (!parsed.success) {
   fail(
     `${USAGE}\n` +
@@ -56,9 +56,9 @@ if (!parsed.success) {
 const input = parsed.data
 
 await withDatabase(async ({ db }) => {
-  if (await findUserByEmail(db, input.email)) fail(`A user with the e-mail ${input.email} already exists.`)
   const [n] = await db.select({ n: count() }).from(companies)
   const [company] = n!.n > 0 ? await db.select().from(companies).limit(1) : await db.insert(companies).values({ name: values.company! }).returning()
+  if (await findUserByEmailInCompany(db, company!.id, input.email)) fail(`A user with the e-mail ${input.email} already exists.`)
   const user = await insertUser(db, { ...input, companyId: company!.id, passwordHash: await hashPassword(input.password) })
   console.log(`Created ${user.role} ${user.email} in ${company!.name}.`)
   if (yard?.success) {

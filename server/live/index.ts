@@ -1,8 +1,8 @@
 import type { Executor } from '@db/client'
 import type { BoardCard } from '@shared/schemas/board'
-import type { BoardChange } from './live-bus'
+import type { BoardChange, SessionsEnded } from './live-bus'
 
-export { boardChangeSchema, type BoardChange, type LiveBus, type LiveListener } from './live-bus'
+export { boardChangeSchema, sessionKey, type BoardChange, type LiveBus, type LiveListener, type SessionsEnded } from './live-bus'
 export { memoryBus } from './memory-bus'
 export { postgresBus } from './postgres-bus'
 
@@ -14,6 +14,7 @@ export type VehicleChange = Omit<BoardChange, 'origin' | 'yardId'> & { yardId?: 
 
 export interface BoardNotifier {
   changed(change: VehicleChange): Promise<void>
+  sessionsEnded(ended: SessionsEnded): Promise<void>
 }
 
 // One board hub per app (createApp registers it against its database), so a service that only
@@ -31,4 +32,13 @@ export function registerBoardNotifier(db: Executor, notifier: BoardNotifier): vo
  */
 export async function boardChanged(db: Executor, change: VehicleChange): Promise<void> {
   await notifiers.get(db)?.changed(change)
+}
+
+/**
+ * Ends the open board streams of a signed-out session, or of every session of a user whose
+ * sessions were just deleted (endSessionsOf), on every app server. Call it after the commit.
+ * It never throws: the sessions are already gone, and each stream also checks at its heartbeat.
+ */
+export async function sessionsEnded(db: Executor, ended: SessionsEnded): Promise<void> {
+  await notifiers.get(db)?.sessionsEnded(ended)
 }

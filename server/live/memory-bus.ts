@@ -1,4 +1,4 @@
-import type { BoardChange, LiveBus, LiveListener } from './live-bus'
+import type { BoardChange, LiveBus, LiveListener, SessionsEnded } from './live-bus'
 
 /** One process, one database: changes go straight to the listeners. */
 export function memoryBus(): LiveBus {
@@ -6,6 +6,9 @@ export function memoryBus(): LiveBus {
   return {
     async publish(change: BoardChange) {
       for (const l of [...listeners]) l.change(change)
+    },
+    async endSessions(ended: SessionsEnded) {
+      for (const l of [...listeners]) l.sessionsEnded(ended)
     },
     subscribe(listener) {
       listeners.add(listener)

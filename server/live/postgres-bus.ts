@@ -1,8 +1,9 @@
 import pg from 'pg'
 import type { Logger } from 'pino'
-import { boardChangeSchema, type BoardChange, type LiveBus, type LiveListener } from './live-bus'
+import { boardChangeSchema, sessionsEndedSchema, type BoardChange, type LiveBus, type LiveListener, type SessionsEnded } from './live-bus'
 
 const CHANNEL = 'holdfast_board'
+const SESSIONS_CHANNEL = 'holdfast_sessions'
 const RETRY_MS = [250, 1_000, 3_000, 10_000]
 
 /**
@@ -18,6 +19,12 @@ export async function postgresBus(url: string, log: Pick<Logger, 'warn'>): Promi
   let attempt = 0
 
   function hear(msg: pg.Notification) {
+    if (msg.channel === SESSIONS_CHANNEL) {
+      const ended = sessionsEndedSchema.safeParse(JSON.parse(msg.payload ?? 'null'))
+      if (!ended.success) return log.warn({ payload: msg.payload }, 'ignored a malformed session end')
+      for (const l of [...listeners]) l.sessionsEnded(ended.data)
+      return
+    }
     const parsed = boardChangeSchema.safeParse(JSON.parse(msg.payload ?? 'null'))
     if (!parsed.success) return log.warn({ payload: msg.payload }, 'ignored a malformed board change')
     for (const l of [...listeners]) l.change(parsed.data)
@@ -36,6 +43,7 @@ export async function postgresBus(url: string, log: Pick<Logger, 'warn'>): Promi
     try {
       await client.connect()
       await client.query(`listen ${CHANNEL}`)
+      await client.query(`listen ${SESSIONS_CHANNEL}`)
     } catch (err) {
       await client.end().catch(() => undefined)
       throw err
@@ -62,6 +70,9 @@ export async function postgresBus(url: string, log: Pick<Logger, 'warn'>): Promi
   return {
     async publish(change: BoardChange) {
       await publisher.query('select pg_notify($1, $2)', [CHANNEL, JSON.stringify(change)])
+    },
+    async endSessions(ended: SessionsEnded) {
+      await publisher.query('select pg_notify($1, $2)', [SESSIONS_CHANNEL, JSON.stringify(ended)])
     },
     subscribe(l) {
       listeners.add(l)

@@ -1,4 +1,6 @@
-export { sessionRouter, type SignInLimits } from './session.routes'
+export { sessionRouter } from './session.routes'
+export { knownDevices } from './known-devices'
+export { pruneSignInFailures, signInThrottle, type SignInLimits } from './sign-in-throttle'
 export { DatabaseSessionStore, endSessionsOf, pruneExpiredSessions } from './session-store'
 export { sessionSecret } from './secret'
 export { renameInSessions } from './session-store'

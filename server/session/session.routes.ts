@@ -1,56 +1,53 @@
-import { type Request, Router } from 'express'
-import { rateLimit } from 'express-rate-limit'
+import { Router } from 'express'
+import { type AnonymousCsrf, newCsrfToken } from '../middleware/index'
 import type { Database } from '@db/client'
 import { signInSchema } from '@shared/schemas/session'
 import { AppError } from '../errors'
-import { newCsrfToken } from '../middleware/index'
+import { sessionKey, sessionsEnded } from '../live/index'
+import type { KnownDevices } from './known-devices'
 import { signIn, signInRefused, stillAsVerified } from './session.service'
+import { addressKey, type SignInThrottle } from './sign-in-throttle'
 
-export interface SignInLimits {
-  /** Failed sign-ins allowed per account in the window. */
-  perAccount: number
-  /** Sign-in attempts allowed per IP address in the window. */
-  perIp: number
-  windowMs: number
+export interface SessionRouterDeps {
+  anonymous: AnonymousCsrf
+  devices: KnownDevices
+  throttle: SignInThrottle
 }
-
-const TOO_MANY = 'Too many sign-in attempts. Wait a few minutes and try again.'
 
 function promisify(fn: (cb: (err?: unknown) => void) => void): Promise<void> {
   return new Promise((resolve, reject) => fn((err) => (err ? reject(err) : resolve())))
 }
 
-function csrfTokenOf(req: Request): string {
-  req.session.csrfToken ??= newCsrfToken()
-  return req.session.csrfToken
+function tooMany(waitMs: number): AppError {
+  const seconds = Math.ceil(waitMs / 1000)
+  const wait = seconds < 120 ? `${seconds} second${seconds === 1 ? '' : 's'}` : `${Math.ceil(seconds / 60)} minutes`
+  return new AppError(429, `Too many failed sign-ins from here. Wait ${wait} and try again.`)
 }
 
-export function sessionRouter(db: Database, limits: SignInLimits): Router {
+export function sessionRouter(db: Database, { anonymous, devices, throttle }: SessionRouterDeps): Router {
   const router = Router()
-  const byIp = rateLimit({
-    windowMs: limits.windowMs,
-    limit: limits.perIp,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next) => next(new AppError(429, TOO_MANY)),
-  })
-  const byAccount = rateLimit({
-    windowMs: limits.windowMs,
-    limit: limits.perAccount,
-    skipSuccessfulRequests: true,
-    standardHeaders: false,
-    legacyHeaders: false,
-    keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`,
-    handler: (_req, _res, next) => next(new AppError(429, TOO_MANY)),
-  })
 
+  // Signed in: the session's own token. Signed out: nothing is kept, so no session row is written.
   router.get('/', (req, res) => {
-    res.json({ user: req.user ?? null, csrfToken: csrfTokenOf(req) })
+    const csrfToken = req.user && req.session.csrfToken ? req.session.csrfToken : anonymous.tokenFor(req, res)
+    res.json({ user: req.user ?? null, csrfToken })
   })
 
-  router.post('/', byIp, byAccount, async (req, res) => {
+  router.post('/', async (req, res) => {
     const input = signInSchema.parse(req.body)
+    const counters = throttle.countersFor(input.email, addressKey(req.ip ?? ''), devices.knownFor(req, input.email))
+    // A held attempt is answered before its password is checked, and is not counted.
+    const wait = await throttle.waitMs(counters)
+    if (wait > 0) {
+      res.set('retry-after', String(Math.ceil(wait / 1000)))
+      throw tooMany(wait)
+    }
     const verified = await signIn(db, input)
+    if (!verified) {
+      await throttle.failed(counters)
+      throw signInRefused()
+    }
+    await throttle.succeeded(counters)
     const { user } = verified
     // A new session id at sign-in: an id planted before sign-in is worth nothing after it.
     await promisify((cb) => req.session.regenerate(cb))
@@ -62,11 +59,15 @@ export function sessionRouter(db: Database, limits: SignInLimits): Router {
       await promisify((cb) => req.session.destroy(cb))
       throw signInRefused()
     }
+    devices.remember(req, res, input.email)
     res.json({ user, csrfToken: req.session.csrfToken })
   })
 
   router.delete('/', async (req, res) => {
+    const ended = sessionKey(req.sessionID)
     await promisify((cb) => req.session.destroy(cb))
+    // Its open board streams end now, on every app server, not at their next heartbeat.
+    await sessionsEnded(db, { sessionKey: ended })
     res.clearCookie('holdfast.sid', { path: '/' })
     res.status(204).end()
   })

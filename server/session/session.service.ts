@@ -4,7 +4,7 @@ import { users } from '@db/schema'
 import type { SignIn } from '@shared/schemas/session'
 import type { User } from '@shared/schemas/users'
 import { AppError } from '../errors'
-import { findUserByEmail, verifyPassword } from '../users/index'
+import { findUsersByEmail, verifyPassword } from '../users/index'
 
 // One message for an unknown e-mail, a wrong password and a deactivated account: no account discovery.
 const REFUSED = 'That e-mail and password do not match an active account.'
@@ -17,10 +17,20 @@ export interface Verified {
   passwordHash: string
 }
 
-export async function signIn(db: Database, input: SignIn): Promise<Verified> {
-  const row = await findUserByEmail(db, input.email)
-  const ok = await verifyPassword(row?.passwordHash, input.password)
-  if (!row || !ok || !row.active) throw signInRefused()
+/**
+ * The account the e-mail and password match, or null: unknown, wrong password or deactivated alike.
+ * Companies may each have an account with one address (each with its own password): the password
+ * is checked against all of them at once, and the oldest active one it matches signs in.
+ */
+export async function signIn(db: Database, input: SignIn): Promise<Verified | null> {
+  const rows = await findUsersByEmail(db, input.email)
+  if (rows.length === 0) {
+    await verifyPassword(undefined, input.password)
+    return null
+  }
+  const matches = await Promise.all(rows.map((r) => verifyPassword(r.passwordHash, input.password)))
+  const row = rows.find((r, i) => matches[i] && r.active)
+  if (!row) return null
   return { user: { id: row.id, email: row.email, name: row.name, role: row.role }, passwordHash: row.passwordHash }
 }
 

@@ -1,3 +1,5 @@
 export { usersRouter } from './users.routes'
 export { hashPassword, verifyPassword } from './passwords'
-export { companyOf, findUserByEmail, insertUser } from './users.queries'
+export { companyOf, insertUser } from './users.queries'
+export { refusingCommonPasswords } from './common-passwords'
+export { findUserByEmailInCompany, findUsersByEmail } from './users.queries'

@@ -14,8 +14,20 @@ const publicColumns = {
 export const listUsers = (db: Executor, companyId: string) =>
   db.select(publicColumns).from(users).where(eq(users.companyId, companyId)).orderBy(asc(users.name))
 
-export async function findUserByEmail(db: Executor, email: string) {
-  const [row] = await db.select().from(users).where(eq(sql`lower(${users.email})`, email.toLowerCase()))
+/** Every account with this address, oldest first: an address is unique within a company only. */
+export function findUsersByEmail(db: Executor, email: string) {
+  return db
+    .select()
+    .from(users)
+    .where(eq(sql`lower(${users.email})`, email.toLowerCase()))
+    .orderBy(asc(users.createdAt), asc(users.id))
+}
+
+export async function findUserByEmailInCompany(db: Executor, companyId: string, email: string) {
+  const [row] = await db
+    .select()
+    .from(users)
+    .where(and(eq(users.companyId, companyId), eq(sql`lower(${users.email})`, email.toLowerCase())))
   return row
 }
 

@@ -2,8 +2,11 @@ import { Router } from 'express'
 import { z } from 'zod'
 import type { Database } from '@db/client'
 import { createUserSchema, resetPasswordSchema, updateUserSchema } from '@shared/schemas/users'
+import { refusingCommonPasswords } from './common-passwords'
 import * as service from './users.service'
 
+const newUserSchema = refusingCommonPasswords(createUserSchema)
+const newPasswordSchema = refusingCommonPasswords(resetPasswordSchema)
 const idParam = z.object({ id: z.uuid({ error: 'That is not a valid user id.' }) })
 
 export function usersRouter(db: Database): Router {
@@ -12,7 +15,7 @@ export function usersRouter(db: Database): Router {
     res.json({ users: await service.listUsers(db, req.user!) })
   })
   router.post('/', async (req, res) => {
-    const input = createUserSchema.parse(req.body)
+    const input = newUserSchema.parse(req.body)
     res.status(201).json({ user: await service.createUser(db, req.user!, input) })
   })
   router.patch('/:id', async (req, res) => {
@@ -22,7 +25,7 @@ export function usersRouter(db: Database): Router {
   })
   router.post('/:id/password', async (req, res) => {
     const { id } = idParam.parse(req.params)
-    const { password } = resetPasswordSchema.parse(req.body)
+    const { password } = newPasswordSchema.parse(req.body)
     await service.resetPassword(db, req.user!, id, password)
     res.status(204).end()
   })

@@ -1,6 +1,7 @@
 import type { Database } from '@db/client'
 import type { CreateUser, UpdateUser, User } from '@shared/schemas/users'
 import { conflict, notFound, unprocessable } from '../errors'
+import { sessionsEnded } from '../live/index'
 import { endSessionsOf, renameInSessions } from '../session/index'
 import { hashPassword } from './passwords'
 import * as q from './users.queries'
@@ -12,22 +13,32 @@ export async function listUsers(db: Database, actor: User) {
   return (await q.listUsers(db, me!.companyId)).map(toRow)
 }
 
+// Only the manager's own company is looked at: whether another company uses the address is not
+// theirs to learn, and an account there does not stand in the way (sign-in tells them apart by password).
+const alreadyOnStaff = (email: string) => conflict(`${email} is already on your staff list. Find them there, or use another address.`)
+
 export async function createUser(db: Database, actor: User, input: CreateUser) {
   const me = await q.findUser(db, actor.id)
-  if (await q.findUserByEmail(db, input.email)) throw conflict(`A user with the e-mail ${input.email} already exists.`)
+  if (await q.findUserByEmailInCompany(db, me!.companyId, input.email)) throw alreadyOnStaff(input.email)
   const passwordHash = await hashPassword(input.password)
-  const row = await q.insertUser(db, {
-    companyId: me!.companyId,
-    email: input.email,
-    name: input.name,
-    role: input.role,
-    passwordHash,
-  })
-  return toRow(row)
+  try {
+    const row = await q.insertUser(db, { companyId: me!.companyId, email: input.email, name: input.name, role: input.role, passwordHash })
+    return toRow(row)
+  } catch (err) {
+    // Two managers adding the same person at once: the unique index decides.
+    if (isUniqueViolation(err, 'users_company_email_lower')) throw alreadyOnStaff(input.email)
+    throw err
+  }
+}
+
+function isUniqueViolation(err: unknown, constraint: string): boolean {
+  const e = ((err as { cause?: unknown })?.cause ?? err) as { code?: string; constraint?: string; message?: string }
+  return e?.code === '23505' && (e.constraint === constraint || (e.message ?? '').includes(constraint))
 }
 
 export async function changeUser(db: Database, actor: User, id: string, input: UpdateUser) {
-  return db.transaction(async (tx) => {
+  const endsSessions = input.active === false || input.role !== undefined
+  const row = await db.transaction(async (tx) => {
     const target = await q.findUser(tx, id)
     const me = await q.findUser(tx, actor.id)
     if (!target || target.companyId !== me!.companyId) throw notFound('That user')
@@ -36,10 +47,13 @@ export async function changeUser(db: Database, actor: User, id: string, input: U
       throw unprocessable('The company must keep at least one active manager.')
     }
     const row = await q.updateUser(tx, id, input)
-    if (input.active === false || input.role) await endSessionsOf(tx, id)
+    if (endsSessions) await endSessionsOf(tx, id)
     else if (input.name) await renameInSessions(tx, id, input.name)
     return toRow(row!)
   })
+  // Their open board streams too, on every app server.
+  if (endsSessions) await sessionsEnded(db, { userId: id })
+  return row
 }
 
 export async function resetPassword(db: Database, actor: User, id: string, password: string) {
@@ -52,4 +66,5 @@ export async function resetPassword(db: Database, actor: User, id: string, passw
     await q.updateUser(tx, id, { passwordHash })
     await endSessionsOf(tx, id)
   })
+  await sessionsEnded(db, { userId: id })
 }

@@ -4,10 +4,20 @@ import { z } from 'zod'
 
 const tooLong = (max: number) => `Keep this under ${max} characters.`
 
+export const BROKEN_TEXT = 'Contains a broken character (a lone UTF-16 surrogate) that cannot be stored. Retype the text and try again.'
+
+/**
+ * Any string that is stored: a lone UTF-16 surrogate ("\ud800" in JSON) is no character at all —
+ * PostgreSQL's jsonb refuses it and a text column would keep U+FFFD in its place. `\p{Cs}` with the
+ * u flag matches only an unpaired surrogate (String.prototype.isWellFormed, which ES2023 lacks).
+ */
+export function text(params?: Parameters<typeof z.string>[0]) {
+  return z.string(params).refine((v) => !/\p{Cs}/u.test(v), BROKEN_TEXT)
+}
+
 /** Trimmed text; an empty field becomes null, so "nothing typed" is stored one way everywhere. */
 export function optionalText(max: number) {
-  return z
-    .string()
+  return text()
     .trim()
     .max(max, tooLong(max))
     .nullish()
@@ -15,7 +25,7 @@ export function optionalText(max: number) {
 }
 
 export function requiredText(max: number, missing: string) {
-  return z.string({ error: missing }).trim().min(1, missing).max(max, tooLong(max))
+  return text({ error: missing }).trim().min(1, missing).max(max, tooLong(max))
 }
 
 /** An instant with its offset: a bare local time would be read in the server's own zone. */

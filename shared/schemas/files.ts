@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { text } from './fields'
 
 // Limits both sides check: the client before sending, the server (multer) while receiving.
 export const MAX_FILE_BYTES = 20 * 1024 * 1024
@@ -18,7 +19,7 @@ export const ACCEPTED_TYPES: Record<FileKind, readonly string[]> = {
 
 export const uploadFieldsSchema = z.object({
   kind: z.enum(FILE_KINDS, { error: 'Choose photo, ID or document.' }).default('photo'),
-  label: z.string().trim().max(120, 'Keep the caption under 120 characters.').nullish().transform((v) => v || null),
+  label: text().trim().max(120, 'Keep the caption under 120 characters.').nullish().transform((v) => v || null),
 })
 
 export const fileRecordSchema = z.object({

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { DISPOSITIONS, VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { boardCardSchema } from './board'
+import { text } from './fields'
 
 export const moveRequestSchema = z.object({
   to: z.enum(VEHICLE_STATES, { error: 'Choose where the vehicle goes.' }),
@@ -8,8 +9,7 @@ export const moveRequestSchema = z.object({
     .number({ error: 'Send the version of the card you saw; reload the board if it is missing.' })
     .int('The version is a whole number.')
     .positive('The version is a positive number.'),
-  reason: z
-    .string({ error: 'The reason is text.' })
+  reason: text({ error: 'The reason is text.' })
     .trim()
     .max(500, 'Keep the reason under 500 characters.')
     .nullish()

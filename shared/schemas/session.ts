@@ -1,9 +1,12 @@
 import { z } from 'zod'
+import { normalizePassword } from '../domain/passwords'
+import { text } from './fields'
 import { userSchema } from './users'
 
 export const signInSchema = z.object({
   email: z.string({ error: 'Enter your e-mail address.' }).trim().toLowerCase().min(1, 'Enter your e-mail address.').max(200),
-  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(200),
+  // The same normal form the password was set in (shared/domain/passwords.ts).
+  password: text({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(200).transform(normalizePassword),
 })
 export type SignIn = z.infer<typeof signInSchema>
 

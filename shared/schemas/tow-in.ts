@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { text } from './fields'
 import { holdInputSchema } from './holds'
 import { towRatesSchema, towSchema } from './tows'
 import { conditionSchema, vehicleSchema } from './vehicles'
@@ -41,9 +42,9 @@ export type IntakeOptions = z.infer<typeof intakeOptionsSchema>
 /** A correction names the version it was made against and why; only the fields that differ are recorded. */
 export const correctVehicleSchema = z.object({
   version: z.number().int().positive(),
-  reason: z.string({ error: 'Say why the record is corrected.' }).trim().min(3, 'Say why the record is corrected.').max(500),
+  reason: text({ error: 'Say why the record is corrected.' }).trim().min(3, 'Say why the record is corrected.').max(500),
   vehicle: vehicleSchema.optional(),
   tow: towSchema.optional(),
-  conditionNotes: z.string().trim().max(2000).nullish().transform((v) => v || null).optional(),
+  conditionNotes: text().trim().max(2000).nullish().transform((v) => v || null).optional(),
 })
 export type CorrectVehicleInput = z.input<typeof correctVehicleSchema>

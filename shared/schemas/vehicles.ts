@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { normalizeVin, vin as readVin } from '../domain/vehicle/vin'
-import { alongsideFieldIssues, optionalInt, optionalText, requiredText } from './fields'
+import { alongsideFieldIssues, optionalInt, optionalText, requiredText, text } from './fields'
 
 export const KEYS = ['yes', 'no', 'unknown'] as const
 export const KEYS_LABELS: Record<(typeof KEYS)[number], string> = { yes: 'Yes', no: 'No', unknown: 'Not known' }
@@ -18,7 +18,7 @@ export const vehicleClassCode = z
 /** The vehicle as found: identity, class for billing, odometer, keys. */
 export const vehicleSchema = z
   .object({
-    vin: z.string().max(40, 'A VIN has 17 characters.').nullish().transform((v) => (v ? normalizeVin(v) || null : null)),
+    vin: text().max(40, 'A VIN has 17 characters.').nullish().transform((v) => (v ? normalizeVin(v) || null : null)),
     /** Why a missing or failing VIN is recorded anyway (plate-only, damaged or unreadable VIN plate). */
     vinOverrideReason: optionalText(200),
     plate: optionalText(12).transform((v) => v?.toUpperCase() ?? null),

@@ -1,15 +1,16 @@
 import { z } from 'zod'
 import { isTimeZone } from '../domain/time/local-time'
+import { text } from './fields'
 
 export const yardSetupSchema = z.object({
-  name: z.string().trim().min(1, 'Give the yard a name.').max(120),
+  name: text().trim().min(1, 'Give the yard a name.').max(120),
   code: z
     .string()
     .trim()
     .toUpperCase()
     .regex(/^[A-Z]{2,4}$/, 'Use 2 to 4 letters: they start every stock number (e.g. TC-2026-00041).'),
-  address: z.string().trim().min(1, 'Enter the yard address.').max(300),
-  phone: z.string().trim().max(40).optional(),
+  address: text().trim().min(1, 'Enter the yard address.').max(300),
+  phone: text().trim().max(40).optional(),
   lat: z.coerce.number().min(-90).max(90),
   lng: z.coerce.number().min(-180).max(180),
   timeZone: z.string().refine(isTimeZone, 'Use an IANA time zone such as America/Chicago.'),

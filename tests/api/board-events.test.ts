@@ -135,6 +135,53 @@ describe('GET /api/board/events', () => {
     stream.close()
   })
 
+  it('events_signOut_endsTheStreamAtOnceAndSendsNothingMore', async () => {
+    const staff = await makeStaff(t.db)
+    const v = await makeVehicle(t.db, staff.yard.id)
+    const [mover, watcher] = await Promise.all([fetchSession(server.url, staff.dispatcher), fetchSession(server.url, staff.office)])
+    const stream = await openStream(server.url, watcher.cookie)
+    expect((await stream.first())?.retry).toBeGreaterThan(0)
+    expect((await watcher.signOut()).status).toBe(204)
+    expect((await mover.post(`/api/vehicles/${v.id}/moves`, { to: 'teardown', version: 1 })).status).toBe(200)
+    // The stream ended with the session (heartbeats are 20 s apart here): the move is not delivered.
+    expect(await stream.first()).toBeNull()
+  })
+
+  it('events_deactivatedOrNewPassword_endsTheStreamsAtOnce', async () => {
+    const staff = await makeStaff(t.db)
+    const v = await makeVehicle(t.db, staff.yard.id)
+    const [manager, office, tech] = await Promise.all([fetchSession(server.url, staff.manager), fetchSession(server.url, staff.office), fetchSession(server.url, staff.technician)])
+    const [officeStream, techStream] = await Promise.all([openStream(server.url, office.cookie), openStream(server.url, tech.cookie)])
+    await Promise.all([officeStream.first(), techStream.first()])
+    expect((await manager.patch(`/api/users/${staff.office.id}`, { active: false })).status).toBe(200)
+    expect((await manager.post(`/api/users/${staff.technician.id}/password`, { password: 'a brand new passphrase' })).status).toBe(204)
+    expect((await manager.post(`/api/vehicles/${v.id}/moves`, { to: 'teardown', version: 1 })).status).toBe(200)
+    expect(await officeStream.first()).toBeNull()
+    expect(await techStream.first()).toBeNull()
+  })
+
+  it('events_sixthStreamOfOneSession_isRefusedUntilOneCloses', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await fetchSession(server.url, staff.office)
+    const open = await Promise.all(Array.from({ length: 5 }, () => openStream(server.url, s.cookie)))
+    expect(open.map((o) => o.status)).toEqual([200, 200, 200, 200, 200])
+    const sixth = await fetch(`${server.url}/api/board/events`, { headers: { cookie: s.cookie } })
+    expect(sixth.status).toBe(429)
+    expect(((await sixth.json()) as { error: string }).error).toMatch(/5 live board connections/)
+    // Another person's session has streams of its own.
+    const other = await fetchSession(server.url, staff.dispatcher)
+    const theirs = await openStream(server.url, other.cookie)
+    expect(theirs.status).toBe(200)
+    theirs.close()
+    open[0]!.close()
+    await expect.poll(async () => {
+      const again = await openStream(server.url, s.cookie)
+      again.close()
+      return again.status
+    }).toBe(200)
+    open.slice(1).forEach((o) => o.close())
+  })
+
   it('events_signedOut_answers401', async () => {
     const res = await fetch(`${server.url}/api/board/events`)
     expect(res.status).toBe(401)

@@ -1,23 +1,47 @@
 import { mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
+import { spawn } from 'node:child_process'
+import { sql } from 'drizzle-orm'
 import { afterAll, describe, expect, it } from 'vitest'
+import { openDatabase } from '@db/client'
+import { cookieSet } from '../helpers/live'
 import { startServer, waitForHealth } from '../helpers/server-process'
 
 const dataDir = mkdtempSync(path.join(tmpdir(), 'holdfast-lock-'))
-afterAll(() => rmSync(dataDir, { recursive: true, force: true }))
+const crashDir = mkdtempSync(path.join(tmpdir(), 'holdfast-lock-crash-'))
+afterAll(() => {
+  rmSync(dataDir, { recursive: true, force: true })
+  rmSync(crashDir, { recursive: true, force: true })
+})
+
+/** A real process holding the directory open (tests/helpers/hold-data-dir.ts), as a server would. */
+function holdDataDir(dir: string, value: string) {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'tests/helpers/hold-data-dir.ts', dir, value], { stdio: ['ignore', 'pipe', 'pipe'] })
+  let out = ''
+  const exited = new Promise<void>((resolve) => child.on('exit', () => resolve()))
+  const opened = new Promise<void>((resolve, reject) => {
+    child.stdout.on('data', (d) => {
+      out += d
+      if (out.includes('open')) resolve()
+    })
+    child.stderr.on('data', (d) => (out += d))
+    void exited.then(() => reject(new Error(`the holder exited before opening:\n${out}`)))
+  })
+  return { child, opened, exited }
+}
 
 async function signInAndCount(port: number) {
   const base = `http://127.0.0.1:${port}`
   const first = await fetch(`${base}/api/session`)
-  const cookie = first.headers.get('set-cookie')!.split(';')[0]!
+  const cookie = cookieSet(first, 'holdfast.csrf')
   const { csrfToken } = (await first.json()) as { csrfToken: string }
   const signIn = await fetch(`${base}/api/session`, {
     method: 'POST',
     headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken },
     body: JSON.stringify({ email: 'delia@tamsincreek.example', password: 'quarry-spur-demo' }),
   })
-  const session = signIn.headers.get('set-cookie')!.split(';')[0]!
+  const session = cookieSet(signIn, 'holdfast.sid')
   const board = (await (await fetch(`${base}/api/board`, { headers: { cookie: session } })).json()) as { columns: { cards: unknown[] }[] }
   return board.columns.reduce((n, c) => n + c.cards.length, 0)
 }
@@ -51,4 +75,34 @@ describe('embedded database lock', () => {
       await again.stop()
     }
   }, 120_000)
+
+  it('after the holder is killed (SIGKILL), an immediate reopen takes the directory over and finds its data', async () => {
+    const holder = holdDataDir(crashDir, 'written before the crash')
+    await holder.opened
+    holder.child.kill('SIGKILL')
+    await holder.exited
+    // At once: no waiting for a lock to go stale.
+    const handle = await openDatabase({ kind: 'pglite', dataDir: crashDir })
+    try {
+      const { rows } = (await handle.db.execute(sql`select value from lock_test`)) as unknown as { rows: unknown[] }
+      expect(rows).toEqual([{ value: 'written before the crash' }])
+    } finally {
+      await handle.close()
+    }
+  }, 240_000)
+
+  it('a frozen holder (SIGSTOP) is never displaced, however long it stays frozen', async () => {
+    const holder = holdDataDir(crashDir, 'written by the frozen one')
+    try {
+      await holder.opened
+      holder.child.kill('SIGSTOP')
+      // Longer than the 15 s after which the former lock (proper-lockfile, refreshed every 5 s) counted as stale.
+      await new Promise((r) => setTimeout(r, 16_000))
+      await expect(openDatabase({ kind: 'pglite', dataDir: crashDir })).rejects.toThrow(/in use by another Holdfast process \(process \d+ on /)
+    } finally {
+      holder.child.kill('SIGCONT')
+      holder.child.kill('SIGTERM')
+      await holder.exited
+    }
+  }, 240_000)
 })

@@ -79,4 +79,29 @@ describe('moves on PostgreSQL', () => {
     expect(board.columns.find((c) => c.column === 'teardown')!.cards.map((c) => c.id)).toContain(v.id)
     stream.close()
   })
+
+  it('events_signOutOnOneServer_endsTheStreamOnTheOther', async () => {
+    const staff = await makeStaff(handle.db)
+    const v = await makeVehicle(handle.db, staff.yard.id)
+    const mover = await fetchSession(servers[0]!.url, staff.manager)
+    const watcher = await fetchSession(servers[1]!.url, staff.office)
+    const stream = await openStream(servers[1]!.url, watcher.cookie)
+    await stream.first()
+    // The session lives in the shared database: the other server signs it out.
+    expect((await watcher.signOut(servers[0]!.url)).status).toBe(204)
+    expect((await mover.post(`/api/vehicles/${v.id}/moves`, { to: 'teardown', version: 1 })).status).toBe(200)
+    expect(await stream.first()).toBeNull()
+  })
+
+  it('events_deactivatedOnOneServer_endsTheStreamOnTheOther', async () => {
+    const staff = await makeStaff(handle.db)
+    const v = await makeVehicle(handle.db, staff.yard.id)
+    const manager = await fetchSession(servers[0]!.url, staff.manager)
+    const watcher = await fetchSession(servers[1]!.url, staff.office)
+    const stream = await openStream(servers[1]!.url, watcher.cookie)
+    await stream.first()
+    expect((await manager.patch(`/api/users/${staff.office.id}`, { active: false })).status).toBe(200)
+    expect((await manager.post(`/api/vehicles/${v.id}/moves`, { to: 'teardown', version: 1 })).status).toBe(200)
+    expect(await stream.first()).toBeNull()
+  })
 })

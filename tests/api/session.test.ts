@@ -1,6 +1,7 @@
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { sessions } from '@db/schema'
+import { pruneExpiredSessions } from '../../server/session/index'
 import { browserSession, makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { makeStaff, makeUser } from '../helpers/factories'
 
@@ -15,17 +16,18 @@ describe('session API', () => {
   it('GET /api/session when signed out returns no user and a CSRF token', async () => {
     const res = await request(t.app).get('/api/session').expect(200)
     expect(res.body.user).toBeNull()
-    expect(res.body.csrfToken).toMatch(/^[\w-]{40,}$/)
+    expect(res.body.csrfToken).toMatch(/^[\w.-]{40,}$/)
   })
 
   it('POST /api/session with the right password returns the user and regenerates the session id', async () => {
     const staff = await makeStaff(t.db)
     const s = await browserSession(t.app)
-    const before = (await s.get('/api/session')).headers['set-cookie']?.[0]
+    const sid = (r: { headers: Record<string, unknown> }) => ((r.headers['set-cookie'] as string[] | undefined) ?? []).find((c) => c.startsWith('holdfast.sid='))
+    const before = sid(await s.get('/api/session'))
     const res = await s.signIn(staff.office.email, staff.office.password)
     expect(res.status).toBe(200)
     expect(res.body.user).toEqual({ id: staff.office.id, email: staff.office.email, name: staff.office.name, role: 'office' })
-    const after = res.headers['set-cookie']?.[0]
+    const after = sid(res)
     expect(after).toBeDefined()
     expect(after!.split(';')[0]).not.toBe(before?.split(';')[0])
     expect(after).toMatch(/HttpOnly/)
@@ -97,8 +99,82 @@ describe('session API', () => {
   })
 })
 
+describe('behind a TLS-terminating proxy (HOLDFAST_HTTPS=1 with HOLDFAST_TRUST_PROXY)', () => {
+  it('a sign-in through the proxy gets a Secure session cookie that keeps it signed in', async () => {
+    const https = await makeTestApp({ https: true, trustProxy: 'loopback' })
+    try {
+      const staff = await makeStaff(https.db)
+      // Secure cookies, sent back by hand: supertest speaks plain HTTP to the app, as the proxy does.
+      const first = await request(https.app).get('/api/session').set('x-forwarded-proto', 'https').expect(200)
+      const csrf = (first.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith('holdfast.csrf='))!
+      expect(csrf).toMatch(/; Secure/)
+      const res = await request(https.app)
+        .post('/api/session')
+        .set('x-forwarded-proto', 'https')
+        .set('cookie', csrf.split(';')[0]!)
+        .set('x-csrf-token', first.body.csrfToken)
+        .send({ email: staff.office.email, password: staff.office.password })
+      expect(res.status).toBe(200)
+      const sid = (res.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith('holdfast.sid='))!
+      expect(sid).toMatch(/; Secure/)
+      const cookie = sid.split(';')[0]!
+      const me = await request(https.app).get('/api/session').set('x-forwarded-proto', 'https').set('cookie', cookie)
+      expect(me.body.user.id).toBe(staff.office.id)
+    } finally {
+      await https.close()
+    }
+  })
+})
+
+describe('anonymous visits', () => {
+  it('GET /api/session when signed out writes no session row, however often it is asked', async () => {
+    const before = await t.db.$count(sessions)
+    for (let i = 0; i < 30; i++) await request(t.app).get('/api/session').expect(200)
+    expect(await t.db.$count(sessions)).toBe(before)
+  })
+
+  it('one browser keeps one anonymous token across page loads, so two tabs agree', async () => {
+    const agent = request.agent(t.app)
+    const first = (await agent.get('/api/session')).body.csrfToken
+    expect((await agent.get('/api/session')).body.csrfToken).toBe(first)
+  })
+
+  it('the anonymous token must come back in the header and in its own cookie: the header alone is refused', async () => {
+    const staff = await makeStaff(t.db)
+    const { csrfToken } = (await request(t.app).get('/api/session')).body
+    const res = await request(t.app).post('/api/session').set('x-csrf-token', csrfToken).send({ email: staff.manager.email, password: staff.manager.password })
+    expect(res.status).toBe(403)
+  })
+
+  it('a made-up token sent as both header and cookie is refused: the server signs the ones it hands out', async () => {
+    const staff = await makeStaff(t.db)
+    const made = `${Date.now().toString(36)}.bWFkZS11cC1ub25jZS1mb3ItdGVzdA.c2lnbmF0dXJlLXRoYXQtaXMtbm90LXJlYWw`
+    const res = await request(t.app)
+      .post('/api/session')
+      .set('cookie', `holdfast.csrf=${made}`)
+      .set('x-csrf-token', made)
+      .send({ email: staff.manager.email, password: staff.manager.password })
+    expect(res.status).toBe(403)
+  })
+})
+
+describe('pruning', () => {
+  it('pruneExpiredSessions deletes expired session rows and keeps live ones', async () => {
+    const staff = await makeStaff(t.db)
+    const sid = (s: string) => `prune-test-${s}-${staff.company.id}`
+    await t.db.insert(sessions).values([
+      { sid: sid('old'), userId: staff.office.id, data: {}, expiresAt: new Date(Date.now() - 1_000) },
+      { sid: sid('live'), userId: staff.office.id, data: {}, expiresAt: new Date(Date.now() + 60_000) },
+    ])
+    await pruneExpiredSessions(t.db)
+    const left = (await t.db.select().from(sessions)).map((r) => r.sid)
+    expect(left).toContain(sid('live'))
+    expect(left).not.toContain(sid('old'))
+  })
+})
+
 describe('sign-in rate limits', () => {
-  it('a sixth failed sign-in for one account in the window answers 429, even with the right password', async () => {
+  it('after five failures for one account from one browser and address, the next attempt waits (429), even with the right password', async () => {
     const limited = await makeTestApp({ signInLimits: { perAccount: 5, perIp: 100, windowMs: 60_000 } })
     try {
       const staff = await makeStaff(limited.db)
@@ -106,13 +182,13 @@ describe('sign-in rate limits', () => {
       for (let i = 0; i < 5; i++) expect((await s.signIn(staff.manager.email, 'wrong password')).status).toBe(401)
       const res = await s.signIn(staff.manager.email, staff.manager.password)
       expect(res.status).toBe(429)
-      expect(res.body.error).toMatch(/Too many sign-in attempts/)
+      expect(res.body.error).toMatch(/Too many failed sign-ins/)
     } finally {
       await limited.close()
     }
   })
 
-  it('attempts past the per-IP limit answer 429 whatever the account', async () => {
+  it('failures past the per-IP limit make that address wait, whatever the account', async () => {
     const limited = await makeTestApp({ signInLimits: { perAccount: 100, perIp: 3, windowMs: 60_000 } })
     try {
       const s = await browserSession(limited.app)

@@ -36,12 +36,12 @@ describe('staff management', () => {
     expect(await t.db.select().from(users)).toHaveLength(before.length)
   })
 
-  it('a second user with the same e-mail in another case is a conflict', async () => {
+  it('a second user in the same company with the same e-mail in another case is a conflict (the manager sees the first in the list)', async () => {
     const m = await signedIn(t.app, staff.manager)
     const res = await m.post('/api/users', { email: staff.office.email.toUpperCase(), name: 'Dup', role: 'office', password: 'a long passphrase' })
     expect(res.status).toBe(409)
+    expect(res.body.error).toMatch(/already on your staff list/)
   })
-
   it('deactivating a user ends their open sessions at once', async () => {
     const m = await signedIn(t.app, staff.manager)
     const d = await signedIn(t.app, staff.dispatcher)
@@ -101,5 +101,44 @@ describe('staff management', () => {
     const res = await d.post('/api/users', { email: 'x@test.example', name: 'X', role: 'manager', password: 'a long passphrase' })
     expect(res.status).toBe(403)
     expect(await t.db.select().from(users)).toHaveLength(before.length)
+  })
+})
+
+describe("another company's e-mail addresses cannot be discovered", () => {
+  const answerOf = (res: { status: number; body: { user?: Record<string, unknown> } }) => ({ status: res.status, keys: Object.keys(res.body.user ?? {}).sort() })
+
+  it("adding an address another company uses answers exactly as a free one does, and each account keeps its own password", async () => {
+    const rival = await makeCompany(t.db, 'Rival Recovery')
+    const theirs = await makeUser(t.db, rival.company.id, 'office')
+    const m = await signedIn(t.app, staff.manager)
+    const free = await m.post('/api/users', { email: `free-${Date.now()}@test.example`, name: 'Free', role: 'office', password: 'a long passphrase' })
+    const taken = await m.post('/api/users', { email: theirs.email.toUpperCase(), name: 'Same Address', role: 'technician', password: 'our own passphrase' })
+    expect(answerOf(taken)).toEqual(answerOf(free))
+    expect(answerOf(taken).status).toBe(201)
+
+    // Each password reaches its own company's account; neither learns anything of the other.
+    const ours = await signedIn(t.app, { email: theirs.email, password: 'our own passphrase' })
+    expect((await ours.get('/api/session')).body.user).toMatchObject({ id: taken.body.user.id, role: 'technician' })
+    const them = await signedIn(t.app, theirs)
+    expect((await them.get('/api/session')).body.user).toMatchObject({ id: theirs.id, role: 'office' })
+  })
+
+  it('when both accounts have the same password, the older one signs in', async () => {
+    const rival = await makeCompany(t.db, 'Rival Recovery')
+    const theirs = await makeUser(t.db, rival.company.id, 'dispatcher')
+    const m = await signedIn(t.app, staff.manager)
+    expect((await m.post('/api/users', { email: theirs.email, name: 'Same Address', role: 'office', password: theirs.password })).status).toBe(201)
+    const s = await signedIn(t.app, theirs)
+    expect((await s.get('/api/session')).body.user.id).toBe(theirs.id)
+  })
+
+  it('a deactivated account does not hide an active one with the same address and password', async () => {
+    const rival = await makeCompany(t.db, 'Rival Recovery')
+    const gone = await makeUser(t.db, rival.company.id, 'dispatcher', { active: false })
+    const m = await signedIn(t.app, staff.manager)
+    const made = await m.post('/api/users', { email: gone.email, name: 'Moved Here', role: 'office', password: gone.password })
+    expect(made.status).toBe(201)
+    const s = await signedIn(t.app, gone)
+    expect((await s.get('/api/session')).body.user.id).toBe(made.body.user.id)
   })
 })

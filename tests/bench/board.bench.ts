@@ -34,10 +34,10 @@ async function stop(child: ChildProcess) {
 
 async function signIn(email: string, password: string): Promise<string> {
   const first = await fetch(`${base}/api/session`)
-  const cookie = first.headers.get('set-cookie')!.split(';')[0]!
+  const cookie = first.headers.getSetCookie().find((c) => c.startsWith('holdfast.csrf='))!.split(';')[0]!
   const { csrfToken } = (await first.json()) as { csrfToken: string }
   const res = await fetch(`${base}/api/session`, { method: 'POST', headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken }, body: JSON.stringify({ email, password }) })
-  return res.headers.get('set-cookie')!.split(';')[0]!
+  return res.headers.getSetCookie().find((c) => c.startsWith('holdfast.sid='))!.split(';')[0]!
 }
 
 /** autocannon for `seconds`, with every response time kept so the 95th percentile is exact. */

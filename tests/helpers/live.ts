@@ -15,10 +15,15 @@ export async function listening(app: Express) {
   }
 }
 
+/** `name=value` of one cookie a response sets (a sign-in sets more than the session's). */
+export function cookieSet(res: Response, name: string): string {
+  return (res.headers.getSetCookie().find((c) => c.startsWith(`${name}=`)) ?? '').split(';')[0]!
+}
+
 /** A signed-in browser-like session over fetch: its cookie and CSRF token. */
 export async function fetchSession(base: string, user: { email: string; password: string }) {
   const first = await fetch(`${base}/api/session`)
-  let cookie = (first.headers.get('set-cookie') ?? '').split(';')[0]!
+  let cookie = cookieSet(first, 'holdfast.csrf')
   const { csrfToken } = (await first.json()) as { csrfToken: string }
   const signIn = await fetch(`${base}/api/session`, {
     method: 'POST',
@@ -26,10 +31,13 @@ export async function fetchSession(base: string, user: { email: string; password
     body: JSON.stringify({ email: user.email, password: user.password }),
   })
   if (signIn.status !== 200) throw new Error(`sign-in failed in test setup: ${signIn.status}`)
-  cookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0]!
+  cookie = cookieSet(signIn, 'holdfast.sid')
   const { csrfToken: csrf } = (await signIn.json()) as { csrfToken: string }
   return {
     cookie,
+    csrf,
+    /** Signs out, on this server or (same cookie, same database) on another one. */
+    signOut: (on = base) => fetch(`${on}/api/session`, { method: 'DELETE', headers: { cookie, 'x-csrf-token': csrf } }),
     post: (url: string, body: unknown) =>
       fetch(`${base}${url}`, { method: 'POST', headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrf }, body: JSON.stringify(body) }),
     patch: (url: string, body: unknown) =>
