@@ -17,12 +17,12 @@ import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from
 import { quotesRouter } from './quotes/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { healthRouter } from './health/index'
-import { memoryBus, registerBoardNotifier, type LiveBus } from './live/index'
+import { memoryBus, type LiveBus } from './live/index'
 import { csrfProtection, currentUser, refuseNulCharacters, sessionMiddleware } from './middleware/index'
 import { sessionRouter, type SignInLimits } from './session/index'
 import { spacesRouter, vehicleSpaceRouter } from './spaces/index'
 import { usersRouter } from './users/index'
-import { vehiclesRouter } from './vehicles/index'
+import { vehiclesRouter, type VehicleChanges } from './vehicles/index'
 import { yardsRouter } from './yards/index'
 
 export interface AppDeps {
@@ -54,7 +54,8 @@ export function createApp(deps: AppDeps): Express {
   const { db, log, files } = deps
   const map = deps.map ?? LOCAL_MAP
   const hub = new BoardHub(db, deps.live ?? memoryBus(), log, { bucketMs: deps.boardBucketMs })
-  registerBoardNotifier(db, hub)
+  // Everything that changes a vehicle gets the database and the boards to tell, from here only.
+  const changes: VehicleChanges = { db, boards: hub }
   const app = express()
   app.disable('x-powered-by')
   if (deps.trustProxy) app.set('trust proxy', deps.trustProxy)
@@ -93,14 +94,14 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/board', boardRouter(db, hub, deps.boardStream))
   // Before any /api/vehicles/:id router, so that "closed" is never read as a vehicle id.
   app.use('/api/vehicles/closed', archiveRouter(db))
-  app.use('/api/vehicles/:vehicleId/moves', movesRouter(db))
-  app.use('/api/vehicles/:vehicleId/inspection', inspectionsRouter(db, files))
+  app.use('/api/vehicles/:vehicleId/moves', movesRouter(changes))
+  app.use('/api/vehicles/:vehicleId/inspection', inspectionsRouter(changes, files))
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
-  app.use('/api/vehicles/:vehicleId/holds', holdsRouter(db))
-  app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(db))
-  app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(db, files))
-  app.use('/api/vehicles', vehiclesRouter(db, files))
+  app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
+  app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
+  app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
+  app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))
   app.use('/api/spaces', spacesRouter(db))
   app.use('/api/map', mapRouter(db, map))
