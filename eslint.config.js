@@ -23,4 +23,14 @@ export default tseslint.config(
       '@typescript-eslint/no-namespace': ['error', { allowDeclarations: true }],
     },
   },
+  {
+    // One way to change a vehicle: only the unit of work appends history (DEVELOPERS.md, "Adding a domain").
+    files: ['server/**/*.ts'],
+    ignores: ['server/vehicles/vehicle-change.ts'],
+    rules: {
+      'no-restricted-imports': ['error', {
+        paths: [{ name: '@db/history', importNames: ['appendHistory'], message: 'Change a vehicle with changeVehicle or createVehicle (server/vehicles/index), which append its history.' }],
+      }],
+    },
+  },
 )

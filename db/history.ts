@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto'
 import { asc, desc, eq, sql } from 'drizzle-orm'
 import stringify from 'safe-stable-stringify'
+import type { HistoryKind } from '@shared/schemas/history'
 import type { Executor } from './client'
 import { historyEvents, vehicles } from './schema/index'
 
@@ -10,7 +11,7 @@ export interface NewHistoryEvent {
   vehicleId: string
   actorId: string | null
   actorLabel: string
-  kind: string
+  kind: HistoryKind
   fromState?: string | null
   toState?: string | null
   reason?: string | null

@@ -18,12 +18,12 @@ import { quotesRouter } from './quotes/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { healthRouter } from './health/index'
 import { logSerializers, safeLogger } from './logging'
-import { memoryBus, registerBoardNotifier, type LiveBus } from './live/index'
+import { type LiveBus, memoryBus } from './live/index'
 import { anonymousCsrf, csrfProtection, currentUser, refuseNulCharacters, sessionMiddleware } from './middleware/index'
 import { knownDevices, sessionRouter, type SignInLimits, signInThrottle } from './session/index'
 import { spacesRouter, vehicleSpaceRouter } from './spaces/index'
 import { usersRouter } from './users/index'
-import { vehiclesRouter } from './vehicles/index'
+import { vehiclesRouter, type VehicleChanges } from './vehicles/index'
 import { yardsRouter } from './yards/index'
 
 export interface AppDeps {
@@ -56,7 +56,8 @@ export function createApp(deps: AppDeps): Express {
   const log = safeLogger(deps.log)
   const map = deps.map ?? LOCAL_MAP
   const hub = new BoardHub(db, deps.live ?? memoryBus(), log, { bucketMs: deps.boardBucketMs })
-  registerBoardNotifier(db, hub)
+  // Everything that changes a vehicle gets the database and the boards to tell, from here only.
+  const changes: VehicleChanges = { db, boards: hub }
   const app = express()
   app.disable('x-powered-by')
   if (deps.trustProxy) app.set('trust proxy', deps.trustProxy)
@@ -93,21 +94,21 @@ export function createApp(deps: AppDeps): Express {
   const limits = deps.signInLimits ?? DEFAULT_LIMITS
   app.use(
     '/api/session',
-    sessionRouter(db, { anonymous, devices: knownDevices(deps.sessionSecret, deps.https ?? false, limits.now), throttle: signInThrottle(db, limits, log) }),
+    sessionRouter(db, { anonymous, devices: knownDevices(deps.sessionSecret, deps.https ?? false, limits.now), throttle: signInThrottle(db, limits, log), boards: hub }),
   )
-  app.use('/api/users', usersRouter(db))
+  app.use('/api/users', usersRouter(db, hub))
   app.use('/api/yards', yardsRouter(db))
   app.use('/api/board', boardRouter(db, hub, deps.boardStream))
   // Before any /api/vehicles/:id router, so that "closed" is never read as a vehicle id.
   app.use('/api/vehicles/closed', archiveRouter(db))
-  app.use('/api/vehicles/:vehicleId/moves', movesRouter(db))
-  app.use('/api/vehicles/:vehicleId/inspection', inspectionsRouter(db, files))
+  app.use('/api/vehicles/:vehicleId/moves', movesRouter(changes))
+  app.use('/api/vehicles/:vehicleId/inspection', inspectionsRouter(changes, files))
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
-  app.use('/api/vehicles/:vehicleId/holds', holdsRouter(db))
-  app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(db))
-  app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(db, files))
-  app.use('/api/vehicles', vehiclesRouter(db, files))
+  app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
+  app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
+  app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
+  app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))
   app.use('/api/spaces', spacesRouter(db))
   app.use('/api/map', mapRouter(db, map))

@@ -1,4 +1,5 @@
 import { index, integer, jsonb, pgTable, text, unique, uuid } from 'drizzle-orm/pg-core'
+import { HISTORY_KINDS } from '@shared/schemas/history'
 import { users } from './users'
 import { vehicles } from './vehicles'
 import { createdAt, id } from './columns'
@@ -14,7 +15,8 @@ export const historyEvents = pgTable(
     at: createdAt(),
     actorId: uuid().references(() => users.id),
     actorLabel: text().notNull(),
-    kind: text().notNull(),
+    // A type, not a constraint: the kinds grow in code and the stored text stays as it is.
+    kind: text({ enum: HISTORY_KINDS }).notNull(),
     fromState: text(),
     toState: text(),
     reason: text(),

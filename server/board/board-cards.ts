@@ -1,11 +1,12 @@
 import type { Executor } from '@db/client'
 import { pickupBadge } from '@shared/domain/inspection'
+import type { HoldFact } from '@shared/domain/lifecycle'
 import type { BoardCard } from '@shared/schemas/board'
 import type { VehicleSummary } from '@shared/schemas/charges'
 import { summarizeVehicles, type YardForCharges } from '../charges/index'
 import { notFound } from '../errors'
 import { yardOfUser } from '../yards/index'
-import { activeHolds, activeInYard, cardRows, oneInYard, type CardRow } from './board.queries'
+import { activeHolds, activeInYard, cardRows, oneInYard, type CardRow, type HoldRow } from './board.queries'
 
 export interface BoardYard extends YardForCharges {
   id: string
@@ -14,7 +15,10 @@ export interface BoardYard extends YardForCharges {
 
 // Payments, waivers, the claimant's ID and the signed release are not recorded anywhere yet, so
 // every guard that needs them refuses with its reason until billing and release land.
-const NOTHING_RECORDED: BoardCard['handover'] = { paidCents: 0, waived: false, claimantIdRecorded: false, releaseSigned: false }
+export const NOTHING_RECORDED: BoardCard['handover'] = { paidCents: 0, waived: false, claimantIdRecorded: false, releaseSigned: false }
+
+/** An active hold as the card shows it and the lifecycle judges it. */
+export const holdFact = (h: HoldRow): HoldFact => ({ kind: h.kind, agency: h.agency, caseNumber: h.caseNumber, until: h.until?.toISOString() ?? null })
 
 /** Every active vehicle of the yard as a card, oldest arrival first. */
 export async function activeCards(db: Executor, yard: BoardYard, asOf: Date): Promise<BoardCard[]> {
@@ -34,7 +38,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
   const holdsByVehicle = new Map<string, BoardCard['holds']>()
   for (const h of holdRows) {
     const list = holdsByVehicle.get(h.vehicleId) ?? []
-    list.push({ kind: h.kind, agency: h.agency, caseNumber: h.caseNumber, until: h.until?.toISOString() ?? null })
+    list.push(holdFact(h))
     holdsByVehicle.set(h.vehicleId, list)
   }
   return rows.map((r) => ({

@@ -4,7 +4,6 @@ import type { Database } from '@db/client'
 import type { BoardCard } from '@shared/schemas/board'
 import type { BoardChange, BoardNotifier, LiveBus, SessionsEnded, VehicleChange } from '../live/index'
 import { activeCards, cardOf, type BoardYard } from './board-cards'
-import { yardOfVehicle } from './board.queries'
 import { BoardFeed, type FeedClient } from './board-feed'
 import { BoardSnapshot, type BoardBody } from './board-snapshot'
 import { SessionStreams, type StreamOwner } from './session-streams'
@@ -53,9 +52,7 @@ export class BoardHub implements BoardNotifier {
    */
   async changed(change: VehicleChange): Promise<void> {
     try {
-      const yardId = change.yardId ?? (await yardOfVehicle(this.db, change.vehicleId))
-      if (!yardId) return
-      const full: BoardChange = { vehicleId: change.vehicleId, cause: change.cause, yardId, origin: this.origin }
+      const full: BoardChange = { vehicleId: change.vehicleId, cause: change.cause, yardId: change.yardId, origin: this.origin }
       this.apply(full, change.card)
       await this.bus.publish(full)
     } catch (err) {

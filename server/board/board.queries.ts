@@ -76,8 +76,4 @@ export function activeHolds(db: Executor, yardId: string, vehicleIds?: string[])
     )
     .orderBy(asc(holds.setAt))
 }
-
-export async function yardOfVehicle(db: Executor, vehicleId: string): Promise<string | undefined> {
-  const [row] = await db.select({ yardId: vehicles.yardId }).from(vehicles).where(eq(vehicles.id, vehicleId))
-  return row?.yardId
-}
+export type HoldRow = Awaited<ReturnType<typeof activeHolds>>[number]

@@ -4,6 +4,7 @@ import type { Database } from '@db/client'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { uploadFieldsSchema } from '@shared/schemas/files'
 import { notFound } from '../errors'
+import type { VehicleChanges } from '../vehicles/index'
 import { FileMissingError, type FileStore } from './file-store'
 import { fileForUser, filesOf } from './files.queries'
 import { addFiles } from './files.service'
@@ -12,13 +13,14 @@ import { receiveFiles } from './upload'
 const fileParam = z.object({ id: z.uuid({ error: 'That is not a file id.' }) })
 
 /** POST /api/vehicles/:vehicleId/files — photos, IDs and papers added to a vehicle's record. */
-export function vehicleFilesRouter(db: Database, store: FileStore): Router {
+export function vehicleFilesRouter(changes: VehicleChanges, store: FileStore): Router {
+  const { db } = changes
   const router = Router({ mergeParams: true })
   router.post('/', receiveFiles('files'), async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
     const { kind, label } = uploadFieldsSchema.parse(req.body ?? {})
     const incoming = (req.files as Express.Multer.File[] | undefined) ?? []
-    const ids = await addFiles(db, store, req.user!, vehicleId, incoming, kind, label)
+    const ids = await addFiles(changes, store, req.user!, vehicleId, incoming, kind, label)
     res.status(201).json({ files: await filesOf(db, vehicleId, ids) })
   })
   return router

@@ -1,12 +1,10 @@
 import { randomUUID } from 'node:crypto'
 import { count, eq } from 'drizzle-orm'
-import type { Database, Executor } from '@db/client'
-import { appendHistory } from '@db/history'
 import { files } from '@db/schema'
 import { MAX_FILES_PER_VEHICLE, type FileKind } from '@shared/schemas/files'
 import type { User } from '@shared/schemas/users'
 import { unprocessable } from '../errors'
-import { vehicleForUser } from '../vehicles/index'
+import { changeVehicle, vehicleForUser, type ChangeScope, type VehicleChanges } from '../vehicles/index'
 import type { FileStore } from './file-store'
 import { prepareUploads, type Incoming, type PreparedFile } from './prepare'
 
@@ -44,8 +42,8 @@ export async function putFiles(store: FileStore, vehicleId: string, prepared: Pr
   return { stored, discard }
 }
 
-/** Rows and one history event for files already in the store, inside the caller's transaction. */
-export async function recordFiles(tx: Executor, vehicleId: string, stored: StoredFile[], actor: User) {
+/** Rows and one history event for files already in the store, as part of the caller's change to the vehicle. */
+export async function recordFiles({ tx, vehicleId, actor, record }: ChangeScope, stored: StoredFile[]) {
   if (stored.length === 0) return
   await tx.insert(files).values(
     stored.map((f) => ({
@@ -63,18 +61,13 @@ export async function recordFiles(tx: Executor, vehicleId: string, stored: Store
       uploadedById: actor.id,
     })),
   )
-  await appendHistory(tx, {
-    vehicleId,
-    actorId: actor.id,
-    actorLabel: actor.name,
-    kind: 'file_added',
-    after: { files: stored.map((f) => ({ id: f.id, kind: f.kind, label: f.label, sha256: f.sha256 })) },
-  })
+  record({ kind: 'file_added', after: { files: stored.map((f) => ({ id: f.id, kind: f.kind, label: f.label, sha256: f.sha256 })) } })
 }
 
 /** Adds photos or papers to a vehicle's record: all of them, or none with the reason. */
-export async function addFiles(db: Database, store: FileStore, actor: User, vehicleId: string, incoming: Incoming[], kind: FileKind, label: string | null) {
+export async function addFiles(changes: VehicleChanges, store: FileStore, actor: User, vehicleId: string, incoming: Incoming[], kind: FileKind, label: string | null) {
   if (incoming.length === 0) throw unprocessable('Choose at least one file to add.', { issues: [{ path: 'files', message: 'Choose at least one file to add.' }] })
+  const { db } = changes
   await vehicleForUser(db, actor.id, vehicleId)
   const [have] = await db.select({ n: count() }).from(files).where(eq(files.vehicleId, vehicleId))
   if ((have?.n ?? 0) + incoming.length > MAX_FILES_PER_VEHICLE) {
@@ -83,10 +76,7 @@ export async function addFiles(db: Database, store: FileStore, actor: User, vehi
   const prepared = await prepareUploads(incoming, kind, 'files', label)
   const { stored, discard } = await putFiles(store, vehicleId, prepared)
   try {
-    await db.transaction(async (tx) => {
-      await vehicleForUser(tx, actor.id, vehicleId, true)
-      await recordFiles(tx, vehicleId, stored, actor)
-    })
+    await changeVehicle(changes, actor, vehicleId, (scope) => recordFiles(scope, stored))
   } catch (err) {
     await discard()
     throw err

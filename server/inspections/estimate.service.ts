@@ -1,14 +1,13 @@
 import { and, eq } from 'drizzle-orm'
 import type { z } from 'zod'
-import type { Database, Tx } from '@db/client'
-import { appendHistory } from '@db/history'
+import type { Tx } from '@db/client'
 import { inspectionLines, inspections } from '@db/schema'
 import { hoursToHundredths, lineCents } from '@shared/domain/inspection'
 import type { estimateLineSchema, valuesSchema } from '@shared/schemas/inspections'
 import type { User } from '@shared/schemas/users'
 import { notFound } from '../errors'
-import { boardChanged } from '../live/index'
-import { actorOf, lockInspection, updateVehicle } from './inspection-lock'
+import type { VehicleChanges } from '../vehicles/index'
+import { changeInspection } from './inspection-change'
 import type { LineRow } from './inspections.queries'
 
 type LineInput = z.output<typeof estimateLineSchema>
@@ -34,38 +33,36 @@ const proof = (l: Pick<LineRow, 'part' | 'quantity' | 'unitPriceCents' | 'labour
 })
 
 /** A line priced at the yard's labour rate of today; the rate stays with the line. */
-export async function addLine(db: Database, actor: User, vehicleId: string, input: LineInput): Promise<string> {
-  return db.transaction(async (tx) => {
-    const { inspection, yard } = await lockInspection(tx, actor.id, vehicleId, 'open')
+export async function addLine(changes: VehicleChanges, actor: User, vehicleId: string, input: LineInput): Promise<string> {
+  const { result } = await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, inspection, yard, record }) => {
     const values = { ...stored(input), labourRateCents: yard.labourRateCents }
     const [row] = await tx.insert(inspectionLines).values({ inspectionId: inspection.id, createdById: actor.id, ...values }).returning()
-    await appendHistory(tx, { vehicleId, ...actorOf(actor), kind: 'estimate_line_added', after: { inspectionId: inspection.id, lineId: row!.id, ...proof(row!) } })
+    record({ kind: 'estimate_line_added', after: { inspectionId: inspection.id, lineId: row!.id, ...proof(row!) } })
     return row!.id
   })
+  return result
 }
 
-async function lockedLine(tx: Tx, inspectionId: string, lineId: string) {
+async function lineOf(tx: Tx, inspectionId: string, lineId: string) {
   const [line] = await tx.select().from(inspectionLines).where(and(eq(inspectionLines.id, lineId), eq(inspectionLines.inspectionId, inspectionId)))
   if (!line) throw notFound('That estimate line')
   return line
 }
 
 /** Changes a line; it keeps the labour rate it was written at. */
-export async function changeLine(db: Database, actor: User, vehicleId: string, lineId: string, input: LineInput): Promise<void> {
-  await db.transaction(async (tx) => {
-    const { inspection } = await lockInspection(tx, actor.id, vehicleId, 'open')
-    const before = await lockedLine(tx, inspection.id, lineId)
+export async function changeLine(changes: VehicleChanges, actor: User, vehicleId: string, lineId: string, input: LineInput): Promise<void> {
+  await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, inspection, record }) => {
+    const before = await lineOf(tx, inspection.id, lineId)
     const [after] = await tx.update(inspectionLines).set(stored(input)).where(eq(inspectionLines.id, lineId)).returning()
-    await appendHistory(tx, { vehicleId, ...actorOf(actor), kind: 'estimate_line_changed', before: proof(before), after: { lineId, ...proof(after!) } })
+    record({ kind: 'estimate_line_changed', before: proof(before), after: { lineId, ...proof(after!) } })
   })
 }
 
-export async function removeLine(db: Database, actor: User, vehicleId: string, lineId: string): Promise<void> {
-  await db.transaction(async (tx) => {
-    const { inspection } = await lockInspection(tx, actor.id, vehicleId, 'open')
-    const before = await lockedLine(tx, inspection.id, lineId)
+export async function removeLine(changes: VehicleChanges, actor: User, vehicleId: string, lineId: string): Promise<void> {
+  await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, inspection, record }) => {
+    const before = await lineOf(tx, inspection.id, lineId)
     await tx.delete(inspectionLines).where(eq(inspectionLines.id, lineId))
-    await appendHistory(tx, { vehicleId, ...actorOf(actor), kind: 'estimate_line_removed', before: { lineId, ...proof(before) } })
+    record({ kind: 'estimate_line_removed', before: { lineId, ...proof(before) } })
   })
 }
 
@@ -74,25 +71,20 @@ export async function removeLine(db: Database, actor: User, vehicleId: string, l
  * vehicle's estimated value, which picks the lien clocks' value branch — so the board's next
  * deadline may change, and the history shows the value before and after.
  */
-export async function setValues(db: Database, actor: User, vehicleId: string, input: Values): Promise<void> {
-  const yardId = await db.transaction(async (tx) => {
-    const { vehicle, inspection } = await lockInspection(tx, actor.id, vehicleId, 'any')
+export async function setValues(changes: VehicleChanges, actor: User, vehicleId: string, input: Values): Promise<void> {
+  await changeInspection(changes, actor, vehicleId, 'any', async ({ tx, vehicle, inspection, set, record }) => {
     const at = new Date()
     await tx
       .update(inspections)
       .set({ ...input, valuesEnteredById: actor.id, valuesEnteredAt: at })
       .where(eq(inspections.id, inspection.id))
-    await updateVehicle(tx, vehicleId, { estimatedValueCents: input.actualCashValueCents })
+    set({ estimatedValueCents: input.actualCashValueCents })
     const { actualCashValueCents, actualCashValueSource, salvageValueCents, salvageValueSource } = inspection
-    await appendHistory(tx, {
-      vehicleId,
-      ...actorOf(actor),
+    record({
       kind: 'vehicle_values_entered',
       before: { actualCashValueCents, actualCashValueSource, salvageValueCents, salvageValueSource, estimatedValueCents: vehicle.estimatedValueCents },
       after: { inspectionId: inspection.id, ...input, estimatedValueCents: input.actualCashValueCents },
       at,
     })
-    return vehicle.yardId
   })
-  await boardChanged(db, { yardId, vehicleId, cause: 'values' })
 }

@@ -1,6 +1,4 @@
 import { and, count, eq } from 'drizzle-orm'
-import type { Database } from '@db/client'
-import { appendHistory } from '@db/history'
 import { files, inspectionItems, inspectionPhotos } from '@db/schema'
 import { itemName } from '@shared/domain/inspection'
 import { MAX_FILES_PER_VEHICLE } from '@shared/schemas/files'
@@ -9,14 +7,14 @@ import type { User } from '@shared/schemas/users'
 import type { z } from 'zod'
 import { unprocessable } from '../errors'
 import { type FileStore, type Incoming, prepareUploads, putFiles, recordFiles } from '../files/index'
-import { actorOf, lockInspection } from './inspection-lock'
+import { vehicleForUser, type VehicleChanges } from '../vehicles/index'
+import { changeInspection, inspectionFor } from './inspection-change'
 
 type Finding = z.output<typeof itemFindingSchema>
 
 /** Marks one checklist item; a mark that changes nothing writes nothing. */
-export async function setFinding(db: Database, actor: User, vehicleId: string, itemCode: string, finding: Finding): Promise<void> {
-  await db.transaction(async (tx) => {
-    const { inspection } = await lockInspection(tx, actor.id, vehicleId, 'open')
+export async function setFinding(changes: VehicleChanges, actor: User, vehicleId: string, itemCode: string, finding: Finding): Promise<void> {
+  await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, inspection, record }) => {
     const [before] = await tx
       .select()
       .from(inspectionItems)
@@ -28,9 +26,7 @@ export async function setFinding(db: Database, actor: User, vehicleId: string, i
       .insert(inspectionItems)
       .values({ inspectionId: inspection.id, itemCode, ...values })
       .onConflictDoUpdate({ target: [inspectionItems.inspectionId, inspectionItems.itemCode], set: values })
-    await appendHistory(tx, {
-      vehicleId,
-      ...actorOf(actor),
+    record({
       kind: 'inspection_item_marked',
       before: before ? { item: itemCode, status: before.status, note: before.note } : null,
       after: { inspectionId: inspection.id, item: itemCode, name: itemName(itemCode), status: finding.status, note: finding.note },
@@ -42,10 +38,11 @@ export async function setFinding(db: Database, actor: User, vehicleId: string, i
  * Photos of one finding, through the tow-in's upload pipeline (sniffed, re-encoded, stripped of
  * metadata, hashed into the history); the link row says which item they show. All or none.
  */
-export async function addItemPhotos(db: Database, store: FileStore, actor: User, vehicleId: string, itemCode: string, incoming: Incoming[]) {
+export async function addItemPhotos(changes: VehicleChanges, store: FileStore, actor: User, vehicleId: string, itemCode: string, incoming: Incoming[]) {
   if (incoming.length === 0) throw unprocessable('Take or choose a photo first.', { issues: [{ path: 'files', message: 'Take or choose a photo first.' }] })
-  // Refuse before decoding a dozen photos for an inspection that cannot take them.
-  await db.transaction((tx) => lockInspection(tx, actor.id, vehicleId, 'open'))
+  const { db } = changes
+  // Refuse before decoding a dozen photos for an inspection that cannot take them (checked again under the lock).
+  await inspectionFor(db, (await vehicleForUser(db, actor.id, vehicleId)).vehicle, 'open')
   const [have] = await db.select({ n: count() }).from(files).where(eq(files.vehicleId, vehicleId))
   if ((have?.n ?? 0) + incoming.length > MAX_FILES_PER_VEHICLE) {
     throw unprocessable(`A vehicle keeps at most ${MAX_FILES_PER_VEHICLE} files; this one has ${have?.n ?? 0}.`)
@@ -53,10 +50,9 @@ export async function addItemPhotos(db: Database, store: FileStore, actor: User,
   const prepared = await prepareUploads(incoming, 'photo', 'files', itemName(itemCode))
   const { stored, discard } = await putFiles(store, vehicleId, prepared)
   try {
-    await db.transaction(async (tx) => {
-      const { inspection } = await lockInspection(tx, actor.id, vehicleId, 'open')
-      await recordFiles(tx, vehicleId, stored, actor)
-      await tx.insert(inspectionPhotos).values(stored.map((f) => ({ fileId: f.id, inspectionId: inspection.id, itemCode })))
+    await changeInspection(changes, actor, vehicleId, 'open', async (w) => {
+      await recordFiles(w, stored)
+      await w.tx.insert(inspectionPhotos).values(stored.map((f) => ({ fileId: f.id, inspectionId: w.inspection.id, itemCode })))
     })
   } catch (err) {
     await discard()

@@ -1,9 +1,9 @@
 import { Router, type Request } from 'express'
 import { z } from 'zod'
-import type { Database } from '@db/client'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { estimateLineSchema, itemCodeSchema, itemFindingSchema, rollAbilitySchema, valuesSchema } from '@shared/schemas/inspections'
 import { type FileStore, receiveFiles } from '../files/index'
+import type { VehicleChanges } from '../vehicles/index'
 import { addLine, changeLine, removeLine, setValues } from './estimate.service'
 import { addItemPhotos, setFinding } from './findings.service'
 import { inspectionPage } from './inspection-page'
@@ -17,7 +17,8 @@ const lineParam = vehicleParamsSchema.extend({ lineId: z.uuid({ error: 'That is 
  * Mounted at /api/vehicles/:vehicleId/inspection. Every change answers with the whole teardown page, so
  * the phone shows the totals, the recommendation and the pickup badge as the server worked them out.
  */
-export function inspectionsRouter(db: Database, store: FileStore): Router {
+export function inspectionsRouter(changes: VehicleChanges, store: FileStore): Router {
+  const { db } = changes
   const router = Router({ mergeParams: true })
   const page = (req: Request) => inspectionPage(db, req.user!.id, vehicleParamsSchema.parse(req.params).vehicleId)
 
@@ -25,47 +26,47 @@ export function inspectionsRouter(db: Database, store: FileStore): Router {
     res.json(await page(req))
   })
   router.post('/', async (req, res) => {
-    const { created } = await startInspection(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId)
+    const { created } = await startInspection(changes, req.user!, vehicleParamsSchema.parse(req.params).vehicleId)
     res.status(created ? 201 : 200).json(await page(req))
   })
   router.post('/safety', async (req, res) => {
-    await acknowledgeSafety(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId)
+    await acknowledgeSafety(changes, req.user!, vehicleParamsSchema.parse(req.params).vehicleId)
     res.json(await page(req))
   })
   router.put('/items/:code', async (req, res) => {
     const { vehicleId, code } = itemParam.parse(req.params)
-    await setFinding(db, req.user!, vehicleId, code, itemFindingSchema.parse(req.body))
+    await setFinding(changes, req.user!, vehicleId, code, itemFindingSchema.parse(req.body))
     res.json(await page(req))
   })
   router.post('/items/:code/photos', receiveFiles('files'), async (req, res) => {
     const { vehicleId, code } = itemParam.parse(req.params)
-    await addItemPhotos(db, store, req.user!, vehicleId, code, (req.files as Express.Multer.File[] | undefined) ?? [])
+    await addItemPhotos(changes, store, req.user!, vehicleId, code, (req.files as Express.Multer.File[] | undefined) ?? [])
     res.status(201).json(await page(req))
   })
   router.post('/lines', async (req, res) => {
-    await addLine(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId, estimateLineSchema.parse(req.body))
+    await addLine(changes, req.user!, vehicleParamsSchema.parse(req.params).vehicleId, estimateLineSchema.parse(req.body))
     res.status(201).json(await page(req))
   })
   router.put('/lines/:lineId', async (req, res) => {
     const { vehicleId, lineId } = lineParam.parse(req.params)
-    await changeLine(db, req.user!, vehicleId, lineId, estimateLineSchema.parse(req.body))
+    await changeLine(changes, req.user!, vehicleId, lineId, estimateLineSchema.parse(req.body))
     res.json(await page(req))
   })
   router.delete('/lines/:lineId', async (req, res) => {
     const { vehicleId, lineId } = lineParam.parse(req.params)
-    await removeLine(db, req.user!, vehicleId, lineId)
+    await removeLine(changes, req.user!, vehicleId, lineId)
     res.json(await page(req))
   })
   router.put('/values', async (req, res) => {
-    await setValues(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId, valuesSchema.parse(req.body))
+    await setValues(changes, req.user!, vehicleParamsSchema.parse(req.params).vehicleId, valuesSchema.parse(req.body))
     res.json(await page(req))
   })
   router.patch('/roll-ability', async (req, res) => {
-    await markRollAbility(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId, rollAbilitySchema.parse(req.body))
+    await markRollAbility(changes, req.user!, vehicleParamsSchema.parse(req.params).vehicleId, rollAbilitySchema.parse(req.body))
     res.json(await page(req))
   })
   router.post('/finish', async (req, res) => {
-    await finishInspection(db, req.user!, vehicleParamsSchema.parse(req.params).vehicleId)
+    await finishInspection(changes, req.user!, vehicleParamsSchema.parse(req.params).vehicleId)
     res.json(await page(req))
   })
   return router

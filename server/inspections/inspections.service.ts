@@ -1,14 +1,11 @@
 import { eq } from 'drizzle-orm'
-import type { Database } from '@db/client'
-import { appendHistory } from '@db/history'
 import { inspections } from '@db/schema'
 import { CAUTIONS, estimateTotals, pickupBadge, repairOrSalvage } from '@shared/domain/inspection'
 import type { User } from '@shared/schemas/users'
 import { conflict, unprocessable, type Issue } from '../errors'
-import { boardChanged } from '../live/index'
 import { versionsById } from '../rule-sets/index'
-import { vehicleForUser } from '../vehicles/index'
-import { actorOf, lockInspection, updateVehicle } from './inspection-lock'
+import { changeVehicle, type VehicleChanges } from '../vehicles/index'
+import { changeInspection } from './inspection-change'
 import { itemsOf, latestInspection, linesOf } from './inspections.queries'
 
 /**
@@ -16,44 +13,32 @@ import { itemsOf, latestInspection, linesOf } from './inspections.queries'
  * again while one is under way answers the one under way; a re-inspection clears the vehicle's
  * "inspected" mark, so it cannot go on to Owner decision until this one is finished too.
  */
-export async function startInspection(db: Database, actor: User, vehicleId: string): Promise<{ created: boolean }> {
-  const result = await db.transaction(async (tx) => {
-    const { vehicle } = await vehicleForUser(tx, actor.id, vehicleId, true)
+export async function startInspection(changes: VehicleChanges, actor: User, vehicleId: string): Promise<{ created: boolean }> {
+  const { changed } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, set, record }) => {
     if (vehicle.state !== 'teardown') {
       throw conflict(`Move ${vehicle.stockNumber} to Teardown first: the inspection is done there.`)
     }
     const current = await latestInspection(tx, vehicleId)
-    if (current && !current.finishedAt) return { created: false, yardId: vehicle.yardId, cleared: false }
+    if (current && !current.finishedAt) return
     const [row] = await tx.insert(inspections).values({ vehicleId, startedById: actor.id }).returning({ id: inspections.id })
     const cleared = vehicle.inspectedAt !== null
-    if (cleared) await updateVehicle(tx, vehicleId, { inspectedAt: null, inspectedById: null })
-    await appendHistory(tx, {
-      vehicleId,
-      ...actorOf(actor),
+    if (cleared) set({ inspectedAt: null, inspectedById: null })
+    record({
       kind: 'inspection_started',
       before: cleared ? { inspectedAt: vehicle.inspectedAt!.toISOString(), previousInspectionId: current?.id ?? null } : null,
       after: { inspectionId: row!.id, reinspection: current !== undefined },
     })
-    return { created: true, yardId: vehicle.yardId, cleared }
   })
-  if (result.cleared) await boardChanged(db, { yardId: result.yardId, vehicleId, cause: 'inspection' })
-  return { created: result.created }
+  return { created: changed }
 }
 
 /** Once per inspection: the technician has read the cautions. A second tap records nothing. */
-export async function acknowledgeSafety(db: Database, actor: User, vehicleId: string): Promise<void> {
-  await db.transaction(async (tx) => {
-    const { inspection } = await lockInspection(tx, actor.id, vehicleId, 'any')
+export async function acknowledgeSafety(changes: VehicleChanges, actor: User, vehicleId: string): Promise<void> {
+  await changeInspection(changes, actor, vehicleId, 'any', async ({ tx, inspection, record }) => {
     if (inspection.safetyAcknowledgedAt) return
     const at = new Date()
     await tx.update(inspections).set({ safetyAcknowledgedAt: at, safetyAcknowledgedById: actor.id }).where(eq(inspections.id, inspection.id))
-    await appendHistory(tx, {
-      vehicleId,
-      ...actorOf(actor),
-      kind: 'safety_acknowledged',
-      after: { inspectionId: inspection.id, cautions: CAUTIONS.map((c) => c.text) },
-      at,
-    })
+    record({ kind: 'safety_acknowledged', after: { inspectionId: inspection.id, cautions: CAUTIONS.map((c) => c.text) }, at })
   })
 }
 
@@ -64,9 +49,8 @@ export const NOT_ACKNOWLEDGED = 'Read the safety cautions and tap “I have read
  * "inspection finished" guard reads the vehicle). Refused, with every reason, until the safety
  * cautions are acknowledged, something has been checked, and rolls, steers and brakes are marked.
  */
-export async function finishInspection(db: Database, actor: User, vehicleId: string): Promise<void> {
-  const yardId = await db.transaction(async (tx) => {
-    const { vehicle, inspection } = await lockInspection(tx, actor.id, vehicleId, 'open')
+export async function finishInspection(changes: VehicleChanges, actor: User, vehicleId: string): Promise<void> {
+  await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, vehicle, inspection, set, record }) => {
     const items = await itemsOf(tx, inspection.id)
     const issues: Issue[] = []
     if (!inspection.safetyAcknowledgedAt) issues.push({ path: 'safety', message: NOT_ACKNOWLEDGED })
@@ -81,7 +65,7 @@ export async function finishInspection(db: Database, actor: User, vehicleId: str
     }
     const at = new Date()
     await tx.update(inspections).set({ finishedAt: at, finishedById: actor.id }).where(eq(inspections.id, inspection.id))
-    await updateVehicle(tx, vehicleId, { inspectedAt: at, inspectedById: actor.id })
+    set({ inspectedAt: at, inspectedById: actor.id })
     const totals = estimateTotals(await linesOf(tx, inspection.id))
     const count = (status: string) => items.filter((i) => i.status === status).map((i) => i.itemCode)
     const ruleSet = vehicle.ruleSetVersionId ? (await versionsById(tx, [vehicle.ruleSetVersionId])).get(vehicle.ruleSetVersionId) : undefined
@@ -89,9 +73,7 @@ export async function finishInspection(db: Database, actor: User, vehicleId: str
       ruleSet && inspection.actualCashValueCents !== null
         ? repairOrSalvage(totals.totalCents, inspection.actualCashValueCents, inspection.salvageValueCents ?? 0, ruleSet).recommendation
         : null
-    await appendHistory(tx, {
-      vehicleId,
-      ...actorOf(actor),
+    record({
       kind: 'inspection_finished',
       after: {
         inspectionId: inspection.id,
@@ -103,7 +85,5 @@ export async function finishInspection(db: Database, actor: User, vehicleId: str
       },
       at,
     })
-    return vehicle.yardId
   })
-  await boardChanged(db, { yardId, vehicleId, cause: 'inspection' })
 }

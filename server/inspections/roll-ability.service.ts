@@ -1,14 +1,12 @@
 import { eq } from 'drizzle-orm'
 import type { z } from 'zod'
-import type { Database } from '@db/client'
-import { appendHistory } from '@db/history'
 import { inspections } from '@db/schema'
 import { pickupBadge } from '@shared/domain/inspection'
 import type { rollAbilitySchema } from '@shared/schemas/inspections'
 import type { User } from '@shared/schemas/users'
 import { badRequest, unprocessable } from '../errors'
-import { boardChanged } from '../live/index'
-import { actorOf, lockInspection, updateVehicle } from './inspection-lock'
+import type { VehicleChanges } from '../vehicles/index'
+import { changeInspection } from './inspection-change'
 import { NOT_ACKNOWLEDGED } from './inspections.service'
 
 type Marks = z.output<typeof rollAbilitySchema>
@@ -18,9 +16,8 @@ type Marks = z.output<typeof rollAbilitySchema>
  * from these (shared/domain/inspection/pickup-badge.ts). Someone may be under the vehicle to find out, so the
  * safety cautions must have been acknowledged on this inspection first.
  */
-export async function markRollAbility(db: Database, actor: User, vehicleId: string, marks: Marks): Promise<void> {
-  const yardId = await db.transaction(async (tx) => {
-    const { vehicle, inspection } = await lockInspection(tx, actor.id, vehicleId, 'any')
+export async function markRollAbility(changes: VehicleChanges, actor: User, vehicleId: string, marks: Marks): Promise<void> {
+  await changeInspection(changes, actor, vehicleId, 'any', async ({ tx, vehicle, inspection, set, record }) => {
     if (!inspection.safetyAcknowledgedAt) throw unprocessable(NOT_ACKNOWLEDGED, { issues: [{ path: 'safety', message: NOT_ACKNOWLEDGED }] })
     const wheelRefitted = marks.wheelRefitted ?? inspection.wheelRefitted
     const lugTorqueFtLbf = wheelRefitted ? (marks.lugTorqueFtLbf ?? inspection.lugTorqueFtLbf) : null
@@ -38,17 +35,13 @@ export async function markRollAbility(db: Database, actor: User, vehicleId: stri
       lugTorqueFtLbf,
     }
     const changed = (Object.keys(after) as (keyof typeof after)[]).filter((k) => after[k] !== before[k])
-    if (changed.length === 0) return null
-    await updateVehicle(tx, vehicleId, { rolls: after.rolls, steers: after.steers, brakes: after.brakes, keys: after.keys })
+    if (changed.length === 0) return
+    set({ rolls: after.rolls, steers: after.steers, brakes: after.brakes, keys: after.keys })
     await tx.update(inspections).set({ wheelRefitted, lugTorqueFtLbf }).where(eq(inspections.id, inspection.id))
-    await appendHistory(tx, {
-      vehicleId,
-      ...actorOf(actor),
+    record({
       kind: 'roll_ability_marked',
       before: Object.fromEntries(changed.map((k) => [k, before[k]])),
       after: { inspectionId: inspection.id, ...Object.fromEntries(changed.map((k) => [k, after[k]])), pickupNeeds: pickupBadge(after)?.label ?? null },
     })
-    return vehicle.yardId
   })
-  if (yardId) await boardChanged(db, { yardId, vehicleId, cause: 'roll-ability' })
 }

@@ -3,7 +3,7 @@ import { type AnonymousCsrf, newCsrfToken } from '../middleware/index'
 import type { Database } from '@db/client'
 import { signInSchema } from '@shared/schemas/session'
 import { AppError } from '../errors'
-import { sessionKey, sessionsEnded } from '../live/index'
+import { type BoardNotifier, sessionKey } from '../live/index'
 import type { KnownDevices } from './known-devices'
 import { signIn, signInRefused, stillAsVerified } from './session.service'
 import { addressKey, type SignInThrottle } from './sign-in-throttle'
@@ -12,6 +12,8 @@ export interface SessionRouterDeps {
   anonymous: AnonymousCsrf
   devices: KnownDevices
   throttle: SignInThrottle
+  /** Ends the open board streams of a signed-out session. */
+  boards: BoardNotifier
 }
 
 function promisify(fn: (cb: (err?: unknown) => void) => void): Promise<void> {
@@ -24,7 +26,7 @@ function tooMany(waitMs: number): AppError {
   return new AppError(429, `Too many failed sign-ins from here. Wait ${wait} and try again.`)
 }
 
-export function sessionRouter(db: Database, { anonymous, devices, throttle }: SessionRouterDeps): Router {
+export function sessionRouter(db: Database, { anonymous, devices, throttle, boards }: SessionRouterDeps): Router {
   const router = Router()
 
   // Signed in: the session's own token. Signed out: nothing is kept, so no session row is written.
@@ -67,7 +69,7 @@ export function sessionRouter(db: Database, { anonymous, devices, throttle }: Se
     const ended = sessionKey(req.sessionID)
     await promisify((cb) => req.session.destroy(cb))
     // Its open board streams end now, on every app server, not at their next heartbeat.
-    await sessionsEnded(db, { sessionKey: ended })
+    await boards.sessionsEnded({ sessionKey: ended })
     res.clearCookie('holdfast.sid', { path: '/' })
     res.status(204).end()
   })

@@ -3,10 +3,10 @@ import type { Database } from '@db/client'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { assignSpaceSchema } from '@shared/schemas/spaces'
 import { notFound } from '../errors'
+import type { VehicleChanges } from '../vehicles/index'
 import { yardOfUser } from '../yards/index'
 import { spacesOfYard } from './spaces.queries'
 import { assignSpace } from './spaces.service'
-
 
 /** GET /api/spaces — the yard's spaces and who is in each. */
 export function spacesRouter(db: Database): Router {
@@ -20,11 +20,11 @@ export function spacesRouter(db: Database): Router {
 }
 
 /** PUT /api/vehicles/:vehicleId/space */
-export function vehicleSpaceRouter(db: Database): Router {
+export function vehicleSpaceRouter(changes: VehicleChanges): Router {
   const router = Router({ mergeParams: true })
   router.put('/', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
-    res.json(await assignSpace(db, req.user!, vehicleId, assignSpaceSchema.parse(req.body)))
+    res.json(await assignSpace(changes, req.user!, vehicleId, assignSpaceSchema.parse(req.body)))
   })
   return router
 }

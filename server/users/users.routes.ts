@@ -1,6 +1,7 @@
 import { Router } from 'express'
 import { z } from 'zod'
 import type { Database } from '@db/client'
+import type { BoardNotifier } from '../live/index'
 import { createUserSchema, resetPasswordSchema, updateUserSchema } from '@shared/schemas/users'
 import { refusingCommonPasswords } from './common-passwords'
 import * as service from './users.service'
@@ -9,7 +10,8 @@ const newUserSchema = refusingCommonPasswords(createUserSchema)
 const newPasswordSchema = refusingCommonPasswords(resetPasswordSchema)
 const idParam = z.object({ id: z.uuid({ error: 'That is not a valid user id.' }) })
 
-export function usersRouter(db: Database): Router {
+/** `boards` ends the open board streams of a user whose sessions a change ends. */
+export function usersRouter(db: Database, boards: BoardNotifier): Router {
   const router = Router()
   router.get('/', async (req, res) => {
     res.json({ users: await service.listUsers(db, req.user!) })
@@ -21,12 +23,12 @@ export function usersRouter(db: Database): Router {
   router.patch('/:id', async (req, res) => {
     const { id } = idParam.parse(req.params)
     const input = updateUserSchema.parse(req.body)
-    res.json({ user: await service.changeUser(db, req.user!, id, input) })
+    res.json({ user: await service.changeUser(db, boards, req.user!, id, input) })
   })
   router.post('/:id/password', async (req, res) => {
     const { id } = idParam.parse(req.params)
     const { password } = newPasswordSchema.parse(req.body)
-    await service.resetPassword(db, req.user!, id, password)
+    await service.resetPassword(db, boards, req.user!, id, password)
     res.status(204).end()
   })
   return router

@@ -1,7 +1,7 @@
 import type { Database } from '@db/client'
 import type { CreateUser, UpdateUser, User } from '@shared/schemas/users'
 import { conflict, notFound, unprocessable } from '../errors'
-import { sessionsEnded } from '../live/index'
+import type { BoardNotifier } from '../live/index'
 import { endSessionsOf, renameInSessions } from '../session/index'
 import { hashPassword } from './passwords'
 import * as q from './users.queries'
@@ -36,7 +36,7 @@ function isUniqueViolation(err: unknown, constraint: string): boolean {
   return e?.code === '23505' && (e.constraint === constraint || (e.message ?? '').includes(constraint))
 }
 
-export async function changeUser(db: Database, actor: User, id: string, input: UpdateUser) {
+export async function changeUser(db: Database, boards: BoardNotifier, actor: User, id: string, input: UpdateUser) {
   const endsSessions = input.active === false || input.role !== undefined
   const row = await db.transaction(async (tx) => {
     const target = await q.findUser(tx, id)
@@ -52,11 +52,11 @@ export async function changeUser(db: Database, actor: User, id: string, input: U
     return toRow(row!)
   })
   // Their open board streams too, on every app server.
-  if (endsSessions) await sessionsEnded(db, { userId: id })
+  if (endsSessions) await boards.sessionsEnded({ userId: id })
   return row
 }
 
-export async function resetPassword(db: Database, actor: User, id: string, password: string) {
+export async function resetPassword(db: Database, boards: BoardNotifier, actor: User, id: string, password: string) {
   const target = await q.findUser(db, id)
   const me = await q.findUser(db, actor.id)
   if (!target || target.companyId !== me!.companyId) throw notFound('That user')
@@ -66,5 +66,5 @@ export async function resetPassword(db: Database, actor: User, id: string, passw
     await q.updateUser(tx, id, { passwordHash })
     await endSessionsOf(tx, id)
   })
-  await sessionsEnded(db, { userId: id })
+  await boards.sessionsEnded({ userId: id })
 }

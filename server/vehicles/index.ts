@@ -1,4 +1,6 @@
 export { vehiclesRouter } from './vehicles.routes'
-export { vehicleForUser, bumpVersion } from './vehicles.queries'
-export type { VehicleRow } from './vehicles.queries'
+export { vehicleForUser } from './vehicles.queries'
+export type { VehicleRow, YardRow } from './vehicles.queries'
+export { changeVehicle, createVehicle } from './vehicle-change'
+export type { ChangeScope, Changed, ChangeOptions, HistoryEntry, VehicleChanges, VehicleColumns, VehicleWork } from './vehicle-change'
 export { holdsOf, spaceOf } from './vehicle-page.queries'

@@ -1,19 +1,18 @@
 import { randomUUID } from 'node:crypto'
 import { and, eq } from 'drizzle-orm'
-import type { Database, Tx } from '@db/client'
-import { appendHistory } from '@db/history'
+import type { Database } from '@db/client'
 import { holds, propertyItems, tows, users, vehicles } from '@db/schema'
 import { TOW_REASON_LABELS } from '@shared/domain/tow'
 import type { TowIn } from '@shared/schemas/tow-in'
 import type { User } from '@shared/schemas/users'
 import { badRequest, notFound } from '../errors'
 import { type FileStore, type Incoming, prepareUploads, putFiles, recordFiles, type StoredFile } from '../files/index'
-import { boardChanged } from '../live/index'
 import { freeSpace, isSpaceConflict, spaceTaken } from '../spaces/index'
 import { yardOfUser } from '../yards/index'
 import { assertKnownClass, intakeRules } from './rules'
 import { nextStockNumber } from './stock-numbers'
 import { towColumns } from './tow-charge'
+import { createVehicle, type ChangeScope, type VehicleChanges } from './vehicle-change'
 import type { YardRow } from './vehicles.queries'
 
 /**
@@ -21,7 +20,8 @@ import type { YardRow } from './vehicles.queries'
  * transaction, with the first links of its history. Photos are checked and stored first and
  * removed again if the transaction fails, so a refused tow-in leaves neither rows nor files.
  */
-export async function createTowIn(db: Database, store: FileStore, actor: User, input: TowIn, photos: Incoming[]) {
+export async function createTowIn(changes: VehicleChanges, store: FileStore, actor: User, input: TowIn, photos: Incoming[]) {
+  const { db } = changes
   const yard = await yardOfUser(db, actor.id)
   if (!yard) throw notFound('A yard for your company')
   const rules = await intakeRules(db, yard)
@@ -31,9 +31,7 @@ export async function createTowIn(db: Database, store: FileStore, actor: User, i
   const vehicleId = randomUUID()
   const { stored, discard } = await putFiles(store, vehicleId, prepared)
   try {
-    const created = await db.transaction((tx) => insertTowIn(tx, yard, actor, input, { vehicleId, ruleSetVersionId: rules.versionId, photos: stored }))
-    await boardChanged(db, { yardId: yard.id, vehicleId, cause: 'towed_in' })
-    return created
+    return await createVehicle(changes, actor, yard, vehicleId, (scope) => insertTowIn(scope, yard, input, { ruleSetVersionId: rules.versionId, photos: stored }))
   } catch (err) {
     await discard()
     if (isSpaceConflict(err)) throw spaceTaken(null, 'spaceId')
@@ -48,18 +46,18 @@ async function assertSameCompany(db: Database, yard: YardRow, userId: string) {
 }
 
 interface Extras {
-  vehicleId: string
   ruleSetVersionId: string | null
   photos: StoredFile[]
 }
 
-async function insertTowIn(tx: Tx, yard: YardRow, actor: User, input: TowIn, extras: Extras) {
+async function insertTowIn(scope: ChangeScope, yard: YardRow, input: TowIn, extras: Extras) {
+  const { tx, vehicleId, actor, record } = scope
   const { tow, vehicle: v, condition } = input
   const space = input.spaceId ? await freeSpace(tx, yard.id, input.spaceId, 'spaceId') : null
   const towRow = towColumns(tow, yard)
   const stockNumber = await nextStockNumber(tx, yard, towRow.arrivedAt)
   await tx.insert(vehicles).values({
-    id: extras.vehicleId,
+    id: vehicleId,
     yardId: yard.id,
     stockNumber,
     ...v,
@@ -69,13 +67,11 @@ async function insertTowIn(tx: Tx, yard: YardRow, actor: User, input: TowIn, ext
     ruleSetVersionId: extras.ruleSetVersionId,
     arrivedAt: towRow.arrivedAt,
   })
-  await tx.insert(tows).values({ vehicleId: extras.vehicleId, ...towRow })
+  await tx.insert(tows).values({ vehicleId, ...towRow })
   if (condition.property.length > 0) {
-    await tx.insert(propertyItems).values(condition.property.map((p) => ({ vehicleId: extras.vehicleId, ...p })))
+    await tx.insert(propertyItems).values(condition.property.map((p) => ({ vehicleId, ...p })))
   }
-  const actorRef = { vehicleId: extras.vehicleId, actorId: actor.id, actorLabel: actor.name }
-  await appendHistory(tx, {
-    ...actorRef,
+  record({
     kind: 'towed_in',
     toState: 'arrival',
     reason: TOW_REASON_LABELS[tow.reason],
@@ -92,9 +88,9 @@ async function insertTowIn(tx: Tx, yard: YardRow, actor: User, input: TowIn, ext
     },
   })
   for (const h of input.holds) {
-    const [row] = await tx.insert(holds).values({ vehicleId: extras.vehicleId, ...h, until: h.until ? new Date(h.until) : null, setById: actor.id }).returning({ id: holds.id })
-    await appendHistory(tx, { ...actorRef, kind: 'hold_set', after: { holdId: row!.id, kind: h.kind, agency: h.agency, caseNumber: h.caseNumber, until: h.until, note: h.note } })
+    const [row] = await tx.insert(holds).values({ vehicleId, ...h, until: h.until ? new Date(h.until) : null, setById: actor.id }).returning({ id: holds.id })
+    record({ kind: 'hold_set', after: { holdId: row!.id, kind: h.kind, agency: h.agency, caseNumber: h.caseNumber, until: h.until, note: h.note } })
   }
-  await recordFiles(tx, extras.vehicleId, extras.photos, actor)
-  return { id: extras.vehicleId, stockNumber }
+  await recordFiles(scope, extras.photos)
+  return { id: vehicleId, stockNumber }
 }

@@ -21,13 +21,3 @@ export async function vehicleForUser(db: Executor, userId: string, vehicleId: st
   if (!row) throw notFound('That vehicle')
   return row
 }
-
-/** Bumps the version a change was made against; a stale version is a conflict, never an overwrite. */
-export async function bumpVersion(db: Executor, vehicleId: string, expected: number, changes: Partial<typeof vehicles.$inferInsert> = {}) {
-  const [row] = await db
-    .update(vehicles)
-    .set({ ...changes, version: expected + 1, updatedAt: new Date() })
-    .where(and(eq(vehicles.id, vehicleId), eq(vehicles.version, expected)))
-    .returning({ version: vehicles.version })
-  return row?.version
-}

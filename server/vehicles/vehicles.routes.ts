@@ -1,5 +1,4 @@
 import { Router, type Request } from 'express'
-import type { Database } from '@db/client'
 import { historyOf, verifyChain } from '@db/history'
 import { searchQuerySchema } from '@shared/schemas/search'
 import { correctVehicleSchema, towInSchema } from '@shared/schemas/tow-in'
@@ -12,6 +11,7 @@ import { searchVehicles } from './search.queries'
 import { createTowIn } from './tow-in.service'
 import { historyEvents } from './vehicle-page.queries'
 import { vehiclePage } from './vehicle-page.service'
+import type { VehicleChanges } from './vehicle-change'
 import { vehicleForUser } from './vehicles.queries'
 
 /** A tow-in arrives as JSON, or as a form with the record in `data` and the photos in `photos`. */
@@ -25,7 +25,8 @@ function towInBody(req: Request): unknown {
   }
 }
 
-export function vehiclesRouter(db: Database, store: FileStore): Router {
+export function vehiclesRouter(changes: VehicleChanges, store: FileStore): Router {
+  const { db } = changes
   const router = Router()
   router.get('/intake-options', async (req, res) => {
     res.json(await intakeOptions(db, req.user!.id))
@@ -37,14 +38,14 @@ export function vehiclesRouter(db: Database, store: FileStore): Router {
   router.post('/', receiveFiles('photos'), async (req, res) => {
     const input = towInSchema.parse(towInBody(req))
     const photos = (req.files as Express.Multer.File[] | undefined) ?? []
-    res.status(201).json(await createTowIn(db, store, req.user!, input, photos))
+    res.status(201).json(await createTowIn(changes, store, req.user!, input, photos))
   })
   router.get('/:vehicleId', async (req, res) => {
     res.json(await vehiclePage(db, req.user!.id, vehicleParamsSchema.parse(req.params).vehicleId))
   })
   router.patch('/:vehicleId', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
-    res.json(await correctVehicle(db, req.user!, vehicleId, correctVehicleSchema.parse(req.body)))
+    res.json(await correctVehicle(changes, req.user!, vehicleId, correctVehicleSchema.parse(req.body)))
   })
   router.get('/:vehicleId/history', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)

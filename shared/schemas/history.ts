@@ -1,10 +1,34 @@
 import { z } from 'zod'
 
+/**
+ * Every kind of event a vehicle's history holds, as stored in history_events.kind. The server
+ * appends only these (db/history.ts) and every word map keyed by them must name them all.
+ */
+export const HISTORY_KINDS = [
+  'towed_in',
+  'corrected',
+  'hold_set',
+  'hold_lifted',
+  'file_added',
+  'space_assigned',
+  'moved',
+  'inspection_started',
+  'safety_acknowledged',
+  'inspection_item_marked',
+  'estimate_line_added',
+  'estimate_line_changed',
+  'estimate_line_removed',
+  'vehicle_values_entered',
+  'roll_ability_marked',
+  'inspection_finished',
+] as const
+export type HistoryKind = (typeof HISTORY_KINDS)[number]
+
 export const historyEventSchema = z.object({
   seq: z.number(),
   at: z.string(),
   actor: z.string(),
-  kind: z.string(),
+  kind: z.enum(HISTORY_KINDS),
   fromState: z.string().nullable(),
   toState: z.string().nullable(),
   reason: z.string().nullable(),
@@ -24,14 +48,13 @@ export const chainCheckSchema = z.object({
 export type ChainCheck = z.infer<typeof chainCheckSchema>
 
 /** Plain words for each kind of event, as the timeline shows them. */
-export const HISTORY_LABELS: Record<string, string> = {
+export const HISTORY_LABELS: Record<HistoryKind, string> = {
   towed_in: 'Towed in',
   corrected: 'Record corrected',
   hold_set: 'Hold set',
   hold_lifted: 'Hold lifted',
   file_added: 'File added',
   space_assigned: 'Space assigned',
-  property_added: 'Property listed',
   moved: 'Moved',
   inspection_started: 'Inspection started',
   safety_acknowledged: 'Safety cautions read',

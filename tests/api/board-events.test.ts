@@ -5,7 +5,7 @@ import { makeTestApp, type TestApp } from '../helpers/app'
 import { DAY, sampleVersion, setHold } from '../helpers/board'
 import { fetchSession, listening, openStream } from '../helpers/live'
 import { makeStaff, makeVehicle } from '../helpers/factories'
-import { DEMO_RATES, towInBody } from '../helpers/tow-in'
+import { DEMO_RATES, photo, towInBody } from '../helpers/tow-in'
 
 let t: TestApp
 let server: Awaited<ReturnType<typeof listening>>
@@ -180,6 +180,20 @@ describe('GET /api/board/events', () => {
       return again.status
     }).toBe(200)
     open.slice(1).forEach((o) => o.close())
+  })
+
+  it('events_photosAddedToAVehicle_updateThePhotoCountOnAnotherBoard', async () => {
+    const staff = await makeStaff(t.db)
+    const v = await makeVehicle(t.db, staff.yard.id)
+    const [dispatcher, watcher] = await Promise.all([fetchSession(server.url, staff.dispatcher), fetchSession(server.url, staff.office)])
+    const stream = await openStream(server.url, watcher.cookie)
+    const form = new FormData()
+    form.append('kind', 'photo')
+    form.append('files', new Blob([new Uint8Array(await photo())], { type: 'image/jpeg' }), 'front.jpg')
+    form.append('files', new Blob([new Uint8Array(await photo(40, 64))], { type: 'image/jpeg' }), 'rear.jpg')
+    expect((await dispatcher.postForm(`/api/vehicles/${v.id}/files`, form)).status).toBe(201)
+    expect((await stream.next((b) => b.type === 'card')).body.card).toMatchObject({ id: v.id, photoCount: 2, version: 2 })
+    stream.close()
   })
 
   it('events_signedOut_answers401', async () => {

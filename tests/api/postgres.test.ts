@@ -41,7 +41,7 @@ describe('on real PostgreSQL 15', () => {
     const v = await makeVehicle(t.db, yard.id)
     await Promise.all(
       Array.from({ length: 20 }, (_, i) =>
-        t.db.transaction((tx) => appendHistory(tx, { vehicleId: v.id, actorId: manager.id, actorLabel: manager.name, kind: `note_${i}` })),
+        t.db.transaction((tx) => appendHistory(tx, { vehicleId: v.id, actorId: manager.id, actorLabel: manager.name, kind: 'corrected', reason: `note ${i}` })),
       ),
     )
     const rows = await t.db.select().from(historyEvents)

@@ -40,6 +40,8 @@ export async function fetchSession(base: string, user: { email: string; password
     signOut: (on = base) => fetch(`${on}/api/session`, { method: 'DELETE', headers: { cookie, 'x-csrf-token': csrf } }),
     post: (url: string, body: unknown) =>
       fetch(`${base}${url}`, { method: 'POST', headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrf }, body: JSON.stringify(body) }),
+    /** A multipart form (files and fields), as a browser's upload sends it. */
+    postForm: (url: string, form: FormData) => fetch(`${base}${url}`, { method: 'POST', headers: { cookie, 'x-csrf-token': csrf }, body: form }),
     patch: (url: string, body: unknown) =>
       fetch(`${base}${url}`, { method: 'PATCH', headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrf }, body: JSON.stringify(body) }),
     get: (url: string) => fetch(`${base}${url}`, { headers: { cookie } }),

@@ -20,14 +20,14 @@ export interface MoveFacts {
   /** Active holds only. */
   holds: readonly HoldFact[]
   inspected: boolean
-  /** The running balance; null when no rule set bills the vehicle. */
+  /** The running balance; null when no rule set bills the vehicle (and on the server when the move does not read it: readsBill). */
   balanceCents: number | null
   paidCents: number
   /** A manager waived what is left, with a reason. */
   waived: boolean
   claimantIdRecorded: boolean
   releaseSigned: boolean
-  /** Null when no rule set gives the vehicle legal clocks. */
+  /** Null when no rule set gives the vehicle legal clocks (or the move does not read it, as the balance). */
   lienSale: LienSaleGate | null
 }
 
@@ -97,3 +97,9 @@ export const lienSaleAllowed: Guard = (f, ctx) => {
   if (gate.date) return [{ code: 'lien-sale', message: `The law does not allow a lien sale or disposal before ${shortDate(gate.date, f.timeZone, ctx.now)}.` }]
   return [{ code: 'lien-sale', message: `No lien-sale date yet. ${gate.why}` }]
 }
+
+/**
+ * The guards that read the vehicle's bill (its balance, its lien-sale gate). Working the bill out
+ * is the dear part of a move's facts, so the server does it only for a move one of these judges.
+ */
+export const BILL_GUARDS: ReadonlySet<Guard> = new Set([balanceSettled, lienSaleAllowed])

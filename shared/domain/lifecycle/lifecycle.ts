@@ -55,6 +55,14 @@ export function ruleFor(from: VehicleState, to: VehicleState): MoveRule | undefi
   return MOVES.find((m) => m.from === from && m.to === to)
 }
 
+/** Whether judging this move (and way out) reads the vehicle's bill, so the server works it out only then. */
+export function readsBill(from: VehicleState, to: VehicleState, disposition?: Disposition | null): boolean {
+  const rule = ruleFor(from, to)
+  if (!rule) return false
+  const guards = [...rule.guards, ...((disposition && rule.dispositions?.[disposition]) || [])]
+  return guards.some((guard) => g.BILL_GUARDS.has(guard))
+}
+
 export interface MoveAttempt {
   from: VehicleState
   to: VehicleState

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { checkMove, type Disposition, type MoveFacts, moveOptions, VEHICLE_STATES, type VehicleState } from '@shared/domain/lifecycle'
+import { checkMove, DISPOSITIONS, type Disposition, type MoveFacts, MOVES, moveOptions, readsBill, VEHICLE_STATES, type VehicleState } from '@shared/domain/lifecycle'
 import { ROLES, type Role } from '@shared/domain/access'
 
 const NOW = new Date('2026-12-03T18:00:00Z')
@@ -217,5 +217,26 @@ describe('moveOptions (the "Move to…" menu)', () => {
 
   it('moveOptions_closed_offersNothing', () => {
     expect(moveOptions('closed', 'manager', clear, NOW)).toEqual([])
+  })
+})
+
+describe('readsBill (the server works the bill out only for a move that reads it)', () => {
+  const ways = MOVES.flatMap((m) =>
+    (m.dispositions ? DISPOSITIONS.filter((d) => m.dispositions![d]) : [null]).map((disposition: Disposition | null) => ({ from: m.from, to: m.to, disposition })),
+  )
+  // What the server hands the lifecycle when it has not worked the bill out.
+  const unbilled = facts({ balanceCents: null, lienSale: null })
+  const judged = (w: (typeof ways)[number], f: MoveFacts) => checkMove({ ...w, role: 'manager', facts: f, reason: 'owner asked', now: NOW })
+
+  it.each(ways)('readsBill $from → $to ($disposition): yes exactly when the verdict needs the bill', (w) => {
+    if (readsBill(w.from, w.to, w.disposition)) expect(judged(w, unbilled).allowed).toBe(false)
+    else expect(judged(w, unbilled)).toEqual(judged(w, clear))
+  })
+
+  it('readsBill_handOverAndLienSale_readItAndTheTeardownDoesNot', () => {
+    expect(readsBill('release', 'closed', 'returned_to_owner')).toBe(true)
+    expect(readsBill('storage', 'closed', 'lien_sale')).toBe(true)
+    expect(readsBill('storage', 'closed', 'title_transferred')).toBe(false)
+    expect(readsBill('arrival', 'teardown')).toBe(false)
   })
 })
