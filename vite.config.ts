@@ -3,6 +3,7 @@ import vue from '@vitejs/plugin-vue'
 import Components from 'unplugin-vue-components/vite'
 import { ElementPlusResolver } from 'unplugin-vue-components/resolvers'
 import { defineConfig } from 'vite'
+import { compression } from 'vite-plugin-compression2'
 
 const apiPort = process.env.PORT ?? '3000'
 
@@ -11,6 +12,8 @@ export default defineConfig({
     vue(),
     // Element Plus on demand; our own components, composables and stores are imported explicitly.
     Components({ dirs: [], resolvers: [ElementPlusResolver({ importStyle: 'css' })], dts: 'components.d.ts' }),
+    // A .br and a .gz beside each text asset, made once at build time; the server picks one per request.
+    compression({ include: /\.(html|js|css|json|svg|wasm)$/, algorithms: ['gzip', 'brotliCompress'] }),
   ],
   resolve: {
     alias: {
