@@ -16,10 +16,13 @@ export default defineConfig({
     compression({ include: /\.(html|js|css|json|svg|wasm)$/, algorithms: ['gzip', 'brotliCompress'] }),
   ],
   resolve: {
-    alias: {
-      '@': fileURLToPath(new URL('./src', import.meta.url)),
-      '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
-    },
+    alias: [
+      { find: '@', replacement: fileURLToPath(new URL('./src', import.meta.url)) },
+      { find: '@shared', replacement: fileURLToPath(new URL('./shared', import.meta.url)) },
+      // @vue-leaflet imports Leaflet's ES module build, and `import('leaflet')` once (for its
+      // global-Leaflet mode), which resolves to the UMD build: point both at one file, one copy.
+      { find: /^leaflet$/, replacement: 'leaflet/dist/leaflet-src.esm.js' },
+    ],
   },
   build: { outDir: 'dist/client', emptyOutDir: true, chunkSizeWarningLimit: 800 },
   server: { proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } } },

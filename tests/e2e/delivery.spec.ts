@@ -1,4 +1,4 @@
-import { existsSync, statSync } from 'node:fs'
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs'
 import path from 'node:path'
 import { expect, test, type Response } from '@playwright/test'
 
@@ -23,4 +23,11 @@ test('the sign-in page\'s scripts and styles come from the build\'s Brotli files
     expect(headers['vary'], file).toMatch(/accept-encoding/i)
     expect(headers['cache-control'], file).toContain('immutable')
   }
+})
+
+test('the build holds one copy of Leaflet', () => {
+  // A class name in Leaflet's own code, in its ES module and UMD builds alike.
+  const scripts = readdirSync(path.join(CLIENT_DIR, 'assets')).filter((f) => f.endsWith('.js'))
+  const withLeaflet = scripts.filter((f) => readFileSync(path.join(CLIENT_DIR, 'assets', f), 'utf8').includes('leaflet-zoom-animated'))
+  expect(withLeaflet).toHaveLength(1)
 })
