@@ -3,6 +3,7 @@ import vue from '@vitejs/plugin-vue'
 import Components from 'unplugin-vue-components/vite'
 import { ElementPlusResolver } from 'unplugin-vue-components/resolvers'
 import { defineConfig } from 'vite'
+import { compression } from 'vite-plugin-compression2'
 
 const apiPort = process.env.PORT ?? '3000'
 
@@ -11,12 +12,17 @@ export default defineConfig({
     vue(),
     // Element Plus on demand; our own components, composables and stores are imported explicitly.
     Components({ dirs: [], resolvers: [ElementPlusResolver({ importStyle: 'css' })], dts: 'components.d.ts' }),
+    // A .br and a .gz beside each text asset, made once at build time; the server picks one per request.
+    compression({ include: /\.(html|js|css|json|svg|wasm)$/, algorithms: ['gzip', 'brotliCompress'] }),
   ],
   resolve: {
-    alias: {
-      '@': fileURLToPath(new URL('./src', import.meta.url)),
-      '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
-    },
+    alias: [
+      { find: '@', replacement: fileURLToPath(new URL('./src', import.meta.url)) },
+      { find: '@shared', replacement: fileURLToPath(new URL('./shared', import.meta.url)) },
+      // @vue-leaflet imports Leaflet's ES module build, and `import('leaflet')` once (for its
+      // global-Leaflet mode), which resolves to the UMD build: point both at one file, one copy.
+      { find: /^leaflet$/, replacement: 'leaflet/dist/leaflet-src.esm.js' },
+    ],
   },
   build: { outDir: 'dist/client', emptyOutDir: true, chunkSizeWarningLimit: 800 },
   server: { proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } } },

@@ -1,9 +1,11 @@
 import express, { type Express } from 'express'
+import expressStaticGzip from 'express-static-gzip'
 import helmet from 'helmet'
 import { pinoHttp } from 'pino-http'
 import type { Logger } from 'pino'
 import path from 'node:path'
 import { existsSync } from 'node:fs'
+import type { ServerResponse } from 'node:http'
 import type { Database } from '@db/client'
 import { enforceAccess } from './access'
 import { archiveRouter } from './archive/index'
@@ -122,7 +124,17 @@ export function createApp(deps: AppDeps): Express {
 }
 
 function serveClient(app: Express, dir: string) {
-  app.use(express.static(dir, { index: false, maxAge: '1h', setHeaders: longCacheForHashedAssets }))
+  // The build writes a .br and a .gz beside each text asset; each request gets the smallest one its
+  // browser accepts (Content-Encoding, Vary: Accept-Encoding), or the plain file.
+  app.use(
+    // It finds the compressed files once, at start, by paths under exactly this root.
+    expressStaticGzip(path.resolve(dir), {
+      enableBrotli: true,
+      orderPreference: ['br', 'gzip'],
+      index: false,
+      serveStatic: { index: false, maxAge: '1h', setHeaders: longCacheForHashedAssets },
+    }),
+  )
   // Client-side routes all load the one page.
   app.get('/{*splat}', (_req, res) => {
     res.setHeader('Cache-Control', 'no-cache')
@@ -130,6 +142,6 @@ function serveClient(app: Express, dir: string) {
   })
 }
 
-function longCacheForHashedAssets(res: express.Response, file: string) {
+function longCacheForHashedAssets(res: ServerResponse, file: string) {
   if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable')
 }

@@ -24,9 +24,10 @@ export function setCsrfToken(token: string) {
 
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE'
 
-export async function request<T extends z.ZodType>(method: Method, url: string, schema: T, body?: unknown): Promise<z.infer<T>> {
-  const res = await send(method, url, body)
-  return schema.parse(await res.json())
+/** The answer parsed with `schema`; a schema still loading (a dynamic import) arrives while the request is under way. */
+export async function request<T extends z.ZodType>(method: Method, url: string, schema: T | Promise<T>, body?: unknown): Promise<z.infer<T>> {
+  const [res, parser] = await Promise.all([send(method, url, body), schema])
+  return parser.parse(await res.json())
 }
 
 /** A request whose answer has no body (204). */

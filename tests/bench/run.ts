@@ -9,6 +9,7 @@ const benches: Record<string, () => Promise<{ met: boolean }>> = {
   startup: async () => (await import('./startup.bench')).run(),
   core: async () => (await import('./core.bench')).run(),
   board: async () => (await import('./board.bench')).run(),
+  delivery: async () => (await import('./delivery.bench')).run(),
 }
 const only = process.argv.slice(2)
 let allMet = true
