@@ -64,3 +64,12 @@ test('the VIN fills the vehicle from NHTSA vPIC, and what the dispatcher types o
   expect(asked).toEqual([])
   expect(problems).toEqual([])
 })
+
+test('the VIN scanner says why when the camera is refused', async ({ page }) => {
+  await page.addInitScript(() => {
+    navigator.mediaDevices.getUserMedia = () => Promise.reject(new DOMException('Permission denied', 'NotAllowedError'))
+  })
+  await openForm(page)
+  await page.getByRole('button', { name: 'Scan' }).click()
+  await expect(page.getByTestId('scan-problem')).toContainText('Holdfast was not allowed to use the camera.')
+})
