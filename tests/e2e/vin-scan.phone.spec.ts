@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { tmpdir } from 'node:os'
+import { mkdirSync } from 'node:fs'
 import path from 'node:path'
 import { chromiumLaunch } from './chromium'
 import { writeDataMatrixVideo } from './fake-camera'
@@ -7,8 +7,10 @@ import { signInAs, watchConsole } from './helpers'
 
 // A real WMI and VDS (Ford F-150 in NHTSA vPIC), invented serial, check digit computed.
 const VIN = '1FTFW1ET9DFC10312'
-// Written before the browser starts: Chromium reads its fake camera's picture from this file.
-const video = path.join(tmpdir(), `holdfast-vin-label-${process.pid}.y4m`)
+// Written when the file loads, before the browser starts: Chromium reads its fake camera's picture from it.
+// Under test-results/ (ignored by git), which Playwright empties at each run.
+const video = path.resolve('test-results', 'vin-label.y4m')
+mkdirSync(path.dirname(video), { recursive: true })
 writeDataMatrixVideo(video, VIN)
 test.use({
   launchOptions: {
