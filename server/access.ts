@@ -61,6 +61,8 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/files/:id/thumb': 'board.view',
   'GET /api/spaces': 'board.view',
   'GET /api/map/settings': 'board.view',
+  // Whoever logs or corrects a tow-in fills the vehicle from its VIN.
+  'GET /api/vin-decode/:vin': 'towin.write',
   'GET /api/fakes/tiles/:z/:x/:y.png': 'staff',
   'GET /api/fakes/geocoder/search': 'staff',
   'GET /api/fakes/geocoder/reverse': 'staff',

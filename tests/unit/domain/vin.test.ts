@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { normalizeVin, vin, vinWithCheckDigit } from '@shared/domain/vehicle'
+import { normalizeVin, vin, vinFromBarcode, vinWithCheckDigit } from '@shared/domain/vehicle'
 
 describe('vin input', () => {
   it.each([
@@ -49,5 +49,24 @@ describe('vinWithCheckDigit (demo data)', () => {
 
   it('normalizeVin_keepsOnlyTheCharacters', () => {
     expect(normalizeVin(' ab-c d ')).toBe('ABCD')
+  })
+})
+
+describe('vinFromBarcode', () => {
+  it.each([
+    { why: 'a Code 39 VIN as printed', text: '1G4AH59H45G118341', vin: '1G4AH59H45G118341' },
+    { why: 'an import "I" before it', text: 'I1G4AH59H45G118341', vin: '1G4AH59H45G118341' },
+    { why: 'lower case and a trailing newline', text: '1g4ah59h45g118341\n', vin: '1G4AH59H45G118341' },
+    { why: 'a Data Matrix with more data around it', text: 'MFG 03/05 1G4AH59H45G118341 GVWR 4400', vin: '1G4AH59H45G118341' },
+    { why: 'a plain reading whose check digit fails (the form judges it)', text: '1G4AH59H45G128341', vin: '1G4AH59H45G128341' },
+  ])('vinFromBarcode_$why_isTheVin', ({ text, vin: expected }) => {
+    expect(vinFromBarcode(text)).toBe(expected)
+  })
+
+  it.each([
+    { why: 'a part number', text: '84263317' },
+    { why: 'a run of characters with no valid check digit inside longer text', text: 'LOT 1G4AH59H45G128341X TAG' },
+  ])('vinFromBarcode_$why_isNothing', ({ text }) => {
+    expect(vinFromBarcode(text)).toBeNull()
   })
 })
