@@ -84,7 +84,7 @@ describe('embedded database lock', () => {
     // At once: no waiting for a lock to go stale.
     const handle = await openDatabase({ kind: 'pglite', dataDir: crashDir })
     try {
-      const { rows } = await handle.db.execute(sql`select value from lock_test`)
+      const { rows } = (await handle.db.execute(sql`select value from lock_test`)) as unknown as { rows: unknown[] }
       expect(rows).toEqual([{ value: 'written before the crash' }])
     } finally {
       await handle.close()

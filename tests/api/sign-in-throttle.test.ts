@@ -1,7 +1,7 @@
 import { pino } from 'pino'
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { sql } from 'drizzle-orm'
+import { signInFailures } from '../../db/schema/index'
 import { createApp } from '../../server/app'
 import { localFileStore } from '../../server/files/index'
 import { makeTestApp, type TestApp } from '../helpers/app'
@@ -133,7 +133,7 @@ describe('sign-in throttling without a lockout', () => {
     const staff = await makeStaff(t.db)
     const ip = nextAddress()
     await fail(await browserAt(ip), staff.office.email, 5)
-    expect(Number((await t.db.execute(sql`select count(*)::int as n from sign_in_failures`)).rows[0]!.n)).toBeGreaterThan(0)
+    expect(await t.db.$count(signInFailures)).toBeGreaterThan(0)
     const other = createApp({
       db: t.db,
       log: pino({ level: 'silent' }),
@@ -164,7 +164,7 @@ describe('pruning', () => {
     const staff = await makeStaff(t.db)
     await fail(await browserAt(nextAddress()), staff.office.email, 2)
     const { pruneSignInFailures } = await import('../../server/session/index')
-    const count = async () => Number((await t.db.execute(sql`select count(*)::int as n from sign_in_failures`)).rows[0]!.n)
+    const count = () => t.db.$count(signInFailures)
     expect(await count()).toBeGreaterThan(0)
     await pruneSignInFailures(t.db, 15 * 60_000, new Date(clock + 16 * 60_000 + 60 * 60_000))
     expect(await count()).toBe(0)
