@@ -1,7 +1,7 @@
 import { isNotNull } from 'drizzle-orm'
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import * as t from '@db/schema/index'
+import * as t from '@db/schema'
 import { loadDemoIfEmpty } from '../../server/demo/index'
 import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
