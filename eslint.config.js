@@ -5,6 +5,15 @@ import pluginVue from 'eslint-plugin-vue'
 import globals from 'globals'
 import tseslint from 'typescript-eslint'
 
+const KEY_MESSAGE = 'A query key comes from its src/api/<domain>.ts (e.g. boardKeys.all), never a literal array.'
+const literalQueryKeys = [
+  { selector: "Property[key.name='queryKey'] ArrayExpression", message: KEY_MESSAGE },
+  {
+    selector:
+      'CallExpression[callee.property.name=/^(getQueryData|getQueriesData|setQueryData|setQueriesData|getQueryState|invalidateQueries|refetchQueries|cancelQueries|removeQueries|resetQueries|prefetchQuery|fetchQuery|ensureQueryData)$/] > ArrayExpression.arguments',
+    message: KEY_MESSAGE,
+  },
+]
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', 'components.d.ts', 'test-results/**', 'playwright-report/**', 'bench-results/**', 'screenshots/**'] },
   js.configs.recommended,
@@ -31,6 +40,28 @@ export default tseslint.config(
       'no-restricted-imports': ['error', {
         paths: [{ name: '@db/history', importNames: ['appendHistory'], message: 'Change a vehicle with changeVehicle or createVehicle (server/vehicles/index), which append its history.' }],
       }],
+    },
+  },
+  {
+    // Server data has one home: query keys, queries, mutations and what each invalidates live in
+    // src/api/<domain>.ts. Elsewhere in the client a key comes from there (`vehicleKeys.detail(id)`),
+    // never typed as an array, and a view calls the api's use…Query / use…Mutation.
+    files: ['src/**/*.ts', 'src/**/*.vue'],
+    ignores: ['src/api/**'],
+    rules: {
+      'no-restricted-syntax': ['error', ...literalQueryKeys],
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            {
+              name: '@tanstack/vue-query',
+              importNames: ['useQuery', 'useQueries', 'useInfiniteQuery', 'useMutation'],
+              message: 'Call the use…Query / use…Mutation of src/api/<domain>.ts, where the key and what a change invalidates are kept.',
+            },
+          ],
+        },
+      ],
     },
   },
 )

@@ -1,25 +1,58 @@
+import { useMutation, useQuery, type QueryClient } from '@tanstack/vue-query'
+import { computed, toValue, type MaybeRefOrGetter } from 'vue'
 import { z } from 'zod'
 import { chainCheckSchema } from '@shared/schemas/history'
 import { searchResultSchema } from '@shared/schemas/search'
-import { intakeOptionsSchema, towInCreatedSchema, type CorrectVehicleInput, type TowIn } from '@shared/schemas/tow-in'
+import type { CorrectVehicleInput } from '@shared/schemas/tow-in'
 import { vehiclePageSchema } from '@shared/schemas/vehicle-page'
+import { boardKeys } from './board'
 import { request } from './http'
 
-export const fetchIntakeOptions = () => request('GET', '/api/vehicles/intake-options', intakeOptionsSchema)
+export const vehicleKeys = {
+  all: ['vehicle'] as const,
+  /** The vehicle page: the record, its tow, holds, files, bill and history. */
+  detail: (vehicleId: string) => ['vehicle', vehicleId] as const,
+  /** The check of the history's hash chain, asked for with a button. */
+  historyCheck: (vehicleId: string) => ['vehicle', vehicleId, 'history-check'] as const,
+}
 
-/** The record as JSON in `data`, the photos beside it: one request, so it is saved whole or not at all. */
-export function createTowIn(input: TowIn, photos: File[]) {
-  const form = new FormData()
-  form.append('data', JSON.stringify(input))
-  for (const p of photos) form.append('photos', p, p.name)
-  return request('POST', '/api/vehicles', towInCreatedSchema, form)
+/** What a change to one vehicle makes stale: its page and the board, which shows its card. */
+export function vehicleChanged(client: QueryClient, vehicleId: string) {
+  void client.invalidateQueries({ queryKey: vehicleKeys.detail(vehicleId) })
+  void client.invalidateQueries({ queryKey: boardKeys.all })
 }
 
 export const fetchVehicle = (id: string) => request('GET', `/api/vehicles/${id}`, vehiclePageSchema)
 
+export function useVehicleQuery(vehicleId: MaybeRefOrGetter<string>) {
+  return useQuery({ queryKey: computed(() => vehicleKeys.detail(toValue(vehicleId))), queryFn: () => fetchVehicle(toValue(vehicleId)) })
+}
+
 export const correctVehicle = (id: string, input: CorrectVehicleInput) =>
   request('PATCH', `/api/vehicles/${id}`, z.object({ version: z.number() }), input)
 
+export function useCorrectVehicleMutation() {
+  return useMutation({
+    mutationFn: ({ vehicleId, input }: { vehicleId: string; input: CorrectVehicleInput }) => correctVehicle(vehicleId, input),
+    onSuccess: (_answer, { vehicleId }, _context, { client }) => vehicleChanged(client, vehicleId),
+  })
+}
+
+/** Suggestions as the search box is typed in: asked for by the box itself, never cached. */
 export const searchVehicles = (q: string) => request('GET', `/api/vehicles/search?q=${encodeURIComponent(q)}`, searchResultSchema)
 
 export const verifyHistory = (id: string) => request('GET', `/api/vehicles/${id}/history/verify`, chainCheckSchema)
+
+/**
+ * The history's chain check, run when asked (`refetch()`), never kept once its page is left: an old
+ * "intact" must not show beside entries added since.
+ */
+export function useHistoryCheckQuery(vehicleId: MaybeRefOrGetter<string>) {
+  return useQuery({
+    queryKey: computed(() => vehicleKeys.historyCheck(toValue(vehicleId))),
+    queryFn: () => verifyHistory(toValue(vehicleId)),
+    enabled: false,
+    retry: false,
+    gcTime: 0,
+  })
+}

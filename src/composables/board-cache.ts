@@ -1,7 +1,7 @@
 import { useQueryClient } from '@tanstack/vue-query'
 import type { BoardColumn } from '@shared/domain/lifecycle'
 import type { Board, BoardCard } from '@shared/schemas/board'
-import { BOARD_KEY } from '@/api/board'
+import { boardKeys } from '@/api/board'
 
 const order = (c: BoardCard) => c.arrivedAt + c.stockNumber
 
@@ -30,11 +30,11 @@ export function findCard(board: Board | undefined, id: string): BoardCard | unde
   return undefined
 }
 
-/** The board query's data, read and patched in place of a refetch. */
+/** The board query's data (useBoardQuery), read and patched in place of a refetch. */
 export function useBoardCache() {
   const client = useQueryClient()
-  const get = () => client.getQueryData<Board>(BOARD_KEY)
-  const patch = (change: (b: Board) => Board) => client.setQueryData<Board>(BOARD_KEY, (b) => (b ? change(b) : b))
+  const get = () => client.getQueryData<Board>(boardKeys.all)
+  const patch = (change: (b: Board) => Board) => client.setQueryData<Board>(boardKeys.all, (b) => (b ? change(b) : b))
   return {
     get,
     find: (id: string) => findCard(get(), id),
@@ -44,6 +44,6 @@ export function useBoardCache() {
     place: (card: BoardCard, column: BoardColumn | 'closed') =>
       patch((b) => (column === 'closed' ? withoutCard(b, card.id) : withCard(b, { ...card, state: column }))),
     remove: (id: string) => patch((b) => withoutCard(b, id)),
-    refetch: () => client.invalidateQueries({ queryKey: BOARD_KEY }),
+    refetch: () => client.invalidateQueries({ queryKey: boardKeys.all }),
   }
 }

@@ -2,7 +2,7 @@ import { reactive } from 'vue'
 import { checkMove, COLUMN_LABELS, type Disposition, DISPOSITION_LABELS, factsOfCard, moveOptions, type VehicleState } from '@shared/domain/lifecycle'
 import type { BoardCard } from '@shared/schemas/board'
 import { moveConflictSchema, moveRefusalSchema } from '@shared/schemas/moves'
-import { moveVehicle } from '@/api/board'
+import { useMoveVehicleMutation } from '@/api/board'
 import { ApiError } from '@/api/http'
 import { useSessionStore } from '@/stores/session'
 import { useBoardCache } from './board-cache'
@@ -26,6 +26,7 @@ const cannot = (card: BoardCard, to: VehicleState) => `${card.stockNumber} canno
  */
 export function useBoardMoves() {
   const cache = useBoardCache()
+  const send = useMoveVehicleMutation()
   const session = useSessionStore()
   const pending = reactive(new Set<string>())
   const zone = () => cache.get()?.yard.timeZone ?? 'UTC'
@@ -41,7 +42,7 @@ export function useBoardMoves() {
     pending.add(card.id)
     cache.place(card, to === 'closed' ? 'closed' : to)
     try {
-      const updated = await moveVehicle(card.id, { to, version: card.version, reason: details.reason, disposition: details.disposition })
+      const updated = await send.mutateAsync({ id: card.id, move: { to, version: card.version, reason: details.reason, disposition: details.disposition } })
       cache.put(updated)
       return { ok: true, card: updated, title: `${card.stockNumber} is now ${where(to, details.disposition)}.` }
     } catch (e) {

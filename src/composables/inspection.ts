@@ -1,8 +1,7 @@
-import { useQuery, useQueryClient } from '@tanstack/vue-query'
-import { computed, reactive, ref, type Ref } from 'vue'
+import { reactive, ref, type Ref } from 'vue'
 import type { InspectionPage } from '@shared/schemas/inspections'
-import { fetchInspection } from '@/api/inspections'
 import { ApiError } from '@/api/http'
+import { useInspectionMutation, useInspectionQuery } from '@/api/inspections'
 
 export interface Problem {
   title: string
@@ -24,23 +23,16 @@ export function problemOf(e: unknown, inline: readonly string[] = []): Problem |
 }
 
 /**
- * The teardown page from the server, and one way to change it: each call answers with the whole
- * page, which replaces the cached one, and the board and vehicle page are told to look again.
+ * The teardown page from the server, and one way to change it (useInspectionMutation: each call
+ * answers with the whole page), with what is being saved and why a change was refused.
  */
 export function useInspection(vehicleId: Ref<string>) {
-  const queryClient = useQueryClient()
-  const key = computed(() => ['inspection', vehicleId.value])
-  const query = useQuery({ queryKey: key, queryFn: () => fetchInspection(vehicleId.value) })
+  const query = useInspectionQuery(vehicleId)
+  const change = useInspectionMutation(vehicleId)
   const busy = ref<string | null>(null)
   const problem = ref<Problem | null>(null)
   /** Per-field messages from the last refusal (`issues[].path`). */
   const errors = reactive<Record<string, string>>({})
-
-  function apply(page: InspectionPage) {
-    queryClient.setQueryData(key.value, page)
-    void queryClient.invalidateQueries({ queryKey: ['board'] })
-    void queryClient.invalidateQueries({ queryKey: ['vehicle', vehicleId.value] })
-  }
 
   /** `inline`: the issue paths the caller shows beside their fields, so no popup covers them. */
   async function run(what: string, call: () => Promise<InspectionPage>, inline: readonly string[] = []): Promise<boolean> {
@@ -48,14 +40,9 @@ export function useInspection(vehicleId: Ref<string>) {
     problem.value = null
     for (const k of Object.keys(errors)) delete errors[k]
     try {
-      apply(await call())
+      await change.mutateAsync(call)
       return true
     } catch (e) {
-      // Someone else changed the vehicle: the page is stale (its version, its figures), so the next
-      // tap would be refused too until it is fetched again.
-      if (e instanceof ApiError && e.status === 409) {
-        await Promise.all([key.value, ['board'], ['vehicle', vehicleId.value]].map((k) => queryClient.invalidateQueries({ queryKey: k })))
-      }
       for (const i of e instanceof ApiError ? e.issues : []) errors[i.path] ??= i.message
       problem.value = problemOf(e, inline)
       return false
@@ -64,5 +51,5 @@ export function useInspection(vehicleId: Ref<string>) {
     }
   }
 
-  return { query, page: query.data, busy, problem, errors, run, apply }
+  return { query, page: query.data, busy, problem, errors, run }
 }
