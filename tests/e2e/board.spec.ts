@@ -6,6 +6,9 @@ const inColumn = (page: Page, column: string, text: string) => page.locator(`[da
 const notice = (page: Page) => page.getByTestId('board-notice')
 
 test('a dispatcher drags a card from Arrival to Teardown, and a second board sees it move', async ({ page, browser }) => {
+  // Two people sign in (two password hashes) before the drag, on a server that has just started:
+  // on a busy 2-core machine that alone can pass 30 s. Every step still waits on what the page shows.
+  test.slow()
   const problems = watchConsole(page)
   const watcherContext = await browser.newContext()
   const watcher = await watcherContext.newPage()
