@@ -14,6 +14,13 @@ const literalQueryKeys = [
     message: KEY_MESSAGE,
   },
 ]
+const DATE_MESSAGE = "Show dates and times with useYardTime() (src/composables/yard-time.ts): the yard's clock, not the browser's."
+const ownDateFormats = [
+  { selector: ":matches(NewExpression, CallExpression)[callee.object.name='Intl'][callee.property.name='DateTimeFormat']", message: DATE_MESSAGE },
+  { selector: "CallExpression[callee.property.name=/^toLocale(Date|Time)String$/]", message: DATE_MESSAGE },
+  { selector: "CallExpression[callee.property.name='toLocaleString'][callee.object.type='NewExpression'][callee.object.callee.name='Date']", message: DATE_MESSAGE },
+]
+
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', 'components.d.ts', 'test-results/**', 'playwright-report/**', 'bench-results/**', 'screenshots/**'] },
   js.configs.recommended,
@@ -45,11 +52,12 @@ export default tseslint.config(
   {
     // Server data has one home: query keys, queries, mutations and what each invalidates live in
     // src/api/<domain>.ts. Elsewhere in the client a key comes from there (`vehicleKeys.detail(id)`),
-    // never typed as an array, and a view calls the api's use…Query / use…Mutation.
+    // never typed as an array, and a view calls the api's use…Query / use…Mutation. Dates and times
+    // are shown on the yard's clock, through useYardTime().
     files: ['src/**/*.ts', 'src/**/*.vue'],
     ignores: ['src/api/**'],
     rules: {
-      'no-restricted-syntax': ['error', ...literalQueryKeys],
+      'no-restricted-syntax': ['error', ...literalQueryKeys, ...ownDateFormats],
       'no-restricted-imports': [
         'error',
         {
@@ -63,5 +71,10 @@ export default tseslint.config(
         },
       ],
     },
+  },
+  {
+    // The one place that formats dates and times, on the yard's clock.
+    files: ['src/composables/yard-time.ts'],
+    rules: { 'no-restricted-syntax': ['error', ...literalQueryKeys] },
   },
 )

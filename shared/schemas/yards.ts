@@ -17,3 +17,9 @@ export const yardSetupSchema = z.object({
   ruleSet: z.string().min(1).default('california-sample'),
 })
 export type YardSetup = z.infer<typeof yardSetupSchema>
+
+/** GET /api/yards/current: the yard the signed-in staff member works in, as the client shows it. */
+export const currentYardSchema = z.object({
+  yard: z.object({ id: z.uuid(), name: z.string(), code: z.string(), timeZone: z.string() }),
+})
+export type CurrentYard = z.infer<typeof currentYardSchema>['yard']

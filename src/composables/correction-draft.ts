@@ -1,6 +1,6 @@
 import type { VehiclePage } from '@shared/schemas/vehicle-page'
+import { localIso } from './date-picker'
 import type { TowDraft, VehicleDraft } from './tow-in-form'
-import { localIso } from './when'
 
 const local = (iso: string | null) => (iso ? localIso(new Date(iso)) : null)
 

@@ -1,3 +1,5 @@
+// The date-and-time pickers' plumbing. Showing a date or time is yard-time.ts's, on the yard's clock;
+// a picker (Element Plus, dayjs) works on the browser's clock.
 const pad = (n: number) => String(Math.abs(n)).padStart(2, '0')
 
 /** The browser's wall-clock time with its offset, the shape the date pickers read and write. */
@@ -10,21 +12,11 @@ export function localIso(d = new Date()): string {
 /** The value format of every date-and-time picker: ISO 8601 with the offset, as the schemas require. */
 export const PICKER_FORMAT = 'YYYY-MM-DDTHH:mm:ssZ'
 
+/** What a picker shows (dayjs tokens): the date-time look of the rest of the app (yard-time.ts). */
+export const PICKER_DISPLAY_FORMAT = 'ddd, D MMM YYYY, HH:mm'
+
 /**
  * Lets a picker's panel slide up over its own field to stay on screen: on a phone there is room for the
  * whole calendar, Now and OK included, but not always below or above the field.
  */
 export const PICKER_POPPER_OPTIONS = { modifiers: [{ name: 'preventOverflow', options: { altAxis: true, tether: false, padding: 8 } }] }
-
-const formatters = new Map<string, Intl.DateTimeFormat>()
-
-/** An instant as the yard's clock shows it, e.g. "Tue 1 Dec 2026, 14:05". */
-export function yardTime(iso: string | null, timeZone: string): string {
-  if (!iso) return '—'
-  let f = formatters.get(timeZone)
-  if (!f) {
-    f = new Intl.DateTimeFormat('en-GB', { timeZone, weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' })
-    formatters.set(timeZone, f)
-  }
-  return f.format(new Date(iso))
-}
