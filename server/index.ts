@@ -1,11 +1,13 @@
 import { pino } from 'pino'
 import { openDatabase, DataDirLockedError, type DatabaseHandle } from '@db/client'
+import { hasHistory, type HistoryKey } from '@db/history'
 import { loadDemoIfEmpty } from './demo/index'
 import { createApp } from './app'
 import { localFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
 import { pruneExpiredSessions, pruneSignInFailures, sessionSecret } from './session/index'
+import { loadHistoryKey } from './history-key'
 import { logSerializers } from './logging'
 import { appVersion } from './version'
 
@@ -34,8 +36,16 @@ const opened = performance.now()
 await handle.migrate()
 const migrated = performance.now()
 const { db } = handle
+let historyKey: HistoryKey
+try {
+  historyKey = loadHistoryKey(config.historyKeyFile, await hasHistory(db))
+} catch (err) {
+  log.fatal((err as Error).message)
+  await handle.close()
+  process.exit(78)
+}
 if (config.demo) {
-  const demo = await loadDemoIfEmpty(db, new Date(), config.ruleSetsFolder)
+  const demo = await loadDemoIfEmpty(db, historyKey, new Date(), config.ruleSetsFolder)
   if (demo) {
     log.info('Loaded the demo yard. Sign in with any of these (password: %s):', demo.password)
     for (const u of demo.users) log.info('  %s  %s', u.role.padEnd(10), u.email)
@@ -47,6 +57,7 @@ const live = config.database.kind === 'postgres' ? await postgresBus(config.data
 
 const app = createApp({
   db,
+  historyKey,
   log,
   version: appVersion(),
   sessionSecret: await sessionSecret(db, config.sessionSecret),
