@@ -1,4 +1,4 @@
-import { count, eq } from 'drizzle-orm'
+import { count, eq, inArray } from 'drizzle-orm'
 import { hashPassword } from '../users/index'
 import { loadSampleRuleSets } from '../rule-sets/index'
 import { BOARD_COLUMNS, type VehicleState } from '@shared/domain/lifecycle'
@@ -19,6 +19,13 @@ export interface DemoLoaded {
 }
 
 /** Loads the demo yard when the database has no yard yet; returns null when it already has one. */
+/** The demo sign-ins while the demo's staff still sign in with the demo password's accounts; none for a real yard. */
+export async function demoSignIns(db: Database): Promise<DemoLoaded | null> {
+  const rows = await db.select({ email: t.users.email }).from(t.users).where(inArray(t.users.email, DEMO_STAFF.map((s) => s.email)))
+  const present = DEMO_STAFF.filter((s) => rows.some((r) => r.email === s.email))
+  return present.length > 0 ? { password: DEMO_PASSWORD, users: present.map(({ email, role }) => ({ email, role })) } : null
+}
+
 /** The demo yard, when the database has no yard yet; its history is sealed with the server's history key. */
 export async function loadDemoIfEmpty(db: Database, historyKey: HistoryKey, now = new Date(), ruleSetsFolder?: string): Promise<DemoLoaded | null> {
   const [row] = await db.select({ n: count() }).from(t.yards)
