@@ -9,6 +9,7 @@ import { badRequest, notFound } from '../errors'
 import { type FileStore, type Incoming, prepareUploads, putFiles, recordFiles, type StoredFile } from '../files/index'
 import { freeSpace, isSpaceConflict, spaceTaken } from '../spaces/index'
 import { yardOfUser } from '../yards/index'
+import { activeLookalikes, assertNotLoggedTwice } from './duplicates'
 import { assertKnownClass, intakeRules } from './rules'
 import { nextStockNumber } from './stock-numbers'
 import { towColumns } from './tow-charge'
@@ -53,6 +54,9 @@ interface Extras {
 async function insertTowIn(scope: ChangeScope, yard: YardRow, input: TowIn, extras: Extras) {
   const { tx, vehicleId, actor, record } = scope
   const { tow, vehicle: v, condition } = input
+  // Inside the transaction, so the answer holds for this insert (one writer at a time on the embedded database).
+  const lookalikes = await activeLookalikes(tx, yard, v)
+  assertNotLoggedTwice(lookalikes, input.duplicateReason)
   const space = input.spaceId ? await freeSpace(tx, yard.id, input.spaceId, 'spaceId') : null
   const towRow = towColumns(tow, yard)
   const stockNumber = await nextStockNumber(tx, yard, towRow.arrivedAt)
@@ -85,6 +89,7 @@ async function insertTowIn(scope: ChangeScope, yard: YardRow, input: TowIn, extr
       chargeCents: towRow.chargeCents,
       space,
       propertyItems: condition.property.length,
+      ...(lookalikes.length > 0 ? { alsoOnTheLot: lookalikes.map((l) => l.stockNumber), whySeparate: input.duplicateReason } : {}),
     },
   })
   for (const h of input.holds) {

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { text } from './fields'
+import { optionalText, text } from './fields'
 import { holdInputSchema } from './holds'
 import { towRatesSchema, towSchema } from './tows'
 import { conditionSchema, vehicleSchema } from './vehicles'
@@ -11,6 +11,14 @@ export const towInSchema = z.object({
   holds: z.array(holdInputSchema).max(10, 'At most 10 holds.').default([]),
   condition: conditionSchema,
   spaceId: z.uuid({ error: 'Choose a space from the list.' }).nullish().transform((v) => v ?? null),
+  /** Why this is logged although a vehicle with the same VIN or plate is still in the yard (a 409 asks). */
+  duplicateReason: optionalText(300),
+})
+
+/** The 409 a tow-in gets when it looks like a vehicle already on the lot: which ones, and what matched. */
+export const duplicateTowInSchema = z.object({
+  error: z.string(),
+  duplicates: z.array(z.object({ id: z.uuid(), stockNumber: z.string(), matches: z.array(z.enum(['vin', 'plate'])) })).min(1),
 })
 export type TowInInput = z.input<typeof towInSchema>
 export type TowIn = z.output<typeof towInSchema>

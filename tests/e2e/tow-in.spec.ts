@@ -1,7 +1,7 @@
 import { expect, test } from '@playwright/test'
 import sharp from 'sharp'
 import { watchConsole } from './helpers'
-import { fillTheMinimum, openForm, VIN } from './tow-in-form'
+import { fillTheMinimum, freshVin, openForm, VIN } from './tow-in-form'
 
 const jpeg = (colour: string) => sharp({ create: { width: 640, height: 480, channels: 3, background: colour } }).jpeg().toBuffer()
 
@@ -141,4 +141,27 @@ test('a space taken while the form was open is refused beside the field and show
   await expect(page).toHaveURL(/\/tow-in$/)
   await page.getByRole('combobox', { name: 'Yard space' }).click()
   await expect(option).toContainText('taken by')
+})
+
+test('logging a VIN that is still in the yard asks why, and logs it with the reason', async ({ page }) => {
+  test.slow()
+  const vin = freshVin()
+  await openForm(page)
+  await fillTheMinimum(page)
+  await page.getByLabel('VIN', { exact: true }).fill(vin)
+  await page.getByRole('button', { name: 'Log the vehicle' }).click()
+  await expect(page).toHaveURL(/\/vehicles\/[0-9a-f-]{36}$/)
+  const first = (await page.getByTestId('stock-number').textContent())!.trim()
+
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Log a tow-in' }).click()
+  await fillTheMinimum(page)
+  await page.getByLabel('VIN', { exact: true }).fill(vin)
+  await page.getByRole('button', { name: 'Log the vehicle' }).click()
+  const ask = page.getByRole('dialog', { name: 'Already on the lot?' })
+  await expect(ask).toContainText(`${first} has the same VIN`)
+  await expect(ask.getByRole('button', { name: `Open ${first}` })).toBeVisible()
+  await ask.getByRole('textbox').fill('Released yesterday, towed again today')
+  await ask.getByRole('button', { name: 'Log it anyway' }).click()
+  await expect(page).toHaveURL(/\/vehicles\/[0-9a-f-]{36}$/)
+  await expect(page.getByTestId('stock-number')).not.toHaveText(first)
 })
