@@ -63,6 +63,10 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/map/settings': 'board.view',
   // Whoever logs or corrects a tow-in fills the vehicle from its VIN.
   'GET /api/vin-decode/:vin': 'towin.write',
+  'GET /api/outbox': 'outbox',
+  'GET /api/outbox/:messageId': 'outbox',
+  'GET /api/outbox/:messageId/attachments/:attachmentId': 'outbox',
+  'POST /api/outbox/:messageId/retry': 'outbox',
   'GET /api/fakes/tiles/:z/:x/:y.png': 'staff',
   'GET /api/fakes/geocoder/search': 'staff',
   'GET /api/fakes/geocoder/reverse': 'staff',

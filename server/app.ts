@@ -16,6 +16,7 @@ import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
 import { holdsRouter } from './holds/index'
 import { inspectionsRouter } from './inspections/index'
 import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
+import { outboxRouter } from './outbox/index'
 import { quotesRouter } from './quotes/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { healthRouter } from './health/index'
@@ -50,6 +51,8 @@ export interface AppDeps {
   /** How long a computed board is served before balances are worked out again (60 s). */
   boardBucketMs?: number
   boardStream?: StreamTiming
+  /** Tells the e-mail worker that a message waits (server/outbox/); absent, messages wait for its next poll. */
+  kickOutbox?: () => void
 }
 
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
@@ -116,6 +119,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/spaces', spacesRouter(db))
   app.use('/api/map', mapRouter(db, map))
   app.use('/api/vin-decode', vinDecodeRouter())
+  app.use('/api/outbox', outboxRouter({ db, files, kick: deps.kickOutbox }))
   if (usesLocalFakes(map)) app.use('/api/fakes', fakesRouter())
   app.use('/api', notFoundHandler)
 

@@ -35,6 +35,10 @@ const envSchema = z.object({
   HOLDFAST_TILE_ATTRIBUTION: z.string().max(300).optional(),
   HOLDFAST_MAP_MAX_ZOOM: z.coerce.number().int().min(1).max(22).default(19),
   HOLDFAST_GEOCODER_URL: z.string().regex(/^(https?:\/\/|\/)/, 'HOLDFAST_GEOCODER_URL must be an http(s) URL or a path on this server').optional(),
+  // Outgoing mail: any SMTP relay (smtp:// or smtps://, user and password in the URL). Left unset, the
+  // app starts its own stand-in on loopback that keeps every message (server/fakes/local-smtp.ts).
+  SMTP_URL: z.url({ protocol: /^smtps?$/, error: 'SMTP_URL must be an smtp:// or smtps:// URL' }).optional(),
+  HOLDFAST_MAIL_FROM: z.string().min(3).max(300).default('Holdfast <holdfast@localhost>'),
 })
 
 export interface Config {
@@ -55,6 +59,8 @@ export interface Config {
   clientDir: string
   filesDir: string
   map: MapConfig
+  /** The SMTP relay, or where the local stand-in keeps what it receives. */
+  mail: { smtpUrl: string | undefined; localFolder: string; from: string }
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -90,6 +96,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInLimits: { perIp: e.HOLDFAST_SIGNIN_PER_IP, perAccount: e.HOLDFAST_SIGNIN_PER_ACCOUNT, windowMs: 15 * 60_000 },
     clientDir: path.resolve(e.HOLDFAST_CLIENT_DIR),
     filesDir: path.resolve(e.HOLDFAST_FILES_DIR ?? path.join(dataDir, 'files')),
+    mail: { smtpUrl: e.SMTP_URL, localFolder: path.join(dataDir, 'mail'), from: e.HOLDFAST_MAIL_FROM },
     map: {
       tileUrl: e.HOLDFAST_TILE_URL ?? LOCAL_MAP.tileUrl,
       tileAttribution: e.HOLDFAST_TILE_ATTRIBUTION ?? (e.HOLDFAST_TILE_URL ? '' : LOCAL_MAP.tileAttribution),

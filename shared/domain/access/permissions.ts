@@ -13,6 +13,8 @@ export const PERMISSIONS = {
   'billing.write': ['manager', 'office'],
   'release.write': ['manager', 'office'],
   'charges.waive': ['manager'],
+  // Issue 10: the office sends the notices, so it sees what went out and sends a failed message again.
+  'outbox': ['manager', 'office'],
   'admin': ['manager'],
 } as const satisfies Record<string, readonly Role[]>
 
