@@ -57,6 +57,7 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles/:vehicleId/holds/:holdId/lift': 'towin.write',
   'PUT /api/vehicles/:vehicleId/space': 'towin.write',
   'POST /api/vehicles/:vehicleId/files': 'towin.write',
+  'GET /api/vehicles/:vehicleId/documents/key-tag': 'label.print',
   'GET /api/files/:id': 'board.view',
   'GET /api/files/:id/thumb': 'board.view',
   'GET /api/spaces': 'board.view',

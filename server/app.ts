@@ -10,6 +10,7 @@ import type { Database } from '@db/client'
 import { enforceAccess } from './access'
 import { archiveRouter } from './archive/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
+import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
 import { fakesRouter } from './fakes/index'
 import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
@@ -53,6 +54,8 @@ export interface AppDeps {
   boardStream?: StreamTiming
   /** Tells the e-mail worker that a message waits (server/outbox/); absent, messages wait for its next poll. */
   kickOutbox?: () => void
+  /** Where people reach Holdfast, for links and QR codes on documents; the request's own address when absent. */
+  publicUrl?: string
 }
 
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
@@ -114,6 +117,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
+  app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))
   app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))
   app.use('/api/spaces', spacesRouter(db))

@@ -38,6 +38,8 @@ const envSchema = z.object({
   // Outgoing mail: any SMTP relay (smtp:// or smtps://, user and password in the URL). Left unset, the
   // app starts its own stand-in on loopback that keeps every message (server/fakes/local-smtp.ts).
   SMTP_URL: z.url({ protocol: /^smtps?$/, error: 'SMTP_URL must be an smtp:// or smtps:// URL' }).optional(),
+  // Where staff and owners reach Holdfast (https://yard.example.com): links and QR codes on documents and e-mail.
+  HOLDFAST_PUBLIC_URL: z.url({ protocol: /^https?$/, error: 'HOLDFAST_PUBLIC_URL must be an http(s) URL' }).optional(),
   HOLDFAST_MAIL_FROM: z.string().min(3).max(300).default('Holdfast <holdfast@localhost>'),
 })
 
@@ -59,6 +61,8 @@ export interface Config {
   clientDir: string
   filesDir: string
   map: MapConfig
+  /** Where people reach Holdfast, for links and QR codes; the request's own address when unset. */
+  publicUrl: string | undefined
   /** The SMTP relay, or where the local stand-in keeps what it receives. */
   mail: { smtpUrl: string | undefined; localFolder: string; from: string }
 }
@@ -96,6 +100,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInLimits: { perIp: e.HOLDFAST_SIGNIN_PER_IP, perAccount: e.HOLDFAST_SIGNIN_PER_ACCOUNT, windowMs: 15 * 60_000 },
     clientDir: path.resolve(e.HOLDFAST_CLIENT_DIR),
     filesDir: path.resolve(e.HOLDFAST_FILES_DIR ?? path.join(dataDir, 'files')),
+    publicUrl: e.HOLDFAST_PUBLIC_URL?.replace(/\/+$/, ''),
     mail: { smtpUrl: e.SMTP_URL, localFolder: path.join(dataDir, 'mail'), from: e.HOLDFAST_MAIL_FROM },
     map: {
       tileUrl: e.HOLDFAST_TILE_URL ?? LOCAL_MAP.tileUrl,

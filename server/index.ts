@@ -67,6 +67,7 @@ const app = createApp({
   files,
   map: config.map,
   kickOutbox: () => outbox.kick(),
+  publicUrl: config.publicUrl,
 })
 outbox.start()
 

@@ -40,7 +40,8 @@ export function pdfInfo(pdf: Uint8Array) {
         .filter(Boolean)
         .map((line) => {
           const cols = line.trim().split(/\s+/)
-          return { name: cols[0]!, embedded: cols.at(-5) === 'yes', subset: cols.at(-4) === 'yes' }
+          // pdf-lib subsets without the ABCDEF+ name tag, so pdffonts's "sub" says no: judge by the file size.
+          return { name: cols[0]!, embedded: cols.at(-5) === 'yes' }
         }),
     }
   })
@@ -53,4 +54,13 @@ export async function renderFirstPage(pdf: Uint8Array, name: string): Promise<st
   const prefix = path.join(out, name)
   await withFile(pdf, (file) => run('pdftoppm', ['-png', '-r', '96', '-f', '1', '-l', '1', '-singlefile', file, prefix]))
   return `${prefix}.png`
+}
+
+/** Reads the QR code on a rendered page (a PNG) with ZXing, the library the app's scanner uses. */
+export async function readQr(png: string): Promise<string> {
+  const { default: sharp } = await import('sharp')
+  const { BinaryBitmap, HybridBinarizer, QRCodeReader, RGBLuminanceSource } = await import('@zxing/library')
+  const { data, info } = await sharp(png).greyscale().raw().toBuffer({ resolveWithObject: true })
+  const luminance = new RGBLuminanceSource(new Uint8ClampedArray(data), info.width, info.height)
+  return new QRCodeReader().decode(new BinaryBitmap(new HybridBinarizer(luminance))).getText()
 }
