@@ -44,10 +44,11 @@ export async function keyTag(vehicle: KeyTagVehicle, yardName: string, vehicleUr
   const textRight = qrX - quiet
   const textWidth = textRight - sheet.left
   const host = new URL(vehicleUrl).host
-  const captionSize = 6.5
-  sheet.wrap(`${w.scan} ${vehicle.stockNumber} ${w.at} ${host}`, qrSize, { size: captionSize })
-    .slice(0, 2)
-    .forEach((line, i) => sheet.text(line, qrX, margin + 8 - i * (captionSize + 1.5), { size: captionSize, colour: 'muted' }))
+  // Two lines under the QR, never cut: the type shrinks until both fit its width.
+  const caption = [`${w.scan} ${vehicle.stockNumber}`, `${w.at} ${host}`]
+  let captionSize = 6.5
+  while (captionSize > 4.5 && caption.some((line) => sheet.width(line, { size: captionSize }) > qrSize + quiet)) captionSize -= 0.25
+  caption.forEach((line, i) => sheet.text(line, qrX, margin + 8 - i * (captionSize + 1.5), { size: captionSize, colour: 'muted' }))
 
   // The stock number as large as the width allows: it is read across a yard.
   let size = 24
