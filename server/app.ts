@@ -11,12 +11,14 @@ import type { HistoryKey } from '@db/history'
 import { enforceAccess } from './access'
 import { archiveRouter } from './archive/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
+import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
 import { fakesRouter } from './fakes/index'
 import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
 import { holdsRouter } from './holds/index'
 import { inspectionsRouter } from './inspections/index'
 import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
+import { outboxRouter } from './outbox/index'
 import { quotesRouter } from './quotes/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { healthRouter } from './health/index'
@@ -53,6 +55,10 @@ export interface AppDeps {
   /** How long a computed board is served before balances are worked out again (60 s). */
   boardBucketMs?: number
   boardStream?: StreamTiming
+  /** Tells the e-mail worker that a message waits (server/outbox/); absent, messages wait for its next poll. */
+  kickOutbox?: () => void
+  /** Where people reach Holdfast, for links and QR codes on documents; the request's own address when absent. */
+  publicUrl?: string
 }
 
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
@@ -114,11 +120,13 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
+  app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))
   app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))
   app.use('/api/spaces', spacesRouter(db))
   app.use('/api/map', mapRouter(db, map))
   app.use('/api/vin-decode', vinDecodeRouter())
+  app.use('/api/outbox', outboxRouter({ db, files, kick: deps.kickOutbox }))
   if (usesLocalFakes(map)) app.use('/api/fakes', fakesRouter())
   app.use('/api', notFoundHandler)
 

@@ -37,6 +37,12 @@ const envSchema = z.object({
   HOLDFAST_TILE_ATTRIBUTION: z.string().max(300).optional(),
   HOLDFAST_MAP_MAX_ZOOM: z.coerce.number().int().min(1).max(22).default(19),
   HOLDFAST_GEOCODER_URL: z.string().regex(/^(https?:\/\/|\/)/, 'HOLDFAST_GEOCODER_URL must be an http(s) URL or a path on this server').optional(),
+  // Outgoing mail: any SMTP relay (smtp:// or smtps://, user and password in the URL). Left unset, the
+  // app starts its own stand-in on loopback that keeps every message (server/fakes/local-smtp.ts).
+  SMTP_URL: z.url({ protocol: /^smtps?$/, error: 'SMTP_URL must be an smtp:// or smtps:// URL' }).optional(),
+  // Where staff and owners reach Holdfast (https://yard.example.com): links and QR codes on documents and e-mail.
+  HOLDFAST_PUBLIC_URL: z.url({ protocol: /^https?$/, error: 'HOLDFAST_PUBLIC_URL must be an http(s) URL' }).optional(),
+  HOLDFAST_MAIL_FROM: z.string().min(3).max(300).default('Holdfast <holdfast@localhost>'),
 })
 
 export interface Config {
@@ -59,6 +65,10 @@ export interface Config {
   /** The history key's file: beside the data directory unless set (every server of one database needs the same file). */
   historyKeyFile: string
   map: MapConfig
+  /** Where people reach Holdfast, for links and QR codes; the request's own address when unset. */
+  publicUrl: string | undefined
+  /** The SMTP relay, or where the local stand-in keeps what it receives. */
+  mail: { smtpUrl: string | undefined; localFolder: string; from: string }
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -95,6 +105,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     clientDir: path.resolve(e.HOLDFAST_CLIENT_DIR),
     filesDir: path.resolve(e.HOLDFAST_FILES_DIR ?? path.join(dataDir, 'files')),
     historyKeyFile: path.resolve(e.HOLDFAST_HISTORY_KEY_FILE ?? `${dataDir}.history-key`),
+    publicUrl: e.HOLDFAST_PUBLIC_URL?.replace(/\/+$/, ''),
+    mail: { smtpUrl: e.SMTP_URL, localFolder: path.join(dataDir, 'mail'), from: e.HOLDFAST_MAIL_FROM },
     map: {
       tileUrl: e.HOLDFAST_TILE_URL ?? LOCAL_MAP.tileUrl,
       tileAttribution: e.HOLDFAST_TILE_ATTRIBUTION ?? (e.HOLDFAST_TILE_URL ? '' : LOCAL_MAP.tileAttribution),

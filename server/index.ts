@@ -6,6 +6,8 @@ import { createApp } from './app'
 import { localFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
+import { startLocalSmtp } from './fakes/index'
+import { OutboxWorker, smtpTransport } from './outbox/index'
 import { pruneExpiredSessions, pruneSignInFailures, sessionSecret } from './session/index'
 import { loadHistoryKey } from './history-key'
 import { logSerializers } from './logging'
@@ -57,6 +59,12 @@ if (demo && !process.stdout.isTTY) {
 // Several app servers on one PostgreSQL hear each other's board changes; one embedded database has one server.
 const live = config.database.kind === 'postgres' ? await postgresBus(config.database.url, log) : memoryBus()
 
+// Mail goes to SMTP_URL, or to the local stand-in through the very same transport.
+const localSmtp = config.mail.smtpUrl ? undefined : await startLocalSmtp({ folder: config.mail.localFolder })
+if (localSmtp) log.info(`No SMTP_URL: e-mail goes to the local stand-in at ${localSmtp.url}, kept in ${config.mail.localFolder}`)
+const files = localFileStore(config.filesDir)
+const outbox = new OutboxWorker(db, smtpTransport(config.mail.smtpUrl ?? localSmtp!.url), files, log, { from: config.mail.from })
+
 const app = createApp({
   db,
   historyKey,
@@ -69,9 +77,12 @@ const app = createApp({
   clientDir: config.clientDir,
   signInLimits: config.signInLimits,
   live,
-  files: localFileStore(config.filesDir),
+  files,
   map: config.map,
+  kickOutbox: () => outbox.kick(),
+  publicUrl: config.publicUrl,
 })
+outbox.start()
 
 const server = app.listen(config.port, config.host, () => {
   const where = config.database.kind === 'postgres' ? 'PostgreSQL' : `embedded database in ${config.dataDir}`
@@ -100,6 +111,9 @@ async function shutdown(signal: string) {
   clearInterval(pruning)
   // Open board streams would hold the server open: end them first (browsers reconnect elsewhere).
   await live.close()
+  // A message being sent is finished; one not yet taken stays queued for the next start.
+  await outbox.stop()
+  await localSmtp?.close()
   server.close()
   server.closeIdleConnections()
   const force = setTimeout(() => server.closeAllConnections(), 5_000)

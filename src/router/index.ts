@@ -26,6 +26,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/tow-in', name: 'tow-in', component: () => import('@/views/TowInView.vue'), meta: { permission: 'towin.write', nav: 'Log a tow-in', title: 'Log a tow-in' } },
   { path: '/vehicles/:vehicleId', name: 'vehicle', component: () => import('@/views/VehicleView.vue'), meta: { permission: 'board.view', title: 'Vehicle' } },
   { path: '/vehicles/:vehicleId/inspection', name: 'inspection', component: () => import('@/views/InspectionView.vue'), meta: { permission: 'board.view', title: 'Teardown' } },
+  { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { permission: 'outbox', nav: 'Outbox', title: 'Outbox' } },
   { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'Staff', title: 'Staff' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
 ]

@@ -12,7 +12,11 @@ export const PERMISSIONS = {
   'owner.write': ['manager', 'office'],
   'billing.write': ['manager', 'office'],
   'release.write': ['manager', 'office'],
+  // Whoever logs the tow-in prints the stock label; the office prints it again at the counter.
+  'label.print': ['manager', 'dispatcher', 'office'],
   'charges.waive': ['manager'],
+  // Issue 10: the office sends the notices, so it sees what went out and sends a failed message again.
+  'outbox': ['manager', 'office'],
   'admin': ['manager'],
 } as const satisfies Record<string, readonly Role[]>
 

@@ -1,0 +1,6 @@
+export { documentsRouter, type DocumentsDeps } from './documents.routes'
+export { keyTag, KEY_TAG_SIZE, type KeyTagVehicle } from './key-tag'
+export { letterhead, drawMark, type YardHeading } from './letterhead'
+export { drawQr, qrWithLink } from './qr'
+export { INCH, LETTER, Sheet, type SheetOptions, type TextStyle } from './sheet'
+export { COMMON_WORDS, type Language } from './words'

@@ -1,0 +1,58 @@
+import type { Executor } from '@db/client'
+import { MESSAGE_STATUSES, type MessageStatus, type OutboxMessage, type OutboxPage, type OutboxRow } from '@shared/schemas/outbox'
+import { conflict, notFound } from '../errors'
+import { attachmentsOf, countsByStatus, listMessages, messageOf, retryMessage } from './outbox.queries'
+
+type Listed = NonNullable<Awaited<ReturnType<typeof messageOf>>>
+
+function rowOf({ message: m, stockNumber, queuedBy, attachmentCount }: Listed): OutboxRow {
+  return {
+    id: m.id,
+    to: m.toAddress,
+    toName: m.toName,
+    subject: m.subject,
+    purpose: m.purpose,
+    language: m.language,
+    status: m.status,
+    attempts: m.attempts,
+    lastError: m.lastError,
+    vehicle: m.vehicleId && stockNumber ? { id: m.vehicleId, stockNumber } : null,
+    queuedBy: queuedBy ?? null,
+    createdAt: m.createdAt.toISOString(),
+    sentAt: m.sentAt?.toISOString() ?? null,
+    attachmentCount,
+  }
+}
+
+export async function outboxPage(db: Executor, companyId: string, status: MessageStatus | null, page: number, pageSize: number): Promise<OutboxPage> {
+  const { rows, total } = await listMessages(db, companyId, status, { limit: pageSize, offset: (page - 1) * pageSize })
+  const counts = Object.fromEntries(MESSAGE_STATUSES.map((s) => [s, 0])) as Record<MessageStatus, number>
+  for (const c of await countsByStatus(db, companyId)) counts[c.status] = c.n
+  return { rows: rows.map(rowOf), total, page, pageSize, counts }
+}
+
+export async function outboxMessage(db: Executor, companyId: string, messageId: string): Promise<OutboxMessage> {
+  const found = await messageOf(db, companyId, messageId)
+  if (!found) throw notFound('That message')
+  const m = found.message
+  return {
+    ...rowOf(found),
+    messageId: m.messageId,
+    text: m.text,
+    html: m.html,
+    smtpResponse: m.smtpResponse,
+    updatedAt: m.updatedAt.toISOString(),
+    nextAttemptAt: m.status === 'queued' ? m.nextAttemptAt.toISOString() : null,
+    attachments: (await attachmentsOf(db, m.id)).map((a) => ({ id: a.id, filename: a.filename, contentType: a.contentType, bytes: a.bytes })),
+  }
+}
+
+/** Only a failed message can be sent again; a queued or sent one is left as it is (409). */
+export async function retryFailed(db: Executor, companyId: string, messageId: string, userId: string): Promise<OutboxMessage> {
+  if (!(await retryMessage(db, companyId, messageId, userId))) {
+    const current = await messageOf(db, companyId, messageId)
+    if (!current) throw notFound('That message')
+    throw conflict(`This message is ${current.message.status}: only a failed message can be sent again.`)
+  }
+  return outboxMessage(db, companyId, messageId)
+}
