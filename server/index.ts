@@ -55,6 +55,8 @@ const app = createApp({
   origins: config.origins,
   clientDir: config.clientDir,
   signInLimits: config.signInLimits,
+  ownerLinkDays: config.ownerLinkDays,
+  publicLimits: config.publicLimits,
   live,
   files: localFileStore(config.filesDir),
   map: config.map,
