@@ -16,8 +16,9 @@ export function lookupRouter(db: Database, throttle: PublicThrottle): Router {
   router.post('/', async (req, res) => {
     const ip = req.ip ?? ''
     await throttle.check('lookup', ip, res)
-    const { plate, vinTail } = lookupInputSchema.parse(req.body)
+    // Counted before reading it: a malformed try is a try too.
     await throttle.count('lookup', ip)
+    const { plate, vinTail } = lookupInputSchema.parse(req.body)
     res.setHeader('Cache-Control', 'private, no-store')
     const rows = await db
       .select({ vehicle: vehicles, yard: yards })
