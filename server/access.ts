@@ -53,6 +53,9 @@ export const ACCESS: Record<string, Rule> = {
   'PUT /api/vehicles/:vehicleId/inspection/values': 'inspection.values',
   'PATCH /api/vehicles/:vehicleId/inspection/roll-ability': 'inspection.write',
   'POST /api/vehicles/:vehicleId/inspection/finish': 'inspection.write',
+  'GET /api/vehicles/:vehicleId/owner-links': 'board.view',
+  'POST /api/vehicles/:vehicleId/owner-links': 'owner.write',
+  'POST /api/vehicles/:vehicleId/owner-links/:linkId/revoke': 'owner.write',
   'POST /api/vehicles/:vehicleId/holds': 'towin.write',
   'POST /api/vehicles/:vehicleId/holds/:holdId/lift': 'towin.write',
   'PUT /api/vehicles/:vehicleId/space': 'towin.write',
@@ -68,7 +71,17 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/outbox/:messageId': 'outbox',
   'GET /api/outbox/:messageId/attachments/:attachmentId': 'outbox',
   'POST /api/outbox/:messageId/retry': 'outbox',
-  'GET /api/fakes/tiles/:z/:x/:y.png': 'staff',
+  // Public with their key checked by every route (server/owner/owner.routes.ts): the key reaches one
+  // vehicle's owner page, its photos, its cost on a date and its owner's choice — nothing else.
+  'GET /api/owner/:key': 'public',
+  'GET /api/owner/:key/quote': 'public',
+  'POST /api/owner/:key/decision': 'public',
+  'GET /api/owner/:key/files/:fileId': 'public',
+  'GET /api/owner/:key/files/:fileId/thumb': 'public',
+  // Public, rate-limited per address: whether a yard here holds a plate + VIN tail, where, what is owed.
+  'POST /api/vehicle-lookup': 'public',
+  // The demo town's plain tiles: the owner's page shows the yard on them.
+  'GET /api/fakes/tiles/:z/:x/:y.png': 'public',
   'GET /api/fakes/geocoder/search': 'staff',
   'GET /api/fakes/geocoder/reverse': 'staff',
 }

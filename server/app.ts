@@ -19,6 +19,7 @@ import { holdsRouter } from './holds/index'
 import { inspectionsRouter } from './inspections/index'
 import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
 import { outboxRouter } from './outbox/index'
+import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, publicThrottle, type PublicLimits } from './owner/index'
 import { quotesRouter } from './quotes/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { healthRouter } from './health/index'
@@ -59,6 +60,10 @@ export interface AppDeps {
   kickOutbox?: () => void
   /** Where people reach Holdfast, for links and QR codes on documents; the request's own address when absent. */
   publicUrl?: string
+  /** Days an owner link opens the owner's page (30). */
+  ownerLinkDays?: number
+  /** Tries per address on the public pages a stranger could guess at: owner codes, the vehicle lookup. */
+  publicLimits?: PublicLimits
 }
 
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
@@ -117,6 +122,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/inspection', inspectionsRouter(changes, files))
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
+  app.use('/api/vehicles/:vehicleId/owner-links', ownerLinksRouter(changes, deps.ownerLinkDays ?? 30))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
@@ -127,6 +133,10 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/map', mapRouter(db, map))
   app.use('/api/vin-decode', vinDecodeRouter())
   app.use('/api/outbox', outboxRouter({ db, files, kick: deps.kickOutbox }))
+  // Public: the owner's page (its key checked by every route) and "is my vehicle here?".
+  const throttle = publicThrottle(db, deps.publicLimits ?? DEFAULT_PUBLIC_LIMITS)
+  app.use('/api/owner', ownerRouter({ changes, files, map, throttle }))
+  app.use('/api/vehicle-lookup', lookupRouter(db, throttle))
   if (usesLocalFakes(map)) app.use('/api/fakes', fakesRouter())
   app.use('/api', notFoundHandler)
 

@@ -29,6 +29,10 @@ const envSchema = z.object({
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
   HOLDFAST_SIGNIN_PER_IP: z.coerce.number().int().min(1).default(50),
   HOLDFAST_SIGNIN_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
+  // How long an owner link opens the owner's page, in days.
+  HOLDFAST_OWNER_LINK_DAYS: z.coerce.number().int().min(1).max(365).default(30),
+  // Wrong owner codes, or vehicle lookups, from one address before each further try waits.
+  HOLDFAST_PUBLIC_TRIES: z.coerce.number().int().min(1).default(10),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   // Uploaded photos and papers; outside any served folder. Defaults to <data dir>/files.
   HOLDFAST_FILES_DIR: z.string().min(1).optional(),
@@ -60,6 +64,8 @@ export interface Config {
   sessionSecret: string | undefined
   logLevel: string
   signInLimits: { perIp: number; perAccount: number; windowMs: number }
+  ownerLinkDays: number
+  publicLimits: { perAddress: number; windowMs: number }
   clientDir: string
   filesDir: string
   /** The history key's file: beside the data directory unless set (every server of one database needs the same file). */
@@ -102,6 +108,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     sessionSecret: e.SESSION_SECRET,
     logLevel: e.LOG_LEVEL,
     signInLimits: { perIp: e.HOLDFAST_SIGNIN_PER_IP, perAccount: e.HOLDFAST_SIGNIN_PER_ACCOUNT, windowMs: 15 * 60_000 },
+    ownerLinkDays: e.HOLDFAST_OWNER_LINK_DAYS,
+    publicLimits: { perAddress: e.HOLDFAST_PUBLIC_TRIES, windowMs: 15 * 60_000 },
     clientDir: path.resolve(e.HOLDFAST_CLIENT_DIR),
     filesDir: path.resolve(e.HOLDFAST_FILES_DIR ?? path.join(dataDir, 'files')),
     historyKeyFile: path.resolve(e.HOLDFAST_HISTORY_KEY_FILE ?? `${dataDir}.history-key`),

@@ -76,6 +76,8 @@ const app = createApp({
   origins: config.origins,
   clientDir: config.clientDir,
   signInLimits: config.signInLimits,
+  ownerLinkDays: config.ownerLinkDays,
+  publicLimits: config.publicLimits,
   live,
   files,
   map: config.map,

@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm'
 import { boolean, check, index, integer, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
 import { DISPOSITIONS, VEHICLE_STATES } from '@shared/domain/lifecycle'
+import { OWNER_CHOICES } from '@shared/schemas/owner'
 import { users } from './users'
 import { yardSpaces, yards } from './yards'
 import { at, createdAt, id } from './columns'
@@ -42,6 +43,9 @@ export const vehicles = pgTable(
     ruleSetVersionId: uuid(),
     ownerName: text(),
     estimatedValueCents: integer(),
+    // The owner's latest choice on their page (owner_decisions holds each one in full): the board's badge.
+    ownerChoice: text({ enum: OWNER_CHOICES }),
+    ownerChoiceAt: at(),
     arrivedAt: at().notNull(),
     closedAt: at(),
     createdAt: createdAt(),

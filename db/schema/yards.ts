@@ -13,6 +13,8 @@ export const yards = pgTable(
     code: text().notNull().unique(),
     address: text().notNull(),
     phone: text(),
+    // Opening hours as the yard writes them ("Mon–Fri 8:00–17:00, Sat 9:00–12:00"), shown to owners.
+    hours: text(),
     lat: doublePrecision().notNull(),
     lng: doublePrecision().notNull(),
     timeZone: text().notNull(),

@@ -63,6 +63,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
     photoCount: Number(r.photoCount),
     pickup: pickupBadge(r),
     summary: cardSummary(summaries.get(r.id)),
+    ownerChoice: r.ownerChoice && r.ownerChoiceAt ? { choice: r.ownerChoice, at: r.ownerChoiceAt.toISOString() } : null,
   }))
 }
 

@@ -43,6 +43,8 @@ export function cardRows(db: Executor, where: SQL | undefined) {
       brakes: vehicles.brakes,
       keys: vehicles.keys,
       inspectedAt: vehicles.inspectedAt,
+      ownerChoice: vehicles.ownerChoice,
+      ownerChoiceAt: vehicles.ownerChoiceAt,
       towReason: tows.reason,
       towCents: sql<number>`coalesce(${tows.chargeCents}, 0)`,
       spaceRow: yardSpaces.row,

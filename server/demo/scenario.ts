@@ -12,6 +12,7 @@ export const DEMO_YARD = {
   code: 'TC',
   address: '1480 Quarry Spur Road, Orrin Flats, CA 93599',
   phone: '(559) 555-0142',
+  hours: 'Mon–Fri 8:00–17:00 · Sat 9:00–12:00',
   lat: 36.4127,
   lng: -119.3521,
   timeZone: 'America/Los_Angeles',

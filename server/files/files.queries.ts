@@ -42,3 +42,15 @@ export async function fileForUser(db: Executor, userId: string, fileId: string) 
     .where(and(eq(files.id, fileId), eq(users.id, userId)))
   return row
 }
+
+export type FoundFile = NonNullable<Awaited<ReturnType<typeof fileForUser>>>
+
+/** A file with its stock number, if it belongs to this vehicle. */
+export async function fileOfVehicle(db: Executor, vehicleId: string, fileId: string): Promise<FoundFile | undefined> {
+  const [row] = await db
+    .select({ file: files, stockNumber: vehicles.stockNumber })
+    .from(files)
+    .innerJoin(vehicles, eq(vehicles.id, files.vehicleId))
+    .where(and(eq(files.id, fileId), eq(files.vehicleId, vehicleId)))
+  return row
+}

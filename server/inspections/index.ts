@@ -1,1 +1,2 @@
 export { inspectionsRouter } from './inspections.routes'
+export { inspectionOf } from './inspection-page'

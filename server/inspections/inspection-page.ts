@@ -11,10 +11,7 @@ const title = (v: VehicleRow) => [v.year, v.make, v.model].filter(Boolean).join(
 /** Everything the teardown screen shows: the vehicle, the latest inspection, the estimate, the recommendation, the pickup badge. */
 export async function inspectionPage(db: Executor, userId: string, vehicleId: string): Promise<InspectionPage> {
   const { vehicle: v, yard } = await vehicleForUser(db, userId, vehicleId)
-  const ruleSet = v.ruleSetVersionId ? (await versionsById(db, [v.ruleSetVersionId])).get(v.ruleSetVersionId) : undefined
-  const row = await latestInspection(db, vehicleId)
-  const inspection = row ? await inspectionView(db, vehicleId, row) : null
-  const { recommendation, missing } = recommend(inspection, ruleSet)
+  const { ruleSet, inspection, recommendation, missing } = await inspectionOf(db, v)
   return {
     vehicle: {
       id: v.id,
@@ -36,6 +33,17 @@ export async function inspectionPage(db: Executor, userId: string, vehicleId: st
     recommendationMissing: missing,
     pickup: pickupBadge(v),
   }
+}
+
+/**
+ * A vehicle's latest inspection with the core's repair-or-salvage call (or why it cannot be made),
+ * for a caller that has already found the vehicle: the teardown screen, the owner's page.
+ */
+export async function inspectionOf(db: Executor, v: VehicleRow) {
+  const ruleSet = v.ruleSetVersionId ? (await versionsById(db, [v.ruleSetVersionId])).get(v.ruleSetVersionId) : undefined
+  const row = await latestInspection(db, v.id)
+  const inspection = row ? await inspectionView(db, v.id, row) : null
+  return { ruleSet, inspection, ...recommend(inspection, ruleSet) }
 }
 
 async function inspectionView(db: Executor, vehicleId: string, row: InspectionRow): Promise<Inspection> {

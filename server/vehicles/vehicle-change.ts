@@ -7,7 +7,7 @@ import type { HistoryKind } from '@shared/schemas/history'
 import type { User } from '@shared/schemas/users'
 import { conflict, type AppError } from '../errors'
 import type { BoardNotifier } from '../live/index'
-import { vehicleForUser, type VehicleRow, type YardRow } from './vehicles.queries'
+import { vehicleById, vehicleForUser, type VehicleRow, type YardRow } from './vehicles.queries'
 
 /** What changing a vehicle needs: the database and the boards to tell. createApp makes the one of the app. */
 export interface VehicleChanges {
@@ -79,21 +79,52 @@ export async function changeVehicle<T>(
   work: (w: VehicleWork) => Promise<T>,
   options: ChangeOptions = {},
 ): Promise<Changed<T>> {
+  const who = { id: actor.id, label: actor.name }
+  return change(changes, who, vehicleId, (tx) => vehicleForUser(tx, actor.id, vehicleId, true), (w) => work({ ...w, actor }), options)
+}
+
+/** What an owner's change is handed: the same as staff work, without a staff member behind it. */
+export type OwnerWork = Omit<VehicleWork, 'actor'>
+
+/**
+ * The same unit of work for a change the vehicle's owner makes from their page (no account): the
+ * caller has already proved, by the owner link, which vehicle this is. The history names the owner
+ * by `label` with no staff id.
+ */
+export async function changeVehicleAsOwner<T>(
+  changes: VehicleChanges,
+  label: string,
+  vehicleId: string,
+  work: (w: OwnerWork) => Promise<T>,
+): Promise<Changed<T>> {
+  return change(changes, { id: null, label }, vehicleId, (tx) => vehicleById(tx, vehicleId, true), work, {})
+}
+
+type Who = { id: string | null; label: string }
+
+async function change<T>(
+  changes: VehicleChanges,
+  who: Who,
+  vehicleId: string,
+  lock: (tx: Tx) => Promise<{ vehicle: VehicleRow; yard: YardRow }>,
+  work: (w: OwnerWork) => Promise<T>,
+  options: ChangeOptions,
+): Promise<Changed<T>> {
   const done = await changes.db.transaction(async (tx) => {
-    const { vehicle, yard } = await vehicleForUser(tx, actor.id, vehicleId, true)
+    const { vehicle, yard } = await lock(tx)
     if (options.expectedVersion !== undefined && options.expectedVersion !== vehicle.version) {
       throw await (options.stale?.({ tx, vehicle, yard }) ?? staleVersion(vehicle.version))
     }
     const { events, record } = collector()
     let columns: VehicleColumns = {}
-    const result = await work({ tx, vehicleId, actor, vehicle, yard, record, set: (c) => void (columns = { ...columns, ...c }) })
+    const result = await work({ tx, vehicleId, vehicle, yard, record, set: (c) => void (columns = { ...columns, ...c }) })
     if (events.length === 0) {
       if (Object.keys(columns).length > 0) throw new Error('A change to a vehicle must say in its history what it changed.')
       return { result, yard, version: vehicle.version, cause: null }
     }
     // The row is locked, so the version read above is still the row's.
     await tx.update(vehicles).set({ ...columns, version: vehicle.version + 1, updatedAt: new Date() }).where(eq(vehicles.id, vehicleId))
-    await appendAll(tx, changes.historyKey, vehicleId, actor, events)
+    await appendAll(tx, changes.historyKey, vehicleId, who, events)
     return { result, yard, version: vehicle.version + 1, cause: events[0]!.kind }
   })
   if (!done.cause) return { result: done.result, version: done.version, changed: false }
@@ -117,7 +148,7 @@ export async function createVehicle<T>(
     const { events, record } = collector()
     const result = await work({ tx, vehicleId, actor, record })
     if (events.length === 0) throw new Error('A new vehicle starts its history with how it came in.')
-    await appendAll(tx, changes.historyKey, vehicleId, actor, events)
+    await appendAll(tx, changes.historyKey, vehicleId, { id: actor.id, label: actor.name }, events)
     return { result, cause: events[0]!.kind }
   })
   await tellBoards(changes, { yard, vehicleId, cause: done.cause })
@@ -125,8 +156,8 @@ export async function createVehicle<T>(
 }
 
 // The vehicle row is held (locked, or new and seen by no other transaction): no second lock per event.
-async function appendAll(tx: Tx, key: HistoryKey, vehicleId: string, actor: User, events: HistoryEntry[]) {
-  for (const e of events) await appendHistory(tx, key, { ...e, vehicleId, actorId: actor.id, actorLabel: actor.name }, { vehicleLocked: true })
+async function appendAll(tx: Tx, key: HistoryKey, vehicleId: string, who: Who, events: HistoryEntry[]) {
+  for (const e of events) await appendHistory(tx, key, { ...e, vehicleId, actorId: who.id, actorLabel: who.label }, { vehicleLocked: true })
 }
 
 async function tellBoards(

@@ -21,3 +21,14 @@ export async function vehicleForUser(db: Executor, userId: string, vehicleId: st
   if (!row) throw notFound('That vehicle')
   return row
 }
+
+/**
+ * A vehicle with its yard by id alone, for a caller that has already proved its right to this one
+ * vehicle some other way (an owner link). Staff code uses vehicleForUser.
+ */
+export async function vehicleById(db: Executor, vehicleId: string, lock = false): Promise<{ vehicle: VehicleRow; yard: YardRow }> {
+  const query = db.select({ vehicle: vehicles, yard: yards }).from(vehicles).innerJoin(yards, eq(yards.id, vehicles.yardId)).where(eq(vehicles.id, vehicleId))
+  const [row] = lock ? await query.for('update', { of: vehicles }) : await query
+  if (!row) throw notFound('That vehicle')
+  return row
+}

@@ -3,6 +3,7 @@ import { BOARD_COLUMNS, DISPOSITIONS, VEHICLE_STATES } from '../domain/lifecycle
 import { HOLD_KINDS } from '../domain/lifecycle/hold-kinds'
 import { vehicleSummarySchema } from './charges'
 import { pickupBadgeSchema } from './inspections'
+import { OWNER_CHOICES } from './owner'
 
 export const cardHoldSchema = z.object({
   kind: z.enum(HOLD_KINDS),
@@ -54,6 +55,8 @@ export const boardCardSchema = z.object({
   pickup: pickupBadgeSchema.nullable(),
   /** Null when the vehicle has no rule set to bill it by (shown as "no rule set"). */
   summary: cardSummarySchema.nullable(),
+  /** What the owner chose on their page, latest first; null until they choose. */
+  ownerChoice: z.object({ choice: z.enum(OWNER_CHOICES), at: z.string() }).nullable(),
 })
 export type BoardCard = z.infer<typeof boardCardSchema>
 

@@ -21,6 +21,9 @@ export const HISTORY_KINDS = [
   'vehicle_values_entered',
   'roll_ability_marked',
   'inspection_finished',
+  'owner_link_created',
+  'owner_link_revoked',
+  'owner_decided',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -65,4 +68,7 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   vehicle_values_entered: 'Value entered',
   roll_ability_marked: 'Rolls, steers, brakes marked',
   inspection_finished: 'Inspection finished',
+  owner_link_created: 'Owner link created',
+  owner_link_revoked: 'Owner link revoked',
+  owner_decided: "Owner's decision",
 }

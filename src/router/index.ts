@@ -8,6 +8,8 @@ declare module 'vue-router' {
   interface RouteMeta {
     /** Reachable without signing in. */
     public?: boolean
+    /** A page for the public (the owner's page): no staff top bar, even for someone signed in. */
+    bare?: boolean
     /** The permission (shared/domain/access/permissions.ts) a role needs to open this page. */
     permission?: Permission
     /** Shown in the top bar's navigation with this label. */
@@ -27,6 +29,9 @@ export const routes: RouteRecordRaw[] = [
   { path: '/vehicles/:vehicleId', name: 'vehicle', component: () => import('@/views/VehicleView.vue'), meta: { permission: 'board.view', title: 'Vehicle' } },
   { path: '/vehicles/:vehicleId/inspection', name: 'inspection', component: () => import('@/views/InspectionView.vue'), meta: { permission: 'board.view', title: 'Teardown' } },
   { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { permission: 'outbox', nav: 'Outbox', title: 'Outbox' } },
+  // The owner's page (no account): its key is a link's token or the short code from a letter.
+  { path: '/o', name: 'owner-start', component: () => import('@/views/OwnerStartView.vue'), meta: { public: true, bare: true, title: 'Your vehicle' } },
+  { path: '/o/:key', name: 'owner', component: () => import('@/views/OwnerView.vue'), meta: { public: true, bare: true, title: 'Your vehicle' } },
   { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'Staff', title: 'Staff' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
 ]

@@ -1,0 +1,46 @@
+import { and, eq } from 'drizzle-orm'
+import { ownerLinks } from '@db/schema'
+import type { OwnerLinkCreated } from '@shared/schemas/owner'
+import type { User } from '@shared/schemas/users'
+import { conflict, notFound } from '../errors'
+import { changeVehicle, type VehicleChanges } from '../vehicles/index'
+import { keyHash, newCode, newToken } from './owner-keys'
+import { linksOf, openLinkOf } from './owner.queries'
+
+const DAY_MS = 86_400_000
+
+/**
+ * A new owner link for one vehicle: a random token and a short code, stored only as hashes and
+ * answered once, here. Creating it is an event in the vehicle's history (its id and expiry, never the token).
+ */
+export async function createOwnerLink(changes: VehicleChanges, actor: User, vehicleId: string, days: number, now = new Date()): Promise<OwnerLinkCreated> {
+  const token = newToken()
+  const code = newCode()
+  const expiresAt = new Date(now.getTime() + days * DAY_MS)
+  const { result: id } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, record }) => {
+    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its owner needs no link now.')
+    const [row] = await tx
+      .insert(ownerLinks)
+      .values({ vehicleId, tokenHash: keyHash('owner-token', token), codeHash: keyHash('owner-code', code), createdById: actor.id, createdAt: now, expiresAt })
+      .returning({ id: ownerLinks.id })
+    record({ kind: 'owner_link_created', after: { linkId: row!.id, expiresAt: expiresAt.toISOString() } })
+    return row!.id
+  })
+  const [link] = await linksOf(changes.db, vehicleId, now, id)
+  return { link: link!, token, code, path: `/o/${token}` }
+}
+
+/** The link stops opening the page at once. Revoking one already revoked changes nothing. */
+export async function revokeOwnerLink(changes: VehicleChanges, actor: User, vehicleId: string, linkId: string): Promise<void> {
+  await changeVehicle(changes, actor, vehicleId, async ({ tx, record }) => {
+    const link = await openLinkOf(tx, vehicleId, linkId)
+    if (!link) {
+      const [any] = await tx.select({ id: ownerLinks.id }).from(ownerLinks).where(and(eq(ownerLinks.id, linkId), eq(ownerLinks.vehicleId, vehicleId)))
+      if (!any) throw notFound('That owner link')
+      return
+    }
+    const now = new Date()
+    await tx.update(ownerLinks).set({ revokedAt: now, revokedById: actor.id }).where(eq(ownerLinks.id, linkId))
+    record({ kind: 'owner_link_revoked', before: { linkId, expiresAt: link.expiresAt.toISOString() } })
+  })
+}

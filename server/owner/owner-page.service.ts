@@ -1,0 +1,123 @@
+import type { Database } from '@db/client'
+import { legalClocks } from '@shared/domain/clocks'
+import { dayFromIsoDate, isoDate, localDay, startOfLocalDay } from '@shared/domain/time'
+import type { OwnerDeadline, OwnerPage, OwnerQuote } from '@shared/schemas/owner'
+import type { RuleSet } from '@shared/schemas/rule-sets'
+import { badRequest } from '../errors'
+import { summarizeVehicles } from '../charges/index'
+import { filesOf } from '../files/index'
+import { holidayCalendar } from '../holidays/index'
+import { inspectionOf } from '../inspections/index'
+import type { MapConfig } from '../map/index'
+import { latestVersionOf } from '../rule-sets/index'
+import { vehicleById, type VehicleRow, type YardRow } from '../vehicles/index'
+import { checklistItem } from '@shared/domain/inspection'
+import { decisionsOf } from './owner.queries'
+
+/** How far ahead the owner may ask what collecting would cost. */
+export const QUOTE_DAYS_AHEAD = 366
+
+/**
+ * Everything the owner's page shows of the one vehicle its link reaches: the vehicle, its photos,
+ * the findings, estimate and recommendation, the bill so far, the deadlines that concern the owner,
+ * where the yard is. No staff names, no IDs or papers, no other vehicle.
+ */
+export async function ownerPage(db: Database, vehicleId: string, key: string, map: MapConfig, expiresAt: Date, now = new Date()): Promise<OwnerPage> {
+  const { vehicle: v, yard } = await vehicleById(db, vehicleId)
+  const { ruleSet, inspection, recommendation } = await inspectionOf(db, v)
+  const inspectionPhotoIds = new Set(inspection?.items.flatMap((i) => i.photos.map((p) => p.id)) ?? [])
+  const photos = (await filesOf(db, v.id))
+    .filter((f) => f.kind === 'photo')
+    .map((f) => ({
+      id: f.id,
+      stage: inspectionPhotoIds.has(f.id) ? ('inspection' as const) : ('intake' as const),
+      label: f.label,
+      url: `/api/owner/${encodeURIComponent(key)}/files/${f.id}`,
+      thumbUrl: f.thumbUrl ? `/api/owner/${encodeURIComponent(key)}/files/${f.id}/thumb` : null,
+    }))
+  const [decision] = await decisionsOf(db, v.id, 1)
+  const billRuleSet = ruleSet ?? (yard.ruleSetId ? (await latestVersionOf(db, yard.ruleSetId))?.ruleSet : undefined)
+  return {
+    vehicle: {
+      stockNumber: v.stockNumber,
+      year: v.year,
+      make: v.make,
+      model: v.model,
+      colour: v.colour,
+      plate: v.plate,
+      plateState: v.plateState,
+      state: v.state,
+      arrivedAt: v.arrivedAt.toISOString(),
+    },
+    yard: {
+      name: yard.name,
+      address: yard.address,
+      phone: yard.phone,
+      hours: yard.hours,
+      timeZone: yard.timeZone,
+      lat: yard.lat,
+      lng: yard.lng,
+      today: isoDate(localDay(yard.timeZone, now.getTime())),
+    },
+    map: { tileUrl: map.tileUrl, tileAttribution: map.tileAttribution, maxZoom: map.maxZoom },
+    photos,
+    inspection: inspection && {
+      finished: inspection.finished !== null,
+      findings: inspection.items
+        .filter((i) => i.status !== 'not_checked' && i.status !== 'ok')
+        .map((i) => ({ code: i.code, label: checklistItem(i.code)?.label ?? i.code, status: i.status, note: i.note })),
+      lines: inspection.lines.map((l) => ({ part: l.part, quantity: l.quantity, totalCents: l.totalCents })),
+      totalCents: inspection.totals.totalCents,
+    },
+    recommendation: recommendation && {
+      recommendation: recommendation.recommendation,
+      rule: recommendation.rule,
+      percent: ruleSet?.totalLoss.rule === 'percent-of-value' ? ruleSet.totalLoss.percent : null,
+      ...recommendation.numbers,
+      citation: recommendation.source.citation,
+    },
+    bill: await quoteAt(db, v, yard, now, isoDate(localDay(yard.timeZone, now.getTime())), false),
+    deadlines: billRuleSet ? deadlinesOf(v, billRuleSet, yard, now) : [],
+    caution: billRuleSet?.caution ?? null,
+    decision: decision ? { choice: decision.choice, signOverTo: decision.signOverTo, fullName: decision.fullName, phone: decision.phone, note: decision.note, at: decision.at } : null,
+    expiresAt: expiresAt.toISOString(),
+  }
+}
+
+/**
+ * What the stay costs if the vehicle leaves on `date` (the yard's calendar), counted by the same
+ * engine as the office's bill to the last moment of that day: the most that day can cost.
+ */
+export async function ownerQuote(db: Database, vehicleId: string, date: string, now = new Date()): Promise<OwnerQuote> {
+  const { vehicle, yard } = await vehicleById(db, vehicleId)
+  const today = localDay(yard.timeZone, now.getTime())
+  const day = dayFromIsoDate(date)
+  if (day < today) throw badRequest('Choose today or a later date.', [{ path: 'date', message: 'Choose today or a later date.' }])
+  if (day > today + QUOTE_DAYS_AHEAD) throw badRequest('Choose a date within a year.', [{ path: 'date', message: 'Choose a date within a year.' }])
+  const quote = await quoteAt(db, vehicle, yard, new Date(startOfLocalDay(yard.timeZone, day + 1) - 1), date, true)
+  if (!quote) throw badRequest('The yard cannot work out this bill here; please call them.')
+  return quote
+}
+
+async function quoteAt(db: Database, v: VehicleRow, yard: YardRow, at: Date, date: string, leaving: boolean): Promise<OwnerQuote | null> {
+  // Leaving then: billed as released at that moment, the way the office's bill will be.
+  const closedAt = v.closedAt ?? (leaving ? at : null)
+  const summary = (await summarizeVehicles(db, yard, [{ ...v, closedAt }], at)).get(v.id)
+  if (!summary) return null
+  return { date, daysOnLot: summary.daysOnLot, storageCents: summary.storageCents, towCents: summary.towCents, balanceCents: summary.balanceCents }
+}
+
+function deadlinesOf(v: VehicleRow, ruleSet: RuleSet, yard: YardRow, now: Date): OwnerDeadline[] {
+  const arrival = (ruleSet.arrivalEvents?.kinds ?? ['stored']).map((kind) => ({ kind, at: v.arrivedAt.toISOString() }))
+  const clocks = legalClocks({ modelYear: v.year, valueCents: v.estimatedValueCents }, arrival, ruleSet, holidayCalendar(ruleSet.holidayCalendar), now.toISOString(), { timeZone: yard.timeZone })
+  return clocks.deadlines.map((d) => ({
+    code: d.code,
+    label: d.label,
+    kind: d.kind,
+    doneBy: d.doneBy.event,
+    status: d.status,
+    dueDate: d.dueDate ?? null,
+    explanation: d.explanation,
+    citation: d.source.citation,
+  }))
+}

@@ -1,0 +1,79 @@
+import { Router, type Request, type Response } from 'express'
+import { ownerDecisionInputSchema, ownerFileParamsSchema, ownerKeyParamsSchema, ownerQuoteQuerySchema } from '@shared/schemas/owner'
+import { AppError, notFound } from '../errors'
+import { sendVehicleFile, type FileStore } from '../files/index'
+import type { MapConfig } from '../map/index'
+import type { VehicleChanges } from '../vehicles/index'
+import { readKey } from './owner-keys'
+import { linkByHash, linkStatus, type OwnerLinkRow } from './owner.queries'
+import { recordDecision } from './owner-decision.service'
+import { ownerPage, ownerQuote } from './owner-page.service'
+import type { PublicThrottle } from './public-throttle'
+
+export interface OwnerRouterDeps {
+  changes: VehicleChanges
+  files: FileStore
+  map: MapConfig
+  throttle: PublicThrottle
+}
+
+const GONE = {
+  expired: 'This link has expired. Ask the yard for a new one.',
+  revoked: 'The yard has withdrawn this link. Ask them for a new one.',
+}
+
+/**
+ * /api/owner/:key — the owner's page, public (no account): the key (the link's token or its short
+ * code) is the only credential and reaches one vehicle. Every route finds the link first; a wrong,
+ * expired or withdrawn key counts against the address's tries (public-throttle.ts).
+ */
+export function ownerRouter({ changes, files, map, throttle }: OwnerRouterDeps): Router {
+  const { db } = changes
+  const router = Router()
+
+  async function linkOf(req: Request, res: Response): Promise<{ link: OwnerLinkRow; key: string }> {
+    const { key } = ownerKeyParamsSchema.parse(req.params)
+    const ip = req.ip ?? ''
+    await throttle.check('owner-key', ip, res)
+    const read = readKey(key)
+    const link = read ? await linkByHash(db, read.column, read.hash) : undefined
+    const status = link ? linkStatus(link, new Date()) : null
+    if (link && status === 'active') return { link, key }
+    await throttle.count('owner-key', ip)
+    if (!link || status === 'active') throw notFound('That link')
+    throw new AppError(410, GONE[status!])
+  }
+
+  // An owner page's answers are for one person: never kept by a shared cache.
+  router.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'private, no-store')
+    next()
+  })
+
+  router.get('/:key', async (req, res) => {
+    const { link, key } = await linkOf(req, res)
+    res.json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt))
+  })
+
+  router.get('/:key/quote', async (req, res) => {
+    const { link } = await linkOf(req, res)
+    const { date } = ownerQuoteQuerySchema.parse(req.query)
+    res.json(await ownerQuote(db, link.vehicleId, date))
+  })
+
+  router.post('/:key/decision', async (req, res) => {
+    const { link, key } = await linkOf(req, res)
+    const input = ownerDecisionInputSchema.parse(req.body)
+    await recordDecision(changes, link, input, { ip: req.ip ?? '', userAgent: req.get('user-agent') ?? null })
+    res.status(201).json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt))
+  })
+
+  const photo = (thumb: boolean) => async (req: Request, res: Response) => {
+    const { link } = await linkOf(req, res)
+    const { fileId } = ownerFileParamsSchema.parse(req.params)
+    await sendVehicleFile(db, files, req, res, { vehicleId: link.vehicleId, fileId, thumb, kinds: ['photo'] })
+  }
+  router.get('/:key/files/:fileId', photo(false))
+  router.get('/:key/files/:fileId/thumb', photo(true))
+  return router
+}
