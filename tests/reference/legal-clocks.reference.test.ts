@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import californiaJson from '../../server/rule-sets/samples/california.json' with { type: 'json' }
 import floridaJson from '../../server/rule-sets/samples/florida.json' with { type: 'json' }
+import { ruleSetCalendars } from '../../server/holidays/index'
 import { usFederalCalendar } from '../helpers/us-federal-holidays'
 import { type ClockEvent, legalClocks } from '@shared/domain/clocks'
 import { ruleSetSchema } from '@shared/schemas/rule-sets'
@@ -48,24 +49,49 @@ describe('California Civil Code 3071 and 3072 timelines by value [V]', () => {
       ['notice-window-opens', '2026-05-05'], // not more than 41 days before the sale
       ['notice-window-closes', '2026-05-15'], // at least 31 days before the sale
       ['opposition-period', null], // 10 days from mailing: starts when the notice is mailed
+      ['sale-after-notice', null], // 31 days from mailing
+      ['sale-within-notice', null], // no later than 41 days from mailing
       ['sale-notice-posted', '2026-06-05'], // at least 10 days before the sale
+      ['sale-after-posting', null], // 10 days from the posting
+      ['sale-on-noticed-date', '2026-06-15'], // the date the notice gives [M]
     ])
   })
 
   it('legalClocks_californiaVehicleValuedOver4000_followsSection3071', () => {
     const clocks = legalClocks({ valueCents: 400_001 }, events, california, federal, '2026-04-02T00:00:00Z')
     expect(clocks.deadlines.map((d) => [d.code, d.dueDate ?? null])).toEqual([
+      ['records-request', '2026-04-16'], // asked of every vehicle: the shorter count of § 3072 and Veh. Code § 22851.8
       ['lien-sale-application', '2026-05-01'], // apply within 30 days of the lien arising
-      ['opposition-period', null],
+      ['opposition-period', null], // 10 days from the DMV's own notice
       ['sale-notice', '2026-05-26'], // notice 20 days before the sale
+      ['sale-after-notice', null],
       ['advertise-window-opens', '2026-05-26'], // advertise 5 to 20 days before it
       ['advertise-window-closes', '2026-06-10'],
+      ['sale-after-advertising', null],
+      ['sale-within-advertising', null],
+      ['sale-on-noticed-date', '2026-06-15'],
     ])
   })
 
-  it('legalClocks_californiaVehicleValued500OrLess_hasNoClocksFromThisSample (CVC 22851.4: over $500 → 3067–3074)', () => {
+  it('legalClocks_californiaVehicleValued500OrLess_followsVehicleCode22851 (CVC 22851.6: $500 or less → 22851.8, 22851.10)', () => {
     const clocks = legalClocks({ valueCents: 50_000 }, events, california, federal, '2026-04-02T00:00:00Z')
-    expect(clocks.deadlines).toEqual([])
-    expect(clocks.notApplicable[0]?.reason).toBe('Valued $500.00; this applies only to vehicles valued over $500.00 and at most $4,000.00.')
+    expect(clocks.deadlines.map((d) => [d.code, d.dueDate ?? null])).toEqual([
+      ['records-request', '2026-04-16'],
+      ['low-value-disposal', null], // 15 days after the notice of intent to dispose is mailed
+    ])
+    expect(clocks.alerts).toEqual([])
+  })
+
+  // A mailing deadline on a day post offices are closed moves to the open day before (the sample's
+  // mailDeadlines, [M]): a sale on Wed 17 Jun 2026 puts the 31st day before it on Sun 17 May, so the
+  // notice of pending lien sale is due by Fri 15 May (Saturday counts as closed too).
+  it('legalClocks_californiaLatestMailingOnASunday_movesToTheFridayBefore', () => {
+    const onWednesday: ClockEvent[] = [events[0]!, { kind: 'sale-scheduled', at: '2026-06-17T10:00:00-07:00' }]
+    const clocks = legalClocks({ valueCents: 300_000 }, onWednesday, california, ruleSetCalendars(california), '2026-04-02T00:00:00Z')
+    const closes = due(clocks, 'notice-window-closes')
+    expect(closes?.dueDate).toBe('2026-05-15')
+    expect(closes?.explanation).toContain('2026-05-17 is a Sunday, when post offices are closed')
+    expect(closes?.rules?.[0]?.source.confidence).toBe('M')
+    expect(due(clocks, 'notice-window-opens')?.dueDate).toBe('2026-05-07') // an earliest date never moves
   })
 })
