@@ -41,7 +41,9 @@ export const vehicles = pgTable(
     checkedById: uuid().references(() => users.id),
     ruleSetVersionId: uuid(),
     ownerName: text(),
+    // The value the lien clocks branch on, and where it came from (a price guide, an appraisal, the inspection).
     estimatedValueCents: integer(),
+    estimatedValueSource: text(),
     arrivedAt: at().notNull(),
     closedAt: at(),
     createdAt: createdAt(),

@@ -92,6 +92,7 @@ async function loadDemo(db: Database, now: Date, ruleSetsFolder: string | undefi
       ruleSetVersionId: california ?? null,
       ownerName: v.owner,
       estimatedValueCents: demoValueCents(v),
+      estimatedValueSource: 'Price guide',
       arrivedAt,
       closedAt: closed ? new Date(now.getTime() - (v.hoursAgo - 24 * 6) * HOUR) : null,
     }

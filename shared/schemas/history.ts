@@ -19,6 +19,7 @@ export const HISTORY_KINDS = [
   'estimate_line_changed',
   'estimate_line_removed',
   'vehicle_values_entered',
+  'vehicle_value_recorded',
   'roll_ability_marked',
   'inspection_finished',
 ] as const
@@ -63,6 +64,7 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   estimate_line_changed: 'Estimate line changed',
   estimate_line_removed: 'Estimate line removed',
   vehicle_values_entered: 'Value entered',
+  vehicle_value_recorded: 'Value recorded',
   roll_ability_marked: 'Rolls, steers, brakes marked',
   inspection_finished: 'Inspection finished',
 }
