@@ -1,6 +1,7 @@
 // Lint for mistakes, not for formatting: the recommended rules of ESLint, typescript-eslint and
 // eslint-plugin-vue ("essential"), with the few exceptions this codebase has reasons for.
 import js from '@eslint/js'
+import vueI18n from '@intlify/eslint-plugin-vue-i18n'
 import pluginVue from 'eslint-plugin-vue'
 import globals from 'globals'
 import tseslint from 'typescript-eslint'
@@ -76,5 +77,23 @@ export default tseslint.config(
     // The one place that formats dates and times, on the yard's clock.
     files: ['src/composables/yard-time.ts'],
     rules: { 'no-restricted-syntax': ['error', ...literalQueryKeys] },
+  },
+  {
+    // Every string a person reads comes from the catalogs (src/locales/<locale>/<namespace>.json):
+    // a key used in a template or a script that no catalog has is an error, and so is raw text in a
+    // template. Raw text is checked in the files listed here until every screen has moved over.
+    files: ['src/**/*.vue', 'src/**/*.ts'],
+    plugins: { '@intlify/vue-i18n': vueI18n },
+    settings: {
+      'vue-i18n': {
+        localeDir: { pattern: './src/locales/*/*.json', localeKey: 'path', localePattern: /^.*\/(?<locale>[a-z]{2})\/[^/]+\.json$/ },
+        messageSyntaxVersion: '^11.0.0',
+      },
+    },
+    rules: { '@intlify/vue-i18n/no-missing-keys': 'error' },
+  },
+  {
+    files: ['src/App.vue', 'src/views/SignInView.vue', 'src/components/shell/ShellLocaleSwitch.vue'],
+    rules: { '@intlify/vue-i18n/no-raw-text': ['error', { ignorePattern: '^[-–—·•:/()#%+×.,\\s\\d]+$' }] },
   },
 )

@@ -1,4 +1,5 @@
 import { fileURLToPath, URL } from 'node:url'
+import VueI18nPlugin from '@intlify/unplugin-vue-i18n/vite'
 import vue from '@vitejs/plugin-vue'
 import Components from 'unplugin-vue-components/vite'
 import { ElementPlusResolver } from 'unplugin-vue-components/resolvers'
@@ -10,6 +11,13 @@ const apiPort = process.env.PORT ?? '3000'
 export default defineConfig({
   plugins: [
     vue(),
+    // The catalogs are compiled to functions at build time; the bundle carries vue-i18n's runtime only.
+    VueI18nPlugin({
+      include: [fileURLToPath(new URL('./src/locales/**', import.meta.url))],
+      runtimeOnly: true,
+      compositionOnly: true,
+      strictMessage: false,
+    }),
     // Element Plus on demand; our own components, composables and stores are imported explicitly.
     Components({ dirs: [], resolvers: [ElementPlusResolver({ importStyle: 'css' })], dts: 'components.d.ts' }),
     // A .br and a .gz beside each text asset, made once at build time; the server picks one per request.
@@ -24,6 +32,7 @@ export default defineConfig({
       { find: /^leaflet$/, replacement: 'leaflet/dist/leaflet-src.esm.js' },
     ],
   },
+  define: { __INTLIFY_PROD_DEVTOOLS__: false },
   build: { outDir: 'dist/client', emptyOutDir: true, chunkSizeWarningLimit: 800 },
   server: { proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } } },
 })

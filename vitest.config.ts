@@ -1,4 +1,5 @@
 import { fileURLToPath } from 'node:url'
+import VueI18nPlugin from '@intlify/unplugin-vue-i18n/vite'
 import vue from '@vitejs/plugin-vue'
 import { defineConfig } from 'vitest/config'
 
@@ -13,7 +14,7 @@ export default defineConfig({
   test: {
     projects: [
       {
-        plugins: [vue()],
+        plugins: [vue(), VueI18nPlugin({ include: [fileURLToPath(new URL('./src/locales/**', import.meta.url))], compositionOnly: true, strictMessage: false })],
         resolve: { alias },
         test: {
           name: 'unit',

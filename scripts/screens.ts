@@ -4,6 +4,7 @@
 // A dialog: name the button that opens it after the path, `/users >> Add a staff member`; a further
 // `>> Add` presses that button inside the dialog (to see a refusal). In a path,
 // `{vehicle}` is the first vehicle on the board and `{held}` the first with a hold set.
+// SCREENS_LOCALE=es shows the pages as a browser set to Spanish sees them (file names end in -es).
 import { mkdirSync } from 'node:fs'
 import { chromium, devices, type Page } from '@playwright/test'
 import { boardSchema } from '@shared/schemas/board'
@@ -24,15 +25,16 @@ async function vehicles(page: Page) {
 
 mkdirSync('screenshots', { recursive: true })
 const browser = await chromium.launch(chromiumLaunch)
+const locale = process.env.SCREENS_LOCALE ?? 'en'
 const sizes = { desktop: { viewport: { width: 1440, height: 900 } }, phone: devices['Pixel 7'] }
 for (const [size, options] of Object.entries(sizes)) {
-  const context = await browser.newContext({ ...options, baseURL: base })
+  const context = await browser.newContext({ ...options, baseURL: base, locale })
   const page = await context.newPage()
   if (role !== 'anon') {
     await page.goto('/sign-in')
-    await page.getByLabel('E-mail').fill(DEMO[role as DemoRole])
-    await page.getByLabel('Password', { exact: true }).fill(DEMO.password)
-    await page.getByRole('button', { name: 'Sign in' }).click()
+    await page.locator('input[name="email"]').fill(DEMO[role as DemoRole])
+    await page.locator('input[name="password"]').fill(DEMO.password)
+    await page.locator('button[type="submit"]').click()
     await page.waitForURL(/\/board/)
   }
   const ids: Record<string, string> = role === 'anon' ? {} : await vehicles(page)
@@ -51,7 +53,7 @@ for (const [size, options] of Object.entries(sizes)) {
     }
     await page.waitForTimeout(300)
     const name = [p, button, ...inside].filter(Boolean).join('-').replace(/^\//, '').replace(/[^\w-]+/g, '_') || 'home'
-    const file = `screenshots/${name}-${role}-${size}.png`
+    const file = `screenshots/${name}-${role}-${size}${locale === 'en' ? '' : `-${locale}`}.png`
     // A dialog is shown as the screen shows it; a page whole, down to its foot.
     await page.screenshot({ path: file, fullPage: size === 'desktop' && !button })
     console.log(file)

@@ -3,6 +3,7 @@ import { createPinia } from 'pinia'
 import { createApp } from 'vue'
 import App from './App.vue'
 import { queryClient } from './api/query-client'
+import { i18n } from './i18n'
 import { router } from './router'
 import 'element-plus/theme-chalk/base.css'
 // The resolver styles only the components a template names; these are called from code (ElMessage,
@@ -13,6 +14,7 @@ import './assets/theme.css'
 
 createApp(App)
   .use(createPinia())
+  .use(i18n)
   .use(router)
   .use(VueQueryPlugin, { queryClient })
   .mount('#app')
