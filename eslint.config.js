@@ -93,7 +93,10 @@ export default tseslint.config(
     rules: { '@intlify/vue-i18n/no-missing-keys': 'error' },
   },
   {
-    files: ['src/App.vue', 'src/views/SignInView.vue', 'src/components/shell/ShellLocaleSwitch.vue'],
+    files: [
+      'src/App.vue', 'src/views/SignInView.vue', 'src/components/shell/ShellLocaleSwitch.vue',
+      'src/components/clocks/ClocksAlerts.vue', 'src/components/vehicles/VehiclesValueDialog.vue',
+    ],
     rules: { '@intlify/vue-i18n/no-raw-text': ['error', { ignorePattern: '^[-–—·•:/()#%+×.,\\s\\d]+$' }] },
   },
 )

@@ -91,8 +91,8 @@ async function loadDemo(db: Database, now: Date, ruleSetsFolder: string | undefi
       inspectedById: inspectedAt ? byRole.technician!.id : null,
       ruleSetVersionId: california ?? null,
       ownerName: v.owner,
-      estimatedValueCents: demoValueCents(v),
-      estimatedValueSource: 'Price guide',
+      estimatedValueCents: v.unvalued ? null : demoValueCents(v),
+      estimatedValueSource: v.unvalued ? null : 'Price guide',
       arrivedAt,
       closedAt: closed ? new Date(now.getTime() - (v.hoursAgo - 24 * 6) * HOUR) : null,
     }
@@ -136,7 +136,7 @@ async function loadDemo(db: Database, now: Date, ruleSetsFolder: string | undefi
   )
   const teardowns = sorted.map((v, i) => {
     const { inspectedAt, estimatedValueCents } = rows[i]!
-    return inspectedAt ? demoTeardown(v, vehicleIds[i]!, estimatedValueCents, yard!.labourRateCents, inspectedAt, byRole.technician!) : null
+    return inspectedAt && estimatedValueCents !== null ? demoTeardown(v, vehicleIds[i]!, estimatedValueCents, yard!.labourRateCents, inspectedAt, byRole.technician!) : null
   })
   await insertDemoTeardowns(db, teardowns)
   await db.insert(t.historyEvents).values(sorted.flatMap((v, i) => chainFromStart(vehicleIds[i]!, withTeardown(demoHistory(v, rows[i]!.arrivedAt, now, byRole), teardowns[i] ?? null))))
