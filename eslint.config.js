@@ -94,7 +94,7 @@ export default tseslint.config(
   },
   {
     files: [
-      'src/App.vue', 'src/views/SignInView.vue', 'src/components/shell/ShellLocaleSwitch.vue',
+      'src/App.vue', 'src/views/SignInView.vue', 'src/components/shell/ShellLocaleSwitch.vue', 'src/components/shell/ShellElementLocale.vue',
       'src/components/clocks/ClocksAlerts.vue', 'src/components/vehicles/VehiclesValueDialog.vue',
     ],
     rules: { '@intlify/vue-i18n/no-raw-text': ['error', { ignorePattern: '^[-–—·•:/()#%+×.,\\s\\d]+$' }] },

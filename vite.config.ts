@@ -33,6 +33,19 @@ export default defineConfig({
     ],
   },
   define: { __INTLIFY_PROD_DEVTOOLS__: false },
-  build: { outDir: 'dist/client', emptyOutDir: true, chunkSizeWarningLimit: 800 },
+  build: {
+    outDir: 'dist/client',
+    emptyOutDir: true,
+    chunkSizeWarningLimit: 800,
+    // One chunk of messages per language (src/i18n/index.ts loads it whole), not one per file; the
+    // sign-in page's own namespaces stay in the first download.
+    rolldownOptions: {
+      output: {
+        codeSplitting: {
+          groups: [{ name: (id: string) => /\/src\/locales\/([a-z]{2})\//.exec(id)?.[1]?.replace(/^/, 'messages-') ?? null, test: /\/src\/locales\/[a-z]{2}\/(?!common\.json|sign-in\.json)/ }],
+        },
+      },
+    },
+  },
   server: { proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } } },
 })

@@ -7,6 +7,7 @@ import path from 'node:path'
 import { existsSync } from 'node:fs'
 import type { ServerResponse } from 'node:http'
 import type { Database } from '@db/client'
+import type { HistoryKey } from '@db/history'
 import { enforceAccess } from './access'
 import { archiveRouter } from './archive/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
@@ -31,6 +32,8 @@ import { yardsRouter } from './yards/index'
 
 export interface AppDeps {
   db: Database
+  /** Seals every history event and head; kept outside the database (server/history-key.ts). */
+  historyKey: HistoryKey
   log: Logger
   sessionSecret: string
   version: string
@@ -60,7 +63,7 @@ export function createApp(deps: AppDeps): Express {
   const map = deps.map ?? LOCAL_MAP
   const hub = new BoardHub(db, deps.live ?? memoryBus(), log, { bucketMs: deps.boardBucketMs })
   // Everything that changes a vehicle gets the database and the boards to tell, from here only.
-  const changes: VehicleChanges = { db, boards: hub }
+  const changes: VehicleChanges = { db, boards: hub, historyKey: deps.historyKey }
   const app = express()
   app.disable('x-powered-by')
   if (deps.trustProxy) app.set('trust proxy', deps.trustProxy)

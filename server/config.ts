@@ -17,6 +17,8 @@ const envSchema = z.object({
   HOLDFAST_MIGRATIONS: z.string().min(1).default('db/migrations'),
   // The shipped sample rule sets (JSON), loaded with the demo or a company's first yard.
   HOLDFAST_RULE_SETS: z.string().min(1).default('server/rule-sets/samples'),
+  // The secret that seals the history (never in the database); made on first start when absent.
+  HOLDFAST_HISTORY_KEY_FILE: z.string().min(1).optional(),
   // The built client the server serves.
   HOLDFAST_CLIENT_DIR: z.string().min(1).default('dist/client'),
   HOLDFAST_DEMO: flag.default(true),
@@ -54,6 +56,8 @@ export interface Config {
   signInLimits: { perIp: number; perAccount: number; windowMs: number }
   clientDir: string
   filesDir: string
+  /** The history key's file: beside the data directory unless set (every server of one database needs the same file). */
+  historyKeyFile: string
   map: MapConfig
 }
 
@@ -90,6 +94,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     signInLimits: { perIp: e.HOLDFAST_SIGNIN_PER_IP, perAccount: e.HOLDFAST_SIGNIN_PER_ACCOUNT, windowMs: 15 * 60_000 },
     clientDir: path.resolve(e.HOLDFAST_CLIENT_DIR),
     filesDir: path.resolve(e.HOLDFAST_FILES_DIR ?? path.join(dataDir, 'files')),
+    historyKeyFile: path.resolve(e.HOLDFAST_HISTORY_KEY_FILE ?? `${dataDir}.history-key`),
     map: {
       tileUrl: e.HOLDFAST_TILE_URL ?? LOCAL_MAP.tileUrl,
       tileAttribution: e.HOLDFAST_TILE_ATTRIBUTION ?? (e.HOLDFAST_TILE_URL ? '' : LOCAL_MAP.tileAttribution),

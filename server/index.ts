@@ -1,12 +1,15 @@
 import { pino } from 'pino'
 import { openDatabase, DataDirLockedError, type DatabaseHandle } from '@db/client'
-import { loadDemoIfEmpty } from './demo/index'
+import { hasHistory, type HistoryKey } from '@db/history'
+import { demoSignIns, loadDemoIfEmpty } from './demo/index'
 import { createApp } from './app'
 import { localFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
 import { pruneExpiredSessions, pruneSignInFailures, sessionSecret } from './session/index'
+import { loadHistoryKey } from './history-key'
 import { logSerializers } from './logging'
+import { startupBanner } from './startup-banner'
 import { appVersion } from './version'
 
 const started = performance.now()
@@ -34,12 +37,21 @@ const opened = performance.now()
 await handle.migrate()
 const migrated = performance.now()
 const { db } = handle
-if (config.demo) {
-  const demo = await loadDemoIfEmpty(db, new Date(), config.ruleSetsFolder)
-  if (demo) {
-    log.info('Loaded the demo yard. Sign in with any of these (password: %s):', demo.password)
-    for (const u of demo.users) log.info('  %s  %s', u.role.padEnd(10), u.email)
-  }
+let historyKey: HistoryKey
+try {
+  historyKey = loadHistoryKey(config.historyKeyFile, await hasHistory(db))
+} catch (err) {
+  log.fatal((err as Error).message)
+  await handle.close()
+  process.exit(78)
+}
+const loadedDemo = config.demo ? await loadDemoIfEmpty(db, historyKey, new Date(), config.ruleSetsFolder) : null
+if (loadedDemo && !process.stdout.isTTY) log.info('Loaded the demo yard.')
+// A returning person at a terminal is shown the demo sign-ins each time; a log collector only on the first load.
+const demo = process.stdout.isTTY ? (loadedDemo ?? (config.demo ? await demoSignIns(db) : null)) : loadedDemo
+if (demo && !process.stdout.isTTY) {
+  log.info('Sign in with any of these (password: %s):', demo.password)
+  for (const u of demo.users) log.info('  %s  %s', u.role.padEnd(10), u.email)
 }
 
 // Several app servers on one PostgreSQL hear each other's board changes; one embedded database has one server.
@@ -47,6 +59,7 @@ const live = config.database.kind === 'postgres' ? await postgresBus(config.data
 
 const app = createApp({
   db,
+  historyKey,
   log,
   version: appVersion(),
   sessionSecret: await sessionSecret(db, config.sessionSecret),
@@ -62,7 +75,13 @@ const app = createApp({
 
 const server = app.listen(config.port, config.host, () => {
   const where = config.database.kind === 'postgres' ? 'PostgreSQL' : `embedded database in ${config.dataDir}`
-  log.info(`Holdfast is serving http://localhost:${config.port} (${where}), ready in ${Math.round(performance.now() - started)} ms`)
+  const url = `http://localhost:${config.port}`
+  const readyMs = performance.now() - started
+  if (process.stdout.isTTY) {
+    console.log(startupBanner({ url, database: where, filesDir: config.filesDir, historyKeyFile: config.historyKeyFile, demo, readyMs }))
+  } else {
+    log.info(`Holdfast is serving ${url} (${where}), ready in ${Math.round(readyMs)} ms`)
+  }
   log.debug(`start-up: modules and database open ${Math.round(opened - started)} ms, migrations ${Math.round(migrated - opened)} ms`)
 })
 

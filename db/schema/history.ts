@@ -27,3 +27,13 @@ export const historyEvents = pgTable(
   },
   (t) => [unique('history_vehicle_seq').on(t.vehicleId, t.seq), index('history_vehicle_at').on(t.vehicleId, t.at)],
 )
+
+// Each vehicle's last event, sealed with the history key (which never enters the database): deleting
+// the newest events, or a vehicle's whole history, leaves a head that no longer matches — and a head
+// cannot be rewritten to match without the key.
+export const historyHeads = pgTable('history_heads', {
+  vehicleId: uuid().primaryKey().references(() => vehicles.id),
+  seq: integer().notNull(),
+  hash: text().notNull(),
+  seal: text().notNull(),
+})

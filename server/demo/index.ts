@@ -1,1 +1,1 @@
-export { loadDemoIfEmpty } from './seed'
+export { demoSignIns, loadDemoIfEmpty, type DemoLoaded } from './seed'

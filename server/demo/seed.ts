@@ -1,4 +1,4 @@
-import { count, eq } from 'drizzle-orm'
+import { count, eq, inArray } from 'drizzle-orm'
 import { hashPassword } from '../users/index'
 import { loadSampleRuleSets } from '../rule-sets/index'
 import { BOARD_COLUMNS, type VehicleState } from '@shared/domain/lifecycle'
@@ -8,7 +8,7 @@ import type { Database } from '@db/client'
 import { demoTeardown, insertDemoTeardowns, withTeardown } from './inspections'
 import { DEMO_VEHICLES, type DemoVehicle } from './vehicles'
 import { DEMO_COMPANY, DEMO_DRIVERS, DEMO_PASSWORD, DEMO_SPACES, DEMO_STAFF, DEMO_YARD } from './scenario'
-import { chainFromStart, type NewHistoryEvent } from '@db/history'
+import { chainFromStart, type HistoryKey, type NewHistoryEvent } from '@db/history'
 import * as t from '@db/schema'
 
 const HOUR = 3_600_000
@@ -19,14 +19,22 @@ export interface DemoLoaded {
 }
 
 /** Loads the demo yard when the database has no yard yet; returns null when it already has one. */
-export async function loadDemoIfEmpty(db: Database, now = new Date(), ruleSetsFolder?: string): Promise<DemoLoaded | null> {
+/** The demo sign-ins while the demo's staff still sign in with the demo password's accounts; none for a real yard. */
+export async function demoSignIns(db: Database): Promise<DemoLoaded | null> {
+  const rows = await db.select({ email: t.users.email }).from(t.users).where(inArray(t.users.email, DEMO_STAFF.map((s) => s.email)))
+  const present = DEMO_STAFF.filter((s) => rows.some((r) => r.email === s.email))
+  return present.length > 0 ? { password: DEMO_PASSWORD, users: present.map(({ email, role }) => ({ email, role })) } : null
+}
+
+/** The demo yard, when the database has no yard yet; its history is sealed with the server's history key. */
+export async function loadDemoIfEmpty(db: Database, historyKey: HistoryKey, now = new Date(), ruleSetsFolder?: string): Promise<DemoLoaded | null> {
   const [row] = await db.select({ n: count() }).from(t.yards)
   if ((row?.n ?? 0) > 0) return null
-  await db.transaction((tx) => loadDemo(tx as unknown as Database, now, ruleSetsFolder))
+  await db.transaction((tx) => loadDemo(tx as unknown as Database, historyKey, now, ruleSetsFolder))
   return { password: DEMO_PASSWORD, users: DEMO_STAFF.map(({ email, role }) => ({ email, role })) }
 }
 
-async function loadDemo(db: Database, now: Date, ruleSetsFolder: string | undefined): Promise<void> {
+async function loadDemo(db: Database, historyKey: HistoryKey, now: Date, ruleSetsFolder: string | undefined): Promise<void> {
   const [company] = await db.insert(t.companies).values(DEMO_COMPANY).returning()
   const ruleSetVersions = await loadSampleRuleSets(db, ruleSetsFolder)
   const california = ruleSetVersions.get('california-sample')
@@ -139,7 +147,9 @@ async function loadDemo(db: Database, now: Date, ruleSetsFolder: string | undefi
     return inspectedAt && estimatedValueCents !== null ? demoTeardown(v, vehicleIds[i]!, estimatedValueCents, yard!.labourRateCents, inspectedAt, byRole.technician!) : null
   })
   await insertDemoTeardowns(db, teardowns)
-  await db.insert(t.historyEvents).values(sorted.flatMap((v, i) => chainFromStart(vehicleIds[i]!, withTeardown(demoHistory(v, rows[i]!.arrivedAt, now, byRole), teardowns[i] ?? null))))
+  const chains = sorted.map((v, i) => chainFromStart(historyKey, vehicleIds[i]!, withTeardown(demoHistory(v, rows[i]!.arrivedAt, now, byRole), teardowns[i] ?? null)))
+  await db.insert(t.historyEvents).values(chains.flatMap((c) => c.rows))
+  await db.insert(t.historyHeads).values(chains.flatMap((c) => (c.head ? [c.head] : [])))
   await db.insert(t.stockCounters).values([...sequences].map(([year, last]) => ({ yardId: yard!.id, year, last })))
 }
 

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
 import type { Database, Tx } from '@db/client'
-import { appendHistory, type NewHistoryEvent } from '@db/history'
+import { appendHistory, type HistoryKey, type NewHistoryEvent } from '@db/history'
 import { vehicles } from '@db/schema'
 import type { BoardCard } from '@shared/schemas/board'
 import type { HistoryKind } from '@shared/schemas/history'
@@ -13,6 +13,8 @@ import { vehicleForUser, type VehicleRow, type YardRow } from './vehicles.querie
 export interface VehicleChanges {
   db: Database
   boards: BoardNotifier
+  /** Seals each history event and the vehicle's head (db/history.ts). */
+  historyKey: HistoryKey
 }
 
 /** One event of a change for the vehicle's history; who made it comes from the change. */
@@ -91,7 +93,7 @@ export async function changeVehicle<T>(
     }
     // The row is locked, so the version read above is still the row's.
     await tx.update(vehicles).set({ ...columns, version: vehicle.version + 1, updatedAt: new Date() }).where(eq(vehicles.id, vehicleId))
-    await appendAll(tx, vehicleId, actor, events)
+    await appendAll(tx, changes.historyKey, vehicleId, actor, events)
     return { result, yard, version: vehicle.version + 1, cause: events[0]!.kind }
   })
   if (!done.cause) return { result: done.result, version: done.version, changed: false }
@@ -115,7 +117,7 @@ export async function createVehicle<T>(
     const { events, record } = collector()
     const result = await work({ tx, vehicleId, actor, record })
     if (events.length === 0) throw new Error('A new vehicle starts its history with how it came in.')
-    await appendAll(tx, vehicleId, actor, events)
+    await appendAll(tx, changes.historyKey, vehicleId, actor, events)
     return { result, cause: events[0]!.kind }
   })
   await tellBoards(changes, { yard, vehicleId, cause: done.cause })
@@ -123,8 +125,8 @@ export async function createVehicle<T>(
 }
 
 // The vehicle row is held (locked, or new and seen by no other transaction): no second lock per event.
-async function appendAll(tx: Tx, vehicleId: string, actor: User, events: HistoryEntry[]) {
-  for (const e of events) await appendHistory(tx, { ...e, vehicleId, actorId: actor.id, actorLabel: actor.name }, { vehicleLocked: true })
+async function appendAll(tx: Tx, key: HistoryKey, vehicleId: string, actor: User, events: HistoryEntry[]) {
+  for (const e of events) await appendHistory(tx, key, { ...e, vehicleId, actorId: actor.id, actorLabel: actor.name }, { vehicleLocked: true })
 }
 
 async function tellBoards(

@@ -1,5 +1,5 @@
 import { Router, type Request } from 'express'
-import { historyOf, verifyChain } from '@db/history'
+import { verifyVehicleHistory } from '@db/history'
 import { searchQuerySchema } from '@shared/schemas/search'
 import { correctVehicleSchema, towInSchema } from '@shared/schemas/tow-in'
 import { vehicleParamsSchema, vehicleValueSchema } from '@shared/schemas/vehicles'
@@ -57,11 +57,12 @@ export function vehiclesRouter(changes: VehicleChanges, store: FileStore): Route
     await vehicleForUser(db, req.user!.id, vehicleId)
     res.json({ events: await historyEvents(db, vehicleId) })
   })
-  // Recomputes every link of the chain: a row edited or removed behind the app's back shows here.
+  // Recomputes every keyed link, the sealed head and the state: a row edited, added or removed behind
+  // the app's back — even by the database's own administrator — shows here, in words.
   router.get('/:vehicleId/history/verify', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
     await vehicleForUser(db, req.user!.id, vehicleId)
-    res.json(verifyChain(await historyOf(db, vehicleId)))
+    res.json(await verifyVehicleHistory(db, changes.historyKey, vehicleId))
   })
   return router
 }

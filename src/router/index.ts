@@ -1,6 +1,7 @@
 import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
 import type { Permission } from '@shared/domain/access'
 import { prefetchBoard } from '@/api/board'
+import { useLocaleStore } from '@/stores/locale'
 import { useSessionStore } from '@/stores/session'
 
 declare module 'vue-router' {
@@ -50,6 +51,8 @@ router.beforeEach(async (to) => {
     for (const record of to.matched) void loadComponent(record.components?.default)
     await session.load()
   }
+  // Every page but sign-in needs the whole catalog of the chosen language.
+  if (to.name !== 'sign-in') await useLocaleStore().ready()
   if (to.name === 'sign-in' && session.signedIn) return { path: typeof to.query.next === 'string' ? to.query.next : '/board' }
   if (to.meta.public) return true
   if (!session.signedIn) return { name: 'sign-in', query: { next: to.fullPath } }

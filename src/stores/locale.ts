@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 import { computed, ref, watch } from 'vue'
-import { i18n } from '@/i18n'
+import { i18n, loadMessages } from '@/i18n'
 import { browserLocale, isLocale, type Locale } from '@/i18n/locales'
 
 const STORAGE_KEY = 'holdfast.locale'
@@ -20,8 +20,18 @@ function remembered(): Locale | null {
  */
 export const useLocaleStore = defineStore('locale', () => {
   const locale = ref<Locale>(remembered() ?? browserLocale())
+  /** Whether every screen's messages (not only the sign-in page's) are wanted in this language yet. */
+  let everything = false
 
-  function choose(next: Locale) {
+  /** Fetches every screen's messages in the chosen language; the router awaits it before a page. */
+  function ready(): Promise<void> {
+    everything = true
+    return loadMessages(locale.value)
+  }
+
+  async function choose(next: Locale) {
+    // The new language's messages arrive before the screen switches, so nothing shows as a key.
+    if (everything) await loadMessages(next)
     locale.value = next
     try {
       localStorage.setItem(STORAGE_KEY, next)
@@ -39,5 +49,5 @@ export const useLocaleStore = defineStore('locale', () => {
     { immediate: true },
   )
 
-  return { locale: computed(() => locale.value), choose }
+  return { locale: computed(() => locale.value), choose, ready }
 })

@@ -4,13 +4,13 @@ import { historyOf, verifyChain } from '@db/history'
 import * as t from '@db/schema'
 import { DEMO_PASSWORD } from '../../server/demo/scenario'
 import { loadDemoIfEmpty } from '../../server/demo/seed'
-import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
+import { makeTestApp, signedIn, type BrowserSession, type TestApp, TEST_HISTORY_KEY } from '../helpers/app'
 
 let app: TestApp
 let tech: BrowserSession
 beforeAll(async () => {
   app = await makeTestApp()
-  await loadDemoIfEmpty(app.db)
+  await loadDemoIfEmpty(app.db, TEST_HISTORY_KEY)
   tech = await signedIn(app.app, { email: 'sunny@tamsincreek.example', password: DEMO_PASSWORD })
 })
 afterAll(() => app.close())
@@ -41,7 +41,7 @@ describe('the demo yard’s finished teardowns', () => {
   it('demo teardowns sit in each chain of custody between the move to Teardown and the move on', async () => {
     const v = await demoVehicle('Brio')
     const events = await historyOf(app.db, v.id)
-    expect(verifyChain(events).ok).toBe(true)
+    expect(verifyChain(TEST_HISTORY_KEY, events).ok).toBe(true)
     const kinds = events.map((e) => `${e.kind}${e.toState ? `:${e.toState}` : ''}`)
     const [teardown, started, finished, decision] = ['moved:teardown', 'inspection_started', 'inspection_finished', 'moved:decision'].map((k) => kinds.indexOf(k))
     expect(teardown).toBeLessThan(started!)

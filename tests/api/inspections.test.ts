@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { historyOf, verifyChain } from '@db/history'
 import * as t from '@db/schema'
-import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { makeTestApp, signedIn, type TestApp, TEST_HISTORY_KEY } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
 import { acknowledged, historyKinds, inspectionCounts, line, put, teardownFixture } from '../helpers/inspection'
 import { photo } from '../helpers/tow-in'
@@ -81,7 +81,7 @@ describe('inspection lifecycle', () => {
       'inspection_finished',
     ])
     const events = await historyOf(app.db, f.vehicle.id)
-    expect(verifyChain(events).ok).toBe(true)
+    expect(verifyChain(TEST_HISTORY_KEY, events).ok).toBe(true)
     expect(events.at(-1)!.after).toMatchObject({ broken: ['ball-joints', 'drive-shafts'], pickupNeeds: 'Flatbed or dollies' })
     expect(events.find((e) => e.kind === 'roll_ability_marked')!.before).toEqual({ rolls: null, steers: null, brakes: null })
 

@@ -8,6 +8,7 @@ import { openDatabase, type DatabaseHandle } from '@db/client'
 import { createApp } from '../../server/app'
 import { localFileStore } from '../../server/files/index'
 import { postgresBus, type LiveBus } from '../../server/live/index'
+import { TEST_HISTORY_KEY } from '../helpers/app'
 import { historyCount, vehicleRow } from '../helpers/board'
 import { makeStaff, makeVehicle } from '../helpers/factories'
 import { fetchSession, listening, openStream } from '../helpers/live'
@@ -33,6 +34,7 @@ beforeAll(async () => {
     const live = await postgresBus(url, log)
     buses.push(live)
     const app = createApp({
+      historyKey: TEST_HISTORY_KEY,
       db: handle.db, log, live, files: localFileStore(path.join(tmpdir(), `holdfast-files-${database}`)),
       sessionSecret: 'test-secret-that-is-long-enough-for-signing', version: 'test',
       signInLimits: { perAccount: 1000, perIp: 1000, windowMs: 60_000 },

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { historyEvents } from '@db/schema'
 import { appendHistory } from '@db/history'
-import { makePostgresTestApp, signedIn } from '../helpers/app'
+import { makePostgresTestApp, signedIn, TEST_HISTORY_KEY } from '../helpers/app'
 import { makeStaff, makeVehicle } from '../helpers/factories'
 
 let t: Awaited<ReturnType<typeof makePostgresTestApp>>
@@ -31,7 +31,7 @@ describe('on real PostgreSQL 15', () => {
   it('history stays append-only: the trigger refuses UPDATE and DELETE', async () => {
     const { yard, manager } = await makeStaff(t.db)
     const v = await makeVehicle(t.db, yard.id)
-    await t.db.transaction((tx) => appendHistory(tx, { vehicleId: v.id, actorId: manager.id, actorLabel: manager.name, kind: 'towed_in' }))
+    await t.db.transaction((tx) => appendHistory(tx, TEST_HISTORY_KEY, { vehicleId: v.id, actorId: manager.id, actorLabel: manager.name, kind: 'towed_in' }))
     expect(await refusal(t.db.update(historyEvents).set({ reason: 'rewritten' }))).toMatch(/append-only: UPDATE refused/)
     expect(await refusal(t.db.delete(historyEvents))).toMatch(/append-only: DELETE refused/)
   })
@@ -41,7 +41,7 @@ describe('on real PostgreSQL 15', () => {
     const v = await makeVehicle(t.db, yard.id)
     await Promise.all(
       Array.from({ length: 20 }, (_, i) =>
-        t.db.transaction((tx) => appendHistory(tx, { vehicleId: v.id, actorId: manager.id, actorLabel: manager.name, kind: 'corrected', reason: `note ${i}` })),
+        t.db.transaction((tx) => appendHistory(tx, TEST_HISTORY_KEY, { vehicleId: v.id, actorId: manager.id, actorLabel: manager.name, kind: 'corrected', reason: `note ${i}` })),
       ),
     )
     const rows = await t.db.select().from(historyEvents)

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { signInFailures } from '@db/schema'
 import { createApp } from '../../server/app'
 import { localFileStore } from '../../server/files/index'
-import { makeTestApp, type TestApp } from '../helpers/app'
+import { makeTestApp, type TestApp, TEST_HISTORY_KEY } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
 
 // OWASP ASVS 5.0 V6.3.1 and V6.1.1: brute force is slowed without handing attackers a lockout; the
@@ -135,6 +135,7 @@ describe('sign-in throttling without a lockout', () => {
     await fail(await browserAt(ip), staff.office.email, 5)
     expect(await t.db.$count(signInFailures)).toBeGreaterThan(0)
     const other = createApp({
+      historyKey: TEST_HISTORY_KEY,
       db: t.db,
       log: pino({ level: 'silent' }),
       sessionSecret: 'test-secret-that-is-long-enough-for-signing',

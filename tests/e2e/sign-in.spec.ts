@@ -44,6 +44,8 @@ test('a dispatcher who types the staff address is sent back to the board', async
 })
 
 test('a manager adds a staff member who can then sign in', async ({ page, browser }) => {
+  // Two sign-ins and a new account (three password hashes) in one test: past 30 s on a busy machine.
+  test.slow()
   await signInAs(page, 'manager')
   await page.getByRole('link', { name: 'Staff' }).click()
   await page.getByRole('button', { name: 'Add a staff member' }).click()

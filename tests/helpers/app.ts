@@ -1,4 +1,4 @@
-import { randomUUID } from 'node:crypto'
+import { randomBytes, randomUUID } from 'node:crypto'
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
@@ -12,6 +12,9 @@ import { localFileStore } from '../../server/files/index'
 
 let template: Buffer | undefined
 
+/** The history key of every app a test file makes: two apps on one database must share it, as servers do. */
+export const TEST_HISTORY_KEY = randomBytes(32)
+
 /** A fresh, migrated in-memory database, a files folder of its own, and an app on them; no port is opened. */
 export async function makeTestApp(overrides: Partial<AppDeps> = {}) {
   template ??= readFileSync(inject('templateDataDir'))
@@ -24,6 +27,7 @@ function appOn(handle: DatabaseHandle, overrides: Partial<AppDeps>, afterClose =
   const app = createApp({
     files: localFileStore(filesDir),
     db: handle.db,
+    historyKey: TEST_HISTORY_KEY,
     log: pino({ level: process.env.TEST_LOG ?? 'silent' }),
     sessionSecret: 'test-secret-that-is-long-enough-for-signing',
     version: 'test',

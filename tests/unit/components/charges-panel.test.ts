@@ -1,14 +1,16 @@
 // @vitest-environment happy-dom
 import { mount } from '@vue/test-utils'
 import { ElButton } from 'element-plus'
-import { afterEach, describe, expect, it } from 'vitest'
+import { afterEach, beforeAll, describe, expect, it } from 'vitest'
 import type { VehicleSummary } from '@shared/schemas/charges'
-import { i18n } from '@/i18n'
+import { i18n, loadMessages } from '@/i18n'
 import VehiclesChargesPanel from '../../../src/components/vehicles/VehiclesChargesPanel.vue'
 
 const ruleSet = { name: 'California (sample)', version: 1, caution: 'Sample — verify with your local code.' }
 const noValue = { value: { cents: null, source: null }, canRecordValue: false }
 const global = { plugins: [i18n], components: { ElButton } }
+// Catalogs past the sign-in page arrive in one chunk per language, as after signing in.
+beforeAll(() => Promise.all([loadMessages('en'), loadMessages('es')]))
 afterEach(() => {
   i18n.global.locale.value = 'en'
 })

@@ -1,7 +1,7 @@
 import { readdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
-import { LOCALES } from '@/i18n/locales'
+import { LOCALES, type Locale } from '@/i18n/locales'
 
 // Every key in one language exists in the other, every file holds exactly its own namespace, and no
 // message is blank: a missing Spanish string is a failed test, never an English word on a Spanish screen.
@@ -21,7 +21,7 @@ function messages(locale: string) {
   )
 }
 
-const catalogs = Object.fromEntries(LOCALES.map((l) => [l, messages(l)]))
+const catalogs = Object.fromEntries(LOCALES.map((l) => [l, messages(l)])) as Record<Locale, Record<string, Record<string, unknown>>>
 const camel = (file: string) => file.replace(/\.json$/, '').replace(/-(\w)/g, (_, c: string) => c.toUpperCase())
 
 describe('message catalogs', () => {
