@@ -1,9 +1,10 @@
 import { describe, expect, it } from 'vitest'
 import californiaJson from '../../server/rule-sets/samples/california.json' with { type: 'json' }
 import floridaJson from '../../server/rule-sets/samples/florida.json' with { type: 'json' }
+import templateJson from '../../server/rule-sets/samples/ordinance-24h.json' with { type: 'json' }
 import { ruleSetCalendars } from '../../server/holidays/index'
 import { usFederalCalendar } from '../helpers/us-federal-holidays'
-import { type ClockEvent, legalClocks } from '@shared/domain/clocks'
+import { type ClockEvent, legalClocks, lienSaleGate } from '@shared/domain/clocks'
 import { ruleSetSchema } from '@shared/schemas/rule-sets'
 
 const california = ruleSetSchema.parse(californiaJson)
@@ -93,5 +94,29 @@ describe('California Civil Code 3071 and 3072 timelines by value [V]', () => {
     expect(closes?.explanation).toContain('2026-05-17 is a Sunday, when post offices are closed')
     expect(closes?.rules?.[0]?.source.confidence).toBe('M')
     expect(due(clocks, 'notice-window-opens')?.dueDate).toBe('2026-05-07') // an earliest date never moves
+  })
+})
+
+describe('The ordinance template (placeholder periods, US federal holidays of 5 U.S.C. 6103 [V])', () => {
+  const template = ruleSetSchema.parse(templateJson)
+
+  it('legalClocks_templateOwnerNotice_isTenBusinessDaysSkippingThanksgiving', () => {
+    // Stored Tue 24 Nov 2026 in Chicago: Wed 25, (Thu 26 Thanksgiving), Fri 27, Mon 30, Tue 1 … Fri 4, Mon 7,
+    // Tue 8, Wed 9 Dec → the 10th business day is Wed 9 Dec 2026 [C].
+    const clocks = legalClocks({}, [{ kind: 'stored', at: '2026-11-24T10:00:00-06:00' }], template, ruleSetCalendars(template), '2026-11-25T12:00:00Z')
+    const notice = due(clocks, 'owner-notice')
+    expect(notice).toMatchObject({ dueDate: '2026-12-09', weekendDaysSkipped: 4 })
+    expect(notice?.holidaysSkipped.map((h) => h.date)).toEqual(['2026-11-26'])
+  })
+
+  it('lienSaleGate_templateDisposal_opensThirtyDaysAfterTheNotice', () => {
+    // Notice mailed Tue 1 Dec 2026 + 30 calendar days = Thu 31 Dec 2026 [C].
+    const events: ClockEvent[] = [
+      { kind: 'stored', at: '2026-11-24T10:00:00-06:00' },
+      { kind: 'owner-notice-mailed', at: '2026-12-01T10:00:00-06:00' },
+    ]
+    const gateOn = (asOf: string) => lienSaleGate(legalClocks({}, events, template, ruleSetCalendars(template), asOf).deadlines)
+    expect(gateOn('2026-12-30T12:00:00-06:00')).toMatchObject({ open: false, date: '2026-12-31' })
+    expect(gateOn('2026-12-31T12:00:00-06:00')).toMatchObject({ open: true, date: '2026-12-31' })
   })
 })
