@@ -93,7 +93,11 @@ export default tseslint.config(
     rules: { '@intlify/vue-i18n/no-missing-keys': 'error' },
   },
   {
-    files: ['src/App.vue', 'src/views/SignInView.vue', 'src/views/OutboxView.vue', 'src/components/shell/ShellLocaleSwitch.vue', 'src/components/shell/ShellElementLocale.vue', 'src/views/Owner*.vue', 'src/components/owner/*.vue', 'src/components/board/BoardOwnerBadge.vue'],
+    files: [
+      'src/App.vue', 'src/views/SignInView.vue', 'src/views/OutboxView.vue', 'src/components/shell/ShellLocaleSwitch.vue', 'src/components/shell/ShellElementLocale.vue',
+      'src/views/Owner*.vue', 'src/components/owner/*.vue', 'src/components/board/BoardOwnerBadge.vue',
+      'src/components/clocks/ClocksAlerts.vue', 'src/components/vehicles/VehiclesValueDialog.vue',
+    ],
     rules: { '@intlify/vue-i18n/no-raw-text': ['error', { ignorePattern: '^[-–—·•:/()#%+×.,\\s\\d]+$' }] },
   },
 )

@@ -40,6 +40,8 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles': 'towin.write',
   'GET /api/vehicles/:vehicleId': 'board.view',
   'PATCH /api/vehicles/:vehicleId': 'towin.write',
+  // The value picks the lien clocks' branch: the office, which sends the notices, records it.
+  'PUT /api/vehicles/:vehicleId/value': 'owner.write',
   'GET /api/vehicles/:vehicleId/history': 'board.view',
   'GET /api/vehicles/:vehicleId/history/verify': 'board.view',
   'GET /api/vehicles/:vehicleId/inspection': 'board.view',

@@ -42,10 +42,12 @@ export const vehicles = pgTable(
     checkedById: uuid().references(() => users.id),
     ruleSetVersionId: uuid(),
     ownerName: text(),
+    // The value the lien clocks branch on, and where it came from (a price guide, an appraisal, the inspection).
     estimatedValueCents: integer(),
     // The owner's latest choice on their page (owner_decisions holds each one in full): the board's badge.
     ownerChoice: text({ enum: OWNER_CHOICES }),
     ownerChoiceAt: at(),
+    estimatedValueSource: text(),
     arrivedAt: at().notNull(),
     closedAt: at(),
     createdAt: createdAt(),

@@ -4,7 +4,7 @@ import { tows } from '@db/schema'
 import type { VehicleSummary } from '@shared/schemas/charges'
 import type { RuleSet } from '@shared/schemas/rule-sets'
 import { DomainError } from '@shared/domain/errors'
-import { holidayCalendar } from '../holidays/index'
+import { ruleSetCalendars } from '../holidays/index'
 import { latestVersionOf, versionsById } from '../rule-sets/index'
 import { summarizeVehicle } from './vehicle-summary'
 
@@ -64,7 +64,7 @@ export async function summarizeVehicles(
       clockEvents: [],
     }
     try {
-      out.set(v.id, summarizeVehicle(input, ruleSet, holidayCalendar(ruleSet.holidayCalendar), asOf, yard.timeZone))
+      out.set(v.id, summarizeVehicle(input, ruleSet, ruleSetCalendars(ruleSet), asOf, yard.timeZone))
     } catch (err) {
       if (!(err instanceof DomainError)) throw err
       out.set(v.id, null)

@@ -1,5 +1,5 @@
 import { dayFromIsoDate, type HolidayCalendar, localDay } from '@shared/domain/time'
-import { type ClockEvent, type Deadline, legalClocks, lienSaleGate } from '@shared/domain/clocks'
+import { type ClockCalendars, type ClockEvent, type Deadline, legalClocks, lienSaleGate } from '@shared/domain/clocks'
 import { storageBill } from '@shared/domain/billing'
 import type { NextDeadline, VehicleSummary } from '@shared/schemas/charges'
 import type { RuleSet } from '@shared/schemas/rule-sets'
@@ -19,7 +19,7 @@ export interface SummaryInput {
 const URGENCY: Partial<Record<Deadline['status'], number>> = { missed: 0, upcoming: 1 }
 
 /** The running bill and the next legal date of one vehicle, as of an instant, in the yard's zone. */
-export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays: HolidayCalendar, asOf: Date, timeZone: string): VehicleSummary {
+export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays: HolidayCalendar | ClockCalendars, asOf: Date, timeZone: string): VehicleSummary {
   const at = asOf.getTime() < input.arrivedAt.getTime() ? input.arrivedAt : asOf
   const bill = storageBill(
     { arrivedAt: input.arrivedAt.toISOString(), releasedAt: input.closedAt?.toISOString() ?? null, vehicleClass: input.vehicleClass },
@@ -40,7 +40,8 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
     towCents: input.towCents,
     balanceCents: bill.totalCents + input.towCents,
     nextDeadline: open[0] ? toNext(open[0], today) : null,
-    lienSale: lienSaleGate(clocks.deadlines),
+    lienSale: lienSaleGate(clocks.deadlines, clocks.alerts),
+    clockAlerts: clocks.alerts,
     warnings: bill.warnings,
   }
 }

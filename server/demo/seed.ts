@@ -99,7 +99,8 @@ async function loadDemo(db: Database, historyKey: HistoryKey, now: Date, ruleSet
       inspectedById: inspectedAt ? byRole.technician!.id : null,
       ruleSetVersionId: california ?? null,
       ownerName: v.owner,
-      estimatedValueCents: demoValueCents(v),
+      estimatedValueCents: v.unvalued ? null : demoValueCents(v),
+      estimatedValueSource: v.unvalued ? null : 'Price guide',
       arrivedAt,
       closedAt: closed ? new Date(now.getTime() - (v.hoursAgo - 24 * 6) * HOUR) : null,
     }
@@ -143,7 +144,7 @@ async function loadDemo(db: Database, historyKey: HistoryKey, now: Date, ruleSet
   )
   const teardowns = sorted.map((v, i) => {
     const { inspectedAt, estimatedValueCents } = rows[i]!
-    return inspectedAt ? demoTeardown(v, vehicleIds[i]!, estimatedValueCents, yard!.labourRateCents, inspectedAt, byRole.technician!) : null
+    return inspectedAt && estimatedValueCents !== null ? demoTeardown(v, vehicleIds[i]!, estimatedValueCents, yard!.labourRateCents, inspectedAt, byRole.technician!) : null
   })
   await insertDemoTeardowns(db, teardowns)
   const chains = sorted.map((v, i) => chainFromStart(historyKey, vehicleIds[i]!, withTeardown(demoHistory(v, rows[i]!.arrivedAt, now, byRole), teardowns[i] ?? null)))

@@ -28,6 +28,8 @@ export interface DemoVehicle {
   hold?: { kind: 'law_enforcement' | 'lien' | 'dispute'; agency?: string; caseNumber?: string; daysLeft?: number; note?: string }
   disposition?: 'returned_to_owner' | 'released_to_third_party' | 'title_transferred' | 'lien_sale' | 'scrapped'
   notes?: string
+  /** Nobody has valued it yet: its value-dependent lien clocks show "needs the value". */
+  unvalued?: true
 }
 
 const MARLOW = { address: 'Marlow Blvd & Kettle Ave, Orrin Flats', lat: 36.4231, lng: -119.3377 }
@@ -37,7 +39,7 @@ const OFPD = 'Orrin Flats Police Department'
 export const DEMO_VEHICLES: DemoVehicle[] = [
   // Arrival — came in this week, not yet looked at.
   { state: 'arrival', hoursAgo: 3, make: 'Orlan', model: 'Sparrow', year: 2014, colour: 'Silver', body: 'Sedan', vehicleClass: 'standard', wmi: '2ZA', vds: 'BURHE', plate: '7KQM214', reason: 'breakdown', pickup: { address: '1120 Old Mill Rd, Orrin Flats', lat: 36.4302, lng: -119.3711 }, requester: 'Owner by phone', owner: 'Marisol Vantongeren', keys: 'yes', odometer: 168_402 },
-  { state: 'arrival', hoursAgo: 6, make: 'Halvard', model: 'Ridgeback 15', year: 2011, colour: 'Blue', body: 'Pickup', vehicleClass: 'standard', wmi: '2YC', vds: 'FW1EF', plate: '8TRC551', reason: 'private_property', pickup: SUNRIDGE, requester: 'Sunridge Plaza management', owner: null, keys: 'no', odometer: null, notes: 'Parked across the fire lane; tow authorised by the property manager.' },
+  { state: 'arrival', hoursAgo: 6, make: 'Halvard', model: 'Ridgeback 15', year: 2011, colour: 'Blue', body: 'Pickup', vehicleClass: 'standard', wmi: '2YC', vds: 'FW1EF', plate: '8TRC551', reason: 'private_property', pickup: SUNRIDGE, requester: 'Sunridge Plaza management', owner: null, keys: 'no', odometer: null, notes: 'Parked across the fire lane; tow authorised by the property manager.', unvalued: true },
   { state: 'arrival', hoursAgo: 9, make: 'Kestra', model: 'Pip', year: 2009, colour: 'Black', body: 'Coupe', vehicleClass: 'standard', wmi: '2UA', vds: 'FG128', plate: '6WPL903', reason: 'law_enforcement', pickup: { address: '45 Cinder Ln, Orrin Flats', lat: 36.4109, lng: -119.3455 }, requester: 'Officer T. Brandvold', agency: OFPD, reference: 'OF-26-11873', owner: 'Colby Ferreira', keys: 'yes', odometer: 201_377, hold: { kind: 'law_enforcement', agency: OFPD, caseNumber: 'OF-26-11873', daysLeft: 9 } },
   { state: 'arrival', hoursAgo: 20, make: 'Veyland', model: 'Solace', year: 2017, colour: 'White', body: 'Sedan', vehicleClass: 'standard', wmi: '3ZA', vds: 'AL3AP', plate: '8BNX117', reason: 'accident', pickup: MARLOW, requester: 'Tule County Sheriff dispatch', agency: 'Tule County Sheriff', reference: 'TCS-0412', owner: 'Annika Drozdova', keys: 'yes', odometer: 88_210, notes: 'Front-end damage, airbags deployed.' },
   { state: 'arrival', hoursAgo: 22, make: 'Brisk', model: 'Tundrel', year: 2012, colour: 'Green', body: 'Wagon', vehicleClass: 'standard', wmi: '3YA', vds: 'BRCAC', plate: '6ZZD480', reason: 'accident', pickup: MARLOW, requester: 'Tule County Sheriff dispatch', agency: 'Tule County Sheriff', reference: 'TCS-0412', owner: 'Percival Okonkwo-Hart', keys: 'yes', odometer: 143_950 },

@@ -1,6 +1,8 @@
 import { createRequire } from 'node:module'
 import type HolidaysType from 'date-holidays'
-import { civilFromDay, type DatedHoliday, type Holiday, type HolidayCalendar, holidayCalendarFromList } from '@shared/domain/time'
+import { civilFromDay, closedByEvery, type DatedHoliday, type Holiday, type HolidayCalendar, holidayCalendarFromList } from '@shared/domain/time'
+import type { ClockCalendars } from '@shared/domain/clocks'
+import type { RuleSet } from '@shared/schemas/rule-sets'
 
 export interface CalendarKey {
   country: string
@@ -26,6 +28,27 @@ export function holidayCalendar(key: CalendarKey): HolidayCalendar {
     calendars.set(id, calendar)
   }
   return calendar
+}
+
+const byRuleSet = new WeakMap<RuleSet, ClockCalendars>()
+
+/**
+ * The calendars a rule set's clocks count with: its business days skip only the holidays every
+ * calendar it names closes (its own holiday calendar when it names none), and its mailing deadlines
+ * move off the days post offices are closed when it says so.
+ */
+export function ruleSetCalendars(ruleSet: RuleSet): ClockCalendars {
+  let found = byRuleSet.get(ruleSet)
+  if (!found) {
+    const { businessDays, mailDeadlines } = ruleSet
+    found = {
+      closed: businessDays ? closedByEvery(businessDays.calendars.map(holidayCalendar)) : holidayCalendar(ruleSet.holidayCalendar),
+      postOffice: mailDeadlines ? { holidays: holidayCalendar(mailDeadlines.postOfficeCalendar), closedWeekdays: mailDeadlines.closedWeekdays } : null,
+      ofRuleSet: true,
+    }
+    byRuleSet.set(ruleSet, found)
+  }
+  return found
 }
 
 const SUBSTITUTE = / \(substitute day\)$/

@@ -1,1 +1,1 @@
-export { holidayCalendar } from './holiday-calendar'
+export { holidayCalendar, ruleSetCalendars } from './holiday-calendar'

@@ -78,7 +78,7 @@ export async function setValues(changes: VehicleChanges, actor: User, vehicleId:
       .update(inspections)
       .set({ ...input, valuesEnteredById: actor.id, valuesEnteredAt: at })
       .where(eq(inspections.id, inspection.id))
-    set({ estimatedValueCents: input.actualCashValueCents })
+    set({ estimatedValueCents: input.actualCashValueCents, estimatedValueSource: `The inspection: ${input.actualCashValueSource}` })
     const { actualCashValueCents, actualCashValueSource, salvageValueCents, salvageValueSource } = inspection
     record({
       kind: 'vehicle_values_entered',

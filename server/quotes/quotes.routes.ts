@@ -4,7 +4,7 @@ import { legalClocks } from '@shared/domain/clocks'
 import { storageBill } from '@shared/domain/billing'
 import { legalClocksRequestSchema, storageQuoteRequestSchema } from '@shared/schemas/quotes'
 import { AppError } from '../errors'
-import { holidayCalendar } from '../holidays/index'
+import { ruleSetCalendars } from '../holidays/index'
 import { latestRuleSetBySlug } from '../rule-sets/index'
 import { companyOf } from '../users/index'
 
@@ -27,7 +27,7 @@ export function quotesRouter(db: Database): Router {
   router.post('/clocks', async (req, res) => {
     const input = legalClocksRequestSchema.parse(req.body)
     const ruleSet = await ruleSetFor(req.user!.id, input.ruleSetId)
-    const clocks = legalClocks(input.vehicle, input.events, ruleSet, holidayCalendar(ruleSet.holidayCalendar), input.asOf, { timeZone: input.timeZone })
+    const clocks = legalClocks(input.vehicle, input.events, ruleSet, ruleSetCalendars(ruleSet), input.asOf, { timeZone: input.timeZone })
     res.json({ clocks })
   })
   return router

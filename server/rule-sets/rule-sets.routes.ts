@@ -3,7 +3,7 @@ import { z } from 'zod'
 import type { Database } from '@db/client'
 import { dayFromCivil } from '@shared/domain/time'
 import { notFound } from '../errors'
-import { holidayCalendar } from '../holidays/index'
+import { ruleSetCalendars } from '../holidays/index'
 import { companyOf } from '../users/index'
 import { latestRuleSetBySlug, latestRuleSets } from './rule-sets.queries'
 
@@ -34,13 +34,13 @@ export function ruleSetsRouter(db: Database): Router {
     if (!found) throw notFound('That rule set')
     res.json({ id: found.slug, version: found.version, ruleSet: found.ruleSet })
   })
-  // The client previews deadlines with the same holidays the server counts.
+  // The client previews deadlines with the same holidays the server's business-day counts skip.
   router.get('/:id/holidays', async (req, res) => {
     const { id } = slugParam.parse(req.params)
     const { from, to } = yearsQuery.parse(req.query)
     const found = await latestRuleSetBySlug(db, await companyOf(db, req.user!.id), id)
     if (!found) throw notFound('That rule set')
-    const holidays = holidayCalendar(found.ruleSet.holidayCalendar).between(dayFromCivil(from, 1, 1), dayFromCivil(to, 12, 31))
+    const holidays = ruleSetCalendars(found.ruleSet).closed.between(dayFromCivil(from, 1, 1), dayFromCivil(to, 12, 31))
     res.json({ holidays: holidays.map(({ date, name }) => ({ date, name })) })
   })
   return router

@@ -40,6 +40,8 @@ export async function vehiclePage(db: Database, userId: string, vehicleId: strin
       keysWhere: v.keysWhere,
       drivableAsFound: v.drivableAsFound,
       ownerName: v.ownerName,
+      estimatedValueCents: v.estimatedValueCents,
+      estimatedValueSource: v.estimatedValueSource,
       rolls: v.rolls,
       steers: v.steers,
       brakes: v.brakes,

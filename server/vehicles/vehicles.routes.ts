@@ -2,13 +2,14 @@ import { Router, type Request } from 'express'
 import { verifyVehicleHistory } from '@db/history'
 import { searchQuerySchema } from '@shared/schemas/search'
 import { correctVehicleSchema, towInSchema } from '@shared/schemas/tow-in'
-import { vehicleParamsSchema } from '@shared/schemas/vehicles'
+import { vehicleParamsSchema, vehicleValueSchema } from '@shared/schemas/vehicles'
 import { badRequest } from '../errors'
 import { type FileStore, receiveFiles } from '../files/index'
 import { correctVehicle } from './corrections.service'
 import { intakeOptions } from './intake-options'
 import { searchVehicles } from './search.queries'
 import { createTowIn } from './tow-in.service'
+import { recordValue } from './value.service'
 import { historyEvents } from './vehicle-page.queries'
 import { vehiclePage } from './vehicle-page.service'
 import type { VehicleChanges } from './vehicle-change'
@@ -46,6 +47,10 @@ export function vehiclesRouter(changes: VehicleChanges, store: FileStore): Route
   router.patch('/:vehicleId', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
     res.json(await correctVehicle(changes, req.user!, vehicleId, correctVehicleSchema.parse(req.body)))
+  })
+  router.put('/:vehicleId/value', async (req, res) => {
+    const { vehicleId } = vehicleParamsSchema.parse(req.params)
+    res.json(await recordValue(changes, req.user!, vehicleId, vehicleValueSchema.parse(req.body)))
   })
   router.get('/:vehicleId/history', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)

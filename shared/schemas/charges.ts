@@ -16,7 +16,19 @@ export const nextDeadlineSchema = z.object({
 export type NextDeadline = z.infer<typeof nextDeadlineSchema>
 
 /** Whether the law already allows a lien sale or disposal (shared/domain/clocks/lien-sale-gate.ts). */
-export const lienSaleGateSchema = z.object({ open: z.boolean(), date: z.string().nullable(), why: z.string() })
+export const lienSaleGateSchema = z.object({
+  open: z.boolean(),
+  date: z.string().nullable(),
+  why: z.string(),
+  code: z.enum(['open', 'not-before', 'waiting', 'too-early', 'expired', 'needs-value', 'needs-model-year', 'no-branch', 'no-sale-date']),
+})
+
+/**
+ * What the card and the vehicle page show instead of nothing when the clocks cannot all be worked
+ * out: "needs-value" ("enter the value to see this deadline"), "needs-model-year", "no-branch".
+ */
+export const clockAlertSchema = z.object({ code: z.enum(['needs-value', 'needs-model-year', 'no-branch']), message: z.string() })
+export type ClockAlertView = z.infer<typeof clockAlertSchema>
 
 export const vehicleSummarySchema = z.object({
   /** Storage days counted so far by the rule set's own day rule. */
@@ -26,6 +38,7 @@ export const vehicleSummarySchema = z.object({
   balanceCents: z.number(),
   nextDeadline: nextDeadlineSchema.nullable(),
   lienSale: lienSaleGateSchema,
+  clockAlerts: z.array(clockAlertSchema),
   warnings: z.array(z.string()),
 })
 export type VehicleSummary = z.infer<typeof vehicleSummarySchema>

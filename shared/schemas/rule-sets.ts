@@ -81,7 +81,12 @@ export const clockEventKindSchema = z.enum([
   'owner-records-requested',
   'lien-sale-application-filed',
   'owner-notice-mailed',
+  /** The state's own notice to the owners (California's DMV under Civ. Code § 3071), not the yard's. */
+  'state-notice-mailed',
+  /** The yard's notice of pending lien sale, or of the sale. */
   'lien-notice-mailed',
+  /** The yard's notice of intent to dispose of a low-valued vehicle. */
+  'disposal-notice-mailed',
   'sale-scheduled',
   'sale-advertised',
   'sale-notice-posted',
@@ -108,6 +113,33 @@ export const timelineStepSchema = z.object({
   source: sourceSchema,
 })
 
+/** A holiday calendar by jurisdiction, as date-holidays names them: country, and state where it has its own. */
+export const calendarKeySchema = z.object({ country: z.string().length(2), state: z.string().min(1).optional() })
+
+/**
+ * Which days a business-day count passes over besides Saturdays and Sundays. Where the statute does
+ * not name its holidays, a day is skipped only when every calendar listed closes it, so a due date can
+ * only come earlier than under any one of them.
+ */
+export const businessDaysSchema = z.object({
+  skip: z.literal('closed-by-every-calendar'),
+  calendars: z.array(calendarKeySchema).min(1),
+  source: sourceSchema,
+})
+
+/**
+ * A notice that must be mailed by a date cannot be mailed on a day post offices are closed: such a
+ * deadline moves to the open day before it (never after).
+ */
+export const mailDeadlinesSchema = z.object({
+  move: z.literal('earlier'),
+  /** Post offices close on this calendar's public holidays… */
+  postOfficeCalendar: calendarKeySchema,
+  /** …and on these weekdays (0 = Sunday … 6 = Saturday). */
+  closedWeekdays: z.array(z.number().int().min(0).max(6)).max(6),
+  source: sourceSchema,
+})
+
 export const totalLossSchema = z.discriminatedUnion('rule', [
   z.object({ rule: z.literal('percent-of-value'), percent: z.number().positive().max(100), source: sourceSchema }),
   z.object({ rule: z.literal('total-loss-formula'), source: sourceSchema }),
@@ -126,7 +158,9 @@ export const ruleSetSchema = z
     /** Shown wherever the rule set is: requirements vary, and the sample is not legal advice. */
     caution: z.string().min(1),
     timeZone: z.string().refine(isTimeZone, 'an IANA time zone such as America/Los_Angeles'),
-    holidayCalendar: z.object({ country: z.string().length(2), state: z.string().min(1).optional() }),
+    holidayCalendar: calendarKeySchema,
+    businessDays: businessDaysSchema.optional(),
+    mailDeadlines: mailDeadlinesSchema.optional(),
     currency: z.literal('USD'),
     vehicleClasses: z.array(vehicleClassSchema).min(1),
     storage: storageRulesSchema,
@@ -148,6 +182,7 @@ export type Fee = z.infer<typeof feeSchema>
 export type StorageRules = z.infer<typeof storageRulesSchema>
 export type ClockEventKind = z.infer<typeof clockEventKindSchema>
 export type TimelineStep = z.infer<typeof timelineStepSchema>
+export type CalendarKey = z.infer<typeof calendarKeySchema>
 export type TotalLossRule = z.infer<typeof totalLossSchema>
 /** A rule set as the functions use it (defaults applied). */
 export type RuleSet = z.output<typeof ruleSetSchema>

@@ -36,6 +36,9 @@ export const vehicleRecordSchema = z.object({
   keysWhere: text,
   drivableAsFound: z.boolean().nullable(),
   ownerName: text,
+  /** The value the lien clocks branch on, and where it came from; null until someone records it. */
+  estimatedValueCents: z.number().nullable(),
+  estimatedValueSource: text,
   rolls: z.boolean().nullable(),
   steers: z.boolean().nullable(),
   brakes: z.boolean().nullable(),

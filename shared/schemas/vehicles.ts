@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { normalizeVin, vin as readVin } from '../domain/vehicle/vin'
+import { formatCents } from '../domain/billing/money'
 import { alongsideFieldIssues, optionalInt, optionalText, requiredText, text } from './fields'
 
 export const KEYS = ['yes', 'no', 'unknown'] as const
@@ -117,3 +118,31 @@ export type ConditionInput = z.input<typeof conditionSchema>
 
 /** The one route parameter that names a vehicle: `/api/vehicles/:vehicleId/…`. */
 export const vehicleParamsSchema = z.object({ vehicleId: z.uuid({ error: 'That is not a vehicle id.' }) })
+
+/** The most a vehicle's recorded value may be: $10,000,000 (a typing slip, not a vehicle, beyond it). */
+export const MAX_VEHICLE_VALUE_CENTS = 1_000_000_000
+
+/** Where a value usually comes from; the field takes any words, these are offered first. */
+export const VALUE_SOURCES = ['Price guide', 'Appraisal', 'The inspection', 'Public agency’s estimate'] as const
+
+/**
+ * The vehicle's value for the lien clocks, and where it came from, recorded outside any inspection
+ * (PUT /api/vehicles/:vehicleId/value). $0 is a value: a hulk worth nothing still takes the low-value branch.
+ */
+export const vehicleValueSchema = z.object({
+  version: z.number({ error: 'Reload the vehicle and try again.' }).int().positive(),
+  valueCents: z
+    .number({ error: "Enter the vehicle's value." })
+    .int("Enter the vehicle's value in whole cents.")
+    .min(0, "The vehicle's value cannot be negative.")
+    .max(MAX_VEHICLE_VALUE_CENTS, `The vehicle's value cannot be more than ${formatCents(MAX_VEHICLE_VALUE_CENTS).replace(/\.00$/, '')}.`),
+  source: requiredText(200, 'Say where the value came from (a price guide, an appraisal, the inspection).'),
+})
+export type VehicleValueInput = z.input<typeof vehicleValueSchema>
+
+export const vehicleValueReplySchema = z.object({
+  version: z.number(),
+  valueCents: z.number(),
+  source: z.string(),
+})
+export type VehicleValueReply = z.infer<typeof vehicleValueReplySchema>

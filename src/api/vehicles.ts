@@ -5,6 +5,7 @@ import { chainCheckSchema } from '@shared/schemas/history'
 import { searchResultSchema } from '@shared/schemas/search'
 import type { CorrectVehicleInput } from '@shared/schemas/tow-in'
 import { vehiclePageSchema } from '@shared/schemas/vehicle-page'
+import { type VehicleValueInput, vehicleValueReplySchema } from '@shared/schemas/vehicles'
 import { boardKeys } from './board'
 import { request } from './http'
 
@@ -34,6 +35,16 @@ export const correctVehicle = (id: string, input: CorrectVehicleInput) =>
 export function useCorrectVehicleMutation() {
   return useMutation({
     mutationFn: ({ vehicleId, input }: { vehicleId: string; input: CorrectVehicleInput }) => correctVehicle(vehicleId, input),
+    onSuccess: (_answer, { vehicleId }, _context, { client }) => vehicleChanged(client, vehicleId),
+  })
+}
+
+export const recordVehicleValue = (id: string, input: VehicleValueInput) => request('PUT', `/api/vehicles/${id}/value`, vehicleValueReplySchema, input)
+
+/** The value picks the lien clocks' branch: the page and the card's next date change with it. */
+export function useRecordValueMutation() {
+  return useMutation({
+    mutationFn: ({ vehicleId, input }: { vehicleId: string; input: VehicleValueInput }) => recordVehicleValue(vehicleId, input),
     onSuccess: (_answer, { vehicleId }, _context, { client }) => vehicleChanged(client, vehicleId),
   })
 }

@@ -142,6 +142,26 @@ describe('POST /api/vehicles/:vehicleId/moves', () => {
     expect(res.body.reasons).toEqual([{ code: 'lien-sale', message: expect.stringMatching(/^The law does not allow a lien sale or disposal before \d{1,2} \w{3}( \d{4})?\.$/) }])
   })
 
+  // The gate reads every "not before" step of the vehicle's branch, and a missing value or model year is
+  // said, never taken for "no clocks": Civ. Code §§ 3071–3072 and Veh. Code § 22851.10 pick the branch by
+  // value; Fla. Stat. 713.78 by age [M].
+  it.each([
+    { why: 'a California vehicle without a value', sample: 'california-sample', over: { estimatedValueCents: null }, message: /Enter the value to see this deadline/ },
+    { why: 'a California vehicle valued $400 with no notice of intent mailed', sample: 'california-sample', over: { estimatedValueCents: 40_000 }, message: /Earliest disposal to a dismantler.*Starts once the record shows the notice of intent to dispose was mailed/ },
+    { why: 'a California vehicle valued $3,000 with no notice of pending lien sale', sample: 'california-sample', over: { estimatedValueCents: 300_000 }, message: /Starts once the record shows/ },
+    { why: 'a Florida vehicle without a model year', sample: 'florida-sample', over: { year: null }, message: /Enter the model year to see this deadline/ },
+  ])('move_closeAsScrapped_$why_isRefusedSayingWhy', async ({ sample, over, message }) => {
+    const staff = await makeStaff(t_.db)
+    const ruleSetVersionId = await sampleVersion(t_.db, sample)
+    const v = await makeVehicle(t_.db, staff.yard.id, { state: 'storage', ruleSetVersionId, year: 2009, arrivedAt: new Date(Date.now() - 90 * DAY), ...over })
+    const s = await signedIn(t_.app, staff.office)
+    const res = await s.post(move(v.id), { to: 'closed', version: 1, disposition: 'scrapped' })
+    expect(res.status).toBe(422)
+    expect(res.body.reasons).toEqual([{ code: 'lien-sale', message: expect.stringMatching(message) }])
+    expect(await vehicleRow(t_.db, v.id)).toMatchObject({ state: 'storage', version: 1 })
+    expect(await historyCount(t_.db, v.id)).toBe(0)
+  })
+
   it.each([
     { body: { to: 'nowhere', version: 1 }, path: 'to' },
     { body: { to: 'teardown' }, path: 'version' },

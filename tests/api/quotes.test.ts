@@ -90,6 +90,23 @@ describe('rule sets and quotes API', () => {
     expect(notice.holidaysSkipped.map((h: { date: string }) => h.date)).toContain(observed)
   })
 
+  // Fla. Stat. 713.78(4) [S]: notice of lien within 7 business days of storage; the section does not say
+  // which holidays close a business day [M], so the sample skips a day only when both the Florida and the
+  // federal calendar close it, and a mailing due on a day post offices are closed moves earlier [C]:
+  // - stored Fri 20 Nov 2026: Fri 27 Nov (Florida's Day After Thanksgiving, federal offices open) counts → Wed 2 Dec;
+  // - stored Thu 1 Oct 2026: the 7th business day is Mon 12 Oct, Columbus Day (5 U.S.C. 6103 [V]), when post
+  //   offices are closed → Fri 9 Oct.
+  it.each([
+    { why: 'counts the Day After Thanksgiving', stored: '2026-11-20T10:00:00-05:00', due: '2026-12-02' },
+    { why: 'moves a mailing due on Columbus Day earlier', stored: '2026-10-01T10:00:00-04:00', due: '2026-10-09' },
+  ])('POST /api/quotes/clocks in Florida $why', async ({ stored, due }) => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    const res = await s.post('/api/quotes/clocks', { ruleSetId: 'florida-sample', vehicle: { modelYear: 2015 }, events: [{ kind: 'stored', at: stored }], asOf: stored })
+    expect(res.status).toBe(200)
+    expect(res.body.clocks.deadlines.find((d: { code: string }) => d.code === 'notice-of-lien').dueDate).toBe(due)
+  })
+
   // The federal template's calendar, on weekdays, is exactly the days federal holidays are observed on
   // (5 U.S.C. 6103 with OPM's weekend rule, computed independently in tests/helpers/us-federal-holidays.ts).
   it('GET /api/rule-sets/ordinance-24h-template/holidays is the observed federal holidays, 2021 to 2030', async () => {

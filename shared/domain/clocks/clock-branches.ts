@@ -1,12 +1,13 @@
 import type { TimelineStep } from '../../schemas/rule-sets'
 import { formatCents } from '../billing/money'
+import type { ClockNeed } from './clock-events'
 
 export type ClockVehicle = { modelYear?: number | null; valueCents?: number | null }
 
 export type Branch =
   | { applies: true; why?: string }
   | { applies: false; why: string }
-  | { applies: 'unknown'; why: string }
+  | { applies: 'unknown'; why: string; needs: ClockNeed }
 
 type Range = { over?: number | undefined; atMost?: number | undefined }
 
@@ -78,7 +79,7 @@ function choose(c: Condition, vehicle: ClockVehicle, valued: () => string, start
   if (c.value) {
     const value = vehicle.valueCents
     if (value == null) {
-      return { applies: 'unknown', why: `Enter the vehicle's value: this applies only to vehicles valued ${c.valueBand}.` }
+      return { applies: 'unknown', needs: 'value', why: `Enter the value to see this deadline: it applies only to vehicles valued ${c.valueBand}.` }
     }
     if (!(value > c.valueOver && value <= c.valueAtMost)) {
       return { applies: false, why: `${valued()}; this applies only to vehicles valued ${c.valueBand}.` }
@@ -87,7 +88,7 @@ function choose(c: Condition, vehicle: ClockVehicle, valued: () => string, start
   }
   if (c.age) {
     if (vehicle.modelYear == null) {
-      return { applies: 'unknown', why: `Enter the model year: this applies only to vehicles ${c.ageBand} old.` }
+      return { applies: 'unknown', needs: 'model-year', why: `Enter the model year to see this deadline: it applies only to vehicles ${c.ageBand} old.` }
     }
     const age = startYear - vehicle.modelYear
     const aged = `Model year ${vehicle.modelYear}, ${years(age)} old in ${startYear}`

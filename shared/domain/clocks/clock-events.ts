@@ -13,12 +13,34 @@ export const plannedEvents: ReadonlySet<ClockEventKind> = new Set(['sale-schedul
 
 export type ClockStatus = 'upcoming' | 'met' | 'missed' | 'reached' | 'not-started' | 'needs-information'
 
+/** What a "needs-information" step waits for: the screens say "enter the value to see this deadline". */
+export type ClockNeed = 'value' | 'model-year'
+
+/**
+ * Something about the vehicle's clocks as a whole that a screen must show rather than leave blank:
+ * steps waiting for the value or the model year, or no branch of the rule set fitting the vehicle.
+ */
+export type ClockAlert = { code: 'needs-value' | 'needs-model-year' | 'no-branch'; message: string }
+
+/** A counting rule the rule set states beside its steps (how business days or mailing days count), with its source. */
+export type CountingRule = { rule: string; source: Source }
+
+/** Events that are a mailing: a deadline to mail moves earlier off a day post offices are closed. */
+export const mailingEvents: ReadonlySet<ClockEventKind> = new Set([
+  'owner-notice-mailed',
+  'state-notice-mailed',
+  'lien-notice-mailed',
+  'disposal-notice-mailed',
+])
+
 export type Deadline = {
   code: string
   label: string
   kind: TimelineStep['kind']
   status: ClockStatus
   statusReason: string
+  /** Set with status "needs-information": what to record to see this date. */
+  needs?: ClockNeed
   /** The due date on the yard's calendar, once the start event is known. */
   dueDate?: string
   /** Deadline: the instant it is missed (midnight ending the due date). Earliest: the instant it opens. */
@@ -34,6 +56,8 @@ export type Deadline = {
   branch?: string
   explanation: string
   source: Source
+  /** The rule set's own counting rules this date was worked out by (business days, mailing days), each cited. */
+  rules?: CountingRule[]
   placeholder: boolean
 }
 
@@ -42,6 +66,8 @@ export type LegalClocks = {
   timeZone: string
   deadlines: Deadline[]
   notApplicable: { code: string; label: string; reason: string }[]
+  /** Shown instead of nothing: "needs the value", "needs the model year", "no branch applies". */
+  alerts: ClockAlert[]
   caution: string
 }
 
@@ -52,10 +78,12 @@ export const clockEventLabels: Record<ClockEventKind, string> = {
   'owner-records-requested': 'owner and lienholder records were requested',
   'lien-sale-application-filed': 'the lien sale application was filed',
   'owner-notice-mailed': 'the owner notice was mailed',
-  'lien-notice-mailed': 'the notice of pending lien sale was mailed',
+  'state-notice-mailed': "the state's notice to the owners was mailed",
+  'lien-notice-mailed': "the yard's notice of pending lien sale was mailed",
+  'disposal-notice-mailed': 'the notice of intent to dispose was mailed',
   'sale-scheduled': 'the sale date',
   'sale-advertised': 'the sale was advertised',
   'sale-notice-posted': 'the sale notice was posted',
-  'lien-sale-held': 'the lien sale was held',
+  'lien-sale-held': 'the vehicle was sold or disposed of',
 }
 

@@ -1,8 +1,9 @@
 import type { TimelineStep } from '../../schemas/rule-sets'
 import { countBusinessDays } from '../time/business-days'
 import { type DayNumber, isoDate, isoInstant } from '../time/calendar-dates'
-import { clockEventLabels } from './clock-events'
-import type { Holiday, HolidayCalendar } from '../time/holidays'
+import { type ClockCalendars, postOfficeClosed } from './clock-calendars'
+import { clockEventLabels, mailingEvents } from './clock-events'
+import type { Holiday } from '../time/holidays'
 import { startOfLocalDay } from '../time/local-time'
 
 /** Where one step lands from one start date: nothing here depends on the vehicle. */
@@ -23,7 +24,7 @@ const NO_HOLIDAYS: readonly Holiday[] = Object.freeze([])
  * Vehicles stored on the same day share every due date, so each (calendar, step, zone, start
  * date) is worked out once — a yard's board asks for the same few hundred dates all day.
  */
-const cache = new WeakMap<HolidayCalendar, WeakMap<TimelineStep, Map<string, DayTable<DueDate>>>>()
+const cache = new WeakMap<ClockCalendars, WeakMap<TimelineStep, Map<string, DayTable<DueDate>>>>()
 
 /** Values by day in a dense array spanning the days seen: a lookup is an index, not a hash. */
 class DayTable<T> {
@@ -45,42 +46,60 @@ class DayTable<T> {
   }
 }
 
-export function dueDate(step: TimelineStep, startDay: DayNumber, zone: string, holidays: HolidayCalendar): DueDate {
-  let bySteps = cache.get(holidays)
-  if (!bySteps) cache.set(holidays, (bySteps = new WeakMap()))
+export function dueDate(step: TimelineStep, startDay: DayNumber, zone: string, calendars: ClockCalendars): DueDate {
+  let bySteps = cache.get(calendars)
+  if (!bySteps) cache.set(calendars, (bySteps = new WeakMap()))
   let byZone = bySteps.get(step)
   if (!byZone) bySteps.set(step, (byZone = new Map()))
   let byDay = byZone.get(zone)
   if (!byDay) byZone.set(zone, (byDay = new DayTable()))
   let found = byDay.get(startDay)
   if (!found) {
-    found = work(step, startDay, zone, holidays)
+    found = work(step, startDay, zone, calendars)
     byDay.set(startDay, found)
   }
   return found
 }
 
-function work(step: TimelineStep, startDay: DayNumber, zone: string, holidays: HolidayCalendar): DueDate {
+/**
+ * A deadline to mail something that falls on a day post offices are closed moves to the open day
+ * before it — never after, so the notice cannot go out later than the law requires.
+ */
+function mailingDay(step: TimelineStep, day: DayNumber, calendars: ClockCalendars): { day: DayNumber; note?: string } {
+  const postOffice = calendars.postOffice
+  if (!postOffice || step.kind !== 'deadline' || !mailingEvents.has(step.doneBy)) return { day }
+  const why = postOfficeClosed(postOffice, day)
+  if (!why) return { day }
+  let open = day - 1
+  while (postOfficeClosed(postOffice, open)) open--
+  return { day: open, note: `${isoDate(day)} is ${why}, when post offices are closed, so the mailing is due the open day before, ${isoDate(open)}` }
+}
+
+function work(step: TimelineStep, startDay: DayNumber, zone: string, calendars: ClockCalendars): DueDate {
   const sign = step.direction === 'after' ? 1 : -1
   const counted =
     step.dayKind === 'business'
-      ? countBusinessDays(startDay, step.days, sign, holidays)
+      ? countBusinessDays(startDay, step.days, sign, calendars.closed)
       : { day: startDay + sign * step.days, weekendDays: 0, holidays: NO_HOLIDAYS }
-  const edgeMs = startOfLocalDay(zone, step.kind === 'deadline' ? counted.day + 1 : counted.day)
-  const date = isoDate(counted.day)
+  const mailing = mailingDay(step, counted.day, calendars)
+  const edgeMs = startOfLocalDay(zone, step.kind === 'deadline' ? mailing.day + 1 : mailing.day)
+  const date = isoDate(mailing.day)
   const skipped = [
     ...(counted.weekendDays > 0 ? [`${counted.weekendDays} weekend day${counted.weekendDays === 1 ? '' : 's'}`] : []),
     ...counted.holidays.map((h) => `${h.name} (${h.date})`),
   ]
-  const rule = `${countingText(step)} (${isoDate(startDay)}): ${step.kind === 'deadline' ? 'due by' : 'not before'} ${date}`
+  const rule = mailing.note
+    ? `${countingText(step)} (${isoDate(startDay)}): ${isoDate(counted.day)}`
+    : `${countingText(step)} (${isoDate(startDay)}): ${step.kind === 'deadline' ? 'due by' : 'not before'} ${date}`
+  const counting = skipped.length > 0 ? `${rule}, skipping ${skipped.join(' and ')}` : rule
   return {
-    day: counted.day,
+    day: mailing.day,
     date,
     edgeMs,
     edgeIso: isoInstant(edgeMs),
     weekendDays: counted.weekendDays,
     holidays: counted.holidays.length > 0 ? counted.holidays.map((h) => ({ date: h.date, name: h.name })) : NO_HOLIDAYS,
-    explanation: skipped.length > 0 ? `${rule}, skipping ${skipped.join(' and ')}.` : `${rule}.`,
+    explanation: mailing.note ? `${counting}; ${mailing.note}.` : `${counting}.`,
   }
 }
 

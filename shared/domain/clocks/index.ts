@@ -1,4 +1,5 @@
 export * from './clock-branches'
+export * from './clock-calendars'
 export * from './clock-events'
 export * from './due-dates'
 export * from './legal-clocks'

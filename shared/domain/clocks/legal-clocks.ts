@@ -1,29 +1,34 @@
 import type { ClockEventKind, RuleSet, TimelineStep } from '../../schemas/rule-sets'
 import { civilFromDay, type DayNumber, isoInstant } from '../time/calendar-dates'
 import { type Branch, branchChooser, type ClockVehicle } from './clock-branches'
-import { type ClockEvent, clockEventLabels, type ClockStatus, type Deadline, type LegalClocks, plannedEvents } from './clock-events'
+import { asClockCalendars, type ClockCalendars } from './clock-calendars'
+import { type ClockAlert, type ClockEvent, clockEventLabels, type ClockStatus, type CountingRule, type Deadline, type LegalClocks, mailingEvents, plannedEvents } from './clock-events'
 import { countingText, type DueDate, dueDate } from './due-dates'
 import type { HolidayCalendar } from '../time/holidays'
 import { assertTimeZone, type Instant, localDay, toEpochMs } from '../time/local-time'
 
 export type { ClockVehicle } from './clock-branches'
-export type { ClockEvent, ClockStatus, Deadline, LegalClocks } from './clock-events'
+export type { ClockAlert, ClockEvent, ClockNeed, ClockStatus, Deadline, LegalClocks } from './clock-events'
 export { clockEventLabels } from './clock-events'
 
 /**
  * Every notice and disposal date of one vehicle under a rule set, as of an instant. A clock
  * starts from the latest event of its kind (a rescheduled sale moves what hangs on it) and is
  * answered by the first event that satisfies it. Days are counted on the yard's calendar: the
- * rule set's time zone unless `options.timeZone` names the yard's own, closed on `holidays`.
+ * rule set's time zone unless `options.timeZone` names the yard's own, closed on `calendars` (one
+ * calendar, or the ones the rule set names with the post offices' closed days: server/holidays).
+ * Nothing is dropped silently: a step waiting for the value or model year comes back as
+ * "needs-information", and a vehicle no branch fits gets a "no-branch" alert.
  */
 export function legalClocks(
   vehicle: ClockVehicle,
   events: readonly ClockEvent[],
   ruleSet: RuleSet,
-  holidays: HolidayCalendar,
+  calendars: HolidayCalendar | ClockCalendars,
   asOf: Instant,
   options: { timeZone?: string } = {},
 ): LegalClocks {
+  const holidays = asClockCalendars(calendars)
   const zone = options.timeZone ?? ruleSet.timeZone
   assertTimeZone(zone)
   const asOfMs = toEpochMs(asOf, 'asOf')
@@ -36,18 +41,68 @@ export function legalClocks(
   const asOfRecord = new Recorded('as-of', asOfMs, zone)
   const deadlines: Deadline[] = []
   const notApplicable: LegalClocks['notApplicable'] = []
+  let branched = 0
   for (const step of ruleSet.timeline) {
     const start = pick(recorded, step.from, 'latest')
     const startDay = start?.day
     const branch = choose(step, (start ?? asOfRecord).year)
+    if (step.when) branched++
     if (branch.applies === false) {
       notApplicable.push({ code: step.code, label: step.label, reason: branch.why })
       continue
     }
     const due = startDay === undefined ? undefined : dueDate(step, startDay, zone, holidays)
-    deadlines.push(deadline(step, branch, start, due, pick(recorded, step.doneBy, 'first'), asOfMs))
+    const made = deadline(step, branch, start, due, pick(recorded, step.doneBy, 'first'), asOfMs)
+    const rules = countingRules(ruleSet, step, holidays)
+    deadlines.push(rules ? { ...made, rules } : made)
   }
-  return { asOf: asOfRecord.iso, timeZone: zone, deadlines, notApplicable, caution: ruleSet.caution }
+  const alerts = clockAlerts(deadlines, notApplicable, branched)
+  return { asOf: asOfRecord.iso, timeZone: zone, deadlines, notApplicable, alerts, caution: ruleSet.caution }
+}
+
+const NEEDS_ALERTS: Record<NonNullable<Deadline['needs']>, ClockAlert> = {
+  value: { code: 'needs-value', message: 'Enter the value to see the deadlines that depend on it.' },
+  'model-year': { code: 'needs-model-year', message: 'Enter the model year to see the deadlines that depend on it.' },
+}
+
+/** What the screens must show for the clocks as a whole, instead of showing nothing. */
+function clockAlerts(deadlines: readonly Deadline[], notApplicable: LegalClocks['notApplicable'], branched: number): ClockAlert[] {
+  const alerts: ClockAlert[] = []
+  for (const need of ['value', 'model-year'] as const) {
+    if (deadlines.some((d) => d.needs === need)) alerts.push(NEEDS_ALERTS[need])
+  }
+  // Every step that has a branch condition was left out: no branch of the rule set fits the vehicle.
+  if (branched > 0 && notApplicable.length === branched) {
+    const reasons = [...new Set(notApplicable.map((n) => n.reason))].join(' ')
+    alerts.push({ code: 'no-branch', message: `No branch of the rule set applies to this vehicle, so it shows no sale date. ${reasons}` })
+  }
+  return alerts
+}
+
+// The counting rules of a rule set's steps, written once per step.
+const rulesCache = new WeakMap<TimelineStep, CountingRule[] | null>()
+
+/**
+ * The rule set's own counting rules that this step's date followed (business days, mailing days),
+ * each cited — only when the calendars are the ones the rule set names (server/holidays).
+ */
+function countingRules(ruleSet: RuleSet, step: TimelineStep, calendars: ClockCalendars): CountingRule[] | undefined {
+  if (!calendars.ofRuleSet) return undefined
+  let rules = rulesCache.get(step)
+  if (rules === undefined) {
+    rules = []
+    const { businessDays, mailDeadlines } = ruleSet
+    if (step.dayKind === 'business' && businessDays) {
+      const names = businessDays.calendars.map((c) => (c.state ? `${c.country}-${c.state}` : c.country)).join(', ')
+      rules.push({ rule: `Business days skip Saturdays, Sundays and only the holidays that every one of these calendars closes: ${names}.`, source: businessDays.source })
+    }
+    if (step.kind === 'deadline' && mailingEvents.has(step.doneBy) && mailDeadlines) {
+      rules.push({ rule: 'A mailing due on a day post offices are closed is due the open day before it, never after.', source: mailDeadlines.source })
+    }
+    if (rules.length === 0) rules = null
+    rulesCache.set(step, rules)
+  }
+  return rules ?? undefined
 }
 
 /** A recorded event's instant; its local date and texts are worked out once, and only if used. */
@@ -103,6 +158,7 @@ function deadline(
     kind: step.kind,
     status,
     statusReason,
+    ...(branch.applies === 'unknown' ? { needs: branch.needs } : {}),
     dueDate: due?.date,
     dueAt: due?.edgeIso,
     days: step.days,

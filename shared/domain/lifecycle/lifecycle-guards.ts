@@ -94,8 +94,10 @@ export const lienSaleAllowed: Guard = (f, ctx) => {
   const gate = f.lienSale
   if (!gate) return [{ code: 'lien-sale', message: 'No rule set gives this vehicle a lien-sale date, so the law has not been shown to allow a sale or disposal.' }]
   if (gate.open) return []
-  if (gate.date) return [{ code: 'lien-sale', message: `The law does not allow a lien sale or disposal before ${shortDate(gate.date, f.timeZone, ctx.now)}.` }]
-  return [{ code: 'lien-sale', message: `No lien-sale date yet. ${gate.why}` }]
+  if (gate.code === 'not-before' && gate.date) {
+    return [{ code: 'lien-sale', message: `The law does not allow a lien sale or disposal before ${shortDate(gate.date, f.timeZone, ctx.now)}.` }]
+  }
+  return [{ code: 'lien-sale', message: `The law has not been shown to allow a lien sale or disposal yet. ${gate.why}` }]
 }
 
 /**

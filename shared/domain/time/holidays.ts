@@ -38,3 +38,20 @@ export function holidayCalendarFromList(holidays: Iterable<Holiday>): HolidayCal
     .sort((a, b) => a.day - b.day)
   return { between: (first, last) => sliceBetween(sorted, first, last) }
 }
+
+/**
+ * A calendar closed only on the days every one of `calendars` closes, named as the first names them.
+ * Where a statute counts business days without naming its holidays, counting with this one can only
+ * bring a due date earlier than counting with any one of them.
+ */
+export function closedByEvery(calendars: readonly HolidayCalendar[]): HolidayCalendar {
+  const [first, ...others] = calendars
+  if (!first) throw new Error('closedByEvery needs at least one calendar')
+  if (others.length === 0) return first
+  return {
+    between(from, to) {
+      const found = first.between(from, to)
+      return found.length === 0 ? found : found.filter((h) => others.every((c) => c.between(h.day, h.day).length > 0))
+    },
+  }
+}

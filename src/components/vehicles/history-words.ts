@@ -1,6 +1,7 @@
 import { COLUMN_LABELS, HOLD_LABELS, type HoldKind, type VehicleState } from '@shared/domain/lifecycle'
 import { formatCents } from '@shared/domain/billing'
 import { TOW_REASON_LABELS, type TowReason } from '@shared/domain/tow'
+import { i18n } from '@/i18n'
 import { INSPECTION_FIELD_LABELS, INSPECTION_HIDDEN, inspectionValue } from '@/components/inspections/inspection-history-words'
 
 // Plain words for the fields a history event names; anything unlisted shows its own name.
@@ -18,8 +19,12 @@ const FIELD_LABELS: Record<string, string> = {
 
 const HIDDEN = new Set(['holdId', ...INSPECTION_HIDDEN])
 
+// Fields whose words have moved to the message catalogs (read at render, so they follow the language).
+const CATALOG_LABELS: Record<string, string> = { estimatedValueSource: 'clocks.value.historySource' }
+
 export function fieldLabel(key: string): string {
-  return FIELD_LABELS[key] ?? key
+  const catalogKey = CATALOG_LABELS[key]
+  return catalogKey ? i18n.global.t(catalogKey) : (FIELD_LABELS[key] ?? key)
 }
 
 export function fieldValue(key: string, value: unknown, at: (iso: string) => string): string {

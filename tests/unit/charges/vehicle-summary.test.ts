@@ -43,8 +43,19 @@ describe('summarizeVehicle', () => {
     expect(s.nextDeadline?.daysLeft).toBeLessThan(0)
   })
 
-  it('has no deadline to show when the value that picks the branch is unknown', () => {
+  // The records request does not depend on the value (Civ. Code § 3072 / Veh. Code § 22851.8, the shorter
+  // count); every branch that does comes back as "needs the value", shown on the card, never dropped.
+  it('keeps the records deadline and says the value is needed when the value is unknown', () => {
     const s = summarizeVehicle(stay({ valueCents: null }), california, usFederalCalendar(), new Date('2026-03-04T17:00:00Z'), LA)
-    expect(s.nextDeadline).toBeNull()
+    expect(s.nextDeadline).toMatchObject({ code: 'records-request', dueDate: '2026-03-17' })
+    expect(s.clockAlerts.map((a) => a.code)).toEqual(['needs-value'])
+    expect(s.lienSale).toMatchObject({ open: false, code: 'needs-value' })
+  })
+
+  it('says no branch applies when the rule set has none for the vehicle', () => {
+    const gap = { ...california, timeline: california.timeline.filter((step) => step.when?.valueCents?.atMost !== 50_000) }
+    const s = summarizeVehicle(stay({ valueCents: 30_000 }), gap, usFederalCalendar(), new Date('2026-03-04T17:00:00Z'), LA)
+    expect(s.clockAlerts.map((a) => a.code)).toEqual(['no-branch'])
+    expect(s.lienSale).toMatchObject({ open: false, code: 'no-branch' })
   })
 })

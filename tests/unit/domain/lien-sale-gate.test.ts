@@ -15,11 +15,11 @@ const gate = (ruleSet: typeof florida, modelYear: number, asOf: string) =>
 // less) come from its own timeline; the gate only reads whether they have been reached.
 describe('lienSaleGate', () => {
   it('lienSaleGate_olderVehicleBeforeDay35_isShutWithTheDate', () => {
-    expect(gate(florida, 2018, '2026-07-20T00:00:00Z')).toEqual({ open: false, date: '2026-08-04', why: 'Not before 2026-08-04.' })
+    expect(gate(florida, 2018, '2026-07-20T00:00:00Z')).toEqual({ open: false, date: '2026-08-04', why: 'Not before 2026-08-04.', code: 'not-before' })
   })
 
   it('lienSaleGate_olderVehicleAfterDay35_isOpen', () => {
-    expect(gate(florida, 2018, '2026-08-10T00:00:00Z')).toEqual({ open: true, date: '2026-08-04', why: 'Open since 2026-08-04.' })
+    expect(gate(florida, 2018, '2026-08-10T00:00:00Z')).toEqual({ open: true, date: '2026-08-04', why: 'Open since 2026-08-04.', code: 'open' })
   })
 
   it('lienSaleGate_newerVehicle_waitsForTheLongerPeriod', () => {
@@ -28,11 +28,11 @@ describe('lienSaleGate', () => {
 
   it('lienSaleGate_clockStartsFromANoticeNotYetMailed_isShutWithoutADate', () => {
     const g = gate(california, 2018, '2026-08-10T00:00:00Z')
-    expect(g).toMatchObject({ open: false, date: null })
-    expect(g.why).toMatch(/^Starts once the record shows .*\.$/)
+    expect(g).toMatchObject({ open: false, date: null, code: 'waiting' })
+    expect(g.why).toMatch(/: Starts once the record shows .*\.$/)
   })
 
   it('lienSaleGate_ruleSetWithoutASaleDate_isShut', () => {
-    expect(lienSaleGate([])).toEqual({ open: false, date: null, why: 'The rule set sets no lien-sale date for this vehicle.' })
+    expect(lienSaleGate([])).toEqual({ open: false, date: null, why: 'The rule set sets no lien-sale date for this vehicle.', code: 'no-sale-date' })
   })
 })

@@ -15,7 +15,7 @@ const clear: MoveFacts = {
   waived: false,
   claimantIdRecorded: true,
   releaseSigned: true,
-  lienSale: { open: true, date: '2026-11-20', why: 'Open since 2026-11-20.' },
+  lienSale: { open: true, date: '2026-11-20', why: 'Open since 2026-11-20.', code: 'open' },
 }
 const facts = (over: Partial<MoveFacts>): MoveFacts => ({ ...clear, ...over })
 
@@ -154,14 +154,14 @@ describe('lifecycle guards', () => {
     checkMove({ from: 'storage', to: 'closed', role: 'office', disposition, facts: facts({ lienSale }), now: NOW })
 
   it.each(['lien_sale', 'scrapped'] as const)('lienSaleGuard_%s_beforeTheLawAllows_givesTheDate', (disposition) => {
-    expect(dispose({ open: false, date: '2027-01-14', why: 'Not before 2027-01-14.' }, disposition).reasons).toEqual([
+    expect(dispose({ open: false, date: '2027-01-14', why: 'Not before 2027-01-14.', code: 'not-before' }, disposition).reasons).toEqual([
       { code: 'lien-sale', message: 'The law does not allow a lien sale or disposal before 14 Jan 2027.' },
     ])
   })
 
   it('lienSaleGuard_clockNotStarted_saysWhatStartsIt', () => {
-    expect(dispose({ open: false, date: null, why: 'Starts when lien notice mailed is recorded.' }).reasons[0]!.message).toBe(
-      'No lien-sale date yet. Starts when lien notice mailed is recorded.',
+    expect(dispose({ open: false, date: null, why: 'Starts when lien notice mailed is recorded.', code: 'waiting' }).reasons[0]!.message).toBe(
+      'The law has not been shown to allow a lien sale or disposal yet. Starts when lien notice mailed is recorded.',
     )
   })
 
