@@ -1,10 +1,10 @@
 import { createHash } from 'node:crypto'
-import { eq, inArray, sql } from 'drizzle-orm'
+import { inArray } from 'drizzle-orm'
 import type { Response } from 'express'
 import type { Database } from '@db/client'
 import { signInFailures } from '@db/schema'
 import { AppError } from '../errors'
-import { addressKey } from '../session/index'
+import { addressKey, countFailure } from '../session/index'
 
 export interface PublicLimits {
   /** Tries from one address (an IPv6 /64) before each further one waits: wrong owner keys, or lookups. */
@@ -15,7 +15,6 @@ export interface PublicLimits {
 
 export const DEFAULT_PUBLIC_LIMITS: PublicLimits = { perAddress: 10, windowMs: 15 * 60_000 }
 
-const FIRST_WAIT_MS = 5_000
 
 /**
  * Public pages that answer to something a stranger could guess — an owner's short code, a plate
@@ -43,22 +42,7 @@ export function publicThrottle(db: Database, limits: PublicLimits) {
     async count(kind: 'owner-key' | 'lookup', ip: string): Promise<void> {
       const key = keyOf(kind, ip)
       const at = new Date(now())
-      const windowStart = new Date(at.getTime() - limits.windowMs).toISOString()
-      const [row] = await db
-        .insert(signInFailures)
-        .values({ key, failures: 1, lastFailureAt: at })
-        .onConflictDoUpdate({
-          target: signInFailures.key,
-          set: {
-            failures: sql`case when ${signInFailures.lastFailureAt} < ${windowStart}::timestamptz then 1 else ${signInFailures.failures} + 1 end`,
-            lastFailureAt: at,
-          },
-        })
-        .returning({ failures: signInFailures.failures })
-      const over = row!.failures - limits.perAddress
-      if (over < 0) return
-      const wait = Math.min(FIRST_WAIT_MS * 2 ** over, limits.windowMs)
-      await db.update(signInFailures).set({ blockedUntil: new Date(at.getTime() + wait) }).where(eq(signInFailures.key, key))
+      await countFailure(db, key, at, { windowMs: limits.windowMs, free: limits.perAddress })
     },
   }
 }

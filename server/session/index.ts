@@ -1,6 +1,6 @@
 export { sessionRouter } from './session.routes'
 export { knownDevices } from './known-devices'
-export { addressKey, pruneSignInFailures, signInThrottle, type SignInLimits } from './sign-in-throttle'
+export { addressKey, countFailure, pruneSignInFailures, signInThrottle, type SignInLimits } from './sign-in-throttle'
 export { DatabaseSessionStore, endSessionsOf, pruneExpiredSessions } from './session-store'
 export { sessionSecret } from './secret'
 export { renameInSessions } from './session-store'

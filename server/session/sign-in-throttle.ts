@@ -66,25 +66,11 @@ export function signInThrottle(db: Database, limits: SignInLimits, log: Pick<Log
 
     async failed(counters: Counters): Promise<void> {
       const at = new Date(now())
-      const windowStart = new Date(at.getTime() - limits.windowMs).toISOString()
       let worst = 0
       for (const { key, free } of counters.keys) {
-        const [row] = await db
-          .insert(signInFailures)
-          .values({ key, failures: 1, lastFailureAt: at })
-          .onConflictDoUpdate({
-            target: signInFailures.key,
-            set: {
-              failures: sql`case when ${signInFailures.lastFailureAt} < ${windowStart}::timestamptz then 1 else ${signInFailures.failures} + 1 end`,
-              lastFailureAt: at,
-            },
-          })
-          .returning({ failures: signInFailures.failures })
-        const over = row!.failures - free
-        if (over < 0) continue
-        const wait = Math.min(FIRST_WAIT_MS * 2 ** over, limits.windowMs)
-        await db.update(signInFailures).set({ blockedUntil: new Date(at.getTime() + wait) }).where(eq(signInFailures.key, key))
-        worst = Math.max(worst, row!.failures)
+        const failures = await countFailure(db, key, at, { windowMs: limits.windowMs, free })
+        if (failures < free) continue
+        worst = Math.max(worst, failures)
       }
       // Who and from where, never what was typed.
       if (worst > 0) log.warn({ email: counters.email, ip: counters.ip, failures: worst, knownDevice: counters.knownDevice }, 'repeated failed sign-ins')
@@ -98,6 +84,32 @@ export function signInThrottle(db: Database, limits: SignInLimits, log: Pick<Log
 }
 
 export type SignInThrottle = ReturnType<typeof signInThrottle>
+
+/**
+ * One more failure on a counter (an account and address, an address on a public page): the count
+ * restarts after a quiet window; past `free` failures the counter is blocked for a wait that doubles
+ * with each further failure, never longer than the window. Returns the count.
+ */
+export async function countFailure(db: Database, key: string, at: Date, limits: { windowMs: number; free: number }): Promise<number> {
+  const windowStart = new Date(at.getTime() - limits.windowMs).toISOString()
+  const [row] = await db
+    .insert(signInFailures)
+    .values({ key, failures: 1, lastFailureAt: at })
+    .onConflictDoUpdate({
+      target: signInFailures.key,
+      set: {
+        failures: sql`case when ${signInFailures.lastFailureAt} < ${windowStart}::timestamptz then 1 else ${signInFailures.failures} + 1 end`,
+        lastFailureAt: at,
+      },
+    })
+    .returning({ failures: signInFailures.failures })
+  const over = row!.failures - limits.free
+  if (over >= 0) {
+    const wait = Math.min(FIRST_WAIT_MS * 2 ** over, limits.windowMs)
+    await db.update(signInFailures).set({ blockedUntil: new Date(at.getTime() + wait) }).where(eq(signInFailures.key, key))
+  }
+  return row!.failures
+}
 
 /**
  * The address a throttle counts: an IPv4 address as it is, an IPv6 one by its /64 network, which
