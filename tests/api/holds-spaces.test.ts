@@ -3,7 +3,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import * as t from '@db/schema'
 import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
-import { counts, towInBody } from '../helpers/tow-in'
+import { anotherVehicle, counts, towInBody } from '../helpers/tow-in'
 
 let app: TestApp
 let staff: Awaited<ReturnType<typeof makeStaff>>
@@ -81,7 +81,7 @@ describe('yard spaces', () => {
     expect(res.body).toEqual({ version: 3, space: 'B-2' })
     expect((await history()).at(-1)).toMatchObject({ kind: 'space_assigned', before: { space: 'B-1' }, after: { space: 'B-2' } })
 
-    const other = await d.post('/api/vehicles', towInBody(staff.dispatcher.id)).expect(201)
+    const other = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, anotherVehicle)).expect(201)
     const taken = await put(other.body.id, { version: 1, spaceId: spaces[1]!.id })
     expect(taken.status).toBe(409)
     expect(taken.body.error).toBe(`Space B-2 already holds ${(await d.get(`/api/vehicles/${id}`)).body.vehicle.stockNumber}. Choose another space.`)
@@ -95,7 +95,7 @@ describe('yard spaces', () => {
   })
 
   it('the database itself refuses two vehicles in one space', async () => {
-    const other = (await d.post('/api/vehicles', towInBody(staff.dispatcher.id)).expect(201)).body.id
+    const other = (await d.post('/api/vehicles', towInBody(staff.dispatcher.id, anotherVehicle)).expect(201)).body.id
     await app.db.update(t.vehicles).set({ spaceId: spaces[0]!.id }).where(eq(t.vehicles.id, id))
     await expect(app.db.update(t.vehicles).set({ spaceId: spaces[0]!.id }).where(eq(t.vehicles.id, other))).rejects.toThrow()
   })

@@ -4,7 +4,7 @@ import { verifyChain, historyOf } from '@db/history'
 import * as t from '@db/schema'
 import { makeTestApp, signedIn, type TestApp, TEST_HISTORY_KEY } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
-import { counts, DEMO_RATES, sampleRuleSet, towInBody } from '../helpers/tow-in'
+import { anotherVehicle, counts, DEMO_RATES, sampleRuleSet, towInBody } from '../helpers/tow-in'
 
 let app: TestApp
 let staff: Awaited<ReturnType<typeof makeStaff>>
@@ -49,7 +49,7 @@ describe('logging a tow-in', () => {
     const d = await signedIn(app.app, staff.dispatcher)
     const first = await d.post('/api/vehicles', towInBody(staff.dispatcher.id))
     await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (b.vehicle.make = ''))).expect(400)
-    const second = await d.post('/api/vehicles', towInBody(staff.dispatcher.id))
+    const second = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, anotherVehicle))
     expect([first.body.stockNumber, second.body.stockNumber]).toEqual([`${staff.yard.code}-${year()}-00001`, `${staff.yard.code}-${year()}-00002`])
   })
 
@@ -57,7 +57,7 @@ describe('logging a tow-in', () => {
     const d = await signedIn(app.app, staff.dispatcher)
     // The pin is under two great-circle miles from the yard, inside the five the hook-up includes.
     const near = await d.post('/api/vehicles', { ...towInBody(staff.dispatcher.id), chargeCents: 1 })
-    const road = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => Object.assign(b.tow, { roadMiles: 12, dollies: true })))
+    const road = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (anotherVehicle(b), Object.assign(b.tow, { roadMiles: 12, dollies: true }))))
     const charge = async (id: string) => (await d.get(`/api/vehicles/${id}`)).body.tow
     expect((await charge(near.body.id)).chargeCents).toBe(19_500)
     // 12 road miles less 5 included = 7 × $6.50, plus $75 for dollies.
@@ -87,7 +87,7 @@ describe('logging a tow-in', () => {
     const d = await signedIn(app.app, staff.dispatcher)
     const first = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (b.spaceId = space!.id))).expect(201)
     const before = await counts(app.db)
-    const second = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (b.spaceId = space!.id)))
+    const second = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (anotherVehicle(b), (b.spaceId = space!.id))))
     expect(second.status).toBe(409)
     expect(second.body.error).toBe(`Space A-3 already holds ${first.body.stockNumber}. Choose another space.`)
     expect(second.body.issues).toEqual([{ path: 'spaceId', message: second.body.error }])

@@ -1,3 +1,4 @@
+import { vinWithCheckDigit } from '@shared/domain/vehicle'
 import { readdirSync } from 'node:fs'
 import path from 'node:path'
 import { eq } from 'drizzle-orm'
@@ -11,6 +12,16 @@ import type { TowInInput } from '@shared/schemas/tow-in'
 export const GOOD_VIN = '1G4AH59H45G118341'
 
 /** A complete tow-in a dispatcher might send; `edit` changes it before it is used. */
+/**
+ * Another vehicle than the default one (a fresh VIN of the same maker and year, a fresh plate), for a
+ * test that logs two in one company: the same VIN twice asks the dispatcher why (issue 16, item 14).
+ */
+export function anotherVehicle(b: TowInInput) {
+  const serial = String(Math.floor(Math.random() * 1_000_000)).padStart(6, '0')
+  b.vehicle.vin = vinWithCheckDigit(`1G4AH59H5G${serial}`)
+  b.vehicle.plate = `8T${serial}`.slice(0, 7)
+}
+
 export function towInBody(checkedById: string, edit: (b: TowInInput) => void = () => {}): TowInInput {
   const body: TowInInput = {
     tow: {
