@@ -6,7 +6,12 @@ import { LOCALES, type Locale, isLocale } from './locales'
 // without clashes and each screen's strings sit in one place. @intlify/unplugin-vue-i18n compiles
 // them at build time: no message compiler in the bundle, no eval under the CSP.
 type Catalog = Record<string, unknown>
-const files = import.meta.glob<Catalog>('../locales/*/*.json', { eager: true, import: 'default' })
+// shared/messages/<locale>/<namespace>.json hold the words both sides use (columns, holds, roles,
+// reasons, history, refusals): the server renders the same catalogs for letters and e-mails.
+const files = {
+  ...import.meta.glob<Catalog>('../../shared/messages/*/*.json', { eager: true, import: 'default' }),
+  ...import.meta.glob<Catalog>('../locales/*/*.json', { eager: true, import: 'default' }),
+}
 
 function catalogs(): Record<Locale, Catalog> {
   const messages = Object.fromEntries(LOCALES.map((l) => [l, {}])) as Record<Locale, Catalog>

@@ -1,0 +1,24 @@
+import { i18n } from '@/i18n'
+import { INTL_TAGS, type Locale } from '@/i18n/locales'
+
+// Money is integer cents (shared/domain/billing); the screens show it in the reader's language.
+// Read inside a render, the chosen language is a dependency: switching it re-renders every amount.
+const made = new Map<Locale, Intl.NumberFormat>()
+function formatter(locale: Locale): Intl.NumberFormat {
+  let f = made.get(locale)
+  if (!f) {
+    f = new Intl.NumberFormat(INTL_TAGS[locale].numbers, { style: 'currency', currency: 'USD' })
+    made.set(locale, f)
+  }
+  return f
+}
+
+/** Whole cents as US dollars in the given language, else the one chosen: 123456 → "$1,234.56". */
+export function money(cents: number, locale: Locale = i18n.global.locale.value): string {
+  return formatter(locale).format(cents / 100)
+}
+
+/** A plain number in the chosen language (miles, counts). */
+export function number(value: number, locale: Locale = i18n.global.locale.value): string {
+  return new Intl.NumberFormat(INTL_TAGS[locale].numbers).format(value)
+}
