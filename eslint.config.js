@@ -102,6 +102,10 @@ export default tseslint.config(
       'src/views/SignInView.vue',
       'src/views/NotFoundView.vue',
       'src/views/BoardView.vue',
+      'src/views/TowInView.vue',
+      'src/views/VehicleView.vue',
+      'src/components/tow-in/**',
+      'src/components/vehicles/**',
       'src/components/base/**',
       'src/components/board/**',
       'src/components/shell/**',
@@ -110,7 +114,7 @@ export default tseslint.config(
       '@intlify/vue-i18n/no-raw-text': [
         'error',
         {
-          ignorePattern: '^[-–—·•:/()#%+×.,\\s\\d]*$',
+          ignorePattern: '^[-–—·•:/()#%+×.,→…\\s\\d]*$',
           // Words typed into these attributes are read (or heard) too.
           attributes: { '/.+/': ['label', 'placeholder', 'title', 'aria-label', 'alt', 'submit-label', 'hint', 'caption', 'description'] },
         },

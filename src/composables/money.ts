@@ -18,7 +18,8 @@ export function money(cents: number, locale: Locale = i18n.global.locale.value):
   return formatter(locale).format(cents / 100)
 }
 
-/** A plain number in the chosen language (miles, counts). */
-export function number(value: number, locale: Locale = i18n.global.locale.value): string {
-  return new Intl.NumberFormat(INTL_TAGS[locale].numbers).format(value)
+/** A plain number in the chosen language (miles, counts), with exactly `decimals` places when given. */
+export function number(value: number, decimals?: number, locale: Locale = i18n.global.locale.value): string {
+  const places = decimals === undefined ? {} : { minimumFractionDigits: decimals, maximumFractionDigits: decimals }
+  return new Intl.NumberFormat(INTL_TAGS[locale].numbers, places).format(value)
 }

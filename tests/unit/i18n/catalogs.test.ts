@@ -31,22 +31,22 @@ function messages(root: string, locale: string) {
 const camel = (file: string) => file.replace(/\.json$/, '').replace(/-(\w)/g, (_, c: string) => c.toUpperCase())
 
 describe.each(ROOTS)('message catalogs in %s', (root) => {
-  const catalogs = Object.fromEntries(LOCALES.map((l) => [l, messages(root, l)]))
+  const catalogs = Object.fromEntries(LOCALES.map((l) => [l, messages(root, l)])) as Record<string, Record<string, Record<string, unknown>>>
 
   it('has the same files in every language', () => {
     const [first, ...rest] = LOCALES
-    for (const l of rest) expect(Object.keys(catalogs[l]).sort(), l).toEqual(Object.keys(catalogs[first]).sort())
+    for (const l of rest) expect(Object.keys(catalogs[l]!).sort(), l).toEqual(Object.keys(catalogs[first]!).sort())
   })
 
-  it.each(Object.keys(catalogs.en))('%s holds one namespace named after the file, with the same keys in every language', (file) => {
-    for (const l of LOCALES) expect(Object.keys(catalogs[l][file] ?? {}), `${l}/${file}`).toEqual([camel(file)])
-    const english = keys(catalogs.en[file]).sort()
-    for (const l of LOCALES) expect(keys(catalogs[l][file]).sort(), `${l}/${file}`).toEqual(english)
+  it.each(Object.keys(catalogs.en!))('%s holds one namespace named after the file, with the same keys in every language', (file) => {
+    for (const l of LOCALES) expect(Object.keys(catalogs[l]![file] ?? {}), `${l}/${file}`).toEqual([camel(file)])
+    const english = keys(catalogs.en![file]).sort()
+    for (const l of LOCALES) expect(keys(catalogs[l]![file]).sort(), `${l}/${file}`).toEqual(english)
   })
 
   it('has no blank message', () => {
     for (const l of LOCALES)
-      for (const [file, catalog] of Object.entries(catalogs[l]))
+      for (const [file, catalog] of Object.entries(catalogs[l]!))
         for (const key of keys(catalog)) {
           const value = key.split('.').reduce<unknown>((n, k) => (n as Record<string, unknown>)[k], catalog)
           expect((value as string).trim(), `${l}/${file}: ${key}`).not.toBe('')
@@ -81,5 +81,21 @@ describe('the board moves in the catalogs', () => {
     const { MOVES } = await import('@shared/domain/lifecycle')
     const catalog = messages(ROOTS[1]!, 'en')['lifecycle.json']!.lifecycle as { moves: Record<string, string> }
     for (const rule of MOVES) expect(catalog.moves[`${rule.from}_${rule.to}`], `${rule.from} → ${rule.to}`).toBe(rule.label)
+  })
+})
+
+describe('the teardown checklist in the catalogs', () => {
+  it('every system and item reads in the English catalog exactly as the checklist says it', async () => {
+    const { CHECKLIST, FINDING_LABELS } = await import('@shared/domain/inspection')
+    const catalog = messages(ROOTS[1]!, 'en')['inspection.json']!.inspection as {
+      findings: Record<string, string>
+      systems: Record<string, string>
+      items: Record<string, { label: string; look?: string; part: string }>
+    }
+    expect(catalog.findings).toEqual(FINDING_LABELS)
+    for (const system of CHECKLIST) {
+      expect(catalog.systems[system.code]).toBe(system.label)
+      for (const item of system.items) expect(catalog.items[item.code], item.code).toEqual({ label: item.label, look: item.look, part: item.part })
+    }
   })
 })
