@@ -1,4 +1,3 @@
-/// <reference types="vite/client" />
 import { createI18n } from 'vue-i18n'
 import { LOCALES, type Locale, isLocale } from './locales'
 
