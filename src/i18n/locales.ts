@@ -1,10 +1,7 @@
-/** The languages Holdfast speaks; the first is the fallback for any text a catalog lacks. */
-export const LOCALES = ['en', 'es'] as const
-export type Locale = (typeof LOCALES)[number]
+import { isLocale, type Locale } from '@shared/messages/locales'
 
-export function isLocale(value: unknown): value is Locale {
-  return typeof value === 'string' && (LOCALES as readonly string[]).includes(value)
-}
+/** The languages Holdfast speaks (shared/messages/locales.ts); the first is the fallback for any text a catalog lacks. */
+export { isLocale, LOCALES, type Locale } from '@shared/messages/locales'
 
 /** The browser's first language Holdfast speaks ("es-MX" → "es"), else English. */
 export function browserLocale(languages: readonly string[] = navigator.languages ?? [navigator.language]): Locale {
