@@ -13,7 +13,7 @@ export default defineConfig({
     vue(),
     // The catalogs are compiled to functions at build time; the bundle carries vue-i18n's runtime only.
     VueI18nPlugin({
-      include: [fileURLToPath(new URL('./src/locales/**', import.meta.url)), fileURLToPath(new URL('./shared/messages/**', import.meta.url))],
+      include: [fileURLToPath(new URL('./src/locales/**', import.meta.url)), fileURLToPath(new URL('./shared/messages/*/*.json', import.meta.url))],
       runtimeOnly: true,
       compositionOnly: true,
       strictMessage: false,

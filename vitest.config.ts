@@ -14,7 +14,7 @@ export default defineConfig({
   test: {
     projects: [
       {
-        plugins: [vue(), VueI18nPlugin({ include: [fileURLToPath(new URL('./src/locales/**', import.meta.url)), fileURLToPath(new URL('./shared/messages/**', import.meta.url))], compositionOnly: true, strictMessage: false })],
+        plugins: [vue(), VueI18nPlugin({ include: [fileURLToPath(new URL('./src/locales/**', import.meta.url)), fileURLToPath(new URL('./shared/messages/*/*.json', import.meta.url))], compositionOnly: true, strictMessage: false })],
         resolve: { alias },
         test: {
           name: 'unit',
