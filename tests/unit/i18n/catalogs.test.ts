@@ -99,3 +99,18 @@ describe('the teardown checklist in the catalogs', () => {
     }
   })
 })
+
+describe('the pickup badge in the catalogs', () => {
+  it('every badge the core can name has its words, read from the English name made a code', async () => {
+    const { pickupBadge } = await import('@shared/domain/inspection')
+    const catalog = messages(ROOTS[1]!, 'en')['inspection.json']!.inspection as { badges: Record<string, string> }
+    const yesNo = [true, false]
+    for (const rolls of yesNo)
+      for (const steers of yesNo)
+        for (const brakes of yesNo)
+          for (const keys of ['yes', 'no', 'unknown'] as const) {
+            const label = pickupBadge({ rolls, steers, brakes, keys })!.label
+            expect(catalog.badges[label.toLowerCase().replace(/[^a-z]+/g, '-')], label).toBe(label)
+          }
+  })
+})
