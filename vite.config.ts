@@ -13,7 +13,7 @@ export default defineConfig({
     vue(),
     // The catalogs are compiled to functions at build time; the bundle carries vue-i18n's runtime only.
     VueI18nPlugin({
-      include: [fileURLToPath(new URL('./src/locales/**', import.meta.url))],
+      include: [fileURLToPath(new URL('./src/locales/**', import.meta.url)), fileURLToPath(new URL('./shared/messages/*/*.json', import.meta.url))],
       runtimeOnly: true,
       compositionOnly: true,
       strictMessage: false,
@@ -42,7 +42,12 @@ export default defineConfig({
     rolldownOptions: {
       output: {
         codeSplitting: {
-          groups: [{ name: (id: string) => /\/src\/locales\/([a-z]{2})\//.exec(id)?.[1]?.replace(/^/, 'messages-') ?? null, test: /\/src\/locales\/[a-z]{2}\/(?!common\.json|sign-in\.json)/ }],
+          groups: [
+            {
+              name: (id: string) => `messages-${/\/(?:src\/locales|shared\/messages)\/([a-z]{2})\//.exec(id)?.[1]}`,
+              test: /\/(?:src\/locales\/[a-z]{2}\/(?!common\.json|sign-in\.json)|shared\/messages\/[a-z]{2}\/)/,
+            },
+          ],
         },
       },
     },

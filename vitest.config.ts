@@ -14,11 +14,12 @@ export default defineConfig({
   test: {
     projects: [
       {
-        plugins: [vue(), VueI18nPlugin({ include: [fileURLToPath(new URL('./src/locales/**', import.meta.url))], compositionOnly: true, strictMessage: false })],
+        plugins: [vue(), VueI18nPlugin({ include: [fileURLToPath(new URL('./src/locales/**', import.meta.url)), fileURLToPath(new URL('./shared/messages/*/*.json', import.meta.url))], compositionOnly: true, strictMessage: false })],
         resolve: { alias },
         test: {
           name: 'unit',
           include: ['tests/unit/**/*.test.ts'],
+          setupFiles: ['tests/helpers/i18n-setup.ts'],
           environment: 'node',
           server: { deps: { inline: ['element-plus'] } },
         },

@@ -15,6 +15,8 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/session': 'public',
   'POST /api/session': 'public',
   'DELETE /api/session': 'public',
+  // Anyone signed in sets their own language, and only their own.
+  'PUT /api/session/locale': 'staff',
 
   'GET /api/users': 'admin',
   'POST /api/users': 'admin',

@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm'
 import { boolean, index, integer, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
 import { ROLES } from '@shared/domain/access'
+import { LOCALES } from '@shared/messages/locales'
 import { companies } from './companies'
 import { at, createdAt, id } from './columns'
 
@@ -14,6 +15,8 @@ export const users = pgTable(
     role: text({ enum: ROLES }).notNull(),
     passwordHash: text().notNull(),
     active: boolean().notNull().default(true),
+    /** The language they chose to work in; null: their browser's. */
+    locale: text({ enum: LOCALES }),
     createdAt: createdAt(),
     updatedAt: at().notNull().defaultNow(),
   },

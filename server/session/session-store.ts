@@ -1,6 +1,7 @@
 import { and, eq, gt, lt, sql } from 'drizzle-orm'
 import session from 'express-session'
 import type { Database, Executor } from '@db/client'
+import type { Locale } from '@shared/messages/locales'
 import { sessions } from '@db/schema'
 
 const DAY = 86_400_000
@@ -78,6 +79,14 @@ export async function renameInSessions(db: Executor, userId: string, name: strin
   await db
     .update(sessions)
     .set({ data: sql`jsonb_set(${sessions.data}, '{user,name}', to_jsonb(${name}::text))` })
+    .where(eq(sessions.userId, userId))
+}
+
+/** A person's new language, written into every session they hold (the session carries the user). */
+export async function localeInSessions(db: Executor, userId: string, locale: Locale): Promise<void> {
+  await db
+    .update(sessions)
+    .set({ data: sql`jsonb_set(${sessions.data}, '{user,locale}', to_jsonb(${locale}::text))` })
     .where(eq(sessions.userId, userId))
 }
 

@@ -2,9 +2,11 @@ import { Router } from 'express'
 import { type AnonymousCsrf, newCsrfToken } from '../middleware/index'
 import type { Database } from '@db/client'
 import { signInSchema } from '@shared/schemas/session'
+import { setLocaleSchema } from '@shared/schemas/users'
 import { AppError } from '../errors'
 import { type BoardNotifier, sessionKey } from '../live/index'
 import type { KnownDevices } from './known-devices'
+import { setOwnLocale } from '../users/index'
 import { signIn, signInRefused, stillAsVerified } from './session.service'
 import { addressKey, type SignInThrottle } from './sign-in-throttle'
 
@@ -63,6 +65,14 @@ export function sessionRouter(db: Database, { anonymous, devices, throttle, boar
     }
     devices.remember(req, res, input.email)
     res.json({ user, csrfToken: req.session.csrfToken })
+  })
+
+  // The signed-in person's own language, kept with the account: the next sign-in, on any device, opens in it.
+  router.put('/locale', async (req, res) => {
+    const { locale } = setLocaleSchema.parse(req.body)
+    const user = await setOwnLocale(db, req.user!, locale)
+    req.session.user = user
+    res.json({ user })
   })
 
   router.delete('/', async (req, res) => {

@@ -31,7 +31,9 @@ export async function signIn(db: Database, input: SignIn): Promise<Verified | nu
   const matches = await Promise.all(rows.map((r) => verifyPassword(r.passwordHash, input.password)))
   const row = rows.find((r, i) => matches[i] && r.active)
   if (!row) return null
-  return { user: { id: row.id, email: row.email, name: row.name, role: row.role }, passwordHash: row.passwordHash }
+  // The language only once the person chose one: until then the browser's, and the answer as it always was.
+  const user: User = { id: row.id, email: row.email, name: row.name, role: row.role, ...(row.locale ? { locale: row.locale } : {}) }
+  return { user, passwordHash: row.passwordHash }
 }
 
 /**

@@ -1,4 +1,5 @@
 export { usersRouter } from './users.routes'
+export { setOwnLocale } from './users.service'
 export { hashPassword, verifyPassword } from './passwords'
 export { companyOf, insertUser } from './users.queries'
 export { refusingCommonPasswords } from './common-passwords'

@@ -1,8 +1,9 @@
 import type { Database } from '@db/client'
+import type { Locale } from '@shared/messages/locales'
 import type { CreateUser, UpdateUser, User } from '@shared/schemas/users'
 import { conflict, notFound, unprocessable } from '../errors'
 import type { BoardNotifier } from '../live/index'
-import { endSessionsOf, renameInSessions } from '../session/index'
+import { endSessionsOf, localeInSessions, renameInSessions } from '../session/index'
 import { hashPassword } from './passwords'
 import * as q from './users.queries'
 
@@ -54,6 +55,16 @@ export async function changeUser(db: Database, boards: BoardNotifier, actor: Use
   // Their open board streams too, on every app server.
   if (endsSessions) await boards.sessionsEnded({ userId: id })
   return row
+}
+
+/** A person's own language: saved with the account and written into their sessions, so every tab and server knows it. */
+export async function setOwnLocale(db: Database, actor: User, locale: Locale): Promise<User> {
+  return db.transaction(async (tx) => {
+    const row = await q.updateUser(tx, actor.id, { locale })
+    if (!row) throw notFound('That user')
+    await localeInSessions(tx, actor.id, locale)
+    return { id: row.id, email: row.email, name: row.name, role: row.role, locale }
+  })
 }
 
 export async function resetPassword(db: Database, boards: BoardNotifier, actor: User, id: string, password: string) {

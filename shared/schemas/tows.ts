@@ -67,6 +67,7 @@ export const towLineSchema = z.object({
   unitCents: z.number(),
   amountCents: z.number(),
   reason: z.string(),
+  params: z.record(z.string(), z.union([z.string(), z.number()])).optional(),
 })
 
 /** A yard's tow rates (shared/domain/tow/tow-charge.ts TowRates); a yard that has none bills nothing yet. */

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { normalizePassword, passwordProblem } from '../domain/passwords'
 import { ROLES } from '../domain/access/roles'
+import { LOCALES } from '../messages/locales'
 import { text } from './fields'
 
 export const roleSchema = z.enum(ROLES, { error: 'Choose a role: manager, dispatcher, technician or office.' })
@@ -16,11 +17,15 @@ export const passwordSchema = text({ error: 'Enter a password.' })
     if (problem) ctx.addIssue({ code: 'custom', message: problem })
   })
 
+export const localeSchema = z.enum(LOCALES, { error: 'Choose English or Spanish.' })
+
 export const userSchema = z.object({
   id: z.uuid(),
   email: z.string(),
   name: z.string(),
   role: roleSchema,
+  /** The language this person chose to work in; none yet: the browser's. */
+  locale: localeSchema.nullable().optional(),
 })
 export type User = z.infer<typeof userSchema>
 
@@ -48,3 +53,7 @@ export const updateUserSchema = z
 export type UpdateUser = z.infer<typeof updateUserSchema>
 
 export const resetPasswordSchema = z.object({ password: passwordSchema })
+
+/** A person's own language, saved with their account (PUT /api/session/locale). */
+export const setLocaleSchema = z.object({ locale: localeSchema })
+export type SetLocale = z.infer<typeof setLocaleSchema>

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { sessionSchema, type SignIn } from '@shared/schemas/session'
+import type { Locale } from '@shared/messages/locales'
 import { userSchema } from '@shared/schemas/users'
 import { request, requestEmpty, setCsrfToken } from './http'
 
@@ -16,3 +17,9 @@ export async function signIn(input: SignIn) {
 }
 
 export const signOut = () => requestEmpty('DELETE', '/api/session')
+
+/** The signed-in person's own language, saved with their account; answers with the user as the session now holds it. */
+export async function saveLocale(locale: Locale) {
+  const res = await request('PUT', '/api/session/locale', z.object({ user: userSchema }), { locale })
+  return res.user
+}

@@ -1,9 +1,10 @@
 import { reactive } from 'vue'
-import { checkMove, COLUMN_LABELS, type Disposition, DISPOSITION_LABELS, factsOfCard, moveOptions, type VehicleState } from '@shared/domain/lifecycle'
+import { checkMove, type Disposition, factsOfCard, moveOptions, type VehicleState } from '@shared/domain/lifecycle'
 import type { BoardCard } from '@shared/schemas/board'
 import { moveConflictSchema, moveRefusalSchema } from '@shared/schemas/moves'
 import { useMoveVehicleMutation } from '@/api/board'
 import { ApiError } from '@/api/http'
+import { i18n } from '@/i18n'
 import { useSessionStore } from '@/stores/session'
 import { useBoardCache } from './board-cache'
 
@@ -16,9 +17,13 @@ export type MoveOutcome =
   | { ok: true; card: BoardCard; title: string }
   | { ok: false; title: string; reasons: string[]; conflict?: true }
 
-const where = (to: VehicleState, d?: Disposition | null) =>
-  to === 'closed' ? `closed as ${d ? DISPOSITION_LABELS[d].toLowerCase() : 'gone'}` : `in ${COLUMN_LABELS[to]}`
-const cannot = (card: BoardCard, to: VehicleState) => `${card.stockNumber} cannot ${to === 'closed' ? 'be closed' : `go to ${COLUMN_LABELS[to]}`}`
+const { t } = i18n.global
+const done = (card: BoardCard, to: VehicleState, d?: Disposition | null) =>
+  to === 'closed' && d
+    ? t('board.closedAs', { stock: card.stockNumber, disposition: t(`lifecycle.dispositions.${d}`).toLowerCase() })
+    : t('board.movedTo', { stock: card.stockNumber, column: t(`lifecycle.columns.${to}`) })
+const cannot = (card: BoardCard, to: VehicleState) =>
+  to === 'closed' ? t('board.cannotClose', { stock: card.stockNumber }) : t('board.cannotGo', { stock: card.stockNumber, column: t(`lifecycle.columns.${to}`) })
 
 /**
  * Board moves through the shared lifecycle: refused at once with its reasons when the rules say no,
@@ -44,12 +49,12 @@ export function useBoardMoves() {
     try {
       const updated = await send.mutateAsync({ id: card.id, move: { to, version: card.version, reason: details.reason, disposition: details.disposition } })
       cache.put(updated)
-      return { ok: true, card: updated, title: `${card.stockNumber} is now ${where(to, details.disposition)}.` }
+      return { ok: true, card: updated, title: done(card, to, details.disposition) }
     } catch (e) {
       const conflict = e instanceof ApiError && e.status === 409 ? moveConflictSchema.safeParse(e.body) : null
       if (conflict?.success) {
         cache.put(conflict.data.current)
-        return { ok: false, conflict: true, title: `${card.stockNumber} was changed by someone else`, reasons: [conflict.data.error] }
+        return { ok: false, conflict: true, title: t('board.changedElsewhere', { stock: card.stockNumber }), reasons: [conflict.data.error] }
       }
       cache.put(card)
       const refusal = e instanceof ApiError ? moveRefusalSchema.safeParse(e.body) : null

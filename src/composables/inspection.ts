@@ -2,6 +2,7 @@ import { reactive, ref, type Ref } from 'vue'
 import type { InspectionPage } from '@shared/schemas/inspections'
 import { ApiError } from '@/api/http'
 import { useInspectionMutation, useInspectionQuery } from '@/api/inspections'
+import { i18n } from '@/i18n'
 
 export interface Problem {
   title: string
@@ -10,16 +11,18 @@ export interface Problem {
 
 /** A refusal put in the technician's words; the fields it names get their own messages beside them. */
 export function problemOf(e: unknown, inline: readonly string[] = []): Problem | null {
-  if (!(e instanceof ApiError)) return { title: 'Not saved', reasons: [(e as Error).message] }
+  const { t } = i18n.global
+  const notSaved = t('inspections.problem.notSaved')
+  if (!(e instanceof ApiError)) return { title: notSaved, reasons: [(e as Error).message] }
   // A move made against an older version: the server's words point at the board, not this page.
   if (e.status === 409 && 'current' in e.body) {
-    return { title: 'Someone else changed this vehicle', reasons: ['Nothing was saved. The page now shows their change: check it, then tap again.'] }
+    return { title: t('inspections.problem.changedElsewhere'), reasons: [t('inspections.problem.theirChange')] }
   }
-  if (e.status === 409) return { title: 'Not saved', reasons: [e.message, 'The page now shows the vehicle as it is.'] }
-  if (e.issues.length === 0) return { title: 'Not saved', reasons: [e.message] }
+  if (e.status === 409) return { title: notSaved, reasons: [e.message, t('inspections.problem.asItIs')] }
+  if (e.issues.length === 0) return { title: notSaved, reasons: [e.message] }
   // The top-level message of a 400 names fields by their code names; each issue has its own words.
   const elsewhere = [...new Set(e.issues.filter((i) => !inline.includes(i.path)).map((i) => i.message))]
-  return elsewhere.length ? { title: 'Not saved', reasons: elsewhere } : null
+  return elsewhere.length ? { title: notSaved, reasons: elsewhere } : null
 }
 
 /**

@@ -1,22 +1,25 @@
 import { computed, toValue, type MaybeRefOrGetter } from 'vue'
 import { useCurrentYardQuery } from '@/api/yards'
+import { i18n } from '@/i18n'
+import { INTL_TAGS, type Locale } from '@/i18n/locales'
 import { useSessionStore } from '@/stores/session'
 
-// The one look of each on every screen, always on the yard's clock: "1 Dec 2026",
-// "Tue, 1 Dec 2026, 14:05", "14:05". The date-time pickers show the same (PICKER_DISPLAY_FORMAT).
+// The one look of each on every screen, always on the yard's clock, in the reader's language:
+// "1 Dec 2026", "Tue, 1 Dec 2026, 14:05", "14:05" ("1 dic 2026", "mar, 1 de dic de 2026, 14:05").
+// A 24-hour clock in both, as the date-time pickers show it (PICKER_DISPLAY_FORMAT).
 const LOOKS = {
   date: { day: 'numeric', month: 'short', year: 'numeric' },
-  dateTime: { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' },
-  time: { hour: '2-digit', minute: '2-digit' },
+  dateTime: { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' },
+  time: { hour: '2-digit', minute: '2-digit', hourCycle: 'h23' },
 } as const satisfies Record<string, Intl.DateTimeFormatOptions>
 type Look = keyof typeof LOOKS
 
 const made = new Map<string, Intl.DateTimeFormat>()
-function formatter(look: Look, timeZone: string): Intl.DateTimeFormat {
-  const key = `${look} ${timeZone}`
+function formatter(look: Look, timeZone: string, locale: Locale): Intl.DateTimeFormat {
+  const key = `${look} ${timeZone} ${locale}`
   let f = made.get(key)
   if (!f) {
-    f = new Intl.DateTimeFormat('en-GB', { ...LOOKS[look], timeZone })
+    f = new Intl.DateTimeFormat(INTL_TAGS[locale].dates, { ...LOOKS[look], timeZone })
     made.set(key, f)
   }
   return f
@@ -25,16 +28,20 @@ function formatter(look: Look, timeZone: string): Intl.DateTimeFormat {
 /** An instant: an ISO 8601 string with its offset, as every schema carries it, or a Date. */
 export type Instant = string | Date
 
-/** The three looks on one zone's clock; nothing recorded shows as "—". */
-export function yardFormat(timeZone: string) {
-  const as = (look: Look) => (at: Instant | null | undefined) => (at == null || at === '' ? '—' : formatter(look, timeZone).format(new Date(at)))
+// Read inside a render, the chosen language is a dependency: switching it re-renders every date.
+const chosen = (): Locale => i18n.global.locale.value
+
+/** The three looks on one zone's clock, in the given language, else the one chosen; nothing recorded shows as "—". */
+export function yardFormat(timeZone: string, locale?: Locale) {
+  const as = (look: Look) => (at: Instant | null | undefined) =>
+    at == null || at === '' ? '—' : formatter(look, timeZone, locale ?? chosen()).format(new Date(at))
   return { date: as('date'), dateTime: as('dateTime'), time: as('time') }
 }
 
 /** A calendar day the server already counted on the yard's clock ("2026-12-30", a legal deadline), in the date look. */
-export function calendarDate(day: string): string {
+export function calendarDate(day: string, locale: Locale = chosen()): string {
   const [y, m, d] = day.split('-').map(Number) as [number, number, number]
-  return formatter('date', 'UTC').format(new Date(Date.UTC(y, m - 1, d)))
+  return formatter('date', 'UTC', locale).format(new Date(Date.UTC(y, m - 1, d)))
 }
 
 /**

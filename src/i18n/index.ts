@@ -11,7 +11,11 @@ import { LOCALES, type Locale, isLocale } from './locales'
 // when someone switches language — the sign-in page stays small (issue 9's budget).
 type Catalog = Record<string, unknown>
 const first = import.meta.glob<Catalog>(['../locales/*/common.json', '../locales/*/sign-in.json'], { eager: true, import: 'default' })
-const later = import.meta.glob<Catalog>(['../locales/*/*.json', '!../locales/*/common.json', '!../locales/*/sign-in.json'], { import: 'default' })
+// shared/messages/<locale>/<namespace>.json hold the words both sides use (columns, holds, roles,
+// reasons, history, refusals): the server renders the same catalogs for letters and e-mails.
+const later = import.meta.glob<Catalog>(['../../shared/messages/*/*.json', '../locales/*/*.json', '!../locales/*/common.json', '!../locales/*/sign-in.json'], {
+  import: 'default',
+})
 
 const localeOf = (path: string) => path.split('/').at(-2)
 

@@ -1,10 +1,7 @@
-/** The languages Holdfast speaks; the first is the fallback for any text a catalog lacks. */
-export const LOCALES = ['en', 'es'] as const
-export type Locale = (typeof LOCALES)[number]
+import { isLocale, type Locale } from '@shared/messages/locales'
 
-export function isLocale(value: unknown): value is Locale {
-  return typeof value === 'string' && (LOCALES as readonly string[]).includes(value)
-}
+/** The languages Holdfast speaks (shared/messages/locales.ts); the first is the fallback for any text a catalog lacks. */
+export { isLocale, LOCALES, type Locale } from '@shared/messages/locales'
 
 /** The browser's first language Holdfast speaks ("es-MX" → "es"), else English. */
 export function browserLocale(languages: readonly string[] = navigator.languages ?? [navigator.language]): Locale {
@@ -13,4 +10,14 @@ export function browserLocale(languages: readonly string[] = navigator.languages
     if (isLocale(base)) return base
   }
   return 'en'
+}
+
+/**
+ * The Intl tags each language formats with. English keeps the look Holdfast always had ("1 Dec 2026",
+ * "$1,234.50"); Spanish is the Spanish of the United States ("1 dic 2026", "$1,234.50"): the yards bill in
+ * US dollars, and a Spanish-reading clerk in a US yard reads amounts the way the bank and the DMV print them.
+ */
+export const INTL_TAGS: Record<Locale, { dates: string; numbers: string }> = {
+  en: { dates: 'en-GB', numbers: 'en-US' },
+  es: { dates: 'es-US', numbers: 'es-US' },
 }

@@ -1,6 +1,7 @@
 import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
 import type { Permission } from '@shared/domain/access'
 import { prefetchBoard } from '@/api/board'
+import { i18n } from '@/i18n'
 import { useLocaleStore } from '@/stores/locale'
 import { useSessionStore } from '@/stores/session'
 
@@ -12,8 +13,9 @@ declare module 'vue-router' {
     bare?: boolean
     /** The permission (shared/domain/access/permissions.ts) a role needs to open this page. */
     permission?: Permission
-    /** Shown in the top bar's navigation with this label. */
+    /** Shown in the top bar's navigation with this label (a catalog key). */
     nav?: string
+    /** The page's title (a catalog key). */
     title?: string
     /** Starts the page's data loading as soon as the route is allowed. */
     prefetch?: () => void
@@ -22,18 +24,18 @@ declare module 'vue-router' {
 
 export const routes: RouteRecordRaw[] = [
   { path: '/', redirect: '/board' },
-  { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { public: true, title: 'Sign in' } },
-  { path: '/board', name: 'board', component: () => import('@/views/BoardView.vue'), meta: { permission: 'board.view', nav: 'Board', title: 'Board', prefetch: prefetchBoard } },
-  { path: '/archive', name: 'archive', component: () => import('@/views/ArchiveView.vue'), meta: { permission: 'board.view', nav: 'Archive', title: 'Archive' } },
-  { path: '/tow-in', name: 'tow-in', component: () => import('@/views/TowInView.vue'), meta: { permission: 'towin.write', nav: 'Log a tow-in', title: 'Log a tow-in' } },
-  { path: '/vehicles/:vehicleId', name: 'vehicle', component: () => import('@/views/VehicleView.vue'), meta: { permission: 'board.view', title: 'Vehicle' } },
-  { path: '/vehicles/:vehicleId/inspection', name: 'inspection', component: () => import('@/views/InspectionView.vue'), meta: { permission: 'board.view', title: 'Teardown' } },
-  { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { permission: 'outbox', nav: 'Outbox', title: 'Outbox' } },
+  { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { public: true, title: 'signIn.pageTitle' } },
+  { path: '/board', name: 'board', component: () => import('@/views/BoardView.vue'), meta: { permission: 'board.view', nav: 'shell.nav.board', title: 'shell.titles.board', prefetch: prefetchBoard } },
+  { path: '/archive', name: 'archive', component: () => import('@/views/ArchiveView.vue'), meta: { permission: 'board.view', nav: 'shell.nav.archive', title: 'shell.titles.archive' } },
+  { path: '/tow-in', name: 'tow-in', component: () => import('@/views/TowInView.vue'), meta: { permission: 'towin.write', nav: 'shell.nav.towIn', title: 'shell.titles.towIn' } },
+  { path: '/vehicles/:vehicleId', name: 'vehicle', component: () => import('@/views/VehicleView.vue'), meta: { permission: 'board.view', title: 'shell.titles.vehicle' } },
+  { path: '/vehicles/:vehicleId/inspection', name: 'inspection', component: () => import('@/views/InspectionView.vue'), meta: { permission: 'board.view', title: 'shell.titles.inspection' } },
+  { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { permission: 'outbox', nav: 'shell.nav.outbox', title: 'shell.titles.outbox' } },
   // The owner's page (no account): its key is a link's token or the short code from a letter.
-  { path: '/o', name: 'owner-start', component: () => import('@/views/OwnerStartView.vue'), meta: { public: true, bare: true, title: 'Your vehicle' } },
-  { path: '/o/:key', name: 'owner', component: () => import('@/views/OwnerView.vue'), meta: { public: true, bare: true, title: 'Your vehicle' } },
-  { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'Staff', title: 'Staff' } },
-  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
+  { path: '/o', name: 'owner-start', component: () => import('@/views/OwnerStartView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
+  { path: '/o/:key', name: 'owner', component: () => import('@/views/OwnerView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
+  { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'shell.nav.users', title: 'shell.titles.users' } },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'shell.titles.notFound' } },
 ]
 
 export const router = createRouter({
@@ -74,5 +76,5 @@ function loadComponent(component: unknown) {
 }
 
 router.afterEach((to) => {
-  document.title = to.meta.title ? `${to.meta.title} · Holdfast` : 'Holdfast'
+  document.title = to.meta.title ? `${i18n.global.t(to.meta.title)} · Holdfast` : 'Holdfast'
 })

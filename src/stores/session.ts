@@ -1,22 +1,43 @@
 import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import { can, type Permission } from '@shared/domain/access'
+import type { Locale } from '@shared/messages/locales'
 import type { SignIn } from '@shared/schemas/session'
 import type { User } from '@shared/schemas/users'
 import * as api from '@/api/session'
+import { useLocaleStore } from './locale'
 
 export const useSessionStore = defineStore('session', () => {
   const user = ref<User | null>(null)
   const loaded = ref(false)
+  const locale = useLocaleStore()
+
+  // A person who chose a language works in it on every device they sign in on.
+  function takeLocale(u: User | null) {
+    if (u?.locale) locale.choose(u.locale)
+  }
 
   async function load() {
     const state = await api.fetchSession()
     user.value = state.user
+    takeLocale(state.user)
     loaded.value = true
   }
 
   async function signIn(input: SignIn) {
     user.value = await api.signIn(input)
+    takeLocale(user.value)
+  }
+
+  /** Switches the language at once; signed in, it is also saved with the account (kept on this device if that fails). */
+  async function chooseLocale(next: Locale) {
+    locale.choose(next)
+    if (!user.value || user.value.locale === next) return
+    try {
+      user.value = await api.saveLocale(next)
+    } catch {
+      // Offline or signed out meanwhile: this device keeps the choice, the account its last one.
+    }
   }
 
   async function signOut() {
@@ -29,5 +50,5 @@ export const useSessionStore = defineStore('session', () => {
   const signedIn = computed(() => user.value !== null)
   const allows = (permission: Permission) => can(user.value?.role, permission)
 
-  return { user, loaded, signedIn, load, signIn, signOut, allows }
+  return { user, loaded, signedIn, load, signIn, signOut, allows, chooseLocale }
 })

@@ -199,3 +199,39 @@ describe('sign-in rate limits', () => {
     }
   })
 })
+
+describe('a person’s own language', () => {
+  it('PUT /api/session/locale saves it with the account: the session answers with it, and the next sign-in too', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.technician)
+    expect((await s.get('/api/session')).body.user.locale).toBeUndefined()
+
+    const res = await s.put('/api/session/locale', { locale: 'es' })
+    expect(res.status).toBe(200)
+    expect(res.body.user).toMatchObject({ id: staff.technician.id, locale: 'es' })
+    expect((await s.get('/api/session')).body.user.locale).toBe('es')
+
+    const elsewhere = await browserSession(t.app)
+    const again = await elsewhere.signIn(staff.technician.email, staff.technician.password)
+    expect(again.body.user.locale).toBe('es')
+  })
+
+  it('PUT /api/session/locale reaches every session the person holds, not only the one that asked', async () => {
+    const staff = await makeStaff(t.db)
+    const phone = await signedIn(t.app, staff.dispatcher)
+    const desk = await signedIn(t.app, staff.dispatcher)
+    await phone.put('/api/session/locale', { locale: 'es' }).expect(200)
+    expect((await desk.get('/api/session')).body.user.locale).toBe('es')
+  })
+
+  it('PUT /api/session/locale refuses a language Holdfast does not speak, and a visitor not signed in', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.office)
+    const wrong = await s.put('/api/session/locale', { locale: 'fr' })
+    expect(wrong.status).toBe(400)
+    expect(wrong.body.issues[0]).toMatchObject({ path: 'locale', message: 'Choose English or Spanish.' })
+
+    const visitor = await browserSession(t.app)
+    expect((await visitor.put('/api/session/locale', { locale: 'es' })).status).toBe(401)
+  })
+})

@@ -65,8 +65,8 @@ export async function browserSession(app: TestApp['app']) {
     },
     get: (url: string) => agent.get(url),
     post: (url: string, body?: object) => agent.post(url).set('x-csrf-token', csrf).send(body),
-    patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', csrf).send(body),
     put: (url: string, body?: object) => agent.put(url).set('x-csrf-token', csrf).send(body),
+    patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', csrf).send(body),
     del: (url: string) => agent.delete(url).set('x-csrf-token', csrf),
   }
 }

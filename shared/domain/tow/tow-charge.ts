@@ -28,6 +28,8 @@ export type TowLine = {
   unitCents: Cents
   amountCents: Cents
   reason: string
+  /** The numbers the reason quotes, so a reader's language can say it again (shared/messages tow.lines). */
+  params?: Record<string, string | number>
 }
 
 export type TowCharge = {
@@ -66,6 +68,7 @@ export function towCharge(pickup: LatLng, yard: LatLng, rates: TowRates, extras:
       quantity: billableTenths / 10,
       unitCents: rates.perMileCents,
       amountCents: multiplyRounded(rates.perMileCents, { amount: billableTenths, scale: 1 }),
+      params: { from: road === undefined ? 'great-circle' : 'road', miles: road === undefined ? miles.toFixed(2) : shown(tenthsUp(road)), included, billed: shown(billableTenths) },
       reason:
         `${road === undefined ? `${miles.toFixed(2)} great-circle miles from the pickup point to the yard` : `${shown(tenthsUp(road))} road miles as entered`}` +
         (included > 0 ? `, less ${included} included with the hook-up` : '') +
@@ -78,7 +81,7 @@ export function towCharge(pickup: LatLng, yard: LatLng, rates: TowRates, extras:
   }
   if (units > 0) {
     const unit = rates.winchingCentsPerUnit ?? 0
-    lines.push({ code: 'winching', label: 'Winching', quantity: units, unitCents: unit, amountCents: times(unit, units, 'winching'), reason: `${units} unit${units === 1 ? '' : 's'} of winching.` })
+    lines.push({ code: 'winching', label: 'Winching', quantity: units, unitCents: unit, amountCents: times(unit, units, 'winching'), params: { n: units }, reason: `${units} unit${units === 1 ? '' : 's'} of winching.` })
   }
   if (extras.dollies) {
     const unit = rates.dolliesCents ?? 0

@@ -5,6 +5,7 @@ import { afterEach, beforeAll, describe, expect, it } from 'vitest'
 import type { VehicleSummary } from '@shared/schemas/charges'
 import { i18n, loadMessages } from '@/i18n'
 import VehiclesChargesPanel from '../../../src/components/vehicles/VehiclesChargesPanel.vue'
+import { withI18n } from '../../helpers/i18n'
 
 const ruleSet = { name: 'California (sample)', version: 1, caution: 'Sample — verify with your local code.' }
 const noValue = { value: { cents: null, source: null }, canRecordValue: false }
@@ -64,5 +65,27 @@ describe('the bill panel on the vehicle page', () => {
     expect(w.get('[data-testid="vehicle-value"]').text()).toContain('$420.00, from: Price guide')
     await w.get('[data-testid="vehicle-value"] button').trigger('click')
     expect(w.emitted('recordValue')).toHaveLength(1)
+  })
+})
+
+describe('the bill panel in Spanish', () => {
+  it('chargesPanel_spanishChosen_saysItInSpanishWithTheAmountsAsAUsYardPrintsThem', () => {
+    const summary = {
+      balanceCents: 123456,
+      storageCents: 100000,
+      towCents: 23456,
+      daysOnLot: 4,
+      nextDeadline: null,
+      lienSale: null,
+      clockAlerts: [],
+      warnings: [],
+    }
+    const w = mount(VehiclesChargesPanel, { props: { summary, ruleSet, problem: null, ...noValue } as never, global: { ...global, plugins: [withI18n('es')] } })
+    // es-US writes US dollars as English does ("$1,234.56"; Intl with CLDR es-US, Node 20's ICU).
+    expect(w.text()).toContain('$1,234.56')
+    expect(w.text()).toContain('debe hasta hoy · día 4 de almacenaje')
+    expect(w.text()).toContain('Almacenaje y cargos $1,000.00 · arrastre $234.56')
+    expect(w.text()).toContain('Todavía no corre ningún plazo legal.')
+    withI18n('en')
   })
 })

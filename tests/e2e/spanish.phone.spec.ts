@@ -1,0 +1,66 @@
+import { expect, test } from '@playwright/test'
+import { DEMO, watchConsole } from './helpers'
+
+// A phone whose browser reads Spanish first: Holdfast opens in Spanish without anyone choosing it.
+// The account's own language is not touched here (tests/api/session.test.ts covers it), so the demo
+// staff still sign in to English in the other specs.
+test.use({ locale: 'es-ES' })
+
+async function signInInSpanish(page: import('@playwright/test').Page) {
+  await page.goto('/sign-in')
+  await expect(page.locator('html')).toHaveAttribute('lang', 'es')
+  await expect(page.getByRole('button', { name: 'Entrar' })).toBeVisible()
+  await page.getByLabel('Correo electrónico').fill(DEMO.dispatcher)
+  await page.getByLabel('Contraseña', { exact: true }).fill(DEMO.password)
+  await page.getByRole('button', { name: 'Entrar' }).click()
+  await expect(page).toHaveURL(/\/board/)
+}
+
+test('en un teléfono en español: la entrada, el tablero y el registro de un ingreso se leen en español', async ({ page }) => {
+  const problems = watchConsole(page)
+  await signInInSpanish(page)
+
+  // The board: the column tabs, a card's words and the top bar.
+  const main = page.getByRole('navigation', { name: 'Principal' })
+  await expect(main.getByRole('link')).toHaveText(['Tablero', 'Archivo', 'Registrar ingreso'])
+  await expect(page.getByRole('navigation', { name: 'Columnas' }).getByRole('button').first()).toContainText('Llegada')
+  const card = page.locator('[data-column="arrival"] [data-stock]').first()
+  await expect(card).toBeVisible()
+  await expect(card.getByRole('button', { name: /^Mover .* a…$/ })).toHaveText('Mover a…')
+  await expect(page.getByRole('button', { name: 'Salir' })).toBeVisible()
+
+  // The tow-in form: its heading and sections, and the quote once the pickup is on the map.
+  await main.getByRole('link', { name: 'Registrar ingreso' }).tap()
+  await expect(page.getByRole('heading', { name: 'Registrar ingreso' })).toBeVisible()
+  await expect(page.getByRole('heading', { name: 'Dónde se recogió' })).toBeVisible()
+  await expect(page.getByRole('heading', { name: 'Cuándo, por qué y quién lo pidió' })).toBeVisible()
+  const map = page.getByTestId('map')
+  await expect(map.locator('img.leaflet-tile-loaded').first()).toBeVisible()
+  const box = (await map.boundingBox())!
+  await page.touchscreen.tap(box.x + box.width * 0.3, box.y + box.height * 0.6)
+  await expect(page.getByTestId('tow-quote')).toContainText('al patio en línea recta')
+  await expect(page.getByTestId('tow-quote')).toContainText('Enganche')
+  await expect(page.getByRole('button', { name: 'Registrar el vehículo' })).toBeInViewport()
+
+  // Saving an empty form is refused in Spanish, the count of fields to check with it.
+  await page.getByRole('button', { name: 'Registrar el vehículo' }).tap()
+  await expect(page.locator('.tow-in-view__errors')).toContainText(/campos? por revisar/)
+
+  // One column, nothing wider than the screen.
+  const widths = await page.evaluate(() => [document.documentElement.scrollWidth, document.documentElement.clientWidth])
+  expect(widths[0]).toBeLessThanOrEqual(widths[1]!)
+  expect(problems).toEqual([])
+})
+
+test('en un teléfono en español: el selector de idioma cambia la pantalla al momento, y se queda con la elección', async ({ page }) => {
+  await page.goto('/sign-in')
+  await expect(page.getByRole('button', { name: 'Entrar' })).toBeVisible()
+  const languages = page.getByRole('group', { name: 'Idioma' })
+  await languages.getByRole('button', { name: 'English' }).tap()
+  await expect(page.getByRole('button', { name: 'Sign in' })).toBeVisible()
+  await expect(page.locator('html')).toHaveAttribute('lang', 'en')
+  await page.reload()
+  await expect(page.getByRole('button', { name: 'Sign in' })).toBeVisible()
+  await page.getByRole('group', { name: 'Language' }).getByRole('button', { name: 'Español' }).tap()
+  await expect(page.getByRole('button', { name: 'Entrar' })).toBeVisible()
+})
