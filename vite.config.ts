@@ -44,6 +44,7 @@ export default defineConfig({
         codeSplitting: {
           groups: [
             {
+              debugName: 'messages',
               name: (id: string) => `messages-${/\/(?:src\/locales|shared\/messages)\/([a-z]{2})\//.exec(id)?.[1]}`,
               test: /\/(?:src\/locales\/[a-z]{2}\/(?!common\.json|sign-in\.json)|shared\/messages\/[a-z]{2}\/)/,
             },
