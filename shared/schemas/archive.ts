@@ -1,8 +1,7 @@
 import { z } from 'zod'
+import { pagingShape } from './fields'
 import { DISPOSITIONS } from '../domain/lifecycle/columns'
 import { vehicleIdentityShape } from './board'
-
-export const ARCHIVE_PAGE_SIZES = [25, 50, 100] as const
 
 export const archiveQuerySchema = z.object({
   q: z
@@ -15,12 +14,7 @@ export const archiveQuerySchema = z.object({
     .enum(DISPOSITIONS, { error: 'Choose one of the ways a vehicle leaves the yard.' })
     .optional()
     .transform((v) => v ?? null),
-  page: z.coerce.number({ error: 'The page is a number.' }).int('The page is a whole number.').min(1, 'Pages start at 1.').max(100_000).default(1),
-  pageSize: z.coerce
-    .number({ error: 'The page size is a number.' })
-    .int('The page size is a whole number.')
-    .refine((n) => (ARCHIVE_PAGE_SIZES as readonly number[]).includes(n), `Show ${ARCHIVE_PAGE_SIZES.join(', ')} a page.`)
-    .default(25),
+  ...pagingShape,
 })
 export type ArchiveQuery = z.input<typeof archiveQuerySchema>
 

@@ -52,3 +52,16 @@ export const uuidSchema = (message: string) => z.uuid({ error: message })
  * Such a check must read its fields defensively: they may not have parsed.
  */
 export const alongsideFieldIssues = { when: (payload: { value: unknown }) => typeof payload.value === 'object' && payload.value !== null }
+
+/** The page sizes a long list offers; a list's first page shows the first of them. */
+export const PAGE_SIZES = [25, 50, 100] as const
+
+/** `page` and `pageSize` of a paged list's query string (the archive, the outbox). */
+export const pagingShape = {
+  page: z.coerce.number({ error: 'The page is a number.' }).int('The page is a whole number.').min(1, 'Pages start at 1.').max(100_000).default(1),
+  pageSize: z.coerce
+    .number({ error: 'The page size is a number.' })
+    .int('The page size is a whole number.')
+    .refine((n) => (PAGE_SIZES as readonly number[]).includes(n), `Show ${PAGE_SIZES.join(', ')} a page.`)
+    .default(PAGE_SIZES[0]),
+}

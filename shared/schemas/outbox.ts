@@ -1,24 +1,17 @@
 import { z } from 'zod'
-import { requiredText, text } from './fields'
+import { pagingShape, requiredText, text } from './fields'
 
 export const MESSAGE_STATUSES = ['queued', 'sending', 'sent', 'failed'] as const
 export type MessageStatus = (typeof MESSAGE_STATUSES)[number]
 
 export const MESSAGE_LANGUAGES = ['en', 'es'] as const
 
-export const OUTBOX_PAGE_SIZES = [25, 50, 100] as const
-
 export const outboxQuerySchema = z.object({
   status: z
     .enum(MESSAGE_STATUSES, { error: 'Choose queued, sending, sent or failed.' })
     .optional()
     .transform((v) => v ?? null),
-  page: z.coerce.number({ error: 'The page is a number.' }).int('The page is a whole number.').min(1, 'Pages start at 1.').max(100_000).default(1),
-  pageSize: z.coerce
-    .number({ error: 'The page size is a number.' })
-    .int('The page size is a whole number.')
-    .refine((n) => (OUTBOX_PAGE_SIZES as readonly number[]).includes(n), `Show ${OUTBOX_PAGE_SIZES.join(', ')} a page.`)
-    .default(25),
+  ...pagingShape,
 })
 export type OutboxQuery = z.input<typeof outboxQuerySchema>
 

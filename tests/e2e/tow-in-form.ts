@@ -1,18 +1,9 @@
 import { expect, type Page } from '@playwright/test'
-import { vinWithCheckDigit } from '@shared/domain/vehicle'
+import { freshVin } from '../helpers/vins'
 import { signInAs } from './helpers'
 
 // 49 CFR 565's own sample VIN: check digit 4, model year 2005.
 export const VIN = '1G4AH59H45G118341'
-
-/**
- * A VIN of the same maker and year with another serial number (check digit computed), so tests that
- * log a vehicle on one server do not log the same vehicle twice (which asks the dispatcher why).
- */
-export function freshVin(): string {
-  const serial = String(Math.floor(Math.random() * 1_000_000)).padStart(6, '0')
-  return vinWithCheckDigit(`1G4AH59H5G${serial}`)
-}
 
 export async function openForm(page: Page) {
   await signInAs(page, 'dispatcher')

@@ -1,7 +1,8 @@
 import { expect, test } from '@playwright/test'
 import sharp from 'sharp'
 import { watchConsole } from './helpers'
-import { fillTheMinimum, freshVin, openForm, VIN } from './tow-in-form'
+import { freshVin } from '../helpers/vins'
+import { fillTheMinimum, openForm, VIN } from './tow-in-form'
 
 const jpeg = (colour: string) => sharp({ create: { width: 640, height: 480, channels: 3, background: colour } }).jpeg().toBuffer()
 

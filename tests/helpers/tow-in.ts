@@ -1,4 +1,3 @@
-import { vinWithCheckDigit } from '@shared/domain/vehicle'
 import { readdirSync } from 'node:fs'
 import path from 'node:path'
 import { eq } from 'drizzle-orm'
@@ -7,6 +6,7 @@ import type { Database } from '@db/client'
 import * as t from '@db/schema'
 import { loadSampleRuleSets } from '../../server/rule-sets/index'
 import type { TowInInput } from '@shared/schemas/tow-in'
+import { freshVin } from './vins'
 
 /** A valid 17-character VIN (check digit 4, model year 2005): 49 CFR 565's own sample. */
 export const GOOD_VIN = '1G4AH59H45G118341'
@@ -17,9 +17,8 @@ export const GOOD_VIN = '1G4AH59H45G118341'
  * test that logs two in one company: the same VIN twice asks the dispatcher why (issue 16, item 14).
  */
 export function anotherVehicle(b: TowInInput) {
-  const serial = String(Math.floor(Math.random() * 1_000_000)).padStart(6, '0')
-  b.vehicle.vin = vinWithCheckDigit(`1G4AH59H5G${serial}`)
-  b.vehicle.plate = `8T${serial}`.slice(0, 7)
+  b.vehicle.vin = freshVin()
+  b.vehicle.plate = `8T${b.vehicle.vin.slice(-5)}`
 }
 
 export function towInBody(checkedById: string, edit: (b: TowInInput) => void = () => {}): TowInInput {
