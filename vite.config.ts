@@ -30,6 +30,10 @@ export default defineConfig({
       // @vue-leaflet imports Leaflet's ES module build, and `import('leaflet')` once (for its
       // global-Leaflet mode), which resolves to the UMD build: point both at one file, one copy.
       { find: /^leaflet$/, replacement: 'leaflet/dist/leaflet-src.esm.js' },
+      // vuedraggable's "module" is a UMD bundle that require()s Vue's CommonJS build — a second Vue
+      // with the template compiler — and core-js: its own ES source (shipped in the package) imports
+      // the one Vue the app uses.
+      { find: /^vuedraggable$/, replacement: 'vuedraggable/src/vuedraggable.js' },
     ],
   },
   define: { __INTLIFY_PROD_DEVTOOLS__: false },
