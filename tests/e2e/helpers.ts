@@ -25,3 +25,13 @@ export function watchConsole(page: Page): string[] {
   page.on('pageerror', (e) => problems.push(e.message))
   return problems
 }
+
+/**
+ * The main navigation. On a phone it sits behind the top bar's menu button, which this opens
+ * (and leaves open) first; on a desk it is in the bar.
+ */
+export async function mainNav(page: Page, name = 'Main') {
+  const menu = page.locator('button[aria-controls="top-bar-panel"]')
+  if ((await menu.isVisible()) && (await menu.getAttribute('aria-expanded')) !== 'true') await menu.click()
+  return page.getByRole('navigation', { name })
+}

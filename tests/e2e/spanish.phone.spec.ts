@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { DEMO, watchConsole } from './helpers'
+import { DEMO, mainNav, watchConsole } from './helpers'
 
 // A phone whose browser reads Spanish first: Holdfast opens in Spanish without anyone choosing it.
 // The account's own language is not touched here (tests/api/session.test.ts covers it), so the demo
@@ -21,12 +21,13 @@ test('en un teléfono en español: la entrada, el tablero y el registro de un in
   await signInInSpanish(page)
 
   // The board: the column tabs, a card's words and the top bar.
-  const main = page.getByRole('navigation', { name: 'Principal' })
-  await expect(main.getByRole('link')).toHaveText(['Tablero', 'Archivo', 'Registrar ingreso'])
   await expect(page.getByRole('navigation', { name: 'Columnas' }).getByRole('button').first()).toContainText('Llegada')
   const card = page.locator('[data-column="arrival"] [data-stock]').first()
   await expect(card).toBeVisible()
   await expect(card.getByRole('button', { name: /^Mover .* a…$/ })).toHaveText('Mover a…')
+  await expect(page.getByRole('button', { name: 'Menú' })).toBeVisible()
+  const main = await mainNav(page, 'Principal')
+  await expect(main.getByRole('link')).toHaveText(['Tablero', 'Archivo', 'Registrar ingreso'])
   await expect(page.getByRole('button', { name: 'Salir' })).toBeVisible()
 
   // The tow-in form: its heading and sections, and the quote once the pickup is on the map.

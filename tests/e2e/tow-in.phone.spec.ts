@@ -1,10 +1,10 @@
 import { expect, test } from '@playwright/test'
-import { signInAs, watchConsole } from './helpers'
+import { signInAs, watchConsole, mainNav } from './helpers'
 
 test('on a phone the dispatcher reaches the tow-in form, taps the pickup on the map and can use the camera', async ({ page }) => {
   const problems = watchConsole(page)
   await signInAs(page, 'dispatcher')
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Log a tow-in' }).tap()
+  await (await mainNav(page)).getByRole('link', { name: 'Log a tow-in' }).tap()
   await expect(page.getByRole('heading', { name: 'Log a tow-in' })).toBeVisible()
 
   const map = page.getByTestId('map')
@@ -24,7 +24,7 @@ test('on a phone the dispatcher reaches the tow-in form, taps the pickup on the 
 
 test('on a phone a time picker opens whole, with Now and OK on the screen', async ({ page }) => {
   await signInAs(page, 'dispatcher')
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Log a tow-in' }).tap()
+  await (await mainNav(page)).getByRole('link', { name: 'Log a tow-in' }).tap()
   await page.getByLabel('Called', { exact: true }).tap()
   const panel = page.locator('.el-picker-panel').filter({ visible: true })
   await expect(panel.getByRole('button', { name: 'Now' })).toBeInViewport({ ratio: 1 })

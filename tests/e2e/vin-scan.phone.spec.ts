@@ -3,7 +3,7 @@ import { mkdirSync } from 'node:fs'
 import path from 'node:path'
 import { chromiumLaunch } from './chromium'
 import { writeDataMatrixVideo } from './fake-camera'
-import { signInAs, watchConsole } from './helpers'
+import { signInAs, watchConsole, mainNav } from './helpers'
 
 // A real WMI and VDS (a Honda Accord in NHTSA vPIC), check digit computed.
 const VIN = '1HGCM82633A004352'
@@ -24,7 +24,7 @@ test('on a phone the dispatcher scans the VIN label with the camera and the vehi
   test.slow()
   const problems = watchConsole(page)
   await signInAs(page, 'dispatcher')
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Log a tow-in' }).tap()
+  await (await mainNav(page)).getByRole('link', { name: 'Log a tow-in' }).tap()
   const decoded = page.waitForResponse((r) => r.url().endsWith(`/api/vin-decode/${VIN}`) && r.ok())
   await page.getByRole('button', { name: 'Scan' }).tap()
   await expect(page.getByLabel('VIN', { exact: true })).toHaveValue(VIN)

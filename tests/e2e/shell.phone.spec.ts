@@ -1,0 +1,37 @@
+import { expect, test } from '@playwright/test'
+import { mainNav, signInAs, watchConsole } from './helpers'
+
+// Issue 16: on a 390 px phone "Log a tow-in" was clipped under Sign out and the Staff link was off-screen.
+test.use({ viewport: { width: 390, height: 844 } })
+
+test('on a 390 px phone the menu reaches every page a manager has, each link whole on screen', async ({ page }) => {
+  const problems = watchConsole(page)
+  await signInAs(page, 'manager')
+  const menu = page.getByRole('button', { name: 'Menu' })
+  await expect(menu).toHaveAttribute('aria-expanded', 'false')
+  await expect(page.getByRole('navigation', { name: 'Main' })).toBeHidden()
+
+  const nav = await mainNav(page)
+  const links = nav.getByRole('link')
+  const labels = await links.allTextContents()
+  expect(labels.map((l) => l.trim())).toEqual(['Board', 'Archive', 'Log a tow-in', 'Outbox', 'Staff'])
+  for (const label of labels) {
+    const box = (await nav.getByRole('link', { name: label.trim() }).boundingBox())!
+    expect(box.x).toBeGreaterThanOrEqual(0)
+    expect(box.x + box.width).toBeLessThanOrEqual(390)
+    // A gloved thumb: every target at least 48 px tall.
+    expect(box.height).toBeGreaterThanOrEqual(48)
+  }
+  await expect(page.getByRole('button', { name: 'Sign out' })).toBeInViewport()
+
+  await nav.getByRole('link', { name: 'Staff' }).tap()
+  await expect(page).toHaveURL(/\/users$/)
+  // Going somewhere folds the menu away again.
+  await expect(menu).toHaveAttribute('aria-expanded', 'false')
+  await expect(page.getByRole('navigation', { name: 'Main' })).toBeHidden()
+
+  await menu.tap()
+  await page.keyboard.press('Escape')
+  await expect(menu).toHaveAttribute('aria-expanded', 'false')
+  expect(problems).toEqual([])
+})
