@@ -139,3 +139,16 @@ test('closed vehicles are in the archive with how they left, and can be searched
   await expect(rows).toHaveCount(1)
   await expect(rows.first()).toContainText(/Returned to owner|Released to a third party|Title transferred|Lien sale|Scrapped/)
 })
+
+// Issue 16: a mouse wheel over the yard's title scrolled the page 1,200 px into blank space (hidden
+// words inside the cards escaped the columns' scrolling). The board fills the window; columns scroll.
+test('the desktop board fills the window: the wheel over the title leaves the top bar and columns in place', async ({ page }) => {
+  await page.setViewportSize({ width: 1440, height: 900 })
+  await signInAs(page, 'dispatcher')
+  await expect(page.locator('[data-column="storage"] [data-stock]').first()).toBeVisible()
+  expect(await page.evaluate(() => document.documentElement.scrollHeight)).toBeLessThanOrEqual(900)
+  await page.getByRole('heading', { level: 1 }).hover()
+  await page.mouse.wheel(0, 1200)
+  await expect(page.getByRole('navigation', { name: 'Main' })).toBeInViewport()
+  expect(await page.evaluate(() => scrollY)).toBe(0)
+})
