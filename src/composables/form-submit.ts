@@ -1,4 +1,4 @@
-import { ref } from 'vue'
+import { isReactive, ref } from 'vue'
 import type { z } from 'zod'
 import { useFieldErrors } from './field-errors'
 
@@ -7,12 +7,14 @@ import { useFieldErrors } from './field-errors'
  * `message` when it is not about one). Resolves true when the server accepted it.
  */
 export function useFormSubmit<S extends z.ZodType>(schema: S, send: (input: z.output<S>) => Promise<unknown>) {
-  const { errors, fromZod, fromApi, clear } = useFieldErrors()
+  const { errors, fromZod, fromApi, clear, follow } = useFieldErrors()
   const message = ref('')
   const busy = ref(false)
 
   async function submit(draft: unknown): Promise<boolean> {
     message.value = ''
+    // A form handed in as a reactive object is followed: each message goes once its field is right.
+    if (isReactive(draft)) follow(() => draft, schema)
     const parsed = schema.safeParse(draft)
     if (!parsed.success) {
       fromZod(parsed.error)

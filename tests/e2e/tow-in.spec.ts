@@ -76,6 +76,14 @@ test('an incomplete tow-in shows each message beside its field and saves nothing
   await expect(page.getByText('Enter the make, or "Unknown".')).toBeVisible()
   await expect(page.locator('.el-form-item.is-error').filter({ hasText: 'VIN' }).first()).toContainText('is the letter O')
   await expect(page).toHaveURL(/\/tow-in$/)
+
+  // Issue 16: a message goes as soon as its field is right, and the count with it — not at the next save.
+  const count = page.getByText(/\d+ fields? to check/)
+  const before = Number((await count.textContent())!.match(/(\d+) field/)![1])
+  await page.getByRole('radiogroup', { name: 'Why it was towed' }).getByText('Breakdown').click()
+  await expect(page.getByText('Choose why the vehicle was towed.')).toBeHidden()
+  await expect(count).toHaveText(`${before - 1} ${before - 1 === 1 ? 'field' : 'fields'} to check`)
+  await expect(page.getByText('Enter the make, or "Unknown".')).toBeVisible()
 })
 
 test('the address search places the pin and the top-bar search finds a vehicle by plate', async ({ page }) => {
