@@ -1,8 +1,5 @@
 import type { VehiclePage } from '@shared/schemas/vehicle-page'
-import { localIso } from './date-picker'
 import type { TowDraft, VehicleDraft } from './tow-in-form'
-
-const local = (iso: string | null) => (iso ? localIso(new Date(iso)) : null)
 
 /** The record as the tow-in form's fields, to correct it with the same fields and the same checks. */
 export function correctionDraft(page: VehiclePage): { vehicle: VehicleDraft; tow: TowDraft | null; conditionNotes: string } {
@@ -33,9 +30,9 @@ export function correctionDraft(page: VehiclePage): { vehicle: VehicleDraft; tow
       winchingUnits: t.winchingUnits,
       dollies: t.dollies,
       afterHours: t.afterHours,
-      calledAt: local(t.calledAt),
-      hookedAt: local(t.hookedAt),
-      arrivedAt: local(t.arrivedAt)!,
+      calledAt: t.calledAt,
+      hookedAt: t.hookedAt,
+      arrivedAt: t.arrivedAt,
       reason: t.reason,
       reasonNote: t.reasonNote ?? '',
       requesterName: t.requesterName ?? '',

@@ -1,16 +1,6 @@
 // The date-and-time pickers' plumbing. Showing a date or time is yard-time.ts's, on the yard's clock;
-// a picker (Element Plus, dayjs) works on the browser's clock.
-const pad = (n: number) => String(Math.abs(n)).padStart(2, '0')
-
-/** The browser's wall-clock time with its offset, the shape the date pickers read and write. */
-export function localIso(d = new Date()): string {
-  const off = -d.getTimezoneOffset()
-  const zone = `${off >= 0 ? '+' : '-'}${pad(Math.floor(Math.abs(off) / 60))}:${pad(off % 60)}`
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}:${pad(d.getSeconds())}${zone}`
-}
-
-/** The value format of every date-and-time picker: ISO 8601 with the offset, as the schemas require. */
-export const PICKER_FORMAT = 'YYYY-MM-DDTHH:mm:ssZ'
+// a picker (Element Plus, dayjs) works on the browser's clock, so times are typed through
+// BaseYardDateTime, which hands it the yard's wall clock.
 
 /** What a picker shows (dayjs tokens): the date-time look of the rest of the app (yard-time.ts). */
 export const PICKER_DISPLAY_FORMAT = 'ddd, D MMM YYYY, HH:mm'

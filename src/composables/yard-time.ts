@@ -66,3 +66,11 @@ function useCurrentYardZone() {
   const yard = useCurrentYardQuery(() => session.user?.id)
   return computed(() => yard.data.value?.timeZone ?? null)
 }
+
+/** The zone's name in the reader's language ("Pacific Time", "hora del Pacífico"), to label a time typed on the yard's clock. */
+export function zoneName(timeZone: string, locale: Locale = chosen()): string {
+  return (
+    new Intl.DateTimeFormat(INTL_TAGS[locale].dates, { timeZone, timeZoneName: 'longGeneric' }).formatToParts(new Date()).find((p) => p.type === 'timeZoneName')
+      ?.value ?? timeZone
+  )
+}

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { openForm } from './tow-in-form'
+import { fillTheMinimum, openForm } from './tow-in-form'
 
 test('the map passes under the sticky top bar when the form scrolls', async ({ page }) => {
   await openForm(page)
@@ -45,4 +45,41 @@ test('the times show their year and no day after today can be picked', async ({ 
   const today = page.locator('.el-date-table td.today').filter({ visible: true })
   await expect(today).not.toHaveClass(/disabled/)
   await expect(today.locator('xpath=following::td[1]')).toHaveClass(/disabled/)
+})
+
+// Issue 16 items 8 and 15: typed in a browser set to another zone, times were saved hours off. The demo
+// yard is in Los Angeles (Pacific Standard Time in December, UTC−8); this browser is in Tokyo (UTC+9).
+test.describe('in a browser seventeen hours ahead of the yard', () => {
+  test.use({ timezoneId: 'Asia/Tokyo' })
+
+  test('times are typed and shown on the yard clock, labelled with its zone', async ({ page }) => {
+    await openForm(page)
+    const arrived = page.getByLabel('Arrived at the gate')
+    // The default arrival is the yard's now, not Tokyo's (a day ahead most of the time).
+    const yardNow = (offsetMs: number) =>
+      new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })
+        .format(new Date(Date.now() + offsetMs))
+    const before = yardNow(0)
+    const shown = await arrived.inputValue()
+    expect([before, yardNow(60_000)]).toContain(shown)
+    await expect(page.getByText('Yard time — Pacific Time').first()).toBeVisible()
+
+    await fillTheMinimum(page)
+    // Yesterday at 09:15 on the yard's calendar, typed as the picker shows dates.
+    const yesterday = new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', weekday: 'short', day: 'numeric', month: 'short', year: 'numeric' })
+      .format(new Date(Date.now() - 86_400_000))
+    const called = page.getByLabel('Called', { exact: true })
+    await called.click()
+    await called.fill(`${yesterday}, 09:15`)
+    await called.press('Enter')
+    await expect(called).toHaveValue(`${yesterday}, 09:15`)
+    const created = page.waitForResponse((r) => r.url().endsWith('/api/vehicles') && r.request().method() === 'POST')
+    await page.getByRole('button', { name: 'Log the vehicle' }).click()
+    const { id } = (await (await created).json()) as { id: string }
+    const record = (await (await page.request.get(`/api/vehicles/${id}`)).json()) as { tow: { calledAt: string } }
+    // The saved instant, read on the yard's clock by the browser's own Intl (the oracle), is what was typed.
+    const saved = new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })
+      .format(new Date(record.tow.calledAt))
+    expect(saved).toBe(`${yesterday}, 09:15`)
+  })
 })

@@ -22,11 +22,24 @@ test('on a phone the dispatcher reaches the tow-in form, taps the pickup on the 
   expect(problems).toEqual([])
 })
 
-test('on a phone a time picker opens whole, with Now and OK on the screen', async ({ page }) => {
+test('on a phone a time picker opens whole with OK on the screen, and Now beside the field is the yard clock', async ({ page }) => {
   await signInAs(page, 'dispatcher')
   await (await mainNav(page)).getByRole('link', { name: 'Log a tow-in' }).tap()
-  await page.getByLabel('Called', { exact: true }).tap()
+  const called = page.getByLabel('Called', { exact: true })
+  await called.tap()
   const panel = page.locator('.el-picker-panel').filter({ visible: true })
-  await expect(panel.getByRole('button', { name: 'Now' })).toBeInViewport({ ratio: 1 })
   await expect(panel.getByRole('button', { name: 'OK' })).toBeInViewport({ ratio: 1 })
+  // The panel's own "Now" would be the phone's clock, not the yard's: it is not offered.
+  await expect(panel.getByRole('button', { name: 'Now' })).toBeHidden()
+  await page.keyboard.press('Escape')
+  await expect(panel).toBeHidden()
+
+  const field = page.locator('.el-form-item').filter({ has: called })
+  await field.getByRole('button', { name: 'Now' }).tap()
+  const yardNow = (offsetMs: number) =>
+    new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })
+      .format(new Date(Date.now() + offsetMs))
+  const earliest = yardNow(0)
+  await expect(called).not.toHaveValue('')
+  expect([earliest, yardNow(60_000)]).toContain(await called.inputValue())
 })
