@@ -104,8 +104,10 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', sessionMiddleware(db, deps.sessionSecret, deps.https ?? false))
   app.use('/api', currentUser())
   const anonymous = anonymousCsrf(deps.sessionSecret, deps.https ?? false)
-  app.use('/api', csrfProtection(deps.origins ?? [], anonymous))
+  // Access first: a request whose session has ended is told so (401), not that its page is out of
+  // date. Nothing is written either way; a signed-in request still needs its CSRF token after this.
   app.use('/api', enforceAccess)
+  app.use('/api', csrfProtection(deps.origins ?? [], anonymous))
 
   app.use('/api/health', healthRouter(db, deps.version))
   const limits = deps.signInLimits ?? DEFAULT_LIMITS

@@ -20,7 +20,7 @@ export class AppError extends Error {
 }
 
 export const badRequest = (message: string, issues?: Issue[]) => new AppError(400, message, issues ? { issues } : {})
-export const unauthorized = () => new AppError(401, 'Please sign in.')
+export const unauthorized = () => new AppError(401, 'You are signed out: your session has ended. Sign in again to go on.')
 export const forbidden = (message = 'Your role may not do this.') => new AppError(403, message)
 export const notFound = (what = 'That') => new AppError(404, `${what} was not found.`)
 export const conflict = (message: string, extra: Record<string, unknown> = {}) => new AppError(409, message, extra)

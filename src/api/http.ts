@@ -22,6 +22,13 @@ export function setCsrfToken(token: string) {
   csrfToken = token
 }
 
+// Told when a staff request is answered 401: the session ended while the page was open (the session
+// store asks the person to sign in again over the page, so nothing they typed is lost).
+let sessionEnded: () => void = () => {}
+export function onSessionEnded(handler: () => void) {
+  sessionEnded = handler
+}
+
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE'
 
 /** The answer parsed with `schema`; a schema still loading (a dynamic import) arrives while the request is under way. */
@@ -50,6 +57,8 @@ async function send(method: Method, url: string, body?: unknown): Promise<Respon
   } catch {
     throw new ApiError(0, 'The server cannot be reached. Check the connection and try again.')
   }
+  // Signing in itself answers 401 to a wrong password: that is not a session ending.
+  if (res.status === 401 && !url.startsWith('/api/session')) sessionEnded()
   if (!res.ok) {
     const data = (await res.json().catch(() => ({}))) as { error?: string; issues?: FieldIssue[] }
     throw new ApiError(res.status, data.error ?? `The server answered ${res.status}.`, data.issues ?? [], data as Record<string, unknown>)

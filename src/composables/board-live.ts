@@ -1,6 +1,7 @@
 import { onBeforeUnmount, ref, watch, type Ref } from 'vue'
 import { boardEventSchema } from '@shared/schemas/board'
 import { BOARD_EVENTS_URL } from '@/api/board'
+import { useSessionStore } from '@/stores/session'
 import { useBoardCache } from './board-cache'
 
 export type LiveStatus = 'connecting' | 'live' | 'reconnecting'
@@ -15,6 +16,7 @@ const REOPEN_MS = 5_000
  */
 export function useBoardLive(boardEventId: Ref<string | undefined>) {
   const cache = useBoardCache()
+  const session = useSessionStore()
   const status = ref<LiveStatus>('connecting')
   let source: EventSource | null = null
   let lastId: string | undefined
@@ -30,7 +32,10 @@ export function useBoardLive(boardEventId: Ref<string | undefined>) {
     }
     source.onerror = () => {
       status.value = 'reconnecting'
-      if (source?.readyState === EventSource.CLOSED && !stopped) reopen = setTimeout(open, REOPEN_MS)
+      if (source?.readyState !== EventSource.CLOSED || stopped) return
+      // A stream the server refused may mean the session ended: then the page asks to sign in again.
+      void session.check().catch(() => undefined)
+      reopen = setTimeout(open, REOPEN_MS)
     }
   }
 

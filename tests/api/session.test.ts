@@ -234,4 +234,18 @@ describe('a person’s own language', () => {
     const visitor = await browserSession(t.app)
     expect((await visitor.put('/api/session/locale', { locale: 'es' })).status).toBe(401)
   })
+
+  // Issue 16 item 13: an ended session was answered "The page is out of date… Reload" (the CSRF check
+  // ran first), so the page could not tell the person to sign in again.
+  it('a write after the session ended answers 401 "signed out", not a stale page, and writes nothing', async () => {
+    const staff = await makeStaff(t.db)
+    const s = await signedIn(t.app, staff.dispatcher)
+    const sid = await t.db.select({ sid: sessions.sid }).from(sessions).then((rows) => rows.map((r) => r.sid))
+    await t.db.delete(sessions)
+    const res = await s.agent.post('/api/vehicles').set('x-csrf-token', s.csrf).send({})
+    expect(res.status).toBe(401)
+    expect(res.body.error).toMatch(/session has ended/)
+    expect(sid.length).toBeGreaterThan(0)
+    expect(await t.db.select().from(sessions)).toEqual([])
+  })
 })
