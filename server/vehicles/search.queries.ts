@@ -10,9 +10,11 @@ const MIN_VIN = 6
 const likeEscaped = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`)
 /** Plates and stock numbers compared without spaces and dashes, as people read them out. */
 const squeezed = (s: string) => s.toUpperCase().replace(/[\s-]+/g, '')
+/** "2003 kestra lantern gold": what a person says when they describe the car rather than its numbers. */
+const described = sql`lower(concat_ws(' ', ${vehicles.year}, ${vehicles.make}, ${vehicles.model}, ${vehicles.colour}))`
 const squeezedColumn = (col: SQLWrapper) => sql`regexp_replace(upper(coalesce(${col}, '')), '[[:space:]-]+', '', 'g')`
 
-/** Vehicles of the staff member's company by stock number, plate, VIN (6+ characters) or owner name. */
+/** Vehicles of the staff member's company by stock number, plate, VIN (6+ characters), year/make/model/colour or owner name. */
 export async function searchVehicles(db: Executor, userId: string, q: string): Promise<SearchHit[]> {
   const key = squeezed(q)
   const pattern = `%${likeEscaped(key)}%`
@@ -21,6 +23,7 @@ export async function searchVehicles(db: Executor, userId: string, q: string): P
     sql`${squeezedColumn(vehicles.stockNumber)} like ${pattern}`,
     sql`${squeezedColumn(vehicles.plate)} like ${pattern}`,
     sql`lower(${vehicles.ownerName}) like ${words}`,
+    sql`${described} like ${words}`,
   ]
   if (key.length >= MIN_VIN) matches.push(sql`${vehicles.vin} like ${pattern}`)
   const rows = await db
@@ -57,6 +60,8 @@ export async function searchVehicles(db: Executor, userId: string, q: string): P
         ? 'plate'
         : key.length >= MIN_VIN && (r.vin ?? '').includes(key)
           ? 'VIN'
-          : 'owner',
+          : [r.year, r.make, r.model, r.colour].filter(Boolean).join(' ').toLowerCase().includes(q.trim().toLowerCase())
+            ? 'vehicle'
+            : 'owner',
   }))
 }

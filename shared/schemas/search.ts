@@ -14,7 +14,7 @@ export const searchHitSchema = z.object({
   ownerName: z.string().nullable(),
   state: z.enum(VEHICLE_STATES),
   /** Which field matched, so the list can say why a vehicle is shown. */
-  matched: z.enum(['stock number', 'plate', 'VIN', 'owner']),
+  matched: z.enum(['stock number', 'plate', 'VIN', 'vehicle', 'owner']),
 })
 export type SearchHit = z.infer<typeof searchHitSchema>
 

@@ -30,6 +30,9 @@ describe('search from the top bar', () => {
     ['the plate with a space in it', () => '7kq m214', 'plate'],
     ['the last six of the VIN', () => '118341', 'VIN'],
     ["part of the owner's name", () => 'vantong', 'owner'],
+    // Issue 16 item 17: people describe the car ("the silver Sparrow") as often as they read its numbers.
+    ['the make and model, any case', () => 'orlan SPARROW', 'vehicle'],
+    ['the model and colour', () => 'sparrow silver', 'vehicle'],
   ])('finds a vehicle by %s', async (_what, q, matched) => {
     expect(await find(q())).toEqual([expect.objectContaining({ stockNumber: stock, matched, title: '2005 Orlan Sparrow Silver' })])
   })

@@ -18,3 +18,15 @@ test('each hit shows its plate, and a hit by owner shows whose name matched', as
   await search.fill('4XNE255')
   await expect(page.getByRole('option').filter({ hasText: 'Kestra Lantern' })).toContainText(/4XNE255[\s\S]*matched plate/)
 })
+
+// Issue 16 item 9: Enter on a single match did nothing, and the text stayed after opening the vehicle.
+test('Enter on a single match opens that vehicle and leaves the search box empty', async ({ page }) => {
+  await signInAs(page, 'office')
+  const search = page.getByRole('textbox', { name: /Find a vehicle/ })
+  await search.fill('4XNE255')
+  await expect(page.locator('.shell-search__popper').getByRole('option')).toHaveCount(1)
+  await search.press('Enter')
+  await expect(page).toHaveURL(/\/vehicles\/[0-9a-f-]{36}$/)
+  await expect(page.locator('main').getByText('Kestra Lantern').first()).toBeVisible()
+  await expect(search).toHaveValue('')
+})
