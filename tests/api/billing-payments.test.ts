@@ -85,7 +85,7 @@ describe('counter payments', () => {
     { why: 'cash short of the amount', body: { method: 'cash', amountCents: 5_000, tenderedCents: 4_000 }, path: 'tenderedCents' },
     { why: 'no key', body: { method: 'cash', amountCents: 500, idempotencyKey: undefined }, path: 'idempotencyKey' },
     { why: 'a bad receipt address', body: { method: 'cash', amountCents: 500, receiptEmail: 'not-an-address' }, path: 'receiptEmail' },
-  ])('payment_$why_isRefusedNamingTheFieldAndWritesNothing', async ({ body, path }) => {
+  ])('payment_$why — refused naming the field, nothing written', async ({ body, path }) => {
     const { v, office } = await counter()
     const res = await office.post(pay(v.id), { idempotencyKey: key(), ...body })
     expect(res.status).toBe(400)
