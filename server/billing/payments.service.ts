@@ -62,15 +62,15 @@ export async function takePayment(changes: VehicleChanges, actor: User, vehicleI
       })
       .returning()
     const payment = paymentRecord(row!, actor.name)
+    // Only what this kind of payment has: a cash payment names its change, a check its number.
+    const specific = { changeCents: payment.changeCents || null, checkNumber: payment.checkNumber, terminalReference: payment.terminalReference }
     record({
       kind: 'payment_taken',
       after: {
         paymentId: payment.id,
         method: payment.method,
         amountCents: payment.amountCents,
-        changeCents: payment.changeCents,
-        checkNumber: payment.checkNumber,
-        terminalReference: payment.terminalReference,
+        ...Object.fromEntries(Object.entries(specific).filter(([, v]) => v !== null)),
         dueBeforeCents: before.dueCents,
         dueAfterCents: before.dueCents - payment.amountCents,
       },
@@ -113,7 +113,12 @@ export async function refund(changes: VehicleChanges, actor: User, vehicleId: st
       })
       .returning()
     const payment = paymentRecord(row!, actor.name)
-    record({ kind: 'payment_refunded', reason: input.reason, after: { paymentId: payment.id, method: payment.method, amountCents: payment.amountCents } })
+    const specific = { checkNumber: payment.checkNumber, terminalReference: payment.terminalReference }
+    record({
+      kind: 'payment_refunded',
+      reason: input.reason,
+      after: { paymentId: payment.id, method: payment.method, amountCents: payment.amountCents, ...Object.fromEntries(Object.entries(specific).filter(([, v]) => v !== null)) },
+    })
     return { payment, replayed: false }
   })
   const { vehicle, yard } = await vehicleOf(changes, actor, vehicleId)
