@@ -54,6 +54,8 @@ async function closeoutOf(db: Executor, yardId: string, businessDate: string): P
   }
 }
 
+const alreadyClosed = () => conflict('This day’s drawer is already closed.', { issues: [{ path: 'businessDate', message: 'Already closed.' }] })
+
 const todayIn = (zone: string) => isoDate(localDay(zone, Date.now()))
 
 /** The drawer of one yard day (today by default): its cash movements, what they add up to, and its close-out if done. */
@@ -82,7 +84,7 @@ export async function closeDrawer(db: Database, user: User, input: { businessDat
     if (input.businessDate > todayIn(yard.timeZone)) {
       throw badRequest('That day has not come yet: close the drawer at the end of the day.', [{ path: 'businessDate', message: 'Choose today or a day before.' }])
     }
-    if (await closeoutOf(tx, yard.id, input.businessDate)) throw conflict('This day’s drawer is already closed.', { issues: [{ path: 'businessDate', message: 'Already closed.' }] })
+    if (await closeoutOf(tx, yard.id, input.businessDate)) throw alreadyClosed()
     const count = countDrawer(await cashOfDay(tx, yard, input.businessDate), input.openingFloatCents, input.countedCents)
     // The unique (yard, day) constraint is the last word if two people close the same day at once.
     await tx.insert(cashCloseouts).values({
@@ -95,6 +97,10 @@ export async function closeDrawer(db: Database, user: User, input: { businessDat
       note: input.note,
       closedById: user.id,
     })
+  }).catch((err) => {
+    // Two people closing the same day at once: the unique (yard, day) constraint refused the second.
+    if ((err?.cause?.code ?? err?.code) === '23505') throw alreadyClosed()
+    throw err
   })
   return drawerOf(db, user, input.businessDate)
 }
