@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import * as t from '@db/schema'
 import { formatCents } from '@shared/domain/billing'
 import { historyOf } from '@db/history'
-import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { browserSession, makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { billedVehicle, key } from '../helpers/billing'
 import { historyCount, vehicleRow } from '../helpers/board'
 import { makeStaff } from '../helpers/factories'
@@ -147,6 +147,18 @@ describe('counter payments', () => {
     const { v, office } = await counter()
     await office.post(pay(v.id), { idempotencyKey: key(), method: 'cash', amountCents: 700, receiptEmail: '' }).expect(201)
     expect(await app.db.select().from(t.outboundMessages).where(eq(t.outboundMessages.vehicleId, v.id))).toHaveLength(0)
+  })
+})
+
+describe('what the public lookup says is owed', () => {
+  it('lookup_afterAPartPayment_answersWhatIsStillOwed', async () => {
+    const { v, office, due } = await counter()
+    const plate = `P${Math.floor(Math.random() * 1e6)}`
+    await app.db.update(t.vehicles).set({ plate, vin: '1M8GDM9AXKP042788' }).where(eq(t.vehicles.id, v.id))
+    await office.post(pay(v.id), { idempotencyKey: key(), method: 'cash', amountCents: 5_000 }).expect(201)
+    const anonymous = await browserSession(app.app)
+    const found = await anonymous.post('/api/vehicle-lookup', { plate, vinTail: '042788' })
+    expect(found.body).toMatchObject({ found: true, balanceCents: due - 5_000 })
   })
 })
 
