@@ -65,6 +65,17 @@ export const ACCESS: Record<string, Rule> = {
   'PUT /api/vehicles/:vehicleId/space': 'towin.write',
   'POST /api/vehicles/:vehicleId/files': 'towin.write',
   'GET /api/vehicles/:vehicleId/documents/key-tag': 'label.print',
+  // Issue 11, the money at the counter: the office and managers bill and take payments; giving money
+  // back and waiving or discounting a charge are a manager's (a second one above the company's limit).
+  'GET /api/vehicles/:vehicleId/invoice': 'billing.write',
+  'POST /api/vehicles/:vehicleId/payments': 'billing.write',
+  'GET /api/vehicles/:vehicleId/payments/:paymentId/receipt': 'billing.write',
+  'POST /api/vehicles/:vehicleId/refunds': 'charges.waive',
+  'POST /api/vehicles/:vehicleId/adjustments': 'charges.waive',
+  'POST /api/vehicles/:vehicleId/adjustments/:adjustmentId/approve': 'charges.waive',
+  'POST /api/vehicles/:vehicleId/adjustments/:adjustmentId/decline': 'charges.waive',
+  'GET /api/cash-drawer': 'billing.write',
+  'POST /api/cash-drawer/closeout': 'billing.write',
   'GET /api/files/:id': 'board.view',
   'GET /api/files/:id/thumb': 'board.view',
   'GET /api/spaces': 'board.view',

@@ -11,6 +11,7 @@ import type { HistoryKey } from '@db/history'
 import { enforceAccess } from './access'
 import { archiveRouter } from './archive/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
+import { cashDrawerRouter, vehicleBillingRouter } from './billing/index'
 import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
 import { fakesRouter } from './fakes/index'
@@ -129,6 +130,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))
+  app.use('/api/vehicles/:vehicleId', vehicleBillingRouter(changes, { kick: deps.kickOutbox }))
+  app.use('/api/cash-drawer', cashDrawerRouter(db))
   app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))
   app.use('/api/spaces', spacesRouter(db))

@@ -3,6 +3,7 @@ import { pickupBadge } from '@shared/domain/inspection'
 import type { HoldFact } from '@shared/domain/lifecycle'
 import type { BoardCard } from '@shared/schemas/board'
 import type { VehicleSummary } from '@shared/schemas/charges'
+import { moneyTotals, type MoneyTotals } from '../billing/index'
 import { summarizeVehicles, type YardForCharges } from '../charges/index'
 import { notFound } from '../errors'
 import { yardOfUser } from '../yards/index'
@@ -13,9 +14,16 @@ export interface BoardYard extends YardForCharges {
   name: string
 }
 
-// Payments, waivers, the claimant's ID and the signed release are not recorded anywhere yet, so
-// every guard that needs them refuses with its reason until billing and release land.
-export const NOTHING_RECORDED: BoardCard['handover'] = { paidCents: 0, waived: false, claimantIdRecorded: false, releaseSigned: false }
+// The claimant's ID and the signed release are not recorded anywhere yet, so every guard that needs
+// them refuses with its reason until the release lands. The money comes from its records (handoverMoney).
+export const NOTHING_RECORDED: BoardCard['handover'] = { paidCents: 0, creditedCents: 0, waived: false, claimantIdRecorded: false, releaseSigned: false }
+
+/** The money side of the handover: payments less refunds, approved waivers and discounts, against the balance. */
+export function handoverMoney(totals: MoneyTotals | undefined, balanceCents: number | null): Pick<BoardCard['handover'], 'paidCents' | 'creditedCents' | 'waived'> {
+  const paidCents = totals?.paidCents ?? 0
+  const creditedCents = totals?.creditedCents ?? 0
+  return { paidCents, creditedCents, waived: creditedCents > 0 && balanceCents !== null && balanceCents - creditedCents - paidCents <= 0 }
+}
 
 /** An active hold as the card shows it and the lifecycle judges it. */
 export const holdFact = (h: HoldRow): HoldFact => ({ kind: h.kind, agency: h.agency, caseNumber: h.caseNumber, until: h.until?.toISOString() ?? null })
@@ -35,6 +43,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
   if (rows.length === 0) return []
   const holdRows = await activeHolds(db, yard.id, ids)
   const summaries = await summarizeVehicles(db, yard, rows, asOf)
+  const money = await moneyTotals(db, rows.map((r) => r.id))
   const holdsByVehicle = new Map<string, BoardCard['holds']>()
   for (const h of holdRows) {
     const list = holdsByVehicle.get(h.vehicleId) ?? []
@@ -59,7 +68,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
     rolls: r.rolls,
     inspectedAt: r.inspectedAt?.toISOString() ?? null,
     holds: holdsByVehicle.get(r.id) ?? [],
-    handover: NOTHING_RECORDED,
+    handover: { ...NOTHING_RECORDED, ...handoverMoney(money.get(r.id), summaries.get(r.id)?.balanceCents ?? null) },
     photoCount: Number(r.photoCount),
     pickup: pickupBadge(r),
     summary: cardSummary(summaries.get(r.id)),

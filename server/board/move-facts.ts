@@ -2,7 +2,8 @@ import type { Executor } from '@db/client'
 import type { MoveFacts } from '@shared/domain/lifecycle'
 import { summarizeVehicles } from '../charges/index'
 import type { VehicleRow, YardRow } from '../vehicles/index'
-import { holdFact, NOTHING_RECORDED } from './board-cards'
+import { moneyTotals } from '../billing/index'
+import { handoverMoney, holdFact, NOTHING_RECORDED } from './board-cards'
 import { activeHolds } from './board.queries'
 
 /**
@@ -13,6 +14,7 @@ import { activeHolds } from './board.queries'
 export async function moveFacts(db: Executor, vehicle: VehicleRow, yard: YardRow, withBill: boolean, asOf: Date): Promise<MoveFacts> {
   const holds = await activeHolds(db, yard.id, [vehicle.id])
   const summary = withBill ? ((await summarizeVehicles(db, yard, [vehicle], asOf)).get(vehicle.id) ?? null) : null
+  const money = withBill ? handoverMoney((await moneyTotals(db, [vehicle.id])).get(vehicle.id), summary?.balanceCents ?? null) : {}
   return {
     timeZone: yard.timeZone,
     holds: holds.map(holdFact),
@@ -20,5 +22,6 @@ export async function moveFacts(db: Executor, vehicle: VehicleRow, yard: YardRow
     balanceCents: summary?.balanceCents ?? null,
     lienSale: summary?.lienSale ?? null,
     ...NOTHING_RECORDED,
+    ...money,
   }
 }

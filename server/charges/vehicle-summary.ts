@@ -39,9 +39,10 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
     storageCents: bill.totalCents,
     towCents: input.towCents,
     balanceCents: bill.totalCents + input.towCents,
-    nextDeadline: open[0] ? toNext(open[0], today) : null,
+    // A vehicle that has left has no deadline ahead of it: its record shows what happened, not what is due.
+    nextDeadline: open[0] && !input.closedAt ? toNext(open[0], today) : null,
     lienSale: lienSaleGate(clocks.deadlines, clocks.alerts),
-    clockAlerts: clocks.alerts,
+    clockAlerts: input.closedAt ? [] : clocks.alerts,
     warnings: bill.warnings,
   }
 }

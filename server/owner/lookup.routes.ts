@@ -3,6 +3,7 @@ import { and, eq, ne, sql } from 'drizzle-orm'
 import type { Database } from '@db/client'
 import { vehicles, yards } from '@db/schema'
 import { lookupInputSchema, type LookupAnswer } from '@shared/schemas/owner'
+import { moneyTotals } from '../billing/index'
 import { summarizeVehicles } from '../charges/index'
 import type { PublicThrottle } from './public-throttle'
 
@@ -37,10 +38,12 @@ export function lookupRouter(db: Database, throttle: PublicThrottle): Router {
     const { vehicle, yard } = rows[0]!
     const now = new Date()
     const summary = (await summarizeVehicles(db, yard, [vehicle], now)).get(vehicle.id)
+    // What is still owed: the charges less what was paid and what a manager waived (issue 11).
+    const money = (await moneyTotals(db, [vehicle.id])).get(vehicle.id)
     res.json({
       found: true,
       yard: { name: yard.name, address: yard.address, phone: yard.phone, hours: yard.hours },
-      balanceCents: summary?.balanceCents ?? null,
+      balanceCents: summary ? Math.max(0, summary.balanceCents - (money?.creditedCents ?? 0) - (money?.paidCents ?? 0)) : null,
       asOf: now.toISOString(),
     } satisfies LookupAnswer)
   })

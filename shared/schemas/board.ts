@@ -13,11 +13,12 @@ export const cardHoldSchema = z.object({
 })
 
 /**
- * What the yard has recorded toward handing the vehicle over. Payments, waivers, the claimant's
- * ID and the signed release arrive with billing and release; until then they read as not recorded.
+ * What the yard has recorded toward handing the vehicle over: payments less refunds, approved waivers
+ * and discounts (issue 11); the claimant's ID and the signed release arrive with the release.
  */
 export const handoverSchema = z.object({
   paidCents: z.number(),
+  creditedCents: z.number(),
   waived: z.boolean(),
   claimantIdRecorded: z.boolean(),
   releaseSigned: z.boolean(),

@@ -25,6 +25,11 @@ export const HISTORY_KINDS = [
   'owner_link_created',
   'owner_link_revoked',
   'owner_decided',
+  'payment_taken',
+  'payment_refunded',
+  'charges_adjusted',
+  'adjustment_requested',
+  'adjustment_declined',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -73,4 +78,9 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   owner_link_created: 'Owner link created',
   owner_link_revoked: 'Owner link revoked',
   owner_decided: "Owner's decision",
+  payment_taken: 'Payment taken',
+  payment_refunded: 'Refund given',
+  charges_adjusted: 'Charges waived or discounted',
+  adjustment_requested: 'Waiver or discount requested',
+  adjustment_declined: 'Waiver or discount declined',
 }

@@ -24,6 +24,7 @@ const facts = (lienSale: MoveFacts['lienSale']): MoveFacts => ({
   inspected: true,
   balanceCents: 0,
   paidCents: 0,
+  creditedCents: 0,
   waived: false,
   claimantIdRecorded: false,
   releaseSigned: false,

@@ -9,6 +9,7 @@ export function factsOfCard(card: BoardCard, timeZone: string): MoveFacts {
     inspected: card.inspectedAt !== null,
     balanceCents: card.summary?.balanceCents ?? null,
     paidCents: card.handover.paidCents,
+    creditedCents: card.handover.creditedCents,
     waived: card.handover.waived,
     claimantIdRecorded: card.handover.claimantIdRecorded,
     releaseSigned: card.handover.releaseSigned,

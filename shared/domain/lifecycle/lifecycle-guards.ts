@@ -13,7 +13,7 @@ export interface HoldFact {
 
 /**
  * What the server knows about a vehicle when someone moves it. Features that have not landed
- * (payments, waivers, the claimant's ID, the signed release) read as "not recorded" until they do.
+ * (the claimant's ID, the signed release) read as "not recorded" until they do.
  */
 export interface MoveFacts {
   timeZone: string
@@ -22,8 +22,11 @@ export interface MoveFacts {
   inspected: boolean
   /** The running balance; null when no rule set bills the vehicle (and on the server when the move does not read it: readsBill). */
   balanceCents: number | null
+  /** Payments less refunds. */
   paidCents: number
-  /** A manager waived what is left, with a reason. */
+  /** Waivers and discounts a manager approved, with a reason. */
+  creditedCents: number
+  /** Nothing is left to pay and a manager's waiver or discount is part of why. */
   waived: boolean
   claimantIdRecorded: boolean
   releaseSigned: boolean
@@ -77,7 +80,7 @@ export const inspectionFinished: Guard = (f) =>
 export const balanceSettled: Guard = (f) => {
   if (f.waived) return []
   if (f.balanceCents === null) return [{ code: 'balance', message: 'No rule set bills this vehicle, so its balance cannot be settled.' }]
-  const due = f.balanceCents - f.paidCents
+  const due = f.balanceCents - f.creditedCents - f.paidCents
   if (due <= 0) return []
   return [{ code: 'balance', message: `Balance unpaid: ${formatCents(due)} due. Take the payment, or a manager waives it with a reason.` }]
 }

@@ -5,7 +5,7 @@ import { INSPECTION_HIDDEN, inspectionFieldLabel, inspectionValue } from '@/comp
 // Plain words, in the reader's language, for the fields a history event names (vehicles.history.fields
 // in the catalogs); anything unlisted shows its own name.
 const { t, te } = i18n.global
-const HIDDEN = new Set(['holdId', ...INSPECTION_HIDDEN])
+const HIDDEN = new Set(['holdId', 'paymentId', 'adjustmentId', ...INSPECTION_HIDDEN])
 
 // Fields whose words have moved to the message catalogs (read at render, so they follow the language).
 const CATALOG_LABELS: Record<string, string> = { estimatedValueSource: 'clocks.value.historySource' }
@@ -14,6 +14,7 @@ export function fieldLabel(key: string): string {
   const catalogKey = CATALOG_LABELS[key]
   if (catalogKey) return t(catalogKey)
   if (te(`vehicles.history.fields.${key}`)) return t(`vehicles.history.fields.${key}`)
+  if (te(`billing.history.${key}`)) return t(`billing.history.${key}`)
   return inspectionFieldLabel(key) ?? key
 }
 
@@ -22,7 +23,9 @@ export function fieldValue(key: string, value: unknown, at: (iso: string) => str
   const teardown = inspectionValue(key, value)
   if (teardown !== undefined) return teardown
   if (typeof value === 'boolean') return t(value ? 'common.yes' : 'common.no')
-  if (key === 'chargeCents' && typeof value === 'number') return money(value)
+  if (key.endsWith('Cents') && typeof value === 'number') return money(value)
+  if (key === 'method' && typeof value === 'string' && te(`billing.methods.${value}`)) return t(`billing.methods.${value}`)
+  if (key === 'kind' && typeof value === 'string' && te(`billing.adjustments.kinds.${value}`)) return t(`billing.adjustments.kinds.${value}`)
   if (key === 'reason' && typeof value === 'string' && te(`tow.reasons.${value}`)) return t(`tow.reasons.${value}`)
   if (key === 'kind' && typeof value === 'string' && te(`lifecycle.holds.${value}`)) return t(`lifecycle.holds.${value}`)
   if (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}T/.test(value)) return at(value)

@@ -44,6 +44,13 @@ describe('the bill panel on the vehicle page', () => {
     expect(w.find('[role="alert"]').exists()).toBe(false)
   })
 
+  it('chargesPanel_vehicleThatLeft_showsTheFinalChargesWithoutDayNOrAnOpenDeadline', () => {
+    const closed: VehicleSummary = { ...waitingForValue, nextDeadline: null, clockAlerts: [] }
+    const w = mount(VehiclesChargesPanel, { props: { summary: closed, ruleSet, problem: null, closed: true, ...noValue }, global })
+    expect(w.text()).toContain('charged in all · 3 days of storage, stopped when it left')
+    expect(w.text()).not.toMatch(/day 3|so far|No legal deadline/)
+  })
+
   it('chargesPanel_noValueOnRecord_showsTheNextDateAndNeedsTheValueInsteadOfNothing', () => {
     const w = mount(VehiclesChargesPanel, { props: { summary: waitingForValue, ruleSet, problem: null, ...noValue }, global })
     expect(w.text()).toContain('Next: Request owner and lienholder records')
@@ -83,7 +90,7 @@ describe('the bill panel in Spanish', () => {
     const w = mount(VehiclesChargesPanel, { props: { summary, ruleSet, problem: null, ...noValue } as never, global: { ...global, plugins: [withI18n('es')] } })
     // es-US writes US dollars as English does ("$1,234.56"; Intl with CLDR es-US, Node 20's ICU).
     expect(w.text()).toContain('$1,234.56')
-    expect(w.text()).toContain('debe hasta hoy · día 4 de almacenaje')
+    expect(w.text()).toContain('cargado hasta hoy · día 4 de almacenaje')
     expect(w.text()).toContain('Almacenaje y cargos $1,000.00 · arrastre $234.56')
     expect(w.text()).toContain('Todavía no corre ningún plazo legal.')
     withI18n('en')

@@ -12,6 +12,7 @@ const clear: MoveFacts = {
   inspected: true,
   balanceCents: 41_250,
   paidCents: 41_250,
+  creditedCents: 0,
   waived: false,
   claimantIdRecorded: true,
   releaseSigned: true,
@@ -122,8 +123,13 @@ describe('lifecycle guards', () => {
     { why: 'nothing paid', over: { paidCents: 0 }, message: 'Balance unpaid: $412.50 due. Take the payment, or a manager waives it with a reason.' },
     { why: 'part paid', over: { paidCents: 40_000 }, message: 'Balance unpaid: $12.50 due. Take the payment, or a manager waives it with a reason.' },
     { why: 'no rule set', over: { balanceCents: null, paidCents: 0 }, message: 'No rule set bills this vehicle, so its balance cannot be settled.' },
+    { why: 'part discounted and part paid', over: { creditedCents: 10_000, paidCents: 30_000 }, message: 'Balance unpaid: $12.50 due. Take the payment, or a manager waives it with a reason.' },
   ])('balanceGuard_$why_refusesTheHandOver', ({ over, message }) => {
     expect(handOver(over).reasons).toEqual([{ code: 'balance', message }])
+  })
+
+  it('balanceGuard_discountedAndTheRestPaid_letsItGo', () => {
+    expect(handOver({ creditedCents: 1_250, paidCents: 40_000 }).allowed).toBe(true)
   })
 
   it('balanceGuard_waivedByAManager_letsItGo', () => {

@@ -1,0 +1,2 @@
+export { cashDrawerRouter, vehicleBillingRouter } from './billing.routes'
+export { moneyTotals, type MoneyTotals } from './billing.queries'

@@ -1,0 +1,42 @@
+import type { Executor } from '@db/client'
+import { invoiceCharges, settle } from '@shared/domain/billing'
+import type { Invoice } from '@shared/schemas/billing'
+import { vehicleBill } from '../charges/index'
+import { unprocessable } from '../errors'
+import type { VehicleRow, YardRow } from '../vehicles/index'
+import { adjustmentsOf, approvalLimitOf, paymentsOf } from './billing.queries'
+
+/**
+ * A vehicle's invoice: the tow, storage and fees from the core with tax per line, the approved
+ * waivers and discounts, every payment and refund, and what is due. Charges run to `asOf` (now by
+ * default); a vehicle that has left is billed to the moment it left, whatever `asOf` says.
+ */
+export async function invoiceOf(db: Executor, vehicle: VehicleRow, yard: YardRow, asOf = new Date()): Promise<Invoice> {
+  const frozen = vehicle.closedAt !== null
+  const at = frozen ? vehicle.closedAt! : asOf
+  const billed = await vehicleBill(db, yard, vehicle, at)
+  if (!billed) throw unprocessable('No rule set bills this vehicle: give it a vehicle class its rule set knows, or give the yard a rule set.')
+  const charges = invoiceCharges(billed.bill, billed.towCents)
+  const payments = await paymentsOf(db, vehicle.id)
+  const adjustments = await adjustmentsOf(db, vehicle.id)
+  const s = settle(charges.totalCents, adjustments, payments)
+  return {
+    vehicleId: vehicle.id,
+    stockNumber: vehicle.stockNumber,
+    endsAt: billed.bill.endsAt,
+    frozen,
+    storageDays: billed.bill.days,
+    ...charges,
+    creditedCents: s.creditedCents,
+    paidCents: s.paidCents,
+    refundedCents: s.refundedCents,
+    netPaidCents: s.netPaidCents,
+    dueCents: s.dueCents,
+    waived: s.waived,
+    payments,
+    adjustments,
+    approvalLimitCents: await approvalLimitOf(db, yard.id),
+    ruleSet: { name: billed.ruleSet.name, caution: billed.ruleSet.caution },
+    warnings: billed.bill.warnings,
+  }
+}

@@ -1,0 +1,183 @@
+import { z } from 'zod'
+import { ADJUSTMENT_KINDS, ADJUSTMENT_STATUSES, PAYMENT_METHODS } from '../domain/billing/payments'
+import { LOCALES } from '../messages/locales'
+import { alongsideFieldIssues, optionalText, requiredText } from './fields'
+
+/** A whole number of cents above zero, at most $1,000,000.00: more is a typing slip. */
+const positiveCents = (what: string) =>
+  z
+    .number({ error: `Enter ${what}.` })
+    .int(`Enter ${what} to the cent.`)
+    .positive(`${what[0]!.toUpperCase()}${what.slice(1)} must be more than zero.`)
+    .max(100_000_000, `${what[0]!.toUpperCase()}${what.slice(1)} cannot be above $1,000,000.00.`)
+
+/** Made by the client once per payment it means to take; a retry or a second tap sends the same one. */
+const idempotencyKey = z.uuid({ error: 'The request has no valid idempotency key: reload the page and try again.' })
+
+export const paymentInputSchema = z
+  .object({
+    idempotencyKey,
+    method: z.enum(PAYMENT_METHODS, { error: 'Choose cash, check or card.' }),
+    amountCents: positiveCents('the amount'),
+    /** Cash: what the customer handed over (the amount itself when left out). */
+    tenderedCents: z.number({ error: 'Enter the cash handed over.' }).int('Enter the cash handed over to the cent.').max(100_000_000).nullish().transform((v) => v ?? null),
+    checkNumber: optionalText(30),
+    terminalReference: optionalText(60),
+    /** Where to e-mail the receipt; none when left empty. */
+    receiptEmail: z
+      .preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.email({ error: 'Enter an e-mail address such as name@example.com, or leave it empty.' }).max(254).nullish())
+      .transform((v) => v ?? null),
+    receiptLanguage: z.enum(LOCALES).default('en'),
+  })
+  .superRefine((p, ctx) => {
+    if (p.method === 'cash' && typeof p.tenderedCents === 'number' && typeof p.amountCents === 'number' && p.tenderedCents < p.amountCents) {
+      ctx.addIssue({ code: 'custom', path: ['tenderedCents'], message: 'The cash handed over is less than the amount paid.' })
+    }
+    if (p.method === 'check' && !p.checkNumber) ctx.addIssue({ code: 'custom', path: ['checkNumber'], message: 'Enter the check number.' })
+    if (p.method === 'card' && !p.terminalReference) {
+      ctx.addIssue({ code: 'custom', path: ['terminalReference'], message: "Enter the terminal's reference for this card payment (on its slip)." })
+    }
+  }, alongsideFieldIssues)
+export type PaymentInput = z.input<typeof paymentInputSchema>
+export type Payment = z.output<typeof paymentInputSchema>
+
+export const refundInputSchema = z.object({
+  idempotencyKey,
+  method: z.enum(PAYMENT_METHODS, { error: 'Choose how the money goes back: cash, check or card.' }),
+  amountCents: positiveCents('the refund'),
+  reason: requiredText(500, 'Say why the money is given back.'),
+  checkNumber: optionalText(30),
+  terminalReference: optionalText(60),
+})
+export type RefundInput = z.input<typeof refundInputSchema>
+export type Refund = z.output<typeof refundInputSchema>
+
+export const adjustmentInputSchema = z.object({
+  kind: z.enum(ADJUSTMENT_KINDS, { error: 'Choose a waiver or a discount.' }),
+  amountCents: positiveCents('the amount'),
+  reason: requiredText(500, 'Say why the charge is waived or discounted.'),
+})
+export type AdjustmentInput = z.input<typeof adjustmentInputSchema>
+export type Adjustment = z.output<typeof adjustmentInputSchema>
+
+export const declineInputSchema = z.object({ reason: requiredText(500, 'Say why the request is declined.') })
+
+export const invoiceQuerySchema = z.object({
+  asOf: z.iso.datetime({ offset: true, error: 'Enter the "as of" date as a date and time.' }).optional(),
+})
+
+export const invoiceLineSchema = z.object({
+  kind: z.enum(['tow', 'storage', 'fee']),
+  code: z.string(),
+  label: z.string(),
+  quantity: z.number(),
+  unitCents: z.number(),
+  amountCents: z.number(),
+  taxCents: z.number(),
+})
+
+export const paymentRecordSchema = z.object({
+  id: z.uuid(),
+  kind: z.enum(['payment', 'refund']),
+  method: z.enum(PAYMENT_METHODS),
+  amountCents: z.number(),
+  tenderedCents: z.number().nullable(),
+  changeCents: z.number().nullable(),
+  checkNumber: z.string().nullable(),
+  terminalReference: z.string().nullable(),
+  reason: z.string().nullable(),
+  receiptEmail: z.string().nullable(),
+  takenBy: z.string(),
+  takenAt: z.string(),
+})
+export type PaymentRecord = z.infer<typeof paymentRecordSchema>
+
+export const adjustmentRecordSchema = z.object({
+  id: z.uuid(),
+  kind: z.enum(ADJUSTMENT_KINDS),
+  amountCents: z.number(),
+  reason: z.string(),
+  status: z.enum(ADJUSTMENT_STATUSES),
+  requestedBy: z.string(),
+  requestedById: z.uuid(),
+  requestedAt: z.string(),
+  decidedBy: z.string().nullable(),
+  decidedAt: z.string().nullable(),
+  declineReason: z.string().nullable(),
+})
+export type AdjustmentRecord = z.infer<typeof adjustmentRecordSchema>
+
+export const invoiceSchema = z.object({
+  vehicleId: z.uuid(),
+  stockNumber: z.string(),
+  /** The instant the charges run to: now, the chosen "as of", or the moment the vehicle left. */
+  endsAt: z.string(),
+  /** The vehicle has left: its bill stopped then and never grows again. */
+  frozen: z.boolean(),
+  storageDays: z.number(),
+  lines: z.array(invoiceLineSchema),
+  subtotalCents: z.number(),
+  taxCents: z.number(),
+  totalCents: z.number(),
+  creditedCents: z.number(),
+  paidCents: z.number(),
+  refundedCents: z.number(),
+  netPaidCents: z.number(),
+  dueCents: z.number(),
+  waived: z.boolean(),
+  payments: z.array(paymentRecordSchema),
+  adjustments: z.array(adjustmentRecordSchema),
+  /** A waiver or discount above this waits for a second manager. */
+  approvalLimitCents: z.number(),
+  ruleSet: z.object({ name: z.string(), caution: z.string() }),
+  warnings: z.array(z.string()),
+})
+export type Invoice = z.infer<typeof invoiceSchema>
+
+export const paymentAnswerSchema = z.object({
+  payment: paymentRecordSchema,
+  /** The same key was sent before: this is the payment it recorded, nothing new was taken. */
+  replayed: z.boolean(),
+  invoice: invoiceSchema,
+})
+export type PaymentAnswer = z.infer<typeof paymentAnswerSchema>
+
+export const adjustmentAnswerSchema = z.object({ adjustment: adjustmentRecordSchema, invoice: invoiceSchema })
+
+/** A yard day, YYYY-MM-DD on the yard's calendar. */
+export const businessDateSchema = z.iso.date({ error: 'Enter the day as YYYY-MM-DD.' })
+
+export const closeoutInputSchema = z.object({
+  businessDate: businessDateSchema,
+  openingFloatCents: z.number({ error: 'Enter the float the drawer opened with.' }).int('Enter the float to the cent.').min(0, 'The float cannot be below zero.').max(100_000_000),
+  countedCents: z.number({ error: 'Enter the cash counted in the drawer.' }).int('Enter the count to the cent.').min(0, 'The count cannot be below zero.').max(100_000_000),
+  note: optionalText(500),
+})
+export type CloseoutInput = z.input<typeof closeoutInputSchema>
+
+export const drawerMovementSchema = paymentRecordSchema.extend({ stockNumber: z.string(), vehicleId: z.uuid() })
+
+export const closeoutRecordSchema = z.object({
+  id: z.uuid(),
+  businessDate: z.string(),
+  openingFloatCents: z.number(),
+  recordedCents: z.number(),
+  expectedCents: z.number(),
+  countedCents: z.number(),
+  overShortCents: z.number(),
+  note: z.string().nullable(),
+  closedBy: z.string(),
+  closedAt: z.string(),
+})
+export type CloseoutRecord = z.infer<typeof closeoutRecordSchema>
+
+export const drawerSchema = z.object({
+  businessDate: z.string(),
+  today: z.string(),
+  timeZone: z.string(),
+  movements: z.array(drawerMovementSchema),
+  /** Cash taken less cash refunded that day, by the payment records. */
+  recordedCents: z.number(),
+  closeout: closeoutRecordSchema.nullable(),
+})
+export type Drawer = z.infer<typeof drawerSchema>
