@@ -2,10 +2,10 @@ import { expect, test } from '@playwright/test'
 import { DEMO, signInAs, watchConsole, type DemoRole } from './helpers'
 
 const NAV: Record<DemoRole, string[]> = {
-  manager: ['Board', 'Archive', 'Log a tow-in', 'Outbox', 'Staff'],
+  manager: ['Board', 'Archive', 'Log a tow-in', 'Cash drawer', 'Outbox', 'Staff'],
   dispatcher: ['Board', 'Archive', 'Log a tow-in'],
   technician: ['Board', 'Archive'],
-  office: ['Board', 'Archive', 'Outbox'],
+  office: ['Board', 'Archive', 'Cash drawer', 'Outbox'],
 }
 
 for (const role of Object.keys(NAV) as DemoRole[]) {
