@@ -61,6 +61,8 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles/:vehicleId/owner-links': 'owner.write',
   'POST /api/vehicles/:vehicleId/owner-links/:linkId/revoke': 'owner.write',
   'POST /api/vehicles/:vehicleId/holds': 'towin.write',
+  // The dispatcher who logged the private-property tow tells the police and records it.
+  'POST /api/vehicles/:vehicleId/police-notice': 'towin.write',
   'POST /api/vehicles/:vehicleId/holds/:holdId/lift': 'towin.write',
   'PUT /api/vehicles/:vehicleId/space': 'towin.write',
   'POST /api/vehicles/:vehicleId/files': 'towin.write',

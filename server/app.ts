@@ -19,6 +19,7 @@ import { holdsRouter } from './holds/index'
 import { inspectionsRouter } from './inspections/index'
 import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
 import { outboxRouter } from './outbox/index'
+import { policeNoticeRouter } from './police-notices/index'
 import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, publicThrottle, type PublicLimits } from './owner/index'
 import { quotesRouter } from './quotes/index'
 import { ruleSetsRouter } from './rule-sets/index'
@@ -124,6 +125,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/quotes', quotesRouter(db))
   app.use('/api/vehicles/:vehicleId/owner-links', ownerLinksRouter(changes, deps.ownerLinkDays ?? 30))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
+  app.use('/api/vehicles/:vehicleId/police-notice', policeNoticeRouter(changes))
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))

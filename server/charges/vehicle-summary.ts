@@ -1,7 +1,17 @@
 import { dayFromIsoDate, type HolidayCalendar, localDay } from '@shared/domain/time'
-import { type ClockCalendars, type ClockEvent, type Deadline, legalClocks, lienSaleGate } from '@shared/domain/clocks'
+import {
+  type ClockCalendars,
+  type ClockEvent,
+  type Deadline,
+  type LienSaleGate,
+  legalClocks,
+  lienSaleGate,
+  type PoliceNotification,
+  policeNoticeClock,
+  type TowTimes,
+} from '@shared/domain/clocks'
 import { storageBill } from '@shared/domain/billing'
-import type { NextDeadline, VehicleSummary } from '@shared/schemas/charges'
+import type { LienSaleEligible, NextDeadline, VehicleSummary } from '@shared/schemas/charges'
 import type { RuleSet } from '@shared/schemas/rule-sets'
 
 export interface SummaryInput {
@@ -13,6 +23,11 @@ export interface SummaryInput {
   towCents: number
   /** Recorded notice events beyond the arrival itself (mailings, filings, postings). */
   clockEvents: ClockEvent[]
+  /** The tow's reason and times, for the rule set's police-notification clock (none without them). */
+  tow?: TowTimes | null
+  policeNotification?: PoliceNotification | null
+  /** The owner has claimed the vehicle (chosen to collect it or have it repaired): not eligible for sale. */
+  claimed?: boolean
 }
 
 // Missed deadlines first, then the nearest open one; an "earliest" date only once no deadline is open.
@@ -34,16 +49,25 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
     .filter((d) => d.dueDate && URGENCY[d.status] !== undefined && !(d.kind === 'earliest' && d.status === 'missed'))
     .sort((a, b) => rank(a) - rank(b) || a.dueDate!.localeCompare(b.dueDate!))
   const today = localDay(timeZone, at.getTime())
+  const lienSale = lienSaleGate(clocks.deadlines, clocks.alerts)
   return {
     daysOnLot: bill.days,
     storageCents: bill.totalCents,
     towCents: input.towCents,
     balanceCents: bill.totalCents + input.towCents,
     nextDeadline: open[0] ? toNext(open[0], today) : null,
-    lienSale: lienSaleGate(clocks.deadlines, clocks.alerts),
+    lienSale,
     clockAlerts: clocks.alerts,
+    eligible: input.claimed ? null : eligibleSince(lienSale),
+    // The tow's clock runs on the real clock, from the tow: as of now, not as of the arrival.
+    policeNotice: policeNoticeClock(ruleSet.policeNotice, input.tow ?? null, input.policeNotification ?? null, asOf.toISOString()),
     warnings: bill.warnings,
   }
+}
+
+/** Open gate: eligible for lien sale or disposal since its date, by the rule that set it. */
+function eligibleSince(gate: LienSaleGate): LienSaleEligible | null {
+  return gate.open && gate.date && gate.step && gate.citation ? { since: gate.date, step: gate.step, citation: gate.citation } : null
 }
 
 function rank(d: Deadline): number {

@@ -25,6 +25,7 @@ export const HISTORY_KINDS = [
   'owner_link_created',
   'owner_link_revoked',
   'owner_decided',
+  'police_notified',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -73,4 +74,5 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   owner_link_created: 'Owner link created',
   owner_link_revoked: 'Owner link revoked',
   owner_decided: "Owner's decision",
+  police_notified: 'Police told of the tow',
 }
