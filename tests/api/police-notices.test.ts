@@ -4,7 +4,9 @@ import { historyOf } from '@db/history'
 import * as t from '@db/schema'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { historyCount, sampleVersion, vehicleRow } from '../helpers/board'
+import type { Database } from '@db/client'
 import { makeStaff, makeVehicle } from '../helpers/factories'
+import { towInBody } from '../helpers/tow-in'
 
 let t_: TestApp
 beforeAll(async () => {
@@ -93,7 +95,7 @@ describe('POST /api/vehicles/:vehicleId/police-notice', () => {
     { what: 'a time before the tow', body: () => ({ agency: 'Riverton PD', notifiedAt: new Date(Date.now() - 5 * 60 * MIN).toISOString() }), path: 'notifiedAt' },
     { what: 'a time without its offset', body: () => ({ agency: 'Riverton PD', notifiedAt: '2026-12-02T10:00:00' }), path: 'notifiedAt' },
   ]
-  it.each(refusals)('recordPoliceNotice_$what_isRefusedNamingTheFieldAndWritesNothing', async ({ body, path }) => {
+  it.each(refusals)('recordPoliceNotice_badInput_isRefusedNamingTheFieldAndWritesNothing ($what)', async ({ body, path }) => {
     const { staff, v } = await towed()
     const s = await signedIn(t_.app, staff.dispatcher)
     const res = await s.post(noticeOf(v.id), body(new Date(Date.now() - 5 * MIN).toISOString()))
@@ -132,5 +134,35 @@ describe('POST /api/vehicles/:vehicleId/police-notice', () => {
     const s = await signedIn(t_.app, other.dispatcher)
     expect((await s.post(noticeOf(v.id), { agency: 'Riverton PD', notifiedAt: new Date().toISOString() })).status).toBe(404)
     expect(await historyCount(t_.db, v.id)).toBe(0)
+  })
+})
+
+/** The California sample as the yard's current rule set, as a new yard's manager would choose it. */
+async function californiaYard(db: Database, yardId: string) {
+  const [version] = await db.select().from(t.ruleSetVersions).where(eq(t.ruleSetVersions.id, await sampleVersion(db, 'california-sample')))
+  await db.update(t.yards).set({ ruleSetId: version!.ruleSetId }).where(eq(t.yards.id, yardId))
+}
+
+describe('the police clock at the tow-in', () => {
+  it('towIn_privatePropertyTow_answersThePoliceClockAtOnceAndTheFormIsOfferedTheRule', async () => {
+    const staff = await makeStaff(t_.db)
+    await californiaYard(t_.db, staff.yard.id)
+    const d = await signedIn(t_.app, staff.dispatcher)
+    expect((await d.get('/api/vehicles/intake-options').expect(200)).body.policeNotice).toMatchObject({ hours: 1, towReasons: ['private_property'] })
+    const calledAt = new Date(Date.now() - 20 * MIN).toISOString()
+    const res = await d.post(
+      '/api/vehicles',
+      towInBody(staff.dispatcher.id, (b) => Object.assign(b.tow, { reason: 'private_property', requesterName: 'Lot manager', calledAt, hookedAt: null, arrivedAt: new Date().toISOString() })),
+    )
+    expect(res.status).toBe(201)
+    expect(res.body.policeNotice).toMatchObject({ status: 'open', start: 'called', dueAt: new Date(Date.parse(calledAt) + 60 * MIN).toISOString() })
+  })
+
+  it('towIn_breakdown_answersNoPoliceClock', async () => {
+    const staff = await makeStaff(t_.db)
+    await californiaYard(t_.db, staff.yard.id)
+    const d = await signedIn(t_.app, staff.dispatcher)
+    const res = await d.post('/api/vehicles', towInBody(staff.dispatcher.id)).expect(201)
+    expect(res.body.policeNotice).toBeNull()
   })
 })

@@ -34,7 +34,7 @@ describe('police notification of a private-property tow, in hours from the tow',
   it.each([
     { at: '2026-11-08T08:20:00Z', status: 'met', why: 'told at the due minute itself' },
     { at: '2026-11-08T08:20:01Z', status: 'late', why: 'told a second after' },
-  ])('policeNoticeClock_california_$why_is$status', ({ at, status }) => {
+  ])('policeNoticeClock_californiaToldAtTheEdge_is$status ($why)', ({ at, status }) => {
     const clock = policeNoticeClock(california.policeNotice, tow, { notifiedAt: at, agency: 'Riverton PD', person: null, reportNumber: null }, '2026-11-08T09:00:00Z')
     expect(clock?.status).toBe(status)
   })
