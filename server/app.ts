@@ -10,6 +10,7 @@ import type { Database } from '@db/client'
 import type { HistoryKey } from '@db/history'
 import { enforceAccess } from './access'
 import { archiveRouter } from './archive/index'
+import { deadlinesRouter } from './deadlines/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
 import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
@@ -135,6 +136,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/map', mapRouter(db, map))
   app.use('/api/vin-decode', vinDecodeRouter())
   app.use('/api/outbox', outboxRouter({ db, files, kick: deps.kickOutbox }))
+  app.use('/api', deadlinesRouter(db, deps.publicUrl))
   // Public: the owner's page (its key checked by every route) and "is my vehicle here?".
   const throttle = publicThrottle(db, deps.publicLimits ?? DEFAULT_PUBLIC_LIMITS)
   app.use('/api/owner', ownerRouter({ changes, files, map, throttle }))

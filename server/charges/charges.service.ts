@@ -1,13 +1,13 @@
 import { eq, inArray } from 'drizzle-orm'
 import type { Executor } from '@db/client'
 import { policeNotices, tows } from '@db/schema'
-import { needsPoliceNotice, type PoliceNotification, type TowTimes } from '@shared/domain/clocks'
-import type { VehicleSummary } from '@shared/schemas/charges'
+import { type LegalClocks, type LienSaleGate, lienSaleGate, needsPoliceNotice, type PoliceNoticeClock, policeNoticeClock, type PoliceNotification, type TowTimes } from '@shared/domain/clocks'
+import type { LienSaleEligible, VehicleSummary } from '@shared/schemas/charges'
 import type { RuleSet } from '@shared/schemas/rule-sets'
 import { DomainError } from '@shared/domain/errors'
 import { ruleSetCalendars } from '../holidays/index'
 import { latestVersionOf, versionsById } from '../rule-sets/index'
-import { summarizeVehicle } from './vehicle-summary'
+import { eligibleSince, summarizeVehicle, vehicleClocks } from './vehicle-summary'
 
 export interface SummarizedVehicle {
   id: string
@@ -27,6 +27,7 @@ export interface SummarizedVehicle {
 
 /** Owner choices that claim the vehicle back. */
 const CLAIMS: ReadonlySet<string> = new Set(['collect', 'repair'])
+const claimed = (v: SummarizedVehicle) => !!v.ownerChoice && CLAIMS.has(v.ownerChoice)
 
 export interface YardForCharges {
   timeZone: string
@@ -70,7 +71,7 @@ export async function summarizeVehicles(
       clockEvents: [],
       tow: police.get(v.id)?.tow ?? null,
       policeNotification: police.get(v.id)?.notification ?? null,
-      claimed: !!v.ownerChoice && CLAIMS.has(v.ownerChoice),
+      claimed: claimed(v),
     }
     try {
       out.set(v.id, summarizeVehicle(input, ruleSet, ruleSetCalendars(ruleSet), asOf, yard.timeZone))
@@ -78,6 +79,48 @@ export async function summarizeVehicles(
       if (!(err instanceof DomainError)) throw err
       out.set(v.id, null)
       problems?.set(v.id, err.message)
+    }
+  }
+  return out
+}
+
+/** Every legal clock of one vehicle, with what the screens make of them. */
+export interface VehicleClocks {
+  clocks: LegalClocks
+  eligible: LienSaleEligible | null
+  lienSale: LienSaleGate
+  /** The owner chose to collect it or have it repaired: no sale is offered. */
+  claimed: boolean
+  policeNotice: PoliceNoticeClock | null
+}
+
+/**
+ * Every legal clock of many vehicles at once, for the Deadlines page and its calendar: the same rule
+ * sets, tow facts and clock engine as the board's summaries (summarizeVehicles), without the bill.
+ * A vehicle without a rule set, or whose record the core refuses, has none.
+ */
+export async function clocksOfVehicles(db: Executor, yard: YardForCharges, vehicles: SummarizedVehicle[], asOf = new Date()): Promise<Map<string, VehicleClocks>> {
+  const out = new Map<string, VehicleClocks>()
+  if (vehicles.length === 0) return out
+  const ruleSets = await ruleSetsOf(db, yard, vehicles)
+  const police = await policeFacts(db, vehicles, ruleSets)
+  for (const v of vehicles) {
+    const ruleSet = ruleSets.get(v.id)
+    if (!ruleSet) continue
+    const at = asOf.getTime() < v.arrivedAt.getTime() ? v.arrivedAt : asOf
+    try {
+      const clocks = vehicleClocks({ arrivedAt: v.arrivedAt, modelYear: v.year, valueCents: v.estimatedValueCents, clockEvents: [] }, ruleSet, ruleSetCalendars(ruleSet), at, yard.timeZone)
+      const gate = lienSaleGate(clocks.deadlines, clocks.alerts)
+      const facts = police.get(v.id)
+      out.set(v.id, {
+        clocks,
+        eligible: claimed(v) ? null : eligibleSince(gate),
+        lienSale: gate,
+        claimed: claimed(v),
+        policeNotice: policeNoticeClock(ruleSet.policeNotice, facts?.tow ?? null, facts?.notification ?? null, asOf.toISOString()),
+      })
+    } catch (err) {
+      if (!(err instanceof DomainError)) throw err
     }
   }
   return out

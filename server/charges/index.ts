@@ -1,3 +1,3 @@
 export { summarizeVehicles, type SummarizedVehicle, type YardForCharges } from './charges.service'
 export { summarizeVehicle, type SummaryInput } from './vehicle-summary'
-export { ruleSetsOf } from './charges.service'
+export { clocksOfVehicles, ruleSetsOf, type VehicleClocks } from './charges.service'

@@ -3,6 +3,7 @@ import {
   type ClockCalendars,
   type ClockEvent,
   type Deadline,
+  type LegalClocks,
   type LienSaleGate,
   legalClocks,
   lienSaleGate,
@@ -33,6 +34,23 @@ export interface SummaryInput {
 // Missed deadlines first, then the nearest open one; an "earliest" date only once no deadline is open.
 const URGENCY: Partial<Record<Deadline['status'], number>> = { missed: 0, upcoming: 1 }
 
+/**
+ * Every legal clock of one vehicle, as of an instant: the events the arrival itself records under the
+ * rule set (storage, the lien arising) and those recorded since. The board, the vehicle page and the
+ * Deadlines page all read their dates from here.
+ */
+export function vehicleClocks(
+  input: Pick<SummaryInput, 'arrivedAt' | 'modelYear' | 'valueCents' | 'clockEvents'>,
+  ruleSet: RuleSet,
+  holidays: HolidayCalendar | ClockCalendars,
+  at: Date,
+  timeZone: string,
+): LegalClocks {
+  const atArrival = (ruleSet.arrivalEvents?.kinds ?? ['stored']).map((kind) => ({ kind, at: input.arrivedAt.toISOString() }))
+  const events: ClockEvent[] = [...atArrival, ...input.clockEvents]
+  return legalClocks({ modelYear: input.modelYear, valueCents: input.valueCents }, events, ruleSet, holidays, at.toISOString(), { timeZone })
+}
+
 /** The running bill and the next legal date of one vehicle, as of an instant, in the yard's zone. */
 export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays: HolidayCalendar | ClockCalendars, asOf: Date, timeZone: string): VehicleSummary {
   const at = asOf.getTime() < input.arrivedAt.getTime() ? input.arrivedAt : asOf
@@ -42,9 +60,7 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
     at.toISOString(),
     { timeZone },
   )
-  const atArrival = (ruleSet.arrivalEvents?.kinds ?? ['stored']).map((kind) => ({ kind, at: input.arrivedAt.toISOString() }))
-  const events: ClockEvent[] = [...atArrival, ...input.clockEvents]
-  const clocks = legalClocks({ modelYear: input.modelYear, valueCents: input.valueCents }, events, ruleSet, holidays, at.toISOString(), { timeZone })
+  const clocks = vehicleClocks(input, ruleSet, holidays, at, timeZone)
   const open = clocks.deadlines
     .filter((d) => d.dueDate && URGENCY[d.status] !== undefined && !(d.kind === 'earliest' && d.status === 'missed'))
     .sort((a, b) => rank(a) - rank(b) || a.dueDate!.localeCompare(b.dueDate!))
@@ -66,7 +82,7 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
 }
 
 /** Open gate: eligible for lien sale or disposal since its date, by the rule that set it. */
-function eligibleSince(gate: LienSaleGate): LienSaleEligible | null {
+export function eligibleSince(gate: LienSaleGate): LienSaleEligible | null {
   return gate.open && gate.date && gate.step && gate.citation ? { since: gate.date, step: gate.step, citation: gate.citation } : null
 }
 

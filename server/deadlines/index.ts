@@ -1,0 +1,1 @@
+export { deadlinesRouter } from './deadlines.routes'
