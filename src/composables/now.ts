@@ -19,3 +19,11 @@ export function useNow(): Readonly<Ref<number>> {
 
 /** Whole minutes from now to an instant; negative once it has passed. */
 export const minutesUntil = (iso: string, at: number) => Math.floor((Date.parse(iso) - at) / 60_000)
+
+/** A span of minutes in the largest unit that reads at a glance: "40 min", "6 h", "3 d" (the catalog's police.span). */
+export function spanWords(minutes: number, t: (key: string, named: Record<string, unknown>) => string): string {
+  const m = Math.abs(minutes)
+  if (m < 120) return t('police.span.minutes', { n: m })
+  if (m < 48 * 60) return t('police.span.hours', { n: Math.floor(m / 60) })
+  return t('police.span.days', { n: Math.floor(m / 1440) })
+}
