@@ -68,6 +68,9 @@ export function byUrgency(a: DeadlineEntry, b: DeadlineEntry): number {
   const overdue = Number(b.status === 'overdue') - Number(a.status === 'overdue')
   if (overdue !== 0) return overdue
   if (a.day !== b.day) return a.day < b.day ? -1 : 1
-  const at = (a.dueAt ?? '\uffff').localeCompare(b.dueAt ?? '\uffff')
-  return at !== 0 ? at : a.stockNumber.localeCompare(b.stockNumber)
+  // ISO instants and stock numbers sort as plain text; no locale rules (and none of their cost) apply.
+  const at = compare(a.dueAt ?? '\uffff', b.dueAt ?? '\uffff')
+  return at !== 0 ? at : compare(a.stockNumber, b.stockNumber)
 }
+
+const compare = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0)
