@@ -61,6 +61,8 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles/:vehicleId/owner-links': 'owner.write',
   'POST /api/vehicles/:vehicleId/owner-links/:linkId/revoke': 'owner.write',
   'POST /api/vehicles/:vehicleId/holds': 'towin.write',
+  // The dispatcher who logged the private-property tow tells the police and records it.
+  'POST /api/vehicles/:vehicleId/police-notice': 'towin.write',
   'POST /api/vehicles/:vehicleId/holds/:holdId/lift': 'towin.write',
   'PUT /api/vehicles/:vehicleId/space': 'towin.write',
   'POST /api/vehicles/:vehicleId/files': 'towin.write',
@@ -86,6 +88,14 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/outbox/:messageId': 'outbox',
   'GET /api/outbox/:messageId/attachments/:attachmentId': 'outbox',
   'POST /api/outbox/:messageId/retry': 'outbox',
+  'GET /api/deadlines': 'deadlines',
+  'GET /api/deadlines.ics': 'deadlines',
+  // Each person's own calendar feed: only ever their own (the routes read the session's user).
+  'GET /api/deadlines/feed': 'deadlines',
+  'POST /api/deadlines/feed': 'deadlines',
+  'DELETE /api/deadlines/feed': 'deadlines',
+  // Public with its secret token checked by the route: one person's Deadlines calendar, nothing else.
+  'GET /api/calendar/:token/deadlines.ics': 'public',
   // Public with their key checked by every route (server/owner/owner.routes.ts): the key reaches one
   // vehicle's owner page, its photos, its cost on a date and its owner's choice — nothing else.
   'GET /api/owner/:key': 'public',

@@ -10,6 +10,7 @@ import type { Database } from '@db/client'
 import type { HistoryKey } from '@db/history'
 import { enforceAccess } from './access'
 import { archiveRouter } from './archive/index'
+import { deadlinesRouter } from './deadlines/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
 import { cashDrawerRouter, vehicleBillingRouter } from './billing/index'
 import { documentsRouter } from './documents/index'
@@ -20,6 +21,7 @@ import { holdsRouter } from './holds/index'
 import { inspectionsRouter } from './inspections/index'
 import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
 import { outboxRouter } from './outbox/index'
+import { policeNoticeRouter } from './police-notices/index'
 import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, publicThrottle, type PublicLimits } from './owner/index'
 import { quotesRouter } from './quotes/index'
 import { ruleSetsRouter } from './rule-sets/index'
@@ -127,6 +129,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/quotes', quotesRouter(db))
   app.use('/api/vehicles/:vehicleId/owner-links', ownerLinksRouter(changes, deps.ownerLinkDays ?? 30))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
+  app.use('/api/vehicles/:vehicleId/police-notice', policeNoticeRouter(changes))
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))
@@ -138,6 +141,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/map', mapRouter(db, map))
   app.use('/api/vin-decode', vinDecodeRouter())
   app.use('/api/outbox', outboxRouter({ db, files, kick: deps.kickOutbox }))
+  app.use('/api', deadlinesRouter(db, deps.publicUrl))
   // Public: the owner's page (its key checked by every route) and "is my vehicle here?".
   const throttle = publicThrottle(db, deps.publicLimits ?? DEFAULT_PUBLIC_LIMITS)
   app.use('/api/owner', ownerRouter({ changes, files, map, throttle }))

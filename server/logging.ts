@@ -7,8 +7,8 @@ import { pino, type Logger } from 'pino'
 
 export const REDACTED = '[Redacted]'
 
-/** Paths whose next segment is a bearer token: owner links and gate passes. A new one goes here. */
-const TOKEN_PATH = /^(\/api\/owner\/|\/o\/|\/api\/gate\/|\/g\/)[^/?#]+/i
+/** Paths whose next segment is a bearer token: owner links, gate passes, calendar feeds. A new one goes here. */
+const TOKEN_PATH = /^(\/api\/owner\/|\/o\/|\/api\/gate\/|\/g\/|\/api\/calendar\/)[^/?#]+/i
 /** Query parameters that may carry a token, a one-time code or a password. */
 const SECRET_PARAM = /token|code|secret|password|signature|key/i
 /** A long random-looking segment (but not a record's UUID): a token on a path nobody listed yet. */

@@ -129,6 +129,10 @@ async function loadDemo(db: Database, historyKey: HistoryKey, now: Date, ruleSet
       }
     }),
   )
+  const told = sorted.flatMap((v, i) => (policeToldInDemo(v) ? [{ i, notifiedAt: policeToldAt(rows[i]!.arrivedAt) }] : []))
+  if (told.length > 0) {
+    await db.insert(t.policeNotices).values(told.map(({ i, notifiedAt }) => ({ vehicleId: vehicleIds[i]!, ...DEMO_POLICE, notifiedAt, reportNumber: `OFPD-${4100 + i}`, recordedById: byRole.dispatcher!.id })))
+  }
   const held = sorted.flatMap((v, i) => (v.hold ? [{ v, hold: v.hold, i }] : []))
   await db.insert(t.holds).values(
     held.map(({ hold, i }) => ({
@@ -155,11 +159,21 @@ async function loadDemo(db: Database, historyKey: HistoryKey, now: Date, ruleSet
 
 type Staff = Record<string, { id: string; name: string }>
 
+// Private-property tows: the police were told 20 minutes after the call (within § 22658's hour), except
+// the newest, left untold so the demo shows an overdue police clock.
+const DEMO_POLICE = { agency: 'Orrin Flats Police Department', person: 'Desk officer Lena Marsh' }
+const policeToldInDemo = (v: DemoVehicle) => v.reason === 'private_property' && v.hoursAgo > 6
+const policeToldAt = (arrivedAt: Date) => new Date(arrivedAt.getTime() - 1.5 * HOUR + 20 * 60_000)
+
 function demoHistory(v: DemoVehicle, arrivedAt: Date, now: Date, staff: Staff): Omit<NewHistoryEvent, 'vehicleId'>[] {
   const actor = (role: string) => ({ actorId: staff[role]!.id, actorLabel: staff[role]!.name })
   const events: Omit<NewHistoryEvent, 'vehicleId'>[] = [
     { ...actor('dispatcher'), kind: 'towed_in', toState: 'arrival', at: arrivedAt, reason: v.reason.replaceAll('_', ' ') },
   ]
+  if (policeToldInDemo(v)) {
+    const notifiedAt = policeToldAt(arrivedAt).toISOString()
+    events.push({ ...actor('dispatcher'), kind: 'police_notified', at: new Date(arrivedAt.getTime() + 30_000), after: { ...DEMO_POLICE, notifiedAt } })
+  }
   if (v.hold) {
     events.push({ ...actor('dispatcher'), kind: 'hold_set', at: new Date(arrivedAt.getTime() + 60_000), after: { kind: v.hold.kind, caseNumber: v.hold.caseNumber ?? null } })
   }

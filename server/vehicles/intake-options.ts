@@ -20,6 +20,7 @@ export async function intakeOptions(db: Database, userId: string): Promise<Intak
   return {
     yard: { id: yard.id, name: yard.name, code: yard.code, lat: yard.lat, lng: yard.lng, timeZone: yard.timeZone, towRates: rates, ratesSet },
     ruleSet: rules.ruleSet,
+    policeNotice: rules.policeNotice,
     vehicleClasses: rules.classes,
     staff,
   }

@@ -15,6 +15,7 @@ export async function intakeRules(db: Executor, yard: Yard) {
   return {
     versionId: current?.versionId ?? null,
     ruleSet: current ? { name: current.ruleSet.name, caution: current.ruleSet.caution } : null,
+    policeNotice: current?.ruleSet.policeNotice ?? null,
     classes: current ? current.ruleSet.vehicleClasses.map((c) => ({ code: c.code, label: c.label })) : NO_RULE_SET_CLASSES,
   }
 }

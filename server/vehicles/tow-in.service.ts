@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto'
 import { and, eq } from 'drizzle-orm'
 import type { Database } from '@db/client'
 import { holds, propertyItems, tows, users, vehicles } from '@db/schema'
+import { policeNoticeClock } from '@shared/domain/clocks'
 import { TOW_REASON_LABELS } from '@shared/domain/tow'
 import type { TowIn } from '@shared/schemas/tow-in'
 import type { User } from '@shared/schemas/users'
@@ -32,7 +33,10 @@ export async function createTowIn(changes: VehicleChanges, store: FileStore, act
   const vehicleId = randomUUID()
   const { stored, discard } = await putFiles(store, vehicleId, prepared)
   try {
-    return await createVehicle(changes, actor, yard, vehicleId, (scope) => insertTowIn(scope, yard, input, { ruleSetVersionId: rules.versionId, photos: stored }))
+    const created = await createVehicle(changes, actor, yard, vehicleId, (scope) => insertTowIn(scope, yard, input, { ruleSetVersionId: rules.versionId, photos: stored }))
+    // A private-property tow starts the police clock now: the dispatcher sees it before leaving the form.
+    const policeNotice = policeNoticeClock(rules.policeNotice ?? undefined, input.tow, null, new Date().toISOString())
+    return { ...created, policeNotice }
   } catch (err) {
     await discard()
     if (isSpaceConflict(err)) throw spaceTaken(null, 'spaceId')

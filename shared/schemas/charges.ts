@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { policeNoticeClockSchema } from './police-notices'
 
 /** The next legal date that matters for a vehicle, as a card or page shows it. */
 export const nextDeadlineSchema = z.object({
@@ -21,7 +22,17 @@ export const lienSaleGateSchema = z.object({
   date: z.string().nullable(),
   why: z.string(),
   code: z.enum(['open', 'not-before', 'waiting', 'too-early', 'expired', 'needs-value', 'needs-model-year', 'no-branch', 'no-sale-date']),
+  /** The step that sets the date, and its citation, once there is a date. */
+  step: z.string().optional(),
+  citation: z.string().optional(),
 })
+
+/**
+ * Eligible for lien sale or disposal: the gate is open and nobody has claimed the vehicle (its owner
+ * has not chosen to collect it or have it repaired). The date and the rule that set it.
+ */
+export const lienSaleEligibleSchema = z.object({ since: z.string(), step: z.string(), citation: z.string() })
+export type LienSaleEligible = z.infer<typeof lienSaleEligibleSchema>
 
 /**
  * What the card and the vehicle page show instead of nothing when the clocks cannot all be worked
@@ -39,6 +50,10 @@ export const vehicleSummarySchema = z.object({
   nextDeadline: nextDeadlineSchema.nullable(),
   lienSale: lienSaleGateSchema,
   clockAlerts: z.array(clockAlertSchema),
+  /** Eligible for lien sale or disposal, or null (absent from summaries made before it existed). */
+  eligible: lienSaleEligibleSchema.nullish(),
+  /** The police-notification clock of a tow the rule set asks it of; null otherwise. */
+  policeNotice: policeNoticeClockSchema.nullish(),
   warnings: z.array(z.string()),
 })
 export type VehicleSummary = z.infer<typeof vehicleSummarySchema>

@@ -30,6 +30,7 @@ export const HISTORY_KINDS = [
   'charges_adjusted',
   'adjustment_requested',
   'adjustment_declined',
+  'police_notified',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -83,4 +84,5 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   charges_adjusted: 'Charges waived or discounted',
   adjustment_requested: 'Waiver or discount requested',
   adjustment_declined: 'Waiver or discount declined',
+  police_notified: 'Police told of the tow',
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { isTimeZone } from '../domain/time/local-time'
+import { TOW_REASONS } from '../domain/tow/tow-reasons'
 
 /**
  * A local rule set: how a jurisdiction (or a yard's own ordinance) bills storage and runs its
@@ -140,6 +141,21 @@ export const mailDeadlinesSchema = z.object({
   source: sourceSchema,
 })
 
+/**
+ * A duty to tell the police of a tow within hours of it (a private-property tow, in many states):
+ * a clock from the tow itself, counted in hours, met by recording who was told, when and the report number.
+ * `tow-requested` counts from the earliest time the tow-in records (the call, else the hook-up, else the
+ * arrival), so a missing time can only bring the due time earlier; `tow-completed` from the arrival at the yard.
+ */
+export const policeNoticeSchema = z.object({
+  label: z.string().min(1),
+  hours: z.number().positive().max(72),
+  from: z.enum(['tow-requested', 'tow-completed']),
+  towReasons: z.array(z.enum(TOW_REASONS)).min(1),
+  placeholder,
+  source: sourceSchema,
+})
+
 export const totalLossSchema = z.discriminatedUnion('rule', [
   z.object({ rule: z.literal('percent-of-value'), percent: z.number().positive().max(100), source: sourceSchema }),
   z.object({ rule: z.literal('total-loss-formula'), source: sourceSchema }),
@@ -169,6 +185,7 @@ export const ruleSetSchema = z
     /** What the arrival itself records for the clocks; a storage lien, for one, commonly arises with the storage. */
     arrivalEvents: z.object({ kinds: z.array(clockEventKindSchema).min(1), source: sourceSchema }).optional(),
     timeline: z.array(timelineStepSchema),
+    policeNotice: policeNoticeSchema.optional(),
     totalLoss: totalLossSchema,
     notes: z.array(z.string().min(1)).default([]),
   })
@@ -183,6 +200,7 @@ export type StorageRules = z.infer<typeof storageRulesSchema>
 export type ClockEventKind = z.infer<typeof clockEventKindSchema>
 export type TimelineStep = z.infer<typeof timelineStepSchema>
 export type CalendarKey = z.infer<typeof calendarKeySchema>
+export type PoliceNoticeRule = z.output<typeof policeNoticeSchema>
 export type TotalLossRule = z.infer<typeof totalLossSchema>
 /** A rule set as the functions use it (defaults applied). */
 export type RuleSet = z.output<typeof ruleSetSchema>

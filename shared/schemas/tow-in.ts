@@ -1,4 +1,6 @@
 import { z } from 'zod'
+import { policeNoticeClockSchema } from './police-notices'
+import { policeNoticeSchema } from './rule-sets'
 import { optionalText, text } from './fields'
 import { holdInputSchema } from './holds'
 import { towRatesSchema, towSchema } from './tows'
@@ -26,6 +28,8 @@ export type TowIn = z.output<typeof towInSchema>
 export const towInCreatedSchema = z.object({
   id: z.uuid(),
   stockNumber: z.string(),
+  /** The police-notification clock this tow starts (a private-property tow), shown to the dispatcher at once. */
+  policeNotice: policeNoticeClockSchema.nullish(),
 })
 
 /** What the tow-in form offers: the yard (for distance and charge), billing classes, staff, spaces. */
@@ -42,6 +46,8 @@ export const intakeOptionsSchema = z.object({
     ratesSet: z.boolean(),
   }),
   ruleSet: z.object({ name: z.string(), caution: z.string() }).nullable(),
+  /** The rule set's duty to tell the police of some tows, shown as soon as such a reason is chosen. */
+  policeNotice: policeNoticeSchema.nullish(),
   vehicleClasses: z.array(z.object({ code: z.string(), label: z.string() })),
   staff: z.array(z.object({ id: z.uuid(), name: z.string(), role: z.string() })),
 })

@@ -17,6 +17,8 @@ export const PERMISSIONS = {
   'charges.waive': ['manager'],
   // Issue 10: the office sends the notices, so it sees what went out and sends a failed message again.
   'outbox': ['manager', 'office'],
+  // Issue 10: every open deadline across the yard, on a page and as a calendar feed.
+  'deadlines': ['manager', 'office'],
   'admin': ['manager'],
 } as const satisfies Record<string, readonly Role[]>
 

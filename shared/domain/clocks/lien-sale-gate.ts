@@ -15,6 +15,9 @@ export interface LienSaleGate {
   date: string | null
   why: string
   code: LienSaleGateCode
+  /** Once there is a date: the "not before" step that sets it, and that step's citation. */
+  step?: string
+  citation?: string
 }
 
 const shut = (code: LienSaleGateCode, why: string): LienSaleGate => ({ open: false, date: null, why, code })
@@ -39,7 +42,10 @@ export function lienSaleGate(deadlines: readonly Deadline[], alerts: readonly Cl
   if (waiting) return shut('waiting', `${waiting.label}: ${waiting.statusReason}`)
   const expired = deadlines.find((d) => d.kind === 'deadline' && d.doneBy.event === 'lien-sale-held' && d.status === 'missed')
   if (expired) return shut('expired', `${expired.label}: ${expired.dueDate} has passed (${expired.explanation}) Start that step again.`)
-  const date = notBefore.map((d) => d.dueDate!).sort().at(-1)!
+  // The last "not before" date decides; of steps ending the same day, the sale's own date names the rule.
+  const last = notBefore.reduce((a, b) => (b.dueDate! > a.dueDate! || (b.dueDate === a.dueDate && b.doneBy.event === 'lien-sale-held') ? b : a))
+  const date = last.dueDate!
   const open = notBefore.every((d) => d.status === 'reached' || d.status === 'met')
-  return open ? { open, date, why: `Open since ${date}.`, code: 'open' } : { open, date, why: `Not before ${date}.`, code: 'not-before' }
+  const rule = { step: last.label, citation: last.source.citation }
+  return open ? { open, date, why: `Open since ${date}.`, code: 'open', ...rule } : { open, date, why: `Not before ${date}.`, code: 'not-before', ...rule }
 }

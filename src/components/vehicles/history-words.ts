@@ -8,7 +8,12 @@ const { t, te } = i18n.global
 const HIDDEN = new Set(['holdId', 'paymentId', 'adjustmentId', ...INSPECTION_HIDDEN])
 
 // Fields whose words have moved to the message catalogs (read at render, so they follow the language).
-const CATALOG_LABELS: Record<string, string> = { estimatedValueSource: 'clocks.value.historySource' }
+const CATALOG_LABELS: Record<string, string> = {
+  estimatedValueSource: 'clocks.value.historySource',
+  person: 'police.fields.person',
+  notifiedAt: 'police.fields.notifiedAt',
+  reportNumber: 'police.fields.reportNumber',
+}
 
 export function fieldLabel(key: string): string {
   const catalogKey = CATALOG_LABELS[key]

@@ -15,11 +15,18 @@ const gate = (ruleSet: typeof florida, modelYear: number, asOf: string) =>
 // less) come from its own timeline; the gate only reads whether they have been reached.
 describe('lienSaleGate', () => {
   it('lienSaleGate_olderVehicleBeforeDay35_isShutWithTheDate', () => {
-    expect(gate(florida, 2018, '2026-07-20T00:00:00Z')).toEqual({ open: false, date: '2026-08-04', why: 'Not before 2026-08-04.', code: 'not-before' })
+    expect(gate(florida, 2018, '2026-07-20T00:00:00Z')).toEqual({
+      open: false,
+      date: '2026-08-04',
+      why: 'Not before 2026-08-04.',
+      code: 'not-before',
+      step: 'Earliest lien sale',
+      citation: expect.stringContaining('713.78'),
+    })
   })
 
   it('lienSaleGate_olderVehicleAfterDay35_isOpen', () => {
-    expect(gate(florida, 2018, '2026-08-10T00:00:00Z')).toEqual({ open: true, date: '2026-08-04', why: 'Open since 2026-08-04.', code: 'open' })
+    expect(gate(florida, 2018, '2026-08-10T00:00:00Z')).toMatchObject({ open: true, date: '2026-08-04', why: 'Open since 2026-08-04.', code: 'open', step: 'Earliest lien sale' })
   })
 
   it('lienSaleGate_newerVehicle_waitsForTheLongerPeriod', () => {

@@ -1,0 +1,1 @@
+export { policeNoticeRouter } from './police-notices.routes'
