@@ -60,6 +60,13 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/vehicles/:vehicleId/owner-links': 'board.view',
   'POST /api/vehicles/:vehicleId/owner-links': 'owner.write',
   'POST /api/vehicles/:vehicleId/owner-links/:linkId/revoke': 'owner.write',
+  // Who to tell (issue 10): everyone on the board reads it; the office and managers keep it.
+  'GET /api/vehicles/:vehicleId/contacts': 'board.view',
+  'POST /api/vehicles/:vehicleId/contacts': 'owner.write',
+  'PUT /api/vehicles/:vehicleId/contacts/:contactId': 'owner.write',
+  'DELETE /api/vehicles/:vehicleId/contacts/:contactId': 'owner.write',
+  'POST /api/vehicles/:vehicleId/records-requests': 'owner.write',
+  'PUT /api/vehicles/:vehicleId/records-requests/:requestId/answer': 'owner.write',
   'POST /api/vehicles/:vehicleId/holds': 'towin.write',
   'POST /api/vehicles/:vehicleId/holds/:holdId/lift': 'towin.write',
   'PUT /api/vehicles/:vehicleId/space': 'towin.write',

@@ -11,6 +11,7 @@ import type { HistoryKey } from '@db/history'
 import { enforceAccess } from './access'
 import { archiveRouter } from './archive/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
+import { contactsRouter, recordsRequestsRouter } from './contacts/index'
 import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
 import { fakesRouter } from './fakes/index'
@@ -124,6 +125,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/quotes', quotesRouter(db))
   app.use('/api/vehicles/:vehicleId/owner-links', ownerLinksRouter(changes, deps.ownerLinkDays ?? 30))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
+  app.use('/api/vehicles/:vehicleId/contacts', contactsRouter(changes))
+  app.use('/api/vehicles/:vehicleId/records-requests', recordsRequestsRouter(changes))
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))

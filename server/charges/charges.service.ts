@@ -4,6 +4,7 @@ import { tows } from '@db/schema'
 import type { VehicleSummary } from '@shared/schemas/charges'
 import type { RuleSet } from '@shared/schemas/rule-sets'
 import { DomainError } from '@shared/domain/errors'
+import { clockEventsOf } from '../clock-events/index'
 import { ruleSetCalendars } from '../holidays/index'
 import { latestVersionOf, versionsById } from '../rule-sets/index'
 import { summarizeVehicle } from './vehicle-summary'
@@ -48,6 +49,7 @@ export async function summarizeVehicles(
   const unread = vehicles.filter((v) => v.towCents === undefined).map((v) => v.id)
   const towRows = unread.length > 0 ? await db.select({ vehicleId: tows.vehicleId, cents: tows.chargeCents }).from(tows).where(inArray(tows.vehicleId, unread)) : []
   const towCents = new Map(towRows.map((t) => [t.vehicleId, t.cents]))
+  const recorded = await clockEventsOf(db, vehicles.map((v) => v.id))
   for (const v of vehicles) {
     const ruleSet = (v.ruleSetVersionId && versions.get(v.ruleSetVersionId)) || fallback
     if (!ruleSet || !ruleSet.vehicleClasses.some((c) => c.code === v.vehicleClass)) {
@@ -61,7 +63,7 @@ export async function summarizeVehicles(
       modelYear: v.year,
       valueCents: v.estimatedValueCents,
       towCents: v.towCents ?? towCents.get(v.id) ?? 0,
-      clockEvents: [],
+      clockEvents: recorded.get(v.id) ?? [],
     }
     try {
       out.set(v.id, summarizeVehicle(input, ruleSet, ruleSetCalendars(ruleSet), asOf, yard.timeZone))

@@ -25,6 +25,14 @@ export const HISTORY_KINDS = [
   'owner_link_created',
   'owner_link_revoked',
   'owner_decided',
+  'contact_added',
+  'contact_changed',
+  'contact_removed',
+  'records_requested',
+  'records_answered',
+  'notice_made',
+  'notice_sent',
+  'notice_returned',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -73,4 +81,12 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   owner_link_created: 'Owner link created',
   owner_link_revoked: 'Owner link revoked',
   owner_decided: "Owner's decision",
+  contact_added: 'Contact added',
+  contact_changed: 'Contact changed',
+  contact_removed: 'Contact removed',
+  records_requested: 'Owner records requested',
+  records_answered: 'Records request answered',
+  notice_made: 'Notice letter made',
+  notice_sent: 'Notice sent',
+  notice_returned: 'Notice returned',
 }
