@@ -67,6 +67,13 @@ export const ACCESS: Record<string, Rule> = {
   'DELETE /api/vehicles/:vehicleId/contacts/:contactId': 'owner.write',
   'POST /api/vehicles/:vehicleId/records-requests': 'owner.write',
   'PUT /api/vehicles/:vehicleId/records-requests/:requestId/answer': 'owner.write',
+  // Notice letters: everyone on the board sees what went out; the office makes, sends and records them.
+  'GET /api/vehicles/:vehicleId/notices': 'board.view',
+  'POST /api/vehicles/:vehicleId/notices': 'owner.write',
+  'POST /api/vehicles/:vehicleId/notices/due': 'owner.write',
+  'POST /api/vehicles/:vehicleId/notices/:noticeId/send': 'owner.write',
+  'POST /api/vehicles/:vehicleId/notices/:noticeId/sendings/:sendingId/returned': 'owner.write',
+  'GET /api/notices/due': 'owner.write',
   'POST /api/vehicles/:vehicleId/holds': 'towin.write',
   'POST /api/vehicles/:vehicleId/holds/:holdId/lift': 'towin.write',
   'PUT /api/vehicles/:vehicleId/space': 'towin.write',

@@ -19,6 +19,7 @@ import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
 import { holdsRouter } from './holds/index'
 import { inspectionsRouter } from './inspections/index'
 import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
+import { dueNoticesRouter, noticesRouter } from './notices/index'
 import { outboxRouter } from './outbox/index'
 import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, publicThrottle, type PublicLimits } from './owner/index'
 import { quotesRouter } from './quotes/index'
@@ -127,6 +128,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
   app.use('/api/vehicles/:vehicleId/contacts', contactsRouter(changes))
   app.use('/api/vehicles/:vehicleId/records-requests', recordsRequestsRouter(changes))
+  app.use('/api/vehicles/:vehicleId/notices', noticesRouter({ changes, files, ownerLinkDays: deps.ownerLinkDays ?? 30, kick: deps.kickOutbox, publicUrl: deps.publicUrl }))
+  app.use('/api/notices', dueNoticesRouter(db))
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))

@@ -66,8 +66,7 @@ CREATE TABLE "notices" (
 	"due_date" date,
 	"next_date" date,
 	"owner_link_id" uuid,
-	"pdf" "bytea" NOT NULL,
-	"sha256" text NOT NULL,
+	"file_id" uuid NOT NULL,
 	"created_by_id" uuid,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL
 );
@@ -85,6 +84,7 @@ ALTER TABLE "notice_sendings" ADD CONSTRAINT "notice_sendings_created_by_id_user
 ALTER TABLE "notices" ADD CONSTRAINT "notices_vehicle_id_vehicles_id_fk" FOREIGN KEY ("vehicle_id") REFERENCES "public"."vehicles"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "notices" ADD CONSTRAINT "notices_contact_id_vehicle_contacts_id_fk" FOREIGN KEY ("contact_id") REFERENCES "public"."vehicle_contacts"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "notices" ADD CONSTRAINT "notices_owner_link_id_owner_links_id_fk" FOREIGN KEY ("owner_link_id") REFERENCES "public"."owner_links"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "notices" ADD CONSTRAINT "notices_file_id_files_id_fk" FOREIGN KEY ("file_id") REFERENCES "public"."files"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "notices" ADD CONSTRAINT "notices_created_by_id_users_id_fk" FOREIGN KEY ("created_by_id") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "records_requests_vehicle" ON "records_requests" USING btree ("vehicle_id");--> statement-breakpoint
 CREATE INDEX "vehicle_contacts_vehicle" ON "vehicle_contacts" USING btree ("vehicle_id");--> statement-breakpoint

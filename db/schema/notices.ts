@@ -1,20 +1,16 @@
-import { customType, date, index, pgTable, text, uuid } from 'drizzle-orm/pg-core'
+import { date, index, pgTable, text, uuid } from 'drizzle-orm/pg-core'
 import { CONTACT_LANGUAGES } from '@shared/schemas/contacts'
 import { NOTICE_KINDS, SEND_METHODS } from '@shared/schemas/notices'
 import { vehicleContacts } from './contacts'
+import { files } from './files'
 import { outboundMessages } from './outbox'
 import { ownerLinks } from './owner'
 import { users } from './users'
 import { vehicles } from './vehicles'
 import { createdAt, id } from './columns'
 
-const bytea = customType<{ data: Buffer; driverData: Buffer | Uint8Array }>({
-  dataType: () => 'bytea',
-  fromDriver: (v) => Buffer.from(v),
-})
-
-// A notice letter made for one recipient: its PDF is kept as made (what was mailed is what is shown),
-// with the owner link printed on it.
+// A notice letter made for one recipient. Its PDF is kept as made, as one of the vehicle's files (in
+// the file store, not the database: it carries the owner link's token, which the database holds only hashed).
 export const notices = pgTable(
   'notices',
   {
@@ -26,8 +22,7 @@ export const notices = pgTable(
     dueDate: date({ mode: 'string' }),
     nextDate: date({ mode: 'string' }),
     ownerLinkId: uuid().references(() => ownerLinks.id),
-    pdf: bytea().notNull(),
-    sha256: text().notNull(),
+    fileId: uuid().notNull().references(() => files.id),
     createdById: uuid().references(() => users.id),
     createdAt: createdAt(),
   },

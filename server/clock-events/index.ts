@@ -1,2 +1,2 @@
 export { addClockEvent, clockEventsOf, type NewClockEvent } from './clock-events.queries'
-export { ruleSetOf, vehicleClocks, type ClockedVehicle } from './vehicle-clocks'
+export { clocksOfVehicles, vehicleClocks, type ClockedVehicle, type WorkedClocks } from './vehicle-clocks'

@@ -13,39 +13,55 @@ export interface ClockedVehicle {
   ruleSetVersionId: string | null
 }
 
-/** The rule set a vehicle is held under: the version it arrived under, else the yard's current one. */
-export async function ruleSetOf(db: Executor, vehicle: ClockedVehicle, yard: { ruleSetId: string | null }): Promise<RuleSet | undefined> {
-  if (vehicle.ruleSetVersionId) {
-    const own = (await versionsById(db, [vehicle.ruleSetVersionId])).get(vehicle.ruleSetVersionId)
-    if (own) return own
-  }
-  return yard.ruleSetId ? (await latestVersionOf(db, yard.ruleSetId))?.ruleSet : undefined
+export interface ClockYard {
+  timeZone: string
+  ruleSetId: string | null
 }
 
+export type WorkedClocks = { clocks: LegalClocks; ruleSet: RuleSet }
+
 /**
- * Every step of one vehicle's legal clocks as of an instant, from its arrival and the events the office
- * recorded (clock_events), with `extra` events added as if recorded (a mailing about to be made).
- * The same counting as the board's (server/charges): the rule set's calendars, the yard's zone.
+ * Every step of these vehicles' legal clocks as of an instant, from their arrival and the events the
+ * office recorded (clock_events) — one query for the events, one per rule-set version — with `extra`
+ * events added as if recorded (a mailing about to be made). The same counting as the board's
+ * (server/charges): the version a vehicle arrived under (else the yard's current rule set), the rule
+ * set's calendars, the yard's zone. A vehicle with no rule set maps to null.
  */
-export async function vehicleClocks(
+export async function clocksOfVehicles(
   db: Executor,
-  vehicle: ClockedVehicle,
-  yard: { timeZone: string; ruleSetId: string | null },
+  vehicles: readonly ClockedVehicle[],
+  yard: ClockYard,
   asOf = new Date(),
   extra: readonly ClockEvent[] = [],
-): Promise<{ clocks: LegalClocks; ruleSet: RuleSet } | null> {
-  const ruleSet = await ruleSetOf(db, vehicle, yard)
-  if (!ruleSet) return null
-  const recorded = (await clockEventsOf(db, [vehicle.id])).get(vehicle.id) ?? []
-  const arrival = (ruleSet.arrivalEvents?.kinds ?? ['stored']).map((kind) => ({ kind, at: vehicle.arrivedAt.toISOString() }))
-  const at = asOf.getTime() < vehicle.arrivedAt.getTime() ? vehicle.arrivedAt : asOf
-  const clocks = legalClocks(
-    { modelYear: vehicle.year, valueCents: vehicle.estimatedValueCents },
-    [...arrival, ...recorded, ...extra],
-    ruleSet,
-    ruleSetCalendars(ruleSet),
-    at.toISOString(),
-    { timeZone: yard.timeZone },
-  )
-  return { clocks, ruleSet }
+): Promise<Map<string, WorkedClocks | null>> {
+  const out = new Map<string, WorkedClocks | null>()
+  if (vehicles.length === 0) return out
+  const versions = await versionsById(db, vehicles.flatMap((v) => (v.ruleSetVersionId ? [v.ruleSetVersionId] : [])))
+  const needFallback = yard.ruleSetId !== null && vehicles.some((v) => !v.ruleSetVersionId || !versions.has(v.ruleSetVersionId))
+  const fallback = needFallback ? (await latestVersionOf(db, yard.ruleSetId!))?.ruleSet : undefined
+  const recorded = await clockEventsOf(db, vehicles.map((v) => v.id))
+  for (const vehicle of vehicles) {
+    const ruleSet: RuleSet | undefined = (vehicle.ruleSetVersionId && versions.get(vehicle.ruleSetVersionId)) || fallback
+    if (!ruleSet) {
+      out.set(vehicle.id, null)
+      continue
+    }
+    const arrival = (ruleSet.arrivalEvents?.kinds ?? ['stored']).map((kind) => ({ kind, at: vehicle.arrivedAt.toISOString() }))
+    const at = asOf.getTime() < vehicle.arrivedAt.getTime() ? vehicle.arrivedAt : asOf
+    const clocks = legalClocks(
+      { modelYear: vehicle.year, valueCents: vehicle.estimatedValueCents },
+      [...arrival, ...(recorded.get(vehicle.id) ?? []), ...extra],
+      ruleSet,
+      ruleSetCalendars(ruleSet),
+      at.toISOString(),
+      { timeZone: yard.timeZone },
+    )
+    out.set(vehicle.id, { clocks, ruleSet })
+  }
+  return out
+}
+
+/** One vehicle's clocks (see clocksOfVehicles). */
+export async function vehicleClocks(db: Executor, vehicle: ClockedVehicle, yard: ClockYard, asOf = new Date(), extra: readonly ClockEvent[] = []): Promise<WorkedClocks | null> {
+  return (await clocksOfVehicles(db, [vehicle], yard, asOf, extra)).get(vehicle.id) ?? null
 }

@@ -1,4 +1,4 @@
-export { documentsRouter, type DocumentsDeps } from './documents.routes'
+export { documentsRouter, publicBase, type DocumentsDeps } from './documents.routes'
 export { keyTag, KEY_TAG_SIZE, type KeyTagVehicle } from './key-tag'
 export { letterhead, drawMark, type YardHeading } from './letterhead'
 export { drawQr, qrWithLink } from './qr'

@@ -53,6 +53,8 @@ export const noticeRecordSchema = z.object({
   language: z.enum(CONTACT_LANGUAGES),
   dueDate: z.string().nullable(),
   nextDate: z.string().nullable(),
+  /** The letter as made: one of the vehicle's files (GET /api/files/:id). */
+  fileId: z.uuid(),
   createdAt: z.string(),
   createdBy: z.string().nullable(),
   sendings: z.array(noticeSendingSchema),
