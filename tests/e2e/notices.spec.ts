@@ -54,7 +54,8 @@ test('the office records the owner from a records request and sends the first no
   expect(pdf.headers()['content-type']).toMatch(/application\/pdf/)
 
   await letter.getByRole('button', { name: 'Send' }).click()
-  dialog = page.getByRole('dialog').filter({ hasText: 'Delia Farnsworth' })
+  dialog = page.getByRole('dialog', { name: 'Send the notice' })
+  await expect(dialog).toContainText('to Delia Farnsworth')
   await expect(dialog.getByText('To 77 Quarry Spur Rd, Orrin Flats, CA 93274')).toBeVisible()
   await dialog.getByLabel('Tracking number').fill('9407 1112 0620 1234 5678 90')
   const sent = page.waitForResponse((r) => r.url().endsWith('/send') && r.request().method() === 'POST')
