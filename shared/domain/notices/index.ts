@@ -1,1 +1,2 @@
 export * from './planned-notices'
+export * from './tracking'
