@@ -60,6 +60,20 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/vehicles/:vehicleId/owner-links': 'board.view',
   'POST /api/vehicles/:vehicleId/owner-links': 'owner.write',
   'POST /api/vehicles/:vehicleId/owner-links/:linkId/revoke': 'owner.write',
+  // Who to tell (issue 10): everyone on the board reads it; the office and managers keep it.
+  'GET /api/vehicles/:vehicleId/contacts': 'board.view',
+  'POST /api/vehicles/:vehicleId/contacts': 'owner.write',
+  'PUT /api/vehicles/:vehicleId/contacts/:contactId': 'owner.write',
+  'DELETE /api/vehicles/:vehicleId/contacts/:contactId': 'owner.write',
+  'POST /api/vehicles/:vehicleId/records-requests': 'owner.write',
+  'PUT /api/vehicles/:vehicleId/records-requests/:requestId/answer': 'owner.write',
+  // Notice letters: everyone on the board sees what went out; the office makes, sends and records them.
+  'GET /api/vehicles/:vehicleId/notices': 'board.view',
+  'POST /api/vehicles/:vehicleId/notices': 'owner.write',
+  'POST /api/vehicles/:vehicleId/notices/due': 'owner.write',
+  'POST /api/vehicles/:vehicleId/notices/:noticeId/send': 'owner.write',
+  'POST /api/vehicles/:vehicleId/notices/:noticeId/sendings/:sendingId/returned': 'owner.write',
+  'GET /api/notices/due': 'owner.write',
   'POST /api/vehicles/:vehicleId/holds': 'towin.write',
   // The dispatcher who logged the private-property tow tells the police and records it.
   'POST /api/vehicles/:vehicleId/police-notice': 'towin.write',

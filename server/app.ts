@@ -13,6 +13,7 @@ import { archiveRouter } from './archive/index'
 import { deadlinesRouter } from './deadlines/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
 import { cashDrawerRouter, vehicleBillingRouter } from './billing/index'
+import { contactsRouter, recordsRequestsRouter } from './contacts/index'
 import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
 import { fakesRouter } from './fakes/index'
@@ -20,6 +21,7 @@ import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
 import { holdsRouter } from './holds/index'
 import { inspectionsRouter } from './inspections/index'
 import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from './map/index'
+import { dueNoticesRouter, noticesRouter } from './notices/index'
 import { outboxRouter } from './outbox/index'
 import { policeNoticeRouter } from './police-notices/index'
 import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, publicThrottle, type PublicLimits } from './owner/index'
@@ -130,6 +132,10 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/owner-links', ownerLinksRouter(changes, deps.ownerLinkDays ?? 30))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
   app.use('/api/vehicles/:vehicleId/police-notice', policeNoticeRouter(changes))
+  app.use('/api/vehicles/:vehicleId/contacts', contactsRouter(changes))
+  app.use('/api/vehicles/:vehicleId/records-requests', recordsRequestsRouter(changes))
+  app.use('/api/vehicles/:vehicleId/notices', noticesRouter({ changes, files, ownerLinkDays: deps.ownerLinkDays ?? 30, kick: deps.kickOutbox, publicUrl: deps.publicUrl }))
+  app.use('/api/notices', dueNoticesRouter(db))
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))

@@ -5,6 +5,7 @@ import { type LegalClocks, type LienSaleGate, lienSaleGate, needsPoliceNotice, t
 import type { LienSaleEligible, VehicleSummary } from '@shared/schemas/charges'
 import type { RuleSet } from '@shared/schemas/rule-sets'
 import { DomainError } from '@shared/domain/errors'
+import { clockEventsOf } from '../clock-events/index'
 import { ruleSetCalendars } from '../holidays/index'
 import { latestVersionOf, versionsById } from '../rule-sets/index'
 import { eligibleSince, summarizeVehicle, vehicleClocks } from './vehicle-summary'
@@ -55,6 +56,7 @@ export async function summarizeVehicles(
   const unread = vehicles.filter((v) => v.towCents === undefined).map((v) => v.id)
   const towRows = unread.length > 0 ? await db.select({ vehicleId: tows.vehicleId, cents: tows.chargeCents }).from(tows).where(inArray(tows.vehicleId, unread)) : []
   const towCents = new Map(towRows.map((t) => [t.vehicleId, t.cents]))
+  const recorded = await clockEventsOf(db, vehicles.map((v) => v.id))
   for (const v of vehicles) {
     const ruleSet = ruleSets.get(v.id)
     if (!ruleSet || !ruleSet.vehicleClasses.some((c) => c.code === v.vehicleClass)) {
@@ -68,7 +70,7 @@ export async function summarizeVehicles(
       modelYear: v.year,
       valueCents: v.estimatedValueCents,
       towCents: v.towCents ?? towCents.get(v.id) ?? 0,
-      clockEvents: [],
+      clockEvents: recorded.get(v.id) ?? [],
       tow: police.get(v.id)?.tow ?? null,
       policeNotification: police.get(v.id)?.notification ?? null,
       claimed: claimed(v),
@@ -104,12 +106,14 @@ export async function clocksOfVehicles(db: Executor, yard: YardForCharges, vehic
   if (vehicles.length === 0) return out
   const ruleSets = await ruleSetsOf(db, yard, vehicles)
   const police = await policeFacts(db, vehicles, ruleSets)
+  // What the office recorded (records requests, mailings) meets or starts clocks here as on the board.
+  const recorded = await clockEventsOf(db, vehicles.map((v) => v.id))
   for (const v of vehicles) {
     const ruleSet = ruleSets.get(v.id)
     if (!ruleSet) continue
     const at = asOf.getTime() < v.arrivedAt.getTime() ? v.arrivedAt : asOf
     try {
-      const clocks = vehicleClocks({ arrivedAt: v.arrivedAt, modelYear: v.year, valueCents: v.estimatedValueCents, clockEvents: [] }, ruleSet, ruleSetCalendars(ruleSet), at, yard.timeZone)
+      const clocks = vehicleClocks({ arrivedAt: v.arrivedAt, modelYear: v.year, valueCents: v.estimatedValueCents, clockEvents: recorded.get(v.id) ?? [] }, ruleSet, ruleSetCalendars(ruleSet), at, yard.timeZone)
       const gate = lienSaleGate(clocks.deadlines, clocks.alerts)
       const facts = police.get(v.id)
       out.set(v.id, {

@@ -3,7 +3,7 @@ import { ownerLinks } from '@db/schema'
 import type { OwnerLinkCreated } from '@shared/schemas/owner'
 import type { User } from '@shared/schemas/users'
 import { conflict, notFound } from '../errors'
-import { changeVehicle, type VehicleChanges } from '../vehicles/index'
+import { changeVehicle, type VehicleChanges, type VehicleWork } from '../vehicles/index'
 import { keyHash, newCode, newToken } from './owner-keys'
 import { linksOf, openLinkOf } from './owner.queries'
 
@@ -17,17 +17,28 @@ export async function createOwnerLink(changes: VehicleChanges, actor: User, vehi
   const token = newToken()
   const code = newCode()
   const expiresAt = new Date(now.getTime() + days * DAY_MS)
-  const { result: id } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, record }) => {
-    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its owner needs no link now.')
-    const [row] = await tx
-      .insert(ownerLinks)
-      .values({ vehicleId, tokenHash: keyHash('owner-token', token), codeHash: keyHash('owner-code', code), createdById: actor.id, createdAt: now, expiresAt })
-      .returning({ id: ownerLinks.id })
-    record({ kind: 'owner_link_created', after: { linkId: row!.id, expiresAt: expiresAt.toISOString() } })
-    return row!.id
+  const { result: id } = await changeVehicle(changes, actor, vehicleId, async (scope) => {
+    if (scope.vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its owner needs no link now.')
+    return addOwnerLink(scope, { token, code, expiresAt, now })
   })
   const [link] = await linksOf(changes.db, vehicleId, now, id)
   return { link: link!, token, code, path: `/o/${token}` }
+}
+
+/**
+ * Stores a new link's hashes inside a change to the vehicle already under way (a notice letter makes one
+ * per recipient) and records its history event; the caller hands the token and code out, once.
+ */
+export async function addOwnerLink(
+  { tx, vehicleId, actor, record }: Pick<VehicleWork, 'tx' | 'vehicleId' | 'actor' | 'record'>,
+  link: { token: string; code: string; expiresAt: Date; now: Date },
+): Promise<string> {
+  const [row] = await tx
+    .insert(ownerLinks)
+    .values({ vehicleId, tokenHash: keyHash('owner-token', link.token), codeHash: keyHash('owner-code', link.code), createdById: actor.id, createdAt: link.now, expiresAt: link.expiresAt })
+    .returning({ id: ownerLinks.id })
+  record({ kind: 'owner_link_created', after: { linkId: row!.id, expiresAt: link.expiresAt.toISOString() } })
+  return row!.id
 }
 
 /** The link stops opening the page at once. Revoking one already revoked changes nothing. */

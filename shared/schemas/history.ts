@@ -31,6 +31,14 @@ export const HISTORY_KINDS = [
   'adjustment_requested',
   'adjustment_declined',
   'police_notified',
+  'contact_added',
+  'contact_changed',
+  'contact_removed',
+  'records_requested',
+  'records_answered',
+  'notice_made',
+  'notice_sent',
+  'notice_returned',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -85,4 +93,12 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   adjustment_requested: 'Waiver or discount requested',
   adjustment_declined: 'Waiver or discount declined',
   police_notified: 'Police told of the tow',
+  contact_added: 'Contact added',
+  contact_changed: 'Contact changed',
+  contact_removed: 'Contact removed',
+  records_requested: 'Owner records requested',
+  records_answered: 'Records request answered',
+  notice_made: 'Notice letter made',
+  notice_sent: 'Notice sent',
+  notice_returned: 'Notice returned',
 }

@@ -74,3 +74,10 @@ export function zoneName(timeZone: string, locale: Locale = chosen()): string {
       ?.value ?? timeZone
   )
 }
+
+/** Today (or the day of `at`) on a yard's calendar as "2026-12-02", the value a date field sends. */
+export function yardDay(timeZone: string, at: Date = new Date()): string {
+  const parts = new Intl.DateTimeFormat('en-US', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(at)
+  const part = (type: string) => parts.find((p) => p.type === type)!.value
+  return `${part('year')}-${part('month')}-${part('day')}`
+}

@@ -5,7 +5,10 @@ import { INSPECTION_HIDDEN, inspectionFieldLabel, inspectionValue } from '@/comp
 // Plain words, in the reader's language, for the fields a history event names (vehicles.history.fields
 // in the catalogs); anything unlisted shows its own name.
 const { t, te } = i18n.global
-const HIDDEN = new Set(['holdId', 'paymentId', 'adjustmentId', ...INSPECTION_HIDDEN])
+// Record ids and digests (payments, contacts, notices, owner links): the chain keeps them; a person reads the words beside them.
+const HIDDEN = new Set(['holdId', 'paymentId', 'adjustmentId', ...INSPECTION_HIDDEN, 'contactId', 'requestId', 'noticeId', 'sendingId', 'fileId', 'linkId', 'outboxMessageId', 'sha256'])
+// Codes a notice or contact event carries, with their words in shared/messages/<locale>/notices.json.
+const NOTICE_CODES: Record<string, string> = { role: 'roles', source: 'sources', method: 'methods', outcome: 'outcomes' }
 
 // Fields whose words have moved to the message catalogs (read at render, so they follow the language).
 const CATALOG_LABELS: Record<string, string> = {
@@ -33,6 +36,9 @@ export function fieldValue(key: string, value: unknown, at: (iso: string) => str
   if (key === 'kind' && typeof value === 'string' && te(`billing.adjustments.kinds.${value}`)) return t(`billing.adjustments.kinds.${value}`)
   if (key === 'reason' && typeof value === 'string' && te(`tow.reasons.${value}`)) return t(`tow.reasons.${value}`)
   if (key === 'kind' && typeof value === 'string' && te(`lifecycle.holds.${value}`)) return t(`lifecycle.holds.${value}`)
+  if (key === 'kind' && typeof value === 'string' && te(`notices.kinds.${value}`)) return t(`notices.kinds.${value}`)
+  if (NOTICE_CODES[key] && typeof value === 'string' && te(`notices.${NOTICE_CODES[key]}.${value}`)) return t(`notices.${NOTICE_CODES[key]}.${value}`)
+  if (key === 'language' && (value === 'en' || value === 'es')) return t(`contacts.languages.${value}`)
   if (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}T/.test(value)) return at(value)
   if (Array.isArray(value)) return `${value.length}`
   return String(value)

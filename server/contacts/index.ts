@@ -1,0 +1,3 @@
+export { contactsRouter, recordsRequestsRouter } from './contacts.routes'
+export { contactOf, contactsOf, type ContactRow } from './contacts.queries'
+export { pastDay } from './yard-days'

@@ -1,0 +1,15 @@
+import { dayFromIsoDate, localDay, startOfLocalDay } from '@shared/domain/time'
+import { badRequest } from '../errors'
+
+/**
+ * A day the office typed ("2026-12-02") as the instant a clock reads: the start of that day on the
+ * yard's calendar. A day after today is refused, naming the field: what has not happened is not recorded.
+ */
+export function pastDay(day: string, timeZone: string, field: string, what: string, now = new Date()): Date {
+  const n = dayFromIsoDate(day, field)
+  if (n > localDay(timeZone, now.getTime())) {
+    const message = `${what} cannot be in the future.`
+    throw badRequest(message, [{ path: field, message }])
+  }
+  return new Date(startOfLocalDay(timeZone, n))
+}

@@ -1,0 +1,1 @@
+export { dueNoticesRouter, noticesRouter, type NoticesRouterDeps } from './notices.routes'

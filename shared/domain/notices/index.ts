@@ -1,0 +1,2 @@
+export * from './planned-notices'
+export * from './tracking'

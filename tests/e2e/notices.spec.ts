@@ -1,0 +1,68 @@
+import { expect, test } from '@playwright/test'
+import { signInAs, watchConsole } from './helpers'
+
+// Issue 10: the demo's Stanmore Ashby was towed from a private lot with its owner unknown. The office
+// records the state records request and its answer (meeting the rule set's deadline to request the
+// records), adds the owner it named, makes the first notice and sends it by certified mail.
+test('the office records the owner from a records request and sends the first notice', async ({ page }) => {
+  test.slow()
+  const problems = watchConsole(page)
+  await signInAs(page, 'office')
+  await page.locator('[data-stock]').filter({ hasText: 'Stanmore Ashby' }).first().getByRole('link').first().click()
+  const who = page.getByTestId('contacts-panel')
+  await expect(who.getByText('No records request recorded yet.')).toBeVisible()
+
+  await who.getByRole('button', { name: 'Record a records request' }).click()
+  let dialog = page.getByRole('dialog', { name: 'Record a records request' })
+  await dialog.getByLabel('Sent to (agency)').fill('California DMV')
+  await dialog.getByText('The answer has come').click()
+  await dialog.getByText('Record found', { exact: true }).click()
+  let saved = page.waitForResponse((r) => r.url().endsWith('/records-requests') && r.request().method() === 'POST')
+  await dialog.getByRole('button', { name: 'Save' }).click()
+  expect((await saved).status()).toBe(201)
+  await expect(who.getByTestId('records-deadline-status')).toHaveText('Met')
+  await expect(who.getByText(/Sent .* to California DMV/)).toBeVisible()
+
+  await who.getByRole('button', { name: 'Add a contact' }).click()
+  dialog = page.getByRole('dialog', { name: 'Add a contact' })
+  await dialog.getByLabel('Name', { exact: true }).fill('Delia Farnsworth')
+  await dialog.getByLabel('Street address').fill('77 Quarry Spur Rd')
+  await dialog.getByLabel('City', { exact: true }).fill('Orrin Flats')
+  await dialog.getByLabel('State', { exact: true }).fill('CA')
+  await dialog.getByLabel('ZIP code').fill('93274')
+  await dialog.getByLabel('E-mail', { exact: true }).fill('delia@example.test')
+  await dialog.getByText('Spanish', { exact: true }).click()
+  // A records request without its date is refused beside the field, and nothing is saved.
+  await dialog.getByRole('button', { name: 'Save the contact' }).click()
+  await expect(dialog.locator('.el-form-item.is-error').filter({ hasText: 'Date of the records request' })).toContainText('Enter the date of the records request.')
+  await dialog.getByLabel('Date of the records request').fill('2026-11-30')
+  saved = page.waitForResponse((r) => r.url().endsWith('/contacts') && r.request().method() === 'POST')
+  await dialog.getByRole('button', { name: 'Save the contact' }).click()
+  expect((await saved).status()).toBe(201)
+  const card = who.getByTestId('contact-registered_owner')
+  await expect(card).toContainText('Delia Farnsworth')
+  await expect(card).toContainText('Letters in Spanish')
+
+  const notices = page.getByTestId('notices-panel')
+  const made = page.waitForResponse((r) => /\/notices$/.test(r.url()) && r.request().method() === 'POST')
+  await notices.getByRole('button', { name: 'Make the letters' }).first().click()
+  expect((await made).status()).toBe(201)
+  const letter = notices.getByTestId('notice-registered_owner')
+  await expect(letter).toContainText('Delia Farnsworth')
+  await expect(letter).toContainText('Not sent yet')
+  const pdf = await page.request.get((await letter.getByRole('link', { name: 'Open the PDF' }).getAttribute('href'))!)
+  expect(pdf.headers()['content-type']).toMatch(/application\/pdf/)
+
+  await letter.getByRole('button', { name: 'Send' }).click()
+  dialog = page.getByRole('dialog', { name: 'Send the notice' })
+  await expect(dialog).toContainText('to Delia Farnsworth')
+  await expect(dialog.getByText('To 77 Quarry Spur Rd, Orrin Flats, CA 93274')).toBeVisible()
+  await dialog.getByLabel('Tracking number').fill('9407 1112 0620 1234 5678 90')
+  const sent = page.waitForResponse((r) => r.url().endsWith('/send') && r.request().method() === 'POST')
+  await dialog.getByRole('button', { name: 'Record and send' }).click()
+  expect((await sent).status()).toBe(200)
+  await expect(letter).toContainText('Certified mail 9407 1112 0620 1234 5678 90, mailed')
+  await expect(notices.getByText(/^Mailed /).first()).toBeVisible()
+  await expect(page.getByText('Notice sent')).toBeVisible()
+  expect(problems).toEqual([])
+})
