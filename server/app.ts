@@ -21,6 +21,7 @@ import { cspSources, LOCAL_MAP, mapRouter, usesLocalFakes, type MapConfig } from
 import { outboxRouter } from './outbox/index'
 import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, publicThrottle, type PublicLimits } from './owner/index'
 import { quotesRouter } from './quotes/index'
+import { gateRouter, releasesRouter } from './releases/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { healthRouter } from './health/index'
 import { logSerializers, safeLogger } from './logging'
@@ -127,6 +128,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))
+  app.use('/api/vehicles/:vehicleId/release', releasesRouter({ changes, files, publicUrl: deps.publicUrl }))
+  app.use('/api/gate', gateRouter(changes))
   app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))
   app.use('/api/spaces', spacesRouter(db))

@@ -7,14 +7,14 @@ import { summarizeVehicles, type YardForCharges } from '../charges/index'
 import { notFound } from '../errors'
 import { yardOfUser } from '../yards/index'
 import { activeHolds, activeInYard, cardRows, oneInYard, type CardRow, type HoldRow } from './board.queries'
+import { releaseFacts } from './handover.queries'
 
 export interface BoardYard extends YardForCharges {
   id: string
   name: string
 }
 
-// Payments, waivers, the claimant's ID and the signed release are not recorded anywhere yet, so
-// every guard that needs them refuses with its reason until billing and release land.
+// What is not recorded reads as such: every guard that needs it refuses with its reason.
 export const NOTHING_RECORDED: BoardCard['handover'] = { paidCents: 0, waived: false, claimantIdRecorded: false, releaseSigned: false }
 
 /** An active hold as the card shows it and the lifecycle judges it. */
@@ -35,6 +35,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
   if (rows.length === 0) return []
   const holdRows = await activeHolds(db, yard.id, ids)
   const summaries = await summarizeVehicles(db, yard, rows, asOf)
+  const released = await releaseFacts(db, rows.map((r) => r.id))
   const holdsByVehicle = new Map<string, BoardCard['holds']>()
   for (const h of holdRows) {
     const list = holdsByVehicle.get(h.vehicleId) ?? []
@@ -59,7 +60,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
     rolls: r.rolls,
     inspectedAt: r.inspectedAt?.toISOString() ?? null,
     holds: holdsByVehicle.get(r.id) ?? [],
-    handover: NOTHING_RECORDED,
+    handover: { ...NOTHING_RECORDED, ...released.get(r.id) },
     photoCount: Number(r.photoCount),
     pickup: pickupBadge(r),
     summary: cardSummary(summaries.get(r.id)),

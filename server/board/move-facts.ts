@@ -4,6 +4,7 @@ import { summarizeVehicles } from '../charges/index'
 import type { VehicleRow, YardRow } from '../vehicles/index'
 import { holdFact, NOTHING_RECORDED } from './board-cards'
 import { activeHolds } from './board.queries'
+import { releaseFacts } from './handover.queries'
 
 /**
  * What the lifecycle judges a move by, read for one vehicle under its lock: its active holds and
@@ -20,5 +21,6 @@ export async function moveFacts(db: Executor, vehicle: VehicleRow, yard: YardRow
     balanceCents: summary?.balanceCents ?? null,
     lienSale: summary?.lienSale ?? null,
     ...NOTHING_RECORDED,
+    ...(await releaseFacts(db, [vehicle.id])).get(vehicle.id),
   }
 }

@@ -25,6 +25,12 @@ export const HISTORY_KINDS = [
   'owner_link_created',
   'owner_link_revoked',
   'owner_decided',
+  'release_claimant_recorded',
+  'release_id_photo_added',
+  'release_handover_recorded',
+  'release_photos_added',
+  'release_signed',
+  'gate_pass_issued',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -73,4 +79,10 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   owner_link_created: 'Owner link created',
   owner_link_revoked: 'Owner link revoked',
   owner_decided: "Owner's decision",
+  release_claimant_recorded: 'Claimant and ID recorded',
+  release_id_photo_added: 'ID photo added',
+  release_handover_recorded: 'Odometer and property at release',
+  release_photos_added: 'Photos at release',
+  release_signed: 'Release signed',
+  gate_pass_issued: 'Gate pass issued',
 }
