@@ -29,6 +29,9 @@ export interface ReleaseFormData {
   printedAt: Date
 }
 
+// Wide enough for the longest label in either language ("Prueba de propiedad o autorización").
+const LABEL_WIDTH = 170
+
 /**
  * The release form (issue 11): the yard, the vehicle and its stock number, who collected it and their
  * ID record, the charges and what was paid, the property handed back, the signature, date and time,
@@ -44,15 +47,13 @@ export async function releaseForm(d: ReleaseFormData, language: Language): Promi
   const v = d.vehicle
   sheet.heading(`${w.vehicle} · ${v.stockNumber}`, 2)
   sheet.labelValues([
-    [w.vehicle, [v.year, v.make, v.model].filter(Boolean).join(' ') || w.none],
-    [w.stock, v.stockNumber],
+    [w.vehicle, [[v.year, v.make, v.model].filter(Boolean).join(' ') || w.none, v.colour].filter(Boolean).join(', ')],
     [w.vin, v.vin ?? w.none],
     [w.plate, v.plate ? [v.plate, v.plateState].filter(Boolean).join(' · ') : w.none],
-    [w.colour, v.colour ?? w.none],
     [w.arrived, at(v.arrivedAt)],
     [w.odometer, d.odometerUnreadable ? w.unreadable : d.odometer !== null ? d.odometer.toLocaleString(language === 'es' ? 'es-US' : 'en-US') : w.none],
     [w.disposition, d.disposition ? w.dispositions[d.disposition] : w.none],
-  ])
+  ], { labelWidth: LABEL_WIDTH })
 
   sheet.heading(w.collectedBy, 2)
   const c = d.claimant
@@ -63,11 +64,11 @@ export async function releaseForm(d: ReleaseFormData, language: Language): Promi
           [w.capacity, w.claimantKinds[c.kind]],
           ...(c.actingFor ? [[w.actingFor, c.actingFor] as const] : []),
           [w.id, `${w.idTypes[c.idType]} · ${c.idNumber}`],
-          [w.idIssuer, c.idIssuer],
-          [w.idExpiry, c.idExpiry],
+          [w.idIssuer, `${c.idIssuer} · ${w.idExpiry} ${c.idExpiry}`],
           [w.authority, `${w.authorityKinds[c.authorityKind]} · ${c.authorityReference}`],
         ]
       : [[w.name, w.none]],
+    { labelWidth: LABEL_WIDTH },
   )
 
   if (d.charges) {
@@ -78,13 +79,11 @@ export async function releaseForm(d: ReleaseFormData, language: Language): Promi
       [
         { label: w.tow, cents: ch.towCents },
         { label: w.storage(ch.days), cents: ch.storageCents },
-        { label: w.totalCharges, cents: total },
         { label: ch.waived ? w.waived : w.paid, cents: -Math.min(ch.waived ? total : ch.paidCents, total) },
       ],
       { label: w.due, cents: ch.waived ? 0 : Math.max(0, total - ch.paidCents) },
       formatCents,
     )
-    sheet.space(8)
   }
 
   sheet.heading(w.property, 2)
@@ -100,9 +99,9 @@ export async function releaseForm(d: ReleaseFormData, language: Language): Promi
   sheet.paragraph(w.statement, { size: 9 })
   if (d.signature) {
     const image = await sheet.doc.embedJpg(d.signature.jpeg)
-    const width = Math.min(220, image.width)
+    const width = Math.min(180, image.width)
     const height = (image.height / image.width) * width
-    sheet.ensure(height + 40)
+    sheet.ensure(height + 24)
     sheet.page.drawImage(image, { x: sheet.left, y: sheet.y - height, width, height })
     sheet.y -= height + 4
     sheet.rule('ink', 0.75)
