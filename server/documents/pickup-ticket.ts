@@ -66,7 +66,7 @@ const WORDS = {
     keysValue: { yes: 'Aquí', no: 'No hay', unknown: 'No se sabe' },
     keysWhere: 'Dónde',
     needs: 'Lo que necesita la recogida',
-    equipment: { 'wheel-lift': 'Grúa de levante de ruedas', flatbed: 'Plataforma', 'dollies-or-skates': 'Dollies o patines' } satisfies Record<PickupEquipment, string>,
+    equipment: { 'wheel-lift': 'De arrastre (wheel-lift)', flatbed: 'Plataforma', 'dollies-or-skates': 'Dollies o patines' } satisfies Record<PickupEquipment, string>,
     marks: (rolls: string, steers: string, brakes: string) => `Rueda: ${rolls} · Gira: ${steers} · Frena: ${brakes}`,
     yes: 'sí',
     no: 'no',

@@ -126,7 +126,7 @@ export const RELEASE_WORDS = {
       agency_release: 'Liberación de la agencia',
       other: 'Otra',
     },
-    dispositions: { returned_to_owner: 'Devuelto al dueño', released_to_third_party: 'Entregado a un tercero', title_transferred: 'Título transferido', lien_sale: 'Venta por gravamen o desecho', scrapped: 'Desguazado' },
+    dispositions: { returned_to_owner: 'Devuelto al dueño', released_to_third_party: 'Entregado a un tercero', title_transferred: 'Título transferido', lien_sale: 'Venta por gravamen o desecho', scrapped: 'Chatarra' },
   },
 } satisfies Record<Language, Record<string, unknown>>
 
