@@ -14,7 +14,16 @@ export function fieldLabel(key: string): string {
   const catalogKey = CATALOG_LABELS[key]
   if (catalogKey) return t(catalogKey)
   if (te(`vehicles.history.fields.${key}`)) return t(`vehicles.history.fields.${key}`)
+  if (te(`release.history.fields.${key}`)) return t(`release.history.fields.${key}`)
   return inspectionFieldLabel(key) ?? key
+}
+
+// Fields whose values are codes with their words in a catalog group (the release's, the lifecycle's).
+const CODED_VALUES: Record<string, string> = {
+  claimantKind: 'releases.claimantKinds',
+  idType: 'releases.idTypes',
+  authorityKind: 'releases.authorityKinds',
+  disposition: 'lifecycle.dispositions',
 }
 
 export function fieldValue(key: string, value: unknown, at: (iso: string) => string): string {
@@ -25,8 +34,11 @@ export function fieldValue(key: string, value: unknown, at: (iso: string) => str
   if (key === 'chargeCents' && typeof value === 'number') return money(value)
   if (key === 'reason' && typeof value === 'string' && te(`tow.reasons.${value}`)) return t(`tow.reasons.${value}`)
   if (key === 'kind' && typeof value === 'string' && te(`lifecycle.holds.${value}`)) return t(`lifecycle.holds.${value}`)
+  const coded = typeof value === 'string' && CODED_VALUES[key] ? `${CODED_VALUES[key]}.${value}` : null
+  if (coded && te(coded)) return t(coded)
   if (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}T/.test(value)) return at(value)
-  if (Array.isArray(value)) return `${value.length}`
+  // A list of names (property handed back) reads as the names; a list of records as how many.
+  if (Array.isArray(value)) return value.length > 0 && value.every((v) => typeof v === 'string') ? value.join(', ') : `${value.length}`
   return String(value)
 }
 
