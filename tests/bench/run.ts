@@ -10,6 +10,7 @@ const benches: Record<string, () => Promise<{ met: boolean }>> = {
   core: async () => (await import('./core.bench')).run(),
   board: async () => (await import('./board.bench')).run(),
   delivery: async () => (await import('./delivery.bench')).run(),
+  release: async () => (await import('./release.bench')).run(),
 }
 const only = process.argv.slice(2)
 let allMet = true
