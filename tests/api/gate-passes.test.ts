@@ -7,7 +7,7 @@ import { historyOf } from '@db/history'
 import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
 import { setHold, vehicleRow } from '../helpers/board'
 import { makeStaff } from '../helpers/factories'
-import { pdfText, readQr, renderFirstPage } from '../helpers/pdf'
+import { pdfText, readQrOfPdf, renderFirstPage } from '../helpers/pdf'
 import { completeRelease, vehicleInRelease } from '../helpers/release'
 
 // Every log line the app writes, as a log collector would read it: a pass's token or code must never be in one.
@@ -37,7 +37,7 @@ async function issued(s: BrowserSession, name = 'pass') {
   const res = await s.post(`/api/vehicles/${vehicle.id}/release/gate-pass`)
   expect(res.status).toBe(201)
   const pdf = Buffer.from(res.body.pdf, 'base64')
-  const link = await readQr(await renderFirstPage(pdf, `gate-pass-${name}`))
+  const link = await readQrOfPdf(pdf, `gate-pass-${name}`)
   return { vehicle, code: res.body.code as string, pdf, link, token: link.split('/g/')[1]! }
 }
 

@@ -6,8 +6,11 @@ import path from 'node:path'
 import { promisify } from 'node:util'
 import { devices, expect, request, test, type Page } from '@playwright/test'
 import sharp from 'sharp'
+import { readQrOfPdf } from '../helpers/pdf'
 import { startServer, waitForHealth, type ServerProcess } from '../helpers/server-process'
 import { towInBody } from '../helpers/tow-in'
+import { chromiumLaunch } from './chromium'
+import { writeQrVideo } from './fake-camera'
 import { watchConsole } from './helpers'
 
 // A walk-in owner at the counter, then the gate. The demo yard bills by the California sample and
@@ -21,6 +24,18 @@ const CLERK = 'clerk@counter-e2e.example'
 let dir = ''
 let server: ServerProcess | undefined
 let base = ''
+
+// The gate phone's fake camera shows this file; the test writes the pass's QR into it once the pass
+// exists (Chromium reads it when the camera starts). Until then it shows a QR that is no pass.
+const video = path.resolve('test-results', 'gate-pass.y4m')
+mkdirSync(path.dirname(video), { recursive: true })
+writeQrVideo(video, 'no pass yet')
+test.use({
+  launchOptions: {
+    ...chromiumLaunch,
+    args: [...chromiumLaunch.args, '--use-fake-device-for-media-stream', '--use-fake-ui-for-media-stream', `--use-file-for-fake-video-capture=${video}`],
+  },
+})
 
 function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -84,7 +99,7 @@ async function signIn(page: Page) {
   await expect(page).toHaveURL(/\/board/)
 }
 
-test('a walk-in owner: ID with a photo, signature on the canvas, release PDF, gate pass scanned on a phone, the card leaves the board live', async ({ browser }) => {
+test('a walk-in owner: ID with a photo, signature on the canvas, release PDF, gate pass scanned by a phone camera, the card leaves the board live', async ({ browser }) => {
   test.setTimeout(120_000)
   const { id, stockNumber } = await vehicleAtTheCounter()
   const desk = await browser.newContext({ ...devices['Desktop Chrome'], acceptDownloads: true })
@@ -138,19 +153,24 @@ test('a walk-in owner: ID with a photo, signature on the canvas, release PDF, ga
   expect(readFileSync((await download.path())!).subarray(0, 5).toString()).toBe('%PDF-')
 
   await expect(section.getByTestId('release-gate')).toContainText('Everything is done')
+  const answer = counter.waitForResponse((r) => r.url().includes('/release/gate-pass') && r.status() === 201)
   const [pdf] = await Promise.all([counter.waitForEvent('popup'), section.getByTestId('release-gate-pass').click()])
   await pdf.close()
   const issued = await section.getByTestId('release-gate-issued').innerText()
   const code = /code ([2-9A-Z]{5}-[2-9A-Z]{5})/.exec(issued)![1]!
+  // The printed pass's QR, read off its PDF and held to the gate phone's camera.
+  const passPdf = Buffer.from((await (await answer).json()).pdf, 'base64')
+  const link = await readQrOfPdf(passPdf, 'e2e-gate-pass')
+  expect(link).toMatch(new RegExp(`^${base}/g/[A-Za-z0-9_-]{43}$`))
+  writeQrVideo(video, link)
 
-  // The gate: a phone, signed in on its own, types the pass's code (its QR carries the token).
+  // The gate: a phone, signed in on its own, scans the pass's QR with its camera.
   const phone = await browser.newContext({ ...devices['Pixel 7'] })
   const gate = await phone.newPage()
   problems.push(...watchConsole(gate))
   await signIn(gate)
   await gate.goto(`${base}/gate`)
-  await gate.getByTestId('gate-code').fill(code.toLowerCase())
-  await gate.getByTestId('gate-check').click()
+  await gate.getByTestId('gate-scan').tap()
   const shown = gate.getByTestId('gate-vehicle')
   await expect(shown).toContainText(stockNumber)
   await expect(shown).toContainText('Marisol Vantongeren')
@@ -164,7 +184,7 @@ test('a walk-in owner: ID with a photo, signature on the canvas, release PDF, ga
 
   // The same pass a second time is refused with its reason.
   await gate.getByRole('button', { name: 'Next pass' }).click()
-  await gate.getByTestId('gate-code').fill(code)
+  await gate.getByTestId('gate-code').fill(code.toLowerCase())
   await gate.getByTestId('gate-check').click()
   await expect(gate.getByTestId('gate-refused')).toContainText('This pass was already used')
 
