@@ -26,6 +26,7 @@ import { outboxRouter } from './outbox/index'
 import { policeNoticeRouter } from './police-notices/index'
 import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, publicThrottle, type PublicLimits } from './owner/index'
 import { quotesRouter } from './quotes/index'
+import { gateRouter, releasesRouter } from './releases/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { healthRouter } from './health/index'
 import { logSerializers, safeLogger } from './logging'
@@ -141,6 +142,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))
   app.use('/api/vehicles/:vehicleId', vehicleBillingRouter(changes, { kick: deps.kickOutbox }))
   app.use('/api/cash-drawer', cashDrawerRouter(db))
+  app.use('/api/vehicles/:vehicleId/release', releasesRouter({ changes, files, publicUrl: deps.publicUrl }))
+  app.use('/api/gate', gateRouter(changes))
   app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))
   app.use('/api/spaces', spacesRouter(db))

@@ -8,14 +8,15 @@ import { summarizeVehicles, type YardForCharges } from '../charges/index'
 import { notFound } from '../errors'
 import { yardOfUser } from '../yards/index'
 import { activeHolds, activeInYard, cardRows, oneInYard, type CardRow, type HoldRow } from './board.queries'
+import { releaseFacts } from './handover.queries'
 
 export interface BoardYard extends YardForCharges {
   id: string
   name: string
 }
 
-// The claimant's ID and the signed release are not recorded anywhere yet, so every guard that needs
-// them refuses with its reason until the release lands. The money comes from its records (handoverMoney).
+// What is not recorded reads as such: every guard that needs it refuses with its reason. The money
+// comes from its records (handoverMoney), the claimant's ID and the signature from the release's.
 export const NOTHING_RECORDED: BoardCard['handover'] = { paidCents: 0, creditedCents: 0, waived: false, claimantIdRecorded: false, releaseSigned: false }
 
 /** The money side of the handover: payments less refunds, approved waivers and discounts, against the balance. */
@@ -44,6 +45,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
   const holdRows = await activeHolds(db, yard.id, ids)
   const summaries = await summarizeVehicles(db, yard, rows, asOf)
   const money = await moneyTotals(db, rows.map((r) => r.id))
+  const released = await releaseFacts(db, rows.map((r) => r.id))
   const holdsByVehicle = new Map<string, BoardCard['holds']>()
   for (const h of holdRows) {
     const list = holdsByVehicle.get(h.vehicleId) ?? []
@@ -68,7 +70,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
     rolls: r.rolls,
     inspectedAt: r.inspectedAt?.toISOString() ?? null,
     holds: holdsByVehicle.get(r.id) ?? [],
-    handover: { ...NOTHING_RECORDED, ...handoverMoney(money.get(r.id), summaries.get(r.id)?.balanceCents ?? null) },
+    handover: { ...NOTHING_RECORDED, ...handoverMoney(money.get(r.id), summaries.get(r.id)?.balanceCents ?? null), ...released.get(r.id) },
     photoCount: Number(r.photoCount),
     pickup: pickupBadge(r),
     summary: cardSummary(summaries.get(r.id)),

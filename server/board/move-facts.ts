@@ -5,6 +5,7 @@ import type { VehicleRow, YardRow } from '../vehicles/index'
 import { moneyTotals } from '../billing/index'
 import { handoverMoney, holdFact, NOTHING_RECORDED } from './board-cards'
 import { activeHolds } from './board.queries'
+import { releaseFacts } from './handover.queries'
 
 /**
  * What the lifecycle judges a move by, read for one vehicle under its lock: its active holds and
@@ -23,5 +24,6 @@ export async function moveFacts(db: Executor, vehicle: VehicleRow, yard: YardRow
     lienSale: summary?.lienSale ?? null,
     ...NOTHING_RECORDED,
     ...money,
+    ...(await releaseFacts(db, [vehicle.id])).get(vehicle.id),
   }
 }

@@ -16,10 +16,11 @@ export const qrModules = (data: string) => symbol(data).size
 export function drawQr(sheet: Sheet, data: string, x: number, y: number, size: number): number {
   const modules = symbol(data)
   const n = modules.size
-  const cell = size / n
-  const ink = sheet.colour('ink')
+  // Every run of dark modules in a row is a rectangle of one path, in module units, filled once: a
+  // renderer leaves no hairline seams between rows as it may between separate rectangles, which
+  // can keep a scanner from finding the symbol.
+  let path = ''
   for (let row = 0; row < n; row++) {
-    // One rectangle per run of dark modules in a row keeps the page small.
     for (let col = 0; col < n; ) {
       if (!modules.get(row, col)) {
         col++
@@ -27,10 +28,11 @@ export function drawQr(sheet: Sheet, data: string, x: number, y: number, size: n
       }
       let run = 1
       while (col + run < n && modules.get(row, col + run)) run++
-      sheet.page.drawRectangle({ x: x + col * cell, y: y + size - (row + 1) * cell, width: run * cell, height: cell, color: ink })
+      path += `M${col} ${row}h${run}v1h${-run}Z`
       col += run
     }
   }
+  sheet.page.drawSvgPath(path, { x, y: y + size, scale: size / n, color: sheet.colour('ink') })
   return n
 }
 

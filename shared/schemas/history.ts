@@ -39,6 +39,12 @@ export const HISTORY_KINDS = [
   'notice_made',
   'notice_sent',
   'notice_returned',
+  'release_claimant_recorded',
+  'release_id_photo_added',
+  'release_handover_recorded',
+  'release_photos_added',
+  'release_signed',
+  'gate_pass_issued',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -101,4 +107,10 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   notice_made: 'Notice letter made',
   notice_sent: 'Notice sent',
   notice_returned: 'Notice returned',
+  release_claimant_recorded: 'Claimant and ID recorded',
+  release_id_photo_added: 'ID photo added',
+  release_handover_recorded: 'Odometer and property at release',
+  release_photos_added: 'Photos at release',
+  release_signed: 'Release signed',
+  gate_pass_issued: 'Gate pass issued',
 }

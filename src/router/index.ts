@@ -32,6 +32,9 @@ export const routes: RouteRecordRaw[] = [
   { path: '/vehicles/:vehicleId/inspection', name: 'inspection', component: () => import('@/views/InspectionView.vue'), meta: { permission: 'board.view', title: 'shell.titles.inspection' } },
   { path: '/cash-drawer', name: 'cash-drawer', component: () => import('@/views/CashDrawerView.vue'), meta: { permission: 'billing.write', nav: 'billing.drawer.nav', title: 'billing.drawer.title' } },
   { path: '/deadlines', name: 'deadlines', component: () => import('@/views/DeadlinesView.vue'), meta: { permission: 'deadlines', nav: 'deadlines.nav', title: 'deadlines.pageTitle' } },
+  // The gate's phone: a pass scanned or typed; /g/<token> is where a pass's QR leads a phone's own camera.
+  { path: '/gate', name: 'gate', component: () => import('@/views/GateView.vue'), meta: { permission: 'release.write', nav: 'shell.nav.gate', title: 'shell.titles.gate' } },
+  { path: '/g/:token', name: 'gate-pass', component: () => import('@/views/GateView.vue'), meta: { permission: 'release.write', title: 'shell.titles.gate' } },
   { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { permission: 'outbox', nav: 'shell.nav.outbox', title: 'shell.titles.outbox' } },
   // The owner's page (no account): its key is a link's token or the short code from a letter.
   { path: '/o', name: 'owner-start', component: () => import('@/views/OwnerStartView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },

@@ -11,6 +11,7 @@ const benches: Record<string, () => Promise<{ met: boolean }>> = {
   board: async () => (await import('./board.bench')).run(),
   delivery: async () => (await import('./delivery.bench')).run(),
   deadlines: async () => (await import('./deadlines.bench')).run(),
+  release: async () => (await import('./release.bench')).run(),
 }
 const only = process.argv.slice(2)
 let allMet = true

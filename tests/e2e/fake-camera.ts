@@ -1,5 +1,6 @@
 import { writeFileSync } from 'node:fs'
 import { BarcodeFormat, DataMatrixWriter, EncodeHintType } from '@zxing/library'
+import QRCode from 'qrcode'
 
 const FORCE_SQUARE = 1
 
@@ -19,6 +20,23 @@ export function writeDataMatrixVideo(file: string, text: string, width = 640, he
     }
   }
   // 4:2:0 chroma at its neutral value: a grey picture.
+  const chroma = Buffer.alloc((width / 2) * (height / 2) * 2, 128)
+  const frame = Buffer.concat([Buffer.from('FRAME\n'), luma, chroma])
+  writeFileSync(file, Buffer.concat([Buffer.from(`YUV4MPEG2 W${width} H${height} F10:1 Ip A1:1 C420jpeg\n`), frame, frame]))
+}
+
+/** A Y4M video of one QR code on white (a gate pass held to the phone), for the same fake camera. */
+export function writeQrVideo(file: string, text: string, width = 640, height = 480, modulePx = 8) {
+  // The qrcode package the printed pass uses, error correction M; the white round it is the quiet zone.
+  const modules = QRCode.create(text, { errorCorrectionLevel: 'M' }).modules
+  const luma = Buffer.alloc(width * height, 235)
+  const left = (width - modules.size * modulePx) >> 1
+  const top = (height - modules.size * modulePx) >> 1
+  for (let y = 0; y < modules.size * modulePx; y++) {
+    for (let x = 0; x < modules.size * modulePx; x++) {
+      if (modules.get(Math.floor(y / modulePx), Math.floor(x / modulePx))) luma[(top + y) * width + left + x] = 16
+    }
+  }
   const chroma = Buffer.alloc((width / 2) * (height / 2) * 2, 128)
   const frame = Buffer.concat([Buffer.from('FRAME\n'), luma, chroma])
   writeFileSync(file, Buffer.concat([Buffer.from(`YUV4MPEG2 W${width} H${height} F10:1 Ip A1:1 C420jpeg\n`), frame, frame]))

@@ -14,7 +14,7 @@ test('on a 390 px phone the menu reaches every page a manager has, each link who
   const nav = await mainNav(page)
   const links = nav.getByRole('link')
   const labels = await links.allTextContents()
-  expect(labels.map((l) => l.trim())).toEqual(['Board', 'Archive', 'Log a tow-in', 'Cash drawer', 'Deadlines', 'Outbox', 'Staff'])
+  expect(labels.map((l) => l.trim())).toEqual(['Board', 'Archive', 'Log a tow-in', 'Cash drawer', 'Deadlines', 'Gate', 'Outbox', 'Staff'])
   for (const label of labels) {
     const box = (await nav.getByRole('link', { name: label.trim() }).boundingBox())!
     expect(box.x).toBeGreaterThanOrEqual(0)

@@ -2,10 +2,10 @@ import { expect, test } from '@playwright/test'
 import { DEMO, signInAs, watchConsole, type DemoRole } from './helpers'
 
 const NAV: Record<DemoRole, string[]> = {
-  manager: ['Board', 'Archive', 'Log a tow-in', 'Cash drawer', 'Deadlines', 'Outbox', 'Staff'],
+  manager: ['Board', 'Archive', 'Log a tow-in', 'Cash drawer', 'Deadlines', 'Gate', 'Outbox', 'Staff'],
   dispatcher: ['Board', 'Archive', 'Log a tow-in'],
   technician: ['Board', 'Archive'],
-  office: ['Board', 'Archive', 'Cash drawer', 'Deadlines', 'Outbox'],
+  office: ['Board', 'Archive', 'Cash drawer', 'Deadlines', 'Gate', 'Outbox'],
 }
 
 for (const role of Object.keys(NAV) as DemoRole[]) {

@@ -47,12 +47,15 @@ export function pdfInfo(pdf: Uint8Array) {
   })
 }
 
-/** Renders page 1 to test-results/<name>.png (96 dpi) so that a broken layout can be seen; returns the path. */
-export async function renderFirstPage(pdf: Uint8Array, name: string): Promise<string> {
+/**
+ * Renders page 1 to test-results/<name>.png (96 dpi unless told) so that a broken layout can be seen;
+ * returns the path. A page whose QR is read back renders finer: at 96 dpi a module's edges blur.
+ */
+export async function renderFirstPage(pdf: Uint8Array, name: string, dpi = 96): Promise<string> {
   const out = path.resolve('test-results', 'pdf')
   await mkdir(out, { recursive: true })
   const prefix = path.join(out, name)
-  await withFile(pdf, (file) => run('pdftoppm', ['-png', '-r', '96', '-f', '1', '-l', '1', '-singlefile', file, prefix]))
+  await withFile(pdf, (file) => run('pdftoppm', ['-png', '-r', String(dpi), '-f', '1', '-l', '1', '-singlefile', file, prefix]))
   return `${prefix}.png`
 }
 
@@ -63,4 +66,21 @@ export async function readQr(png: string): Promise<string> {
   const { data, info } = await sharp(png).greyscale().raw().toBuffer({ resolveWithObject: true })
   const luminance = new RGBLuminanceSource(new Uint8ClampedArray(data), info.width, info.height)
   return new QRCodeReader().decode(new BinaryBitmap(new HybridBinarizer(luminance))).getText()
+}
+
+/**
+ * The QR code on page 1, rendered at a few resolutions until ZXing reads it: @zxing/library 0.21 fails
+ * on a few percent of valid symbols at any one scale (measured here with symbols straight from the
+ * qrcode package), and a different scale usually gets past it.
+ */
+export async function readQrOfPdf(pdf: Uint8Array, name: string): Promise<string> {
+  let last: unknown
+  for (const dpi of [96, 150, 200, 300]) {
+    try {
+      return await readQr(await renderFirstPage(pdf, name, dpi))
+    } catch (err) {
+      last = err
+    }
+  }
+  throw last
 }

@@ -23,7 +23,16 @@ export function fieldLabel(key: string): string {
   if (catalogKey) return t(catalogKey)
   if (te(`vehicles.history.fields.${key}`)) return t(`vehicles.history.fields.${key}`)
   if (te(`billing.history.${key}`)) return t(`billing.history.${key}`)
+  if (te(`release.history.fields.${key}`)) return t(`release.history.fields.${key}`)
   return inspectionFieldLabel(key) ?? key
+}
+
+// Fields whose values are codes with their words in a catalog group (the release's, the lifecycle's).
+const CODED_VALUES: Record<string, string> = {
+  claimantKind: 'releases.claimantKinds',
+  idType: 'releases.idTypes',
+  authorityKind: 'releases.authorityKinds',
+  disposition: 'lifecycle.dispositions',
 }
 
 export function fieldValue(key: string, value: unknown, at: (iso: string) => string): string {
@@ -39,8 +48,11 @@ export function fieldValue(key: string, value: unknown, at: (iso: string) => str
   if (key === 'kind' && typeof value === 'string' && te(`notices.kinds.${value}`)) return t(`notices.kinds.${value}`)
   if (NOTICE_CODES[key] && typeof value === 'string' && te(`notices.${NOTICE_CODES[key]}.${value}`)) return t(`notices.${NOTICE_CODES[key]}.${value}`)
   if (key === 'language' && (value === 'en' || value === 'es')) return t(`contacts.languages.${value}`)
+  const coded = typeof value === 'string' && CODED_VALUES[key] ? `${CODED_VALUES[key]}.${value}` : null
+  if (coded && te(coded)) return t(coded)
   if (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}T/.test(value)) return at(value)
-  if (Array.isArray(value)) return `${value.length}`
+  // A list of names (property handed back) reads as the names; a list of records as how many.
+  if (Array.isArray(value)) return value.length > 0 && value.every((v) => typeof v === 'string') ? value.join(', ') : `${value.length}`
   return String(value)
 }
 

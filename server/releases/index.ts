@@ -1,0 +1,1 @@
+export { gateRouter, releasesRouter, type ReleaseDeps } from './releases.routes'
