@@ -31,7 +31,13 @@ export function watchConsole(page: Page): string[] {
  * (and leaves open) first; on a desk it is in the bar.
  */
 export async function mainNav(page: Page, name = 'Main') {
+  const nav = page.getByRole('navigation', { name })
+  if (!(await nav.isVisible())) await openMenu(page)
+  return nav
+}
+
+/** Opens the top bar's menu where the bar has one (a desk: the person and sign-out; a phone: everything). */
+export async function openMenu(page: Page) {
   const menu = page.locator('button[aria-controls="top-bar-panel"]')
   if ((await menu.isVisible()) && (await menu.getAttribute('aria-expanded')) !== 'true') await menu.click()
-  return page.getByRole('navigation', { name })
 }

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { DEMO, signInAs, watchConsole, type DemoRole } from './helpers'
+import { DEMO, openMenu, signInAs, watchConsole, type DemoRole } from './helpers'
 
 const NAV: Record<DemoRole, string[]> = {
   manager: ['Board', 'Archive', 'Log a tow-in', 'Cash drawer', 'Deadlines', 'Gate', 'Outbox', 'Staff'],
@@ -31,6 +31,7 @@ test('a wrong password shows the message and stays on the sign-in page', async (
 
 test('signing out returns to the sign-in page and the board needs a new sign-in', async ({ page }) => {
   await signInAs(page, 'dispatcher')
+  await openMenu(page)
   await page.getByRole('button', { name: 'Sign out' }).click()
   await expect(page).toHaveURL(/\/sign-in/)
   await page.goto('/board')
