@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { cameraProblem } from '../../../src/components/vehicles/camera-problems'
+import { cameraProblem } from '../../../src/composables/camera-problems'
 
 const refusal = (name: string) => new DOMException('from the browser', name)
 
