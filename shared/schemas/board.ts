@@ -22,6 +22,8 @@ export const handoverSchema = z.object({
   waived: z.boolean(),
   claimantIdRecorded: z.boolean(),
   releaseSigned: z.boolean(),
+  /** The title transfer (bill of sale) signed: its own paper, never the release's signature. */
+  transferSigned: z.boolean(),
 })
 
 /** How a vehicle is named wherever it is listed: the board, the archive. */

@@ -28,6 +28,7 @@ const facts = (lienSale: MoveFacts['lienSale']): MoveFacts => ({
   waived: false,
   claimantIdRecorded: false,
   releaseSigned: false,
+  transferSigned: false,
   lienSale,
 })
 

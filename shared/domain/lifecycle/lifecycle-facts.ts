@@ -13,6 +13,7 @@ export function factsOfCard(card: BoardCard, timeZone: string): MoveFacts {
     waived: card.handover.waived,
     claimantIdRecorded: card.handover.claimantIdRecorded,
     releaseSigned: card.handover.releaseSigned,
+    transferSigned: card.handover.transferSigned,
     lienSale: card.summary?.lienSale ?? null,
   }
 }

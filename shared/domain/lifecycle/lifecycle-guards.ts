@@ -30,6 +30,8 @@ export interface MoveFacts {
   waived: boolean
   claimantIdRecorded: boolean
   releaseSigned: boolean
+  /** The signed title transfer: a release signed for a hand-over does not sign a vehicle over. */
+  transferSigned: boolean
   /** Null when no rule set gives the vehicle legal clocks (or the move does not read it, as the balance). */
   lienSale: LienSaleGate | null
 }
@@ -91,7 +93,7 @@ export const claimantIdRecorded: Guard = (f) =>
 export const releaseSigned: Guard = (f) => (f.releaseSigned ? [] : [{ code: 'release-signed', message: 'The release is not signed.' }])
 
 export const transferSigned: Guard = (f) =>
-  f.releaseSigned ? [] : [{ code: 'release-signed', message: 'The title transfer is not signed.' }]
+  f.transferSigned ? [] : [{ code: 'release-signed', message: 'The title transfer is not signed.' }]
 
 export const lienSaleAllowed: Guard = (f, ctx) => {
   const gate = f.lienSale

@@ -16,6 +16,7 @@ const clear: MoveFacts = {
   waived: false,
   claimantIdRecorded: true,
   releaseSigned: true,
+  transferSigned: true,
   lienSale: { open: true, date: '2026-11-20', why: 'Open since 2026-11-20.', code: 'open' },
 }
 const facts = (over: Partial<MoveFacts>): MoveFacts => ({ ...clear, ...over })
@@ -150,10 +151,12 @@ describe('lifecycle guards', () => {
     const fromStorage = (over: Partial<MoveFacts>) =>
       checkMove({ from: 'storage', to: 'closed', role: 'manager', disposition: 'title_transferred', facts: facts({ paidCents: 0, ...over }), now: NOW })
     expect(fromStorage({}).allowed).toBe(true)
-    expect(fromStorage({ releaseSigned: false, claimantIdRecorded: false }).reasons).toEqual([
+    expect(fromStorage({ transferSigned: false, claimantIdRecorded: false }).reasons).toEqual([
       { code: 'release-signed', message: 'The title transfer is not signed.' },
       { code: 'claimant-id', message: "The claimant's ID is not recorded." },
     ])
+    // A release signed for a hand-over is not a signed transfer: the vehicle cannot be signed over on it.
+    expect(fromStorage({ releaseSigned: true, transferSigned: false }).reasons.map((r) => r.code)).toEqual(['release-signed'])
   })
 
   const dispose = (lienSale: MoveFacts['lienSale'], disposition: Disposition = 'lien_sale') =>
