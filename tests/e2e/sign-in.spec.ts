@@ -64,4 +64,15 @@ test('a manager adds a staff member who can then sign in', async ({ page, browse
   await other.getByRole('button', { name: 'Sign in' }).click()
   await expect(other.getByTestId('who')).toContainText('Dispatcher')
   await other.close()
+
+  // Issue 16 item 5: a role change and Deactivate (which signs the person out everywhere) ask first.
+  const row = page.getByRole('row').filter({ hasText: 'ossian@tamsincreek.example' })
+  await row.getByRole('button', { name: 'Deactivate' }).click()
+  const ask = page.getByRole('dialog', { name: 'Deactivate Ossian Threlkeld?' })
+  await expect(ask).toContainText('signed out on every device')
+  await ask.getByRole('button', { name: 'Cancel' }).click()
+  await expect(row.getByText('Active', { exact: true })).toBeVisible()
+  await row.getByRole('button', { name: 'Deactivate' }).click()
+  await page.getByRole('dialog', { name: 'Deactivate Ossian Threlkeld?' }).getByRole('button', { name: 'Deactivate' }).click()
+  await expect(row.getByText('Deactivated', { exact: true })).toBeVisible()
 })
