@@ -26,6 +26,10 @@ test('on a 390 px phone the menu reaches every page a manager has, each link who
 
   await nav.getByRole('link', { name: 'Staff' }).tap()
   await expect(page).toHaveURL(/\/users$/)
+  // Issue 16 item 5: on a phone a person's name and actions are seen together, not a table scrolled sideways.
+  const me = page.getByRole('listitem').filter({ hasText: 'Delia Marchetti' })
+  await expect(me.getByRole('button', { name: 'New password' })).toBeInViewport({ ratio: 1 })
+  await expect(me.getByRole('combobox', { name: 'Role of Delia Marchetti' })).toBeInViewport()
   // Going somewhere folds the menu away again.
   await expect(menu).toHaveAttribute('aria-expanded', 'false')
   await expect(page.getByRole('navigation', { name: 'Main' })).toBeHidden()
