@@ -116,13 +116,13 @@ test('a board that missed a change gets a conflict and shows the card where it n
 
 test('filters live in the address and survive a reload', async ({ page }) => {
   await signInAs(page, 'office')
-  await page.getByLabel('Search the board').fill('Kestra')
+  await page.getByLabel(/^Filter the board's cards/).fill('Kestra')
   await expect(page).toHaveURL(/[?&]q=Kestra/)
   const cards = page.locator('[data-stock]')
   await expect(cards.first()).toBeVisible()
   for (const text of await cards.allInnerTexts()) expect(text).toContain('Kestra')
   await page.reload()
-  await expect(page.getByLabel('Search the board')).toHaveValue('Kestra')
+  await expect(page.getByLabel(/^Filter the board's cards/)).toHaveValue('Kestra')
   await page.goto('/board?hold=law_enforcement')
   await expect(cards.first()).toBeVisible()
   for (const text of await cards.allInnerTexts()) expect(text).toContain('Law-enforcement hold')
