@@ -32,12 +32,18 @@ export function watchConsole(page: Page): string[] {
  */
 export async function mainNav(page: Page, name = 'Main') {
   const nav = page.getByRole('navigation', { name })
+  const menu = page.locator('button[aria-controls="top-bar-panel"]')
+  // The top bar is drawn after the page's own content: wait for it before asking what it shows.
+  await expect(nav.or(menu).first()).toBeVisible()
   if (!(await nav.isVisible())) await openMenu(page)
+  await expect(nav).toBeVisible()
   return nav
 }
 
 /** Opens the top bar's menu where the bar has one (a desk: the person and sign-out; a phone: everything). */
 export async function openMenu(page: Page) {
   const menu = page.locator('button[aria-controls="top-bar-panel"]')
+  const signOut = page.locator('.top-bar__signout')
+  await expect(menu.or(signOut).first()).toBeVisible()
   if ((await menu.isVisible()) && (await menu.getAttribute('aria-expanded')) !== 'true') await menu.click()
 }
