@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { formatCents } from '@shared/domain/billing'
 import { LETTER, letterhead, qrWithLink, Sheet } from '../../../server/documents/index'
-import { pdfInfo, pdfText, readQr, renderFirstPage } from '../../helpers/pdf'
+import { pdfInfo, pdfText, readQrOfPdf, renderFirstPage } from '../../helpers/pdf'
 
 // The layout toolkit every letter is written on, exercised the way a notice will use it.
 async function sampleLetter(language: 'en' | 'es', paragraphs: number) {
@@ -62,7 +62,7 @@ describe('the document toolkit', { timeout: 30_000 }, () => {
   it('puts a readable QR code beside its short link', async () => {
     const pdf = await sampleLetter('en', 1)
     expect((await pdfInfo(pdf)).pages).toBe(1)
-    expect(await readQr(await renderFirstPage(pdf, 'toolkit-letter-en'))).toBe('https://yard.test.example/o/ABCD-2345')
+    expect(await readQrOfPdf(pdf, 'toolkit-letter-en')).toBe('https://yard.test.example/o/ABCD-2345')
     expect(await pdfText(pdf)).toContain('Check the rules where you are')
   })
 
