@@ -25,19 +25,25 @@ export function writeDataMatrixVideo(file: string, text: string, width = 640, he
   writeFileSync(file, Buffer.concat([Buffer.from(`YUV4MPEG2 W${width} H${height} F10:1 Ip A1:1 C420jpeg\n`), frame, frame]))
 }
 
-/** A Y4M video of one QR code on white (a gate pass held to the phone), for the same fake camera. */
-export function writeQrVideo(file: string, text: string, width = 640, height = 480, modulePx = 8) {
+/**
+ * A Y4M video of one QR code on white (a gate pass held to the phone), for the same fake camera. The
+ * frames show it at a few sizes, as a hand moves: ZXing 0.21 misses a few percent of valid symbols at
+ * any one scale, and a camera that showed the one frame for ever would never read those.
+ */
+export function writeQrVideo(file: string, text: string, width = 640, height = 480, modulePixels: number[] = [8, 7, 9, 6]) {
   // The qrcode package the printed pass uses, error correction M; the white round it is the quiet zone.
   const modules = QRCode.create(text, { errorCorrectionLevel: 'M' }).modules
-  const luma = Buffer.alloc(width * height, 235)
-  const left = (width - modules.size * modulePx) >> 1
-  const top = (height - modules.size * modulePx) >> 1
-  for (let y = 0; y < modules.size * modulePx; y++) {
-    for (let x = 0; x < modules.size * modulePx; x++) {
-      if (modules.get(Math.floor(y / modulePx), Math.floor(x / modulePx))) luma[(top + y) * width + left + x] = 16
-    }
-  }
   const chroma = Buffer.alloc((width / 2) * (height / 2) * 2, 128)
-  const frame = Buffer.concat([Buffer.from('FRAME\n'), luma, chroma])
-  writeFileSync(file, Buffer.concat([Buffer.from(`YUV4MPEG2 W${width} H${height} F10:1 Ip A1:1 C420jpeg\n`), frame, frame]))
+  const frames = modulePixels.map((modulePx) => {
+    const luma = Buffer.alloc(width * height, 235)
+    const left = (width - modules.size * modulePx) >> 1
+    const top = (height - modules.size * modulePx) >> 1
+    for (let y = 0; y < modules.size * modulePx; y++) {
+      for (let x = 0; x < modules.size * modulePx; x++) {
+        if (modules.get(Math.floor(y / modulePx), Math.floor(x / modulePx))) luma[(top + y) * width + left + x] = 16
+      }
+    }
+    return Buffer.concat([Buffer.from('FRAME\n'), luma, chroma])
+  })
+  writeFileSync(file, Buffer.concat([Buffer.from(`YUV4MPEG2 W${width} H${height} F10:1 Ip A1:1 C420jpeg\n`), ...frames.flatMap((f) => [f, f])]))
 }
