@@ -85,6 +85,9 @@ describe('vin before model year 1981 — 49 CFR 565 applies from MY 1981 [S]', (
     const reading = vin('124379N5123')
     expect(reading.ok).toBe(true)
     expect(reading.checkDigit).toBeUndefined()
-    expect(reading.warnings[0]).toContain('pre-1981')
+    expect(reading.warnings[0]).toContain('made before 1981')
+    // Issue 16 item 12: the hint said "accepted" while saving it without a year was refused; it now says
+    // what the save needs, as the tow-in schema does (shared/schemas/vehicles.ts).
+    expect(reading.warnings[0]).toContain('only with a model year before 1981')
   })
 })

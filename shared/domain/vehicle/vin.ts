@@ -72,8 +72,9 @@ export function vin(text: string, kind: VinVehicleKind = 'light'): VinReading {
   if (normalized.length < 17) {
     reading.ok = reading.problems.length === 0
     reading.warnings.push(
-      `This VIN has ${normalized.length} characters, not 17: accepted as a pre-1981 VIN, which has no check digit ` +
-        'or model-year code to verify — compare it with the title.',
+      `This VIN has ${normalized.length} characters, not 17: only a vehicle made before 1981 has one this short, ` +
+        'so it is saved only with a model year before 1981 (or a reason). It has no check digit or model-year code ' +
+        'to verify — compare it with the title.',
     )
     return reading
   }
