@@ -1,4 +1,5 @@
 import { computed, toValue, type MaybeRefOrGetter } from 'vue'
+import { wallClock } from '@shared/domain/time'
 import { useCurrentYardQuery } from '@/api/yards'
 import { i18n } from '@/i18n'
 import { INTL_TAGS, type Locale } from '@/i18n/locales'
@@ -77,7 +78,5 @@ export function zoneName(timeZone: string, locale: Locale = chosen()): string {
 
 /** Today (or the day of `at`) on a yard's calendar as "2026-12-02", the value a date field sends. */
 export function yardDay(timeZone: string, at: Date = new Date()): string {
-  const parts = new Intl.DateTimeFormat('en-US', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(at)
-  const part = (type: string) => parts.find((p) => p.type === type)!.value
-  return `${part('year')}-${part('month')}-${part('day')}`
+  return wallClock(timeZone, at.getTime()).slice(0, 10)
 }
