@@ -47,3 +47,14 @@ export async function openMenu(page: Page) {
   await expect(menu.or(signOut).first()).toBeVisible()
   if ((await menu.isVisible()) && (await menu.getAttribute('aria-expanded')) !== 'true') await menu.click()
 }
+
+/**
+ * Runs axe-core over the page as it stands against WCAG 2.2 level A and AA and fails with what broke
+ * (rule, and the first elements), so a regression names its element (issue 16 item 17).
+ */
+export async function expectAccessible(page: Page) {
+  const { default: AxeBuilder } = await import('@axe-core/playwright')
+  const { violations } = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze()
+  const found = violations.map((v) => `${v.id} (${v.impact}): ${v.nodes.slice(0, 3).map((n) => n.target.join(' ')).join(' | ')}`)
+  expect(found, `axe on ${new URL(page.url()).pathname}`).toEqual([])
+}
