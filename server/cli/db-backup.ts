@@ -1,6 +1,6 @@
 import path from 'node:path'
 import { hasHistory } from '@db/history'
-import { makeBackup } from '../backup/backup'
+import { makeBackup } from '../backup/index'
 import { loadConfig } from '../config'
 import { loadHistoryKey } from '../history-key'
 import { withDatabase } from './open'

@@ -1,5 +1,5 @@
 import path from 'node:path'
-import { restoreBackup } from '../backup/backup'
+import { restoreBackup } from '../backup/index'
 import { loadConfig } from '../config'
 import { loadHistoryKey } from '../history-key'
 import { fail, withDatabase } from './open'

@@ -28,7 +28,7 @@ export interface CrashReport {
 const root = path.resolve(import.meta.dirname, '../..')
 
 /** The server bundled as `npm run build:server` does, into a folder of node_modules so packages resolve. */
-async function bundleServer(): Promise<string> {
+export async function bundleServer(): Promise<string> {
   const outdir = path.join(root, 'node_modules/.cache/holdfast-crash')
   await build({
     entryPoints: [path.join(root, 'server/index.ts')],
