@@ -154,7 +154,7 @@ export const enforceAccess: RequestHandler = (req, _res, next) => {
     rule = ruleFor(req.method, req.baseUrl + req.path)
   } catch (err) {
     // path-to-regexp decodes each parameter: a broken %-escape cannot name anything.
-    if (err instanceof URIError) return next(badRequest('That address has a broken %-escape.'))
+    if (err instanceof URIError) return next(badRequest('That address has a broken %-escape.', [{ path: 'url', message: 'That address has a broken %-escape.' }]))
     throw err
   }
   if (rule === 'public') return next()
