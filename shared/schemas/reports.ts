@@ -1,0 +1,102 @@
+import { z } from 'zod'
+import { BOARD_COLUMNS } from '../domain/lifecycle/columns'
+import { lienSaleEligibleSchema } from './charges'
+
+const vehicleShape = {
+  vehicleId: z.uuid(),
+  stockNumber: z.string(),
+  vehicle: z.string(),
+  plate: z.string().nullable(),
+  state: z.enum(BOARD_COLUMNS),
+  arrivedAt: z.string(),
+}
+
+// ---------------------------------------------------------------- receivables
+
+export const RECEIVABLE_SORTS = ['stockNumber', 'arrivedAt', 'daysOnLot', 'storageCents', 'paidCents', 'dueCents', 'nextDeadline'] as const
+export type ReceivableSort = (typeof RECEIVABLE_SORTS)[number]
+
+/** One vehicle on the lot with money still owed: its bill so far, what was paid or credited, what is due. */
+export const receivableRowSchema = z.object({
+  ...vehicleShape,
+  /** Storage days counted so far by the rule set's own day rule. */
+  daysOnLot: z.number().int(),
+  towCents: z.number().int(),
+  storageCents: z.number().int(),
+  /** Everything charged so far (tow, storage, fees, tax): the invoice's total. */
+  chargesCents: z.number().int(),
+  creditedCents: z.number().int(),
+  paidCents: z.number().int(),
+  dueCents: z.number().int(),
+  nextDeadline: z.object({ label: z.string(), dueDate: z.string(), daysLeft: z.number() }).nullable(),
+})
+export type ReceivableRow = z.infer<typeof receivableRowSchema>
+
+const totalsSchema = z.object({
+  count: z.number().int(),
+  chargesCents: z.number().int(),
+  storageCents: z.number().int(),
+  creditedCents: z.number().int(),
+  paidCents: z.number().int(),
+  dueCents: z.number().int(),
+})
+
+const intParam = (name: string, min: number, max: number, fallback: number) =>
+  z.coerce
+    .number({ error: `${name} must be a whole number.` })
+    .int({ error: `${name} must be a whole number.` })
+    .min(min, { error: `${name} must be at least ${min}.` })
+    .max(max, { error: `${name} must be at most ${max}.` })
+    .default(fallback)
+
+/** Filters, sorting and paging of the receivables, shared by the page and its CSV (which ignores paging). */
+export const receivablesQuerySchema = z.object({
+  page: intParam('page', 1, 100_000, 1),
+  pageSize: intParam('pageSize', 1, 200, 50),
+  sort: z.enum(RECEIVABLE_SORTS, { error: `Sort by one of ${RECEIVABLE_SORTS.join(', ')}.` }).default('dueCents'),
+  order: z.enum(['asc', 'desc'], { error: 'Order is asc or desc.' }).default('desc'),
+  /** Stock number, plate or vehicle, any part of it, any case. */
+  q: z.string().trim().max(100, { error: 'Search for at most 100 characters.' }).optional(),
+  column: z.enum(BOARD_COLUMNS, { error: `Choose a column among ${BOARD_COLUMNS.join(', ')}.` }).optional(),
+  /** Only vehicles on the lot at least this many storage days. */
+  minDays: intParam('minDays', 0, 100_000, 0),
+})
+export type ReceivablesQuery = z.infer<typeof receivablesQuerySchema>
+
+export const receivablesSchema = z.object({
+  asOf: z.string(),
+  timeZone: z.string(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+  /** Totals of every row the filters keep, not only this page's. */
+  totals: totalsSchema,
+  rows: z.array(receivableRowSchema),
+})
+export type Receivables = z.infer<typeof receivablesSchema>
+
+// ---------------------------------------------------------------- aged inventory
+
+export const AGE_THRESHOLDS = [30, 60, 90] as const
+
+export const agedRowSchema = z.object({
+  ...vehicleShape,
+  /** Calendar days on the yard's clock from the arrival day to today. */
+  days: z.number().int(),
+  /** The largest threshold it is over: 30, 60 or 90. */
+  over: z.union([z.literal(30), z.literal(60), z.literal(90)]),
+  dueCents: z.number().int().nullable(),
+  eligible: lienSaleEligibleSchema.nullable(),
+  /** When not yet eligible: the gate's code and the day it may open, if known. */
+  lienSale: z.object({ code: z.string(), date: z.string().nullable() }).nullable(),
+})
+export type AgedRow = z.infer<typeof agedRowSchema>
+
+export const agedSchema = z.object({
+  asOf: z.string(),
+  today: z.string(),
+  timeZone: z.string(),
+  /** Vehicles on the lot over each threshold (a vehicle over 90 days counts in all three). */
+  counts: z.object({ over30: z.number().int(), over60: z.number().int(), over90: z.number().int(), eligible: z.number().int(), onLot: z.number().int() }),
+  rows: z.array(agedRowSchema),
+})
+export type Aged = z.infer<typeof agedSchema>
