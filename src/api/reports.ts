@@ -1,0 +1,31 @@
+import { keepPreviousData, useQuery } from '@tanstack/vue-query'
+import { computed, toValue, type MaybeRefOrGetter } from 'vue'
+import { agedSchema, receivablesSchema, type ReceivablesQuery } from '@shared/schemas/reports'
+import { request } from './http'
+
+export type ReceivablesFilters = Partial<ReceivablesQuery>
+
+export const reportKeys = {
+  all: ['reports'] as const,
+  receivables: (q: ReceivablesFilters) => [...reportKeys.all, 'receivables', q] as const,
+  aged: () => [...reportKeys.all, 'aged'] as const,
+}
+
+/** The query string of a receivables request: only what is set. */
+export function receivablesParams(q: ReceivablesFilters): string {
+  const params = new URLSearchParams()
+  for (const [k, v] of Object.entries(q)) if (v !== undefined && v !== '' && v !== null) params.set(k, String(v))
+  return params.toString()
+}
+
+export const fetchReceivables = (q: ReceivablesFilters) => request('GET', `/api/reports/receivables?${receivablesParams(q)}`, receivablesSchema)
+
+/** Where the same rows download as CSV (the session opens it; paging is ignored there). */
+export const receivablesCsvUrl = (q: ReceivablesFilters) => `/api/reports/receivables.csv?${receivablesParams({ ...q, page: undefined, pageSize: undefined })}`
+
+/** One page of receivables; the last page stays shown while the next loads. */
+export const useReceivablesQuery = (q: MaybeRefOrGetter<ReceivablesFilters>) =>
+  useQuery({ queryKey: computed(() => reportKeys.receivables(toValue(q))), queryFn: () => fetchReceivables(toValue(q)), placeholderData: keepPreviousData })
+
+export const fetchAged = () => request('GET', '/api/reports/aged', agedSchema)
+export const useAgedQuery = () => useQuery({ queryKey: reportKeys.aged(), queryFn: fetchAged })
