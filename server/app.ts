@@ -153,7 +153,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vin-decode', vinDecodeRouter())
   app.use('/api/outbox', outboxRouter({ db, files, kick: deps.kickOutbox }))
   app.use('/api/today', todayRouter(db))
-  app.use('/api/reports', reportsRouter(db))
+  app.use('/api/reports', reportsRouter(db, hub))
   app.use('/api', deadlinesRouter(db, deps.publicUrl))
   // Public: the owner's page (its key checked by every route) and "is my vehicle here?".
   const throttle = publicThrottle(db, deps.publicLimits ?? DEFAULT_PUBLIC_LIMITS)

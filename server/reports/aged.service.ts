@@ -1,6 +1,6 @@
 import type { BoardCard } from '@shared/schemas/board'
 import { isoDate, localDay } from '@shared/domain/time'
-import { AGE_THRESHOLDS, type Aged, type AgedRow } from '@shared/schemas/reports'
+import { AGE_THRESHOLDS, type Aged, type AgedQuery, type AgedRow } from '@shared/schemas/reports'
 import { receivableOf } from './receivables.service'
 import { vehicleName } from './lot'
 
@@ -9,7 +9,7 @@ import { vehicleName } from './lot'
  * oldest first, each with whether the law already allows a lien sale or disposal and since when —
  * the board's own eligibility (the gate open and nobody has claimed it), never worked out again here.
  */
-export function agedInventory(cards: readonly BoardCard[], timeZone: string, asOf: Date): Aged {
+export function agedInventory(cards: readonly BoardCard[], q: AgedQuery, timeZone: string, asOf: Date): Aged {
   const todayNum = localDay(timeZone, asOf.getTime())
   const rows: AgedRow[] = []
   let eligible = 0
@@ -35,11 +35,17 @@ export function agedInventory(cards: readonly BoardCard[], timeZone: string, asO
   }
   rows.sort((a, b) => b.days - a.days || a.stockNumber.localeCompare(b.stockNumber))
   const count = (t: number) => rows.filter((r) => r.days > t).length
+  const shown = rows.filter((r) => r.days > q.over)
+  const start = (q.page - 1) * q.pageSize
   return {
     asOf: asOf.toISOString(),
+    over: q.over,
+    page: q.page,
+    pageSize: q.pageSize,
+    total: shown.length,
     today: isoDate(todayNum),
     timeZone,
     counts: { over30: count(30), over60: count(60), over90: count(90), eligible, onLot: cards.length },
-    rows,
+    rows: shown.slice(start, start + q.pageSize),
   }
 }

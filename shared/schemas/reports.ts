@@ -91,8 +91,21 @@ export const agedRowSchema = z.object({
 })
 export type AgedRow = z.infer<typeof agedRowSchema>
 
+/** Which vehicles the aged list shows (over 30, 60 or 90 days) and which page of them. */
+export const agedQuerySchema = z.object({
+  over: z.coerce.number().pipe(z.union([z.literal(30), z.literal(60), z.literal(90)], { error: 'Over is 30, 60 or 90 days.' })).default(30),
+  page: intParam('page', 1, 100_000, 1),
+  pageSize: intParam('pageSize', 1, 200, 50),
+})
+export type AgedQuery = z.infer<typeof agedQuerySchema>
+
 export const agedSchema = z.object({
   asOf: z.string(),
+  /** The rows over `over` days: `total` of them, this page's in `rows`. */
+  over: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+  total: z.number().int(),
   today: z.string(),
   timeZone: z.string(),
   /** Vehicles on the lot over each threshold (a vehicle over 90 days counts in all three). */
@@ -100,3 +113,34 @@ export const agedSchema = z.object({
   rows: z.array(agedRowSchema),
 })
 export type Aged = z.infer<typeof agedSchema>
+
+// ---------------------------------------------------------------- daily report
+
+export const dailyQuerySchema = z.object({
+  /** A day of the yard's calendar; today when not given. */
+  date: z.iso.date({ error: 'Give the day as YYYY-MM-DD.' }).optional(),
+  lang: z.enum(['en', 'es'], { error: 'The language is en or es.' }).default('en'),
+})
+
+const movedSchema = z.object({ vehicleId: z.uuid(), stockNumber: z.string(), vehicle: z.string(), plate: z.string().nullable(), at: z.string() })
+
+/** One yard day: who came in and went out, the money by method, the storage it earned, its drawer. */
+export const dailyReportSchema = z.object({
+  date: z.string(),
+  today: z.string(),
+  timeZone: z.string(),
+  arrivals: z.array(movedSchema.extend({ towReason: z.string().nullable() })),
+  releases: z.array(movedSchema.extend({ disposition: z.string().nullable() })),
+  /** Payments and refunds of the day by method; net = payments − refunds. */
+  payments: z.array(z.object({ method: z.string(), count: z.number().int(), paymentsCents: z.number().int(), refundsCents: z.number().int(), netCents: z.number().int() })),
+  paymentsNetCents: z.number().int(),
+  /** What the lot's bills (storage, the rule set's fees and their tax) grew by over the day. */
+  storageEarnedCents: z.number().int(),
+  storageVehicles: z.number().int(),
+  closeout: z
+    .object({ openingFloatCents: z.number().int(), recordedCents: z.number().int(), expectedCents: z.number().int(), countedCents: z.number().int(), overShortCents: z.number().int(), closedBy: z.string(), closedAt: z.string() })
+    .nullable(),
+  /** Cash recorded in the drawer that day (whether closed or not). */
+  cashRecordedCents: z.number().int(),
+})
+export type DailyReport = z.infer<typeof dailyReportSchema>

@@ -1,6 +1,6 @@
 import { keepPreviousData, useQuery } from '@tanstack/vue-query'
 import { computed, toValue, type MaybeRefOrGetter } from 'vue'
-import { agedSchema, receivablesSchema, type ReceivablesQuery } from '@shared/schemas/reports'
+import { agedSchema, dailyReportSchema, receivablesSchema, type AgedQuery, type ReceivablesQuery } from '@shared/schemas/reports'
 import { request } from './http'
 
 export type ReceivablesFilters = Partial<ReceivablesQuery>
@@ -8,7 +8,8 @@ export type ReceivablesFilters = Partial<ReceivablesQuery>
 export const reportKeys = {
   all: ['reports'] as const,
   receivables: (q: ReceivablesFilters) => [...reportKeys.all, 'receivables', q] as const,
-  aged: () => [...reportKeys.all, 'aged'] as const,
+  aged: (q: AgedQuery) => [...reportKeys.all, 'aged', q] as const,
+  daily: (date: string | undefined) => [...reportKeys.all, 'daily', date ?? 'today'] as const,
 }
 
 /** The query string of a receivables request: only what is set. */
@@ -27,5 +28,13 @@ export const receivablesCsvUrl = (q: ReceivablesFilters) => `/api/reports/receiv
 export const useReceivablesQuery = (q: MaybeRefOrGetter<ReceivablesFilters>) =>
   useQuery({ queryKey: computed(() => reportKeys.receivables(toValue(q))), queryFn: () => fetchReceivables(toValue(q)), placeholderData: keepPreviousData })
 
-export const fetchAged = () => request('GET', '/api/reports/aged', agedSchema)
-export const useAgedQuery = () => useQuery({ queryKey: reportKeys.aged(), queryFn: fetchAged })
+export const fetchAged = (q: AgedQuery) => request('GET', `/api/reports/aged?over=${q.over}&page=${q.page}&pageSize=${q.pageSize}`, agedSchema)
+export const useAgedQuery = (q: MaybeRefOrGetter<AgedQuery>) =>
+  useQuery({ queryKey: computed(() => reportKeys.aged(toValue(q))), queryFn: () => fetchAged(toValue(q)), placeholderData: keepPreviousData })
+
+export const fetchDaily = (date: string | undefined) => request('GET', `/api/reports/daily${date ? `?date=${date}` : ''}`, dailyReportSchema)
+export const useDailyQuery = (date: MaybeRefOrGetter<string | undefined>) =>
+  useQuery({ queryKey: computed(() => reportKeys.daily(toValue(date))), queryFn: () => fetchDaily(toValue(date)) })
+
+/** The day's report as a PDF in the reader's language (the session opens it). */
+export const dailyPdfUrl = (date: string, lang: string) => `/api/reports/daily.pdf?date=${date}&lang=${lang}`
