@@ -144,3 +144,43 @@ export const dailyReportSchema = z.object({
   cashRecordedCents: z.number().int(),
 })
 export type DailyReport = z.infer<typeof dailyReportSchema>
+
+// ---------------------------------------------------------------- monthly salvage inventory (28 CFR 25.56)
+
+/**
+ * What Holdfast counts as "obtained as junk or salvage" (28 CFR 25.56): a vehicle that left the board
+ * closed as a title transfer (signed over to the yard or a salvage buyer), a lien sale or disposal, or
+ * scrapped — the ways a towed vehicle stops being its owner's. The day obtained is the day it closed.
+ */
+export const SALVAGE_DISPOSITIONS = ['title_transferred', 'lien_sale', 'scrapped'] as const
+
+export const salvageQuerySchema = z.object({
+  /** A calendar month of the yard, YYYY-MM; the month before this one when not given (the report is for the prior month). */
+  month: z
+    .string({ error: 'Give the month as YYYY-MM.' })
+    .regex(/^\d{4}-(0[1-9]|1[0-2])$/, { error: 'Give the month as YYYY-MM.' })
+    .optional(),
+  lang: z.enum(['en', 'es'], { error: 'The language is en or es.' }).default('en'),
+})
+
+export const salvageRowSchema = z.object({
+  vehicleId: z.uuid(),
+  stockNumber: z.string(),
+  vin: z.string().nullable(),
+  vehicle: z.string(),
+  /** The yard's calendar day it closed. */
+  obtainedOn: z.string(),
+  /** The registered owner on record, else the owner's name typed at tow-in; null when unknown. */
+  fromWhom: z.string().nullable(),
+  disposition: z.enum(SALVAGE_DISPOSITIONS),
+  /** Crushed (scrapped) or disposed of (sold or transferred). */
+  crushed: z.boolean(),
+  /** Who collected it at the release, when recorded. */
+  toWhom: z.string().nullable(),
+  /** Holdfast records no export flag yet: null means "not recorded", never "no". */
+  forExport: z.boolean().nullable(),
+})
+export type SalvageRow = z.infer<typeof salvageRowSchema>
+
+export const salvageSchema = z.object({ month: z.string(), timeZone: z.string(), rows: z.array(salvageRowSchema) })
+export type Salvage = z.infer<typeof salvageSchema>
