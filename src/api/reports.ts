@@ -1,6 +1,6 @@
 import { keepPreviousData, useQuery } from '@tanstack/vue-query'
 import { computed, toValue, type MaybeRefOrGetter } from 'vue'
-import { agedSchema, dailyReportSchema, receivablesSchema, type AgedQuery, type ReceivablesQuery } from '@shared/schemas/reports'
+import { agedSchema, dailyReportSchema, salvageSchema, receivablesSchema, type AgedQuery, type ReceivablesQuery } from '@shared/schemas/reports'
 import { request } from './http'
 
 export type ReceivablesFilters = Partial<ReceivablesQuery>
@@ -10,6 +10,7 @@ export const reportKeys = {
   receivables: (q: ReceivablesFilters) => [...reportKeys.all, 'receivables', q] as const,
   aged: (q: AgedQuery) => [...reportKeys.all, 'aged', q] as const,
   daily: (date: string | undefined) => [...reportKeys.all, 'daily', date ?? 'today'] as const,
+  salvage: (month: string | undefined) => [...reportKeys.all, 'salvage', month ?? 'last'] as const,
 }
 
 /** The query string of a receivables request: only what is set. */
@@ -38,3 +39,8 @@ export const useDailyQuery = (date: MaybeRefOrGetter<string | undefined>) =>
 
 /** The day's report as a PDF in the reader's language (the session opens it). */
 export const dailyPdfUrl = (date: string, lang: string) => `/api/reports/daily.pdf?date=${date}&lang=${lang}`
+
+export const fetchSalvage = (month: string | undefined) => request('GET', `/api/reports/salvage${month ? `?month=${month}` : ''}`, salvageSchema)
+export const useSalvageQuery = (month: MaybeRefOrGetter<string | undefined>) =>
+  useQuery({ queryKey: computed(() => reportKeys.salvage(toValue(month))), queryFn: () => fetchSalvage(toValue(month)) })
+export const salvageCsvUrl = (month: string) => `/api/reports/salvage.csv?month=${month}`

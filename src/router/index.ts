@@ -38,6 +38,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/reports', redirect: '/reports/receivables' },
   { path: '/reports/receivables', name: 'receivables', component: () => import('@/views/ReceivablesView.vue'), meta: { permission: 'reports', nav: 'reports.nav', title: 'reports.receivables.title' } },
   { path: '/reports/aged', name: 'aged', component: () => import('@/views/AgedInventoryView.vue'), meta: { permission: 'reports', title: 'reports.aged.title' } },
+  { path: '/reports/salvage', name: 'salvage', component: () => import('@/views/SalvageInventoryView.vue'), meta: { permission: 'reports', title: 'reports.salvage.title' } },
   { path: '/reports/daily', name: 'daily', component: () => import('@/views/DailyReportView.vue'), meta: { permission: 'reports', title: 'reports.daily.title' } },
   // The gate's phone: a pass scanned or typed; /g/<token> is where a pass's QR leads a phone's own camera.
   { path: '/gate', name: 'gate', component: () => import('@/views/GateView.vue'), meta: { permission: 'release.write', nav: 'shell.nav.gate', title: 'shell.titles.gate' } },
