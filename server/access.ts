@@ -115,6 +115,15 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/outbox/:messageId': 'outbox',
   'GET /api/outbox/:messageId/attachments/:attachmentId': 'outbox',
   'POST /api/outbox/:messageId/retry': 'outbox',
+  // Issue 12: each person's Today page (what it lists follows the role); the office's reports; the manager's yard at a glance.
+  'GET /api/today': 'board.view',
+  'GET /api/reports/receivables': 'reports',
+  'GET /api/reports/receivables.csv': 'reports',
+  'GET /api/reports/aged': 'reports',
+  'GET /api/reports/daily': 'reports',
+  'GET /api/reports/daily.pdf': 'reports',
+  'GET /api/reports/salvage': 'reports',
+  'GET /api/reports/salvage.csv': 'reports',
   'GET /api/deadlines': 'deadlines',
   'GET /api/deadlines.ics': 'deadlines',
   // Each person's own calendar feed: only ever their own (the routes read the session's user).

@@ -28,6 +28,8 @@ import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, pub
 import { quotesRouter } from './quotes/index'
 import { gateRouter, releasesRouter } from './releases/index'
 import { ruleSetsRouter } from './rule-sets/index'
+import { todayRouter } from './today/index'
+import { reportsRouter } from './reports/index'
 import { healthRouter } from './health/index'
 import { logSerializers, safeLogger } from './logging'
 import { type LiveBus, memoryBus } from './live/index'
@@ -150,6 +152,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/map', mapRouter(db, map))
   app.use('/api/vin-decode', vinDecodeRouter())
   app.use('/api/outbox', outboxRouter({ db, files, kick: deps.kickOutbox }))
+  app.use('/api/today', todayRouter(db))
+  app.use('/api/reports', reportsRouter(db, hub))
   app.use('/api', deadlinesRouter(db, deps.publicUrl))
   // Public: the owner's page (its key checked by every route) and "is my vehicle here?".
   const throttle = publicThrottle(db, deps.publicLimits ?? DEFAULT_PUBLIC_LIMITS)

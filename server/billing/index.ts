@@ -1,2 +1,3 @@
 export { cashDrawerRouter, vehicleBillingRouter } from './billing.routes'
 export { moneyTotals, type MoneyTotals } from './billing.queries'
+export { drawerOf } from './closeout.service'

@@ -10,12 +10,16 @@ export const DEMO = {
 
 export type DemoRole = 'manager' | 'dispatcher' | 'technician' | 'office'
 
-export async function signInAs(page: Page, role: DemoRole) {
-  await page.goto('/sign-in')
+/**
+ * Signs in and opens `landing` (the board unless said otherwise). Without it the office and managers
+ * land on Today and the others on the board; tests/e2e/today.spec.ts checks that landing itself.
+ */
+export async function signInAs(page: Page, role: DemoRole, landing = '/board') {
+  await page.goto(`/sign-in?next=${encodeURIComponent(landing)}`)
   await page.getByLabel('E-mail').fill(DEMO[role])
   await page.getByLabel('Password', { exact: true }).fill(DEMO.password)
   await page.getByRole('button', { name: 'Sign in' }).click()
-  await expect(page).toHaveURL(/\/board/)
+  await expect(page).toHaveURL(new RegExp(`${landing}$`))
 }
 
 /** Fails the test on any console error or failed request the page makes. */

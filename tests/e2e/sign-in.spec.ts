@@ -2,10 +2,10 @@ import { expect, test } from '@playwright/test'
 import { DEMO, openMenu, signInAs, watchConsole, type DemoRole } from './helpers'
 
 const NAV: Record<DemoRole, string[]> = {
-  manager: ['Board', 'Archive', 'Log a tow-in', 'Cash drawer', 'Deadlines', 'Gate', 'Outbox', 'Staff'],
-  dispatcher: ['Board', 'Archive', 'Log a tow-in'],
-  technician: ['Board', 'Archive'],
-  office: ['Board', 'Archive', 'Cash drawer', 'Deadlines', 'Gate', 'Outbox'],
+  manager: ['Today', 'Board', 'Archive', 'Log a tow-in', 'Cash drawer', 'Deadlines', 'Reports', 'Gate', 'Outbox', 'Staff'],
+  dispatcher: ['Today', 'Board', 'Archive', 'Log a tow-in'],
+  technician: ['Today', 'Board', 'Archive'],
+  office: ['Today', 'Board', 'Archive', 'Cash drawer', 'Deadlines', 'Reports', 'Gate', 'Outbox'],
 }
 
 for (const role of Object.keys(NAV) as DemoRole[]) {
