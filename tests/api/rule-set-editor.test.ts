@@ -52,6 +52,11 @@ describe('rule-set versions', () => {
 
     expect(await storageRate(m, old)).toBe(v1Rate)
     expect(await storageRate(m, fresh)).toBe(7_700)
+    // The "sample — set your rate" note goes once the yard's own rule set sets the rate, and stays on the old bill.
+    const warnings = async (id: string) => (await m.get(`/api/vehicles/${id}/invoice`).expect(200)).body.invoice.warnings as string[]
+    const note = 'Passenger car or light truck storage: the amount is a sample — set your rate.'
+    expect(await warnings(old)).toContain(note)
+    expect(await warnings(fresh)).not.toContain(note)
     const [towedIn] = await historyOf(app.db, fresh)
     expect(towedIn).toMatchObject({ kind: 'towed_in', after: expect.objectContaining({ ruleSet: 'Our Fresno rates', ruleSetVersion: 2 }) })
   })
