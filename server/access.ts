@@ -35,6 +35,15 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/rule-sets/:id/holidays': 'board.view',
   'POST /api/quotes/storage': 'board.view',
   'POST /api/quotes/clocks': 'board.view',
+  // Settings (issue 12): managers edit rule sets, choose the yard's, and read the settings audit.
+  'GET /api/settings/rule-sets': 'admin',
+  'GET /api/settings/rule-sets/:id': 'admin',
+  'POST /api/settings/rule-sets/:id/copy': 'admin',
+  'PUT /api/settings/rule-sets/:id': 'admin',
+  'GET /api/settings/rule-sets/:id/older-vehicles': 'admin',
+  'PUT /api/settings/yard-rule-set': 'admin',
+  'GET /api/settings/audit': 'admin',
+  'POST /api/vehicles/:vehicleId/rule-set-version': 'admin',
 
   // Named paths before '/:id', which would match them too.
   'GET /api/vehicles/intake-options': 'towin.write',

@@ -40,6 +40,8 @@ import { usersRouter } from './users/index'
 import { type VehicleChanges, vehiclesRouter } from './vehicles/index'
 import { vinDecodeRouter } from './vin-decode/index'
 import { yardsRouter } from './yards/index'
+import { settingsRouter, vehicleRuleSetRouter } from './settings/index'
+import { settingsAuditRouter } from './settings-audit/index'
 
 export interface AppDeps {
   db: Database
@@ -132,6 +134,9 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/inspection', inspectionsRouter(changes, files))
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
+  app.use('/api/settings/audit', settingsAuditRouter(db))
+  app.use('/api/settings', settingsRouter(db))
+  app.use('/api/vehicles/:vehicleId/rule-set-version', vehicleRuleSetRouter(changes))
   app.use('/api/vehicles/:vehicleId/owner-links', ownerLinksRouter(changes, deps.ownerLinkDays ?? 30))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
   app.use('/api/vehicles/:vehicleId/police-notice', policeNoticeRouter(changes))

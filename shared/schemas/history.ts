@@ -45,6 +45,7 @@ export const HISTORY_KINDS = [
   'release_photos_added',
   'release_signed',
   'gate_pass_issued',
+  'rule_set_changed',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -113,4 +114,5 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   release_photos_added: 'Photos at release',
   release_signed: 'Release signed',
   gate_pass_issued: 'Gate pass issued',
+  rule_set_changed: 'Moved to a new rule-set version',
 }

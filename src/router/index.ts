@@ -47,6 +47,9 @@ export const routes: RouteRecordRaw[] = [
   // The owner's page (no account): its key is a link's token or the short code from a letter.
   { path: '/o', name: 'owner-start', component: () => import('@/views/OwnerStartView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
   { path: '/o/:key', name: 'owner', component: () => import('@/views/OwnerView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
+  { path: '/settings', name: 'settings', component: () => import('@/views/SettingsView.vue'), meta: { permission: 'admin', nav: 'settings.nav', title: 'settings.title' } },
+  { path: '/settings/rule-sets/:ruleSetId', name: 'settings-rule-set', component: () => import('@/views/RuleSetEditorView.vue'), meta: { permission: 'admin', title: 'settings.ruleSets.title' } },
+  { path: '/settings/audit', name: 'settings-audit', component: () => import('@/views/SettingsAuditView.vue'), meta: { permission: 'admin', title: 'settings.audit.title' } },
   { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'shell.nav.users', title: 'shell.titles.users' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'shell.titles.notFound' } },
 ]
