@@ -1,2 +1,5 @@
 export { cashDrawerRouter, vehicleBillingRouter } from './billing.routes'
 export { moneyTotals, type MoneyTotals } from './billing.queries'
+export { invoiceOf } from './invoice.service'
+export { queueReceipt, type ReceiptMail } from './receipt-mail'
+export { paymentRecord, OWNER_ONLINE } from './billing.queries'

@@ -3,6 +3,7 @@ import { ownerDecisionInputSchema, ownerFileParamsSchema, ownerKeyParamsSchema, 
 import { AppError, notFound } from '../errors'
 import { sendVehicleFile, type FileStore } from '../files/index'
 import type { MapConfig } from '../map/index'
+import { startOwnerCheckout, type CardPaymentDeps } from '../card-payments/index'
 import type { VehicleChanges } from '../vehicles/index'
 import { readKey } from './owner-keys'
 import { linkByHash, linkStatus, type OwnerLinkRow } from './owner.queries'
@@ -15,6 +16,8 @@ export interface OwnerRouterDeps {
   files: FileStore
   map: MapConfig
   throttle: PublicThrottle
+  /** "Pay by card": the hosted card page (server/card-payments/). */
+  cardPayments: CardPaymentDeps
 }
 
 const GONE = {
@@ -27,7 +30,7 @@ const GONE = {
  * code) is the only credential and reaches one vehicle. Every route finds the link first; a wrong,
  * expired or withdrawn key counts against the address's tries (public-throttle.ts).
  */
-export function ownerRouter({ changes, files, map, throttle }: OwnerRouterDeps): Router {
+export function ownerRouter({ changes, files, map, throttle, cardPayments }: OwnerRouterDeps): Router {
   const { db } = changes
   const router = Router()
 
@@ -66,6 +69,13 @@ export function ownerRouter({ changes, files, map, throttle }: OwnerRouterDeps):
     const input = ownerDecisionInputSchema.parse(req.body)
     await recordDecision(changes, link, input, { ip: req.ip ?? '', userAgent: req.get('user-agent') ?? null })
     res.status(201).json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt))
+  })
+
+  // What is due, paid on the payment service's hosted page; recorded only by its signed webhook.
+  router.post('/:key/card-checkout', async (req, res) => {
+    const { link } = await linkOf(req, res)
+    const checkout = await startOwnerCheckout(cardPayments, req, link, req.body)
+    res.status(checkout.replayed ? 200 : 201).json({ checkout })
   })
 
   const photo = (thumb: boolean) => async (req: Request, res: Response) => {
