@@ -55,7 +55,7 @@ export function ownerRouter({ changes, files, map, throttle, cardPayments }: Own
 
   router.get('/:key', async (req, res) => {
     const { link, key } = await linkOf(req, res)
-    res.json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt))
+    res.json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt, new Date(), !!cardPayments.cards))
   })
 
   router.get('/:key/quote', async (req, res) => {
@@ -68,7 +68,7 @@ export function ownerRouter({ changes, files, map, throttle, cardPayments }: Own
     const { link, key } = await linkOf(req, res)
     const input = ownerDecisionInputSchema.parse(req.body)
     await recordDecision(changes, link, input, { ip: req.ip ?? '', userAgent: req.get('user-agent') ?? null })
-    res.status(201).json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt))
+    res.status(201).json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt, new Date(), !!cardPayments.cards))
   })
 
   // What is due, paid on the payment service's hosted page; recorded only by its signed webhook.

@@ -171,6 +171,18 @@ export const ownerPageSchema = z.object({
     })
     .nullable(),
   bill: ownerQuoteSchema.nullable(),
+  /** What was paid and what is still due, by the counter's own invoice (payments and approved waivers subtracted). */
+  money: z
+    .object({
+      totalCents: z.number(),
+      paidCents: z.number(),
+      creditedCents: z.number(),
+      dueCents: z.number(),
+      /** The vehicle is still here and something is due: the owner may pay it by card. */
+      canPayByCard: z.boolean(),
+    })
+    .nullable()
+    .default(null),
   deadlines: z.array(ownerDeadlineSchema),
   caution: z.string().nullable(),
   decision: ownerDecisionRecordSchema.omit({ ip: true, id: true }).nullable(),

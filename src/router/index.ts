@@ -38,6 +38,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { permission: 'outbox', nav: 'shell.nav.outbox', title: 'shell.titles.outbox' } },
   // The owner's page (no account): its key is a link's token or the short code from a letter.
   { path: '/o', name: 'owner-start', component: () => import('@/views/OwnerStartView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
+  { path: '/o/payment-return', name: 'owner-payment-return', component: () => import('@/views/OwnerPaymentReturnView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
   { path: '/o/:key', name: 'owner', component: () => import('@/views/OwnerView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
   { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'shell.nav.users', title: 'shell.titles.users' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'shell.titles.notFound' } },

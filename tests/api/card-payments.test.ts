@@ -261,6 +261,7 @@ describe("the owner's page pays by card", () => {
     const b = await billedVehicle(app.db, staff.yard.id)
     const dueB = (await office.get(`/api/vehicles/${b.id}/invoice`)).body.invoice.dueCents
     const { owner, token } = await ownerOf(v.id, office)
+    expect((await owner.get(`/api/owner/${token}`).expect(200)).body.money).toEqual({ totalCents: due, paidCents: 0, creditedCents: 0, dueCents: due, canPayByCard: true })
     // The body cannot name another vehicle or an amount: the link decides both.
     const res = await owner.post(`/api/owner/${token}/card-checkout`, { idempotencyKey: key(), vehicleId: b.id, amountCents: 100 })
     expect(res.status).toBe(201)
@@ -270,6 +271,8 @@ describe("the owner's page pays by card", () => {
     expect(back.location).not.toContain(token)
 
     expect((await office.get(`/api/vehicles/${v.id}/invoice`)).body.invoice).toMatchObject({ paidCents: due, dueCents: 0 })
+    // The owner's page says the same as the counter's invoice.
+    expect((await owner.get(`/api/owner/${token}`).expect(200)).body.money).toEqual({ totalCents: due, paidCents: due, creditedCents: 0, dueCents: 0, canPayByCard: false })
     expect((await office.get(`/api/vehicles/${b.id}/invoice`)).body.invoice).toMatchObject({ paidCents: 0, dueCents: dueB })
     const [event] = (await historyOf(app.db, v.id)).filter((e) => e.kind === 'payment_taken')
     expect(event).toMatchObject({ actorId: null, actorLabel: 'Owner, online (card)' })
