@@ -266,7 +266,7 @@ const escape = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)}
 
 function page(res: Response, s: FakeSession | undefined, problem?: 'declined' | 'unknown') {
   const w = WORDS[s?.locale === 'es' ? 'es' : 'en']
-  res.set('Content-Security-Policy', "default-src 'none'; style-src 'unsafe-inline'; form-action 'self' http: https:; frame-ancestors 'none'")
+  res.set('Content-Security-Policy', "default-src 'none'; img-src data:; style-src 'unsafe-inline'; form-action 'self' http: https:; frame-ancestors 'none'")
   res.set('Cache-Control', 'no-store')
   const amount = s ? `$${(s.amount_total / 100).toFixed(2)}` : ''
   const open = s?.status === 'open'
