@@ -135,6 +135,7 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/owner/:key/quote': 'public',
   'POST /api/owner/:key/decision': 'public',
   'POST /api/owner/:key/card-checkout': 'public',
+  'POST /api/owner/:key/release-signature': 'public',
   'GET /api/owner/:key/files/:fileId': 'public',
   'GET /api/owner/:key/files/:fileId/thumb': 'public',
   // Public, rate-limited per address: whether a yard here holds a plate + VIN tail, where, what is owed.

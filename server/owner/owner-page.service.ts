@@ -13,6 +13,7 @@ import { latestVersionOf } from '../rule-sets/index'
 import { vehicleById, type VehicleRow, type YardRow } from '../vehicles/index'
 import { checklistItem } from '@shared/domain/inspection'
 import { invoiceOf } from '../billing/index'
+import { ownerRelease } from '../releases/index'
 import { decisionsOf } from './owner.queries'
 
 /** How far ahead the owner may ask what collecting would cost. */
@@ -79,6 +80,7 @@ export async function ownerPage(db: Database, vehicleId: string, key: string, ma
     },
     bill: await quoteAt(db, v, yard, now, isoDate(localDay(yard.timeZone, now.getTime())), false),
     money: await moneyOf(db, v, yard, now, cardsReady),
+    release: await ownerRelease(db, v.id, v.state),
     deadlines: billRuleSet ? deadlinesOf(v, billRuleSet, yard, now) : [],
     caution: billRuleSet?.caution ?? null,
     decision: decision ? { choice: decision.choice, signOverTo: decision.signOverTo, fullName: decision.fullName, phone: decision.phone, note: decision.note, at: decision.at } : null,

@@ -4,6 +4,8 @@ import { AppError, notFound } from '../errors'
 import { sendVehicleFile, type FileStore } from '../files/index'
 import type { MapConfig } from '../map/index'
 import { startOwnerCheckout, type CardPaymentDeps } from '../card-payments/index'
+import { signReleaseAsOwner } from '../releases/index'
+import { signatureInputSchema } from '@shared/schemas/releases'
 import type { VehicleChanges } from '../vehicles/index'
 import { readKey } from './owner-keys'
 import { linkByHash, linkStatus, type OwnerLinkRow } from './owner.queries'
@@ -76,6 +78,13 @@ export function ownerRouter({ changes, files, map, throttle, cardPayments }: Own
     const { link } = await linkOf(req, res)
     const checkout = await startOwnerCheckout(cardPayments, req, link, req.body)
     res.status(checkout.replayed ? 200 : 201).json({ checkout })
+  })
+
+  // The release signed from the owner's page, where the counter's rules allow it (server/releases/owner-signature.service.ts).
+  router.post('/:key/release-signature', async (req, res) => {
+    const { link, key } = await linkOf(req, res)
+    await signReleaseAsOwner(changes, files, link, signatureInputSchema.parse(req.body), { ip: req.ip ?? '' })
+    res.status(201).json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt, new Date(), !!cardPayments.cards))
   })
 
   const photo = (thumb: boolean) => async (req: Request, res: Response) => {
