@@ -8,8 +8,11 @@ import {
   type CardCheckoutInput,
   type OwnerCardCheckoutInput,
 } from '@shared/schemas/card-payments'
+import { ownerPageSchema } from '@shared/schemas/owner'
+import { signatureInputSchema, type SignatureInput } from '@shared/schemas/releases'
 import { billingKeys } from './billing'
 import { request } from './http'
+import { ownerKeys } from './owner'
 import { vehicleChanged } from './vehicles'
 
 export const cardPaymentKeys = {
@@ -84,3 +87,11 @@ export function takeOwnerReturnKey(): string | null {
   return key
 }
 
+
+/** The owner signs the release from their page; the answer is the whole page again, which replaces the cached one. */
+export function useOwnerReleaseSignatureMutation(key: MaybeRefOrGetter<string>) {
+  return useMutation({
+    mutationFn: (input: SignatureInput) => request('POST', `/api/owner/${encodeURIComponent(toValue(key))}/release-signature`, ownerPageSchema, signatureInputSchema.parse(input)),
+    onSuccess: (page, _input, _context, { client }) => client.setQueryData(ownerKeys.page(toValue(key)), page),
+  })
+}
