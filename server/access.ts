@@ -99,6 +99,12 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles/:vehicleId/adjustments': 'charges.waive',
   'POST /api/vehicles/:vehicleId/adjustments/:adjustmentId/approve': 'charges.waive',
   'POST /api/vehicles/:vehicleId/adjustments/:adjustmentId/decline': 'charges.waive',
+  // Card payments on the payment service's hosted page (issue 11): opened by the counter, recorded by its webhook.
+  'POST /api/vehicles/:vehicleId/card-checkouts': 'billing.write',
+  'GET /api/vehicles/:vehicleId/card-checkouts/:checkoutId': 'billing.write',
+  'POST /api/vehicles/:vehicleId/card-checkouts/:checkoutId/expire': 'billing.write',
+  // Public with the service's signature as its guard (checked on the raw body, server/card-payments/).
+  'POST /api/card-payments/webhook': 'public',
   'GET /api/cash-drawer': 'billing.write',
   'POST /api/cash-drawer/closeout': 'billing.write',
   'GET /api/vehicles/:vehicleId/documents/pickup-ticket': 'release.write',
@@ -146,6 +152,8 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/owner/:key': 'public',
   'GET /api/owner/:key/quote': 'public',
   'POST /api/owner/:key/decision': 'public',
+  'POST /api/owner/:key/card-checkout': 'public',
+  'POST /api/owner/:key/release-signature': 'public',
   'GET /api/owner/:key/files/:fileId': 'public',
   'GET /api/owner/:key/files/:fileId/thumb': 'public',
   // Public, rate-limited per address: whether a yard here holds a plate + VIN tail, where, what is owed.

@@ -13,6 +13,7 @@ import { archiveRouter } from './archive/index'
 import { deadlinesRouter } from './deadlines/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
 import { cashDrawerRouter, vehicleBillingRouter } from './billing/index'
+import { cardCheckoutsRouter, cardWebhookRouter, type CardPayments } from './card-payments/index'
 import { contactsRouter, recordsRequestsRouter } from './contacts/index'
 import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
@@ -74,6 +75,8 @@ export interface AppDeps {
   ownerLinkDays?: number
   /** Tries per address on the public pages a stranger could guess at: owner codes, the vehicle lookup. */
   publicLimits?: PublicLimits
+  /** The card payment service's SDK client and webhook secret (the local fake by default); absent, card pages answer 503. */
+  cardPayments?: CardPayments
 }
 
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
@@ -109,6 +112,10 @@ export function createApp(deps: AppDeps): Express {
     }),
   )
   app.use(pinoHttp({ logger: log, serializers: logSerializers, autoLogging: { ignore: (req) => req.url === '/api/health' } }))
+  const cards = { changes, cards: deps.cardPayments, mail: { kick: deps.kickOutbox }, publicUrl: deps.publicUrl }
+  // The payment service's webhook: its raw bytes are what the signature covers, so it comes before the
+  // JSON parser; no session and no CSRF token (the signature is its guard), but still the access table.
+  app.use('/api/card-payments/webhook', enforceAccess, cardWebhookRouter(cards))
   app.use(express.json({ limit: '1mb' }))
   app.use('/api', refuseNulCharacters)
   app.use('/api', sessionMiddleware(db, deps.sessionSecret, deps.https ?? false))
@@ -147,6 +154,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))
+  app.use('/api/vehicles/:vehicleId/card-checkouts', cardCheckoutsRouter(cards))
   app.use('/api/vehicles/:vehicleId', vehicleBillingRouter(changes, { kick: deps.kickOutbox }))
   app.use('/api/cash-drawer', cashDrawerRouter(db))
   app.use('/api/vehicles/:vehicleId/release', releasesRouter({ changes, files, publicUrl: deps.publicUrl }))
@@ -162,7 +170,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', deadlinesRouter(db, deps.publicUrl))
   // Public: the owner's page (its key checked by every route) and "is my vehicle here?".
   const throttle = publicThrottle(db, deps.publicLimits ?? DEFAULT_PUBLIC_LIMITS)
-  app.use('/api/owner', ownerRouter({ changes, files, map, throttle }))
+  app.use('/api/owner', ownerRouter({ changes, files, map, throttle, cardPayments: cards }))
   app.use('/api/vehicle-lookup', lookupRouter(db, throttle))
   if (usesLocalFakes(map)) app.use('/api/fakes', fakesRouter())
   app.use('/api', notFoundHandler)

@@ -1,3 +1,6 @@
 export { cashDrawerRouter, vehicleBillingRouter } from './billing.routes'
 export { moneyTotals, type MoneyTotals } from './billing.queries'
 export { drawerOf } from './closeout.service'
+export { invoiceOf } from './invoice.service'
+export { queueReceipt, type ReceiptMail } from './receipt-mail'
+export { paymentRecord, OWNER_ONLINE } from './billing.queries'

@@ -46,6 +46,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { permission: 'outbox', nav: 'shell.nav.outbox', title: 'shell.titles.outbox' } },
   // The owner's page (no account): its key is a link's token or the short code from a letter.
   { path: '/o', name: 'owner-start', component: () => import('@/views/OwnerStartView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
+  { path: '/o/payment-return', name: 'owner-payment-return', component: () => import('@/views/OwnerPaymentReturnView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
   { path: '/o/:key', name: 'owner', component: () => import('@/views/OwnerView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
   { path: '/settings', name: 'settings', component: () => import('@/views/SettingsView.vue'), meta: { permission: 'admin', nav: 'settings.nav', title: 'settings.title' } },
   { path: '/settings/rule-sets/:ruleSetId', name: 'settings-rule-set', component: () => import('@/views/RuleSetEditorView.vue'), meta: { permission: 'admin', title: 'settings.ruleSets.title' } },
