@@ -1,1 +1,2 @@
 export { gateRouter, releasesRouter, type ReleaseDeps } from './releases.routes'
+export { signatureImage } from './signature'

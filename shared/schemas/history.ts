@@ -45,6 +45,8 @@ export const HISTORY_KINDS = [
   'release_photos_added',
   'release_signed',
   'gate_pass_issued',
+  'transfer_recorded',
+  'transfer_signed',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -113,4 +115,6 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   release_photos_added: 'Photos at release',
   release_signed: 'Release signed',
   gate_pass_issued: 'Gate pass issued',
+  transfer_recorded: 'Title transfer recorded',
+  transfer_signed: 'Title transfer signed',
 }
