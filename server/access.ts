@@ -107,6 +107,11 @@ export const ACCESS: Record<string, Rule> = {
   'PUT /api/vehicles/:vehicleId/transfer': 'release.write',
   'POST /api/vehicles/:vehicleId/transfer/signature': 'release.write',
   'GET /api/vehicles/:vehicleId/transfer/packet': 'release.write',
+  // The lien sale's newspaper publication (issue 10): the office's notices.
+  'GET /api/vehicles/:vehicleId/publications': 'owner.write',
+  'POST /api/vehicles/:vehicleId/publications': 'owner.write',
+  'GET /api/vehicles/:vehicleId/publications/text': 'owner.write',
+  'POST /api/vehicles/:vehicleId/publications/:publicationId/proof': 'owner.write',
   // The gate's phone: a pass (in the body, never the path) reaches one vehicle's record-out, once.
   'POST /api/gate/check': 'release.write',
   'POST /api/gate/record-out': 'release.write',

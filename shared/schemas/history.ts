@@ -47,6 +47,8 @@ export const HISTORY_KINDS = [
   'gate_pass_issued',
   'transfer_recorded',
   'transfer_signed',
+  'publication_recorded',
+  'publication_proof_added',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -117,4 +119,6 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   gate_pass_issued: 'Gate pass issued',
   transfer_recorded: 'Title transfer recorded',
   transfer_signed: 'Title transfer signed',
+  publication_recorded: 'Newspaper publication recorded',
+  publication_proof_added: 'Proof of publication added',
 }
