@@ -117,6 +117,16 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles/:vehicleId/release/signature': 'release.write',
   'GET /api/vehicles/:vehicleId/release/form': 'release.write',
   'POST /api/vehicles/:vehicleId/release/gate-pass': 'release.write',
+  // Title transfer (issue 11): a sign-over or a lien sale, its bill of sale, signature and packet.
+  'GET /api/vehicles/:vehicleId/transfer': 'release.write',
+  'PUT /api/vehicles/:vehicleId/transfer': 'release.write',
+  'POST /api/vehicles/:vehicleId/transfer/signature': 'release.write',
+  'GET /api/vehicles/:vehicleId/transfer/packet': 'release.write',
+  // The lien sale's newspaper publication (issue 10): the office's notices.
+  'GET /api/vehicles/:vehicleId/publications': 'owner.write',
+  'POST /api/vehicles/:vehicleId/publications': 'owner.write',
+  'GET /api/vehicles/:vehicleId/publications/text': 'owner.write',
+  'POST /api/vehicles/:vehicleId/publications/:publicationId/proof': 'owner.write',
   // The gate's phone: a pass (in the body, never the path) reaches one vehicle's record-out, once.
   'POST /api/gate/check': 'release.write',
   'POST /api/gate/record-out': 'release.write',

@@ -28,6 +28,8 @@ import { policeNoticeRouter } from './police-notices/index'
 import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, publicThrottle, type PublicLimits } from './owner/index'
 import { quotesRouter } from './quotes/index'
 import { gateRouter, releasesRouter } from './releases/index'
+import { transfersRouter } from './transfers/index'
+import { publicationsRouter } from './publications/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { todayRouter } from './today/index'
 import { reportsRouter } from './reports/index'
@@ -158,6 +160,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId', vehicleBillingRouter(changes, { kick: deps.kickOutbox }))
   app.use('/api/cash-drawer', cashDrawerRouter(db))
   app.use('/api/vehicles/:vehicleId/release', releasesRouter({ changes, files, publicUrl: deps.publicUrl }))
+  app.use('/api/vehicles/:vehicleId/transfer', transfersRouter({ changes, files }))
+  app.use('/api/vehicles/:vehicleId/publications', publicationsRouter({ changes, files }))
   app.use('/api/gate', gateRouter(changes))
   app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))

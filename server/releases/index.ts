@@ -1,2 +1,3 @@
 export { gateRouter, releasesRouter, type ReleaseDeps } from './releases.routes'
 export { ownerRelease, signReleaseAsOwner } from './owner-signature.service'
+export { signatureImage } from './signature'
