@@ -15,6 +15,8 @@ declare module 'vue-router' {
     permission?: Permission
     /** Shown in the top bar's navigation with this label (a catalog key). */
     nav?: string
+    /** A page visited now and then (records, administration): at a desk it sits in the menu with the person, not in the bar. */
+    navMore?: boolean
     /** The page's title (a catalog key). */
     title?: string
     /** Starts the page's data loading as soon as the route is allowed. */
@@ -28,7 +30,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { public: true, title: 'signIn.pageTitle' } },
   { path: '/today', name: 'today', component: () => import('@/views/TodayView.vue'), meta: { permission: 'board.view', nav: 'today.nav', title: 'today.pageTitle' } },
   { path: '/board', name: 'board', component: () => import('@/views/BoardView.vue'), meta: { permission: 'board.view', nav: 'shell.nav.board', title: 'shell.titles.board', prefetch: prefetchBoard } },
-  { path: '/archive', name: 'archive', component: () => import('@/views/ArchiveView.vue'), meta: { permission: 'board.view', nav: 'shell.nav.archive', title: 'shell.titles.archive' } },
+  { path: '/archive', name: 'archive', component: () => import('@/views/ArchiveView.vue'), meta: { navMore: true, permission: 'board.view', nav: 'shell.nav.archive', title: 'shell.titles.archive' } },
   { path: '/tow-in', name: 'tow-in', component: () => import('@/views/TowInView.vue'), meta: { permission: 'towin.write', nav: 'shell.nav.towIn', title: 'shell.titles.towIn' } },
   { path: '/vehicles/:vehicleId', name: 'vehicle', component: () => import('@/views/VehicleView.vue'), meta: { permission: 'board.view', title: 'shell.titles.vehicle' } },
   { path: '/vehicles/:vehicleId/inspection', name: 'inspection', component: () => import('@/views/InspectionView.vue'), meta: { permission: 'board.view', title: 'shell.titles.inspection' } },
@@ -43,15 +45,15 @@ export const routes: RouteRecordRaw[] = [
   // The gate's phone: a pass scanned or typed; /g/<token> is where a pass's QR leads a phone's own camera.
   { path: '/gate', name: 'gate', component: () => import('@/views/GateView.vue'), meta: { permission: 'release.write', nav: 'shell.nav.gate', title: 'shell.titles.gate' } },
   { path: '/g/:token', name: 'gate-pass', component: () => import('@/views/GateView.vue'), meta: { permission: 'release.write', title: 'shell.titles.gate' } },
-  { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { permission: 'outbox', nav: 'shell.nav.outbox', title: 'shell.titles.outbox' } },
+  { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { navMore: true, permission: 'outbox', nav: 'shell.nav.outbox', title: 'shell.titles.outbox' } },
   // The owner's page (no account): its key is a link's token or the short code from a letter.
   { path: '/o', name: 'owner-start', component: () => import('@/views/OwnerStartView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
   { path: '/o/payment-return', name: 'owner-payment-return', component: () => import('@/views/OwnerPaymentReturnView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
   { path: '/o/:key', name: 'owner', component: () => import('@/views/OwnerView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
-  { path: '/settings', name: 'settings', component: () => import('@/views/SettingsView.vue'), meta: { permission: 'admin', nav: 'settings.nav', title: 'settings.title' } },
+  { path: '/settings', name: 'settings', component: () => import('@/views/SettingsView.vue'), meta: { navMore: true, permission: 'admin', nav: 'settings.nav', title: 'settings.title' } },
   { path: '/settings/rule-sets/:ruleSetId', name: 'settings-rule-set', component: () => import('@/views/RuleSetEditorView.vue'), meta: { permission: 'admin', title: 'settings.ruleSets.title' } },
   { path: '/settings/audit', name: 'settings-audit', component: () => import('@/views/SettingsAuditView.vue'), meta: { permission: 'admin', title: 'settings.audit.title' } },
-  { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { permission: 'admin', nav: 'shell.nav.users', title: 'shell.titles.users' } },
+  { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { navMore: true, permission: 'admin', nav: 'shell.nav.users', title: 'shell.titles.users' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'shell.titles.notFound' } },
 ]
 

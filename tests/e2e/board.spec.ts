@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test'
 import { dragCard, dragVia } from './drag'
-import { signInAs, watchConsole } from './helpers'
+import { navLink, signInAs, watchConsole } from './helpers'
 
 const inColumn = (page: Page, column: string, text: string) => page.locator(`[data-column="${column}"] [data-stock]`).filter({ hasText: text })
 const notice = (page: Page) => page.getByTestId('board-notice')
@@ -130,7 +130,7 @@ test('filters live in the address and survive a reload', async ({ page }) => {
 
 test('closed vehicles are in the archive with how they left, and can be searched', async ({ page }) => {
   await signInAs(page, 'office')
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Archive' }).click()
+  await (await navLink(page, 'Archive')).click()
   const rows = page.locator('.el-table__body tr')
   await expect(rows.first()).toBeVisible()
   const first = (await rows.first().innerText()).split('\n')

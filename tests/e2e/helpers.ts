@@ -44,6 +44,18 @@ export async function mainNav(page: Page, name = 'Main') {
   return nav
 }
 
+/**
+ * A page's link in the top bar, wherever this width puts it: the everyday pages in the main navigation,
+ * the others ("More pages") in the menu at a desk; on a phone both are in the menu.
+ */
+export async function navLink(page: Page, name: string) {
+  await mainNav(page)
+  const link = page.getByRole('navigation', { name: /^(Main|More pages)$/ }).getByRole('link', { name, exact: true })
+  if (!(await link.isVisible())) await openMenu(page)
+  await expect(link).toBeVisible()
+  return link
+}
+
 /** Opens the top bar's menu where the bar has one (a desk: the person and sign-out; a phone: everything). */
 export async function openMenu(page: Page) {
   const menu = page.locator('button[aria-controls="top-bar-panel"]')

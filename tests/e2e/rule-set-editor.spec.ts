@@ -1,5 +1,5 @@
 import { expect, test, type APIRequestContext } from '@playwright/test'
-import { mainNav, signInAs, watchConsole } from './helpers'
+import { navLink, signInAs, watchConsole } from './helpers'
 import { freshVin } from '../helpers/vins'
 
 type Line = { code: string; unitCents: number }
@@ -41,7 +41,7 @@ test('the manager copies a sample rule set, changes the daily rate with a live p
   test.slow()
   const problems = watchConsole(page)
   await signInAs(page, 'manager')
-  await (await mainNav(page)).getByRole('link', { name: 'Settings' }).click()
+  await (await navLink(page, 'Settings')).click()
   await expect(page.getByRole('heading', { name: 'Settings', exact: true })).toBeVisible()
   await expect(page.getByText('Every value here is a sample until you set your own')).toBeVisible()
 
@@ -117,7 +117,7 @@ test('the manager copies a sample rule set, changes the daily rate with a live p
   await expect(rows.nth(1)).toContainText('Rates the city approved')
 
   // Put the demo yard back on the sample for the tests that follow on this server.
-  await page.getByRole('link', { name: 'Settings', exact: true }).first().click()
+  await (await navLink(page, 'Settings')).click()
   await page.locator('[data-rule-set="california-sample"]').getByRole('button', { name: 'Use at your yard' }).click()
   await page.getByRole('dialog').getByRole('button', { name: 'Use at your yard' }).click()
   await expect(page.locator('[data-rule-set="california-sample"]').getByText('In use at your yard')).toBeVisible()
