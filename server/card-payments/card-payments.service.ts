@@ -169,12 +169,14 @@ export interface WebhookAnswer {
  */
 export async function receiveWebhook(changes: VehicleChanges, cards: CardPayments | undefined, raw: Buffer, signature: string | undefined, mail: ReceiptMail): Promise<WebhookAnswer> {
   if (!cards) return { status: 503, body: { received: false, error: 'Card payments are not set up on this server.' } }
-  if (!signature || !Buffer.isBuffer(raw)) return { status: 400, body: { received: false, error: 'The webhook carries no signature.' } }
+  // A refusal names what was wrong, as every 400 of the API does: here the signature header.
+  const refused = (error: string) => ({ status: 400, body: { received: false, error, issues: [{ path: 'stripe-signature', message: error }] } })
+  if (!signature || !Buffer.isBuffer(raw)) return refused('The webhook carries no signature.')
   let event: Stripe.Event
   try {
     event = cards.stripe.webhooks.constructEvent(raw, signature, cards.webhookSecret)
   } catch {
-    return { status: 400, body: { received: false, error: 'The webhook signature does not match.' } }
+    return refused('The webhook signature does not match.')
   }
   const { db } = changes
   const seen = async () => (await db.select().from(cardWebhookEvents).where(eq(cardWebhookEvents.eventId, event.id)))[0]

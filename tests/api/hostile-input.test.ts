@@ -4,6 +4,8 @@ import { afterAll, beforeAll, expect, it } from 'vitest'
 import { can, ROLES, type Role } from '@shared/domain/access'
 import { ACCESS } from '../../server/access'
 import { tableNames } from '../../server/backup/backup'
+import { cardPaymentsClient } from '../../server/card-payments/index'
+import { startFakePaymentService, type FakePaymentService } from '../../server/fakes/index'
 import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
 import { towInBody } from '../helpers/tow-in'
@@ -18,13 +20,16 @@ const seed = Number(process.env.HOLDFAST_FC_SEED ?? 20_261_203)
 const PER_ROUTE = Number(process.env.HOLDFAST_FC_RUNS ?? (soak ? 100 : 4))
 
 let app: TestApp
+// Card payments set up against the local stand-in, so the webhook is fuzzed through its signature check.
+let fake: FakePaymentService
 let staff: Awaited<ReturnType<typeof makeStaff>>
 const sessions = {} as Record<Role, BrowserSession>
 let vehicleId: string
 let fingerprint: () => Promise<string>
 
 beforeAll(async () => {
-  app = await makeTestApp()
+  fake = await startFakePaymentService()
+  app = await makeTestApp({ cardPayments: cardPaymentsClient({ secretKey: fake.secretKey, webhookSecret: fake.webhookSecret, host: fake.host, port: fake.port }) })
   staff = await makeStaff(app.db)
   for (const role of ROLES) sessions[role] = await signedIn(app.app, staff[role])
   vehicleId = (await sessions.dispatcher.post('/api/vehicles', towInBody(staff.dispatcher.id)).expect(201)).body.id
@@ -33,7 +38,10 @@ beforeAll(async () => {
   const query = sql.raw(`select md5(concat_ws(',', ${tables.map((n) => `(select count(*) || ':' || coalesce(md5(string_agg(x::text, '' order by x::text)), '') from "${n}" x)`).join(', ')})) as f`)
   fingerprint = async () => String(((await app.db.execute(query)) as unknown as { rows: { f: string }[] }).rows[0]!.f)
 }, 120_000)
-afterAll(() => app.close())
+afterAll(async () => {
+  await app.close()
+  await fake.close()
+})
 
 // Sign-in and sign-out would end the session the other cases use; they have their own tests.
 const SKIP = new Set(['POST /api/session', 'DELETE /api/session'])
