@@ -113,6 +113,12 @@ const server = app.listen(config.port, config.host, () => {
   log.debug(`start-up: modules and database open ${Math.round(opened - started)} ms, migrations ${Math.round(migrated - opened)} ms`)
 })
 
+// Node closes an idle kept-alive connection after 5 s; a client (a browser, a proxy, a test's request
+// context) that sends on it at that moment gets ECONNRESET. Idle connections are kept longer than the
+// usual clients and proxies keep theirs (60 s), so the server is never the side that closes mid-send.
+server.keepAliveTimeout = 65_000
+server.headersTimeout = 66_000
+
 // Expired sessions and sign-in counters go at start (after a long stop many have) and every 15 minutes after.
 const prune = () =>
   void Promise.all([pruneExpiredSessions(db), pruneSignInFailures(db, config.signInLimits.windowMs)]).catch((err) => log.warn({ err }, 'session prune failed'))
