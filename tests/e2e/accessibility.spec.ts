@@ -57,6 +57,13 @@ test("a vehicle's page, its teardown and the owner's page pass axe, in English a
   await page.goto(`/vehicles/${vehicleId}`)
   await expect(page.getByTestId('history')).toBeVisible()
   await expectAccessible(page)
+  // Printed, the record is the paper's: no top bar, no buttons, no map (it printed on six pages before).
+  await page.emulateMedia({ media: 'print' })
+  await expect(page.locator('.top-bar')).toBeHidden()
+  await expect(page.getByRole('button', { name: 'Correct the record' })).toBeHidden()
+  await expect(page.getByTestId('map')).toBeHidden()
+  await expect(page.getByTestId('history')).toBeVisible()
+  await page.emulateMedia({ media: 'screen' })
   await page.goto(`/vehicles/${vehicleId}/inspection`)
   await expect(page.getByTestId('vehicle-state')).toBeVisible()
   await expectAccessible(page)
