@@ -1,6 +1,6 @@
 import { spawn, type ChildProcess } from 'node:child_process'
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs'
+import { loadavg, tmpdir } from 'node:os'
 import path from 'node:path'
 import { build } from 'esbuild'
 import fc from 'fast-check'
@@ -23,6 +23,22 @@ export interface CrashReport {
   /** Vehicles whose history did not verify, with the problems. */
   unverified: string[]
   restartSeconds: { median: number; max: number; all: number[] }
+  /**
+   * The CPU the restarted process spent until its first healthy answer. On a loaded machine the wall
+   * time above mostly measures the wait for a core; on an idle one the two are about equal, since the
+   * start-up runs on one thread.
+   */
+  restartCpuSeconds: { median: number; max: number; all: number[] }
+  /** The machine's 1-minute load average at each restart, for reading the wall times. */
+  loadAverage: number[]
+}
+
+/** Linux: user + system CPU seconds of a process so far (/proc/<pid>/stat fields 14 and 15, at 100 ticks a second). */
+function cpuSeconds(pid: number | undefined): number {
+  if (pid === undefined) return Number.NaN
+  const stat = readFileSync(`/proc/${pid}/stat`, 'utf8')
+  const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ')
+  return (Number(fields[11]) + Number(fields[12])) / 100
 }
 
 const root = path.resolve(import.meta.dirname, '../..')
@@ -100,6 +116,8 @@ export async function crashRounds(rounds: number, seed: number, port: number): P
     }
     const acknowledged: string[] = []
     const restarts: number[] = []
+    const restartCpu: number[] = []
+    const loads: number[] = []
     const lost: string[] = []
     const unverified: string[] = []
     let killedAt = performance.now()
@@ -135,6 +153,8 @@ export async function crashRounds(rounds: number, seed: number, port: number): P
       await writer
       child = start()
       restarts.push(await healthy(killedAt))
+      restartCpu.push(cpuSeconds(child.pid))
+      loads.push(loadavg()[0]!)
     }
     // At the end, every vehicle ever acknowledged, not only the last rounds'.
     const client = new Client(base)
@@ -143,15 +163,20 @@ export async function crashRounds(rounds: number, seed: number, port: number): P
       const res = await client.call('GET', `/api/vehicles/${id}/history/verify`)
       if (res.status === 404 && !lost.includes(id)) lost.push(id)
     }
-    const sorted = [...restarts].sort((a, b) => a - b)
     const round2 = (n: number) => Number(n.toFixed(2))
+    const figures = (all: number[]) => {
+      const sorted = [...all].sort((a, b) => a - b)
+      return { median: round2(sorted[Math.floor(sorted.length / 2)] ?? 0), max: round2(sorted.at(-1) ?? 0), all: all.map(round2) }
+    }
     return {
       rounds,
       seed,
       acknowledged: acknowledged.length,
       lost,
       unverified,
-      restartSeconds: { median: round2(sorted[Math.floor(sorted.length / 2)] ?? 0), max: round2(sorted.at(-1) ?? 0), all: restarts.map(round2) },
+      restartSeconds: figures(restarts),
+      restartCpuSeconds: figures(restartCpu),
+      loadAverage: loads.map(round2),
     }
   } finally {
     if (child && child.exitCode === null) {
