@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs'
 import path from 'node:path'
 import { createHash } from 'node:crypto'
+import { createRequire } from 'node:module'
 import { eq } from 'drizzle-orm'
 import request from 'supertest'
 import sharp from 'sharp'
@@ -122,6 +123,8 @@ describe('refused uploads leave no row and no file', () => {
     // The source had an amber (#E9A23B) block at 40-240 × 40-160 on grey: the pixels survive the trip.
     const { data } = await sharp(readFileSync(path.join(app.filesDir, row!.storageKey))).extract({ left: 140, top: 100, width: 1, height: 1 }).raw().toBuffer({ resolveWithObject: true })
     expect([...data].map((c, i) => Math.abs(c - [0xe9, 0xa2, 0x3b][i]!)).every((d) => d < 24)).toBe(true)
+    // Issue 13: libheif decodes in a worker thread; it is never loaded on the request loop.
+    expect(Object.keys(createRequire(import.meta.url).cache).filter((m) => m.includes('heic-decode') || m.includes('libheif'))).toEqual([])
   })
 
   it('a damaged HEIC photo is refused with what to do instead', async () => {
