@@ -8,10 +8,11 @@ export default defineConfig({
   fullyParallel: false,
   workers: 1,
   retries: 0,
-  timeout: 30_000,
-  // A 2-core machine building or testing something else can take more than the default 5 s to
-  // sign in or draw a page; a real failure still fails, only later.
-  expect: { timeout: 10_000 },
+  // A 2-core machine building or testing something else (a load of 20 is ordinary while several
+  // builds run) can take ten times as long as an idle one: a test whose steps each wait on the app's
+  // own signals gets the time for them. A real failure still fails, only later.
+  timeout: 120_000,
+  expect: { timeout: 20_000 },
   reporter: [['list']],
   outputDir: 'test-results',
   use: {
@@ -27,7 +28,7 @@ export default defineConfig({
   webServer: {
     command: `node scripts/e2e-server.mjs ${port}`,
     url: `http://127.0.0.1:${port}/api/health`,
-    timeout: 60_000,
+    timeout: 180_000,
     reuseExistingServer: false,
     stdout: 'ignore',
     stderr: 'pipe',

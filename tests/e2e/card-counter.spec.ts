@@ -5,7 +5,7 @@ import { signInAs, watchConsole } from './helpers'
 // Issue 11, card payments: a freshly logged vehicle; the clerk takes part of the bill in cash and the
 // rest by card on the payment service's hosted page (the app's local stand-in, reached through the SDK),
 // and the bill says paid in full once the service's signed webhook has been recorded.
-test.describe.configure({ timeout: 90_000 })
+test.describe.configure({ timeout: 360_000 })
 
 test('part in cash, the rest by card on the hosted page: the bill is paid in full and the card has its reference', async ({ page }) => {
   const problems = watchConsole(page)

@@ -48,7 +48,7 @@ function freePort(): Promise<number> {
 }
 
 test.beforeAll(async () => {
-  test.setTimeout(120_000)
+  test.slow()
   dir = mkdtempSync(path.join(tmpdir(), 'holdfast-release-e2e-'))
   const ruleSets = path.join(dir, 'rule-sets')
   mkdirSync(ruleSets)
@@ -103,7 +103,7 @@ async function signIn(page: Page) {
 }
 
 test('a walk-in owner: ID with a photo, signature on the canvas, release PDF, gate pass scanned by a phone camera, the card leaves the board live', async ({ browser }) => {
-  test.setTimeout(120_000)
+  test.slow()
   const { id, stockNumber } = await vehicleAtTheCounter()
   const desk = await browser.newContext({ ...devices['Desktop Chrome'], acceptDownloads: true })
   const board = await desk.newPage()

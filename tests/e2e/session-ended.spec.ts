@@ -6,7 +6,7 @@ import { fillTheMinimum, openForm } from './tow-in-form'
 // and reloading threw away the whole intake. Here the session cookie is dropped, as an expired one is.
 test('a session that ends mid-form asks to sign in again over the page and keeps what was typed', async ({ page, context }) => {
   // Two sign-ins (two password hashes) and a save: on a loaded 2-core machine more than the default 30 s.
-  test.setTimeout(90_000)
+  test.slow()
   await openForm(page)
   await fillTheMinimum(page)
   const vin = await page.getByLabel('VIN', { exact: true }).inputValue()
