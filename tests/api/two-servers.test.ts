@@ -8,7 +8,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { openDatabase, type DatabaseHandle } from '@db/client'
 import * as t from '@db/schema'
 import { createApp } from '../../server/app'
-import { startLocalSmtp, type LocalSmtp } from '../../server/fakes/index'
+import { cardPaymentsClient } from '../../server/card-payments/index'
+import { startFakePaymentService, startLocalSmtp, type FakePaymentService, type LocalSmtp } from '../../server/fakes/index'
 import { localFileStore } from '../../server/files/index'
 import { postgresBus, type LiveBus } from '../../server/live/index'
 import { OutboxWorker, smtpTransport } from '../../server/outbox/index'
@@ -24,12 +25,16 @@ import { completeRelease, vehicleInRelease } from '../helpers/release'
 // one server decides, the other must know from the database alone.
 let database: Awaited<ReturnType<typeof makePostgresDatabase>>
 let smtp: LocalSmtp
+// One payment service for both servers, as the real one is; its webhooks go to A, a replay of them to B.
+let payments: FakePaymentService
+const webhooks: { payload: string; signature: string }[] = []
 const filesDir = mkdtempSync(path.join(tmpdir(), 'holdfast-two-servers-'))
 const servers: { url: string; handle: DatabaseHandle; bus: LiveBus; outbox: OutboxWorker; close: () => Promise<void> }[] = []
 
 beforeAll(async () => {
   database = await makePostgresDatabase('t_two')
   smtp = await startLocalSmtp()
+  payments = await startFakePaymentService()
   for (let i = 0; i < 2; i++) {
     const handle = await openDatabase({ kind: 'postgres', url: database.url })
     await handle.migrate()
@@ -43,12 +48,20 @@ beforeAll(async () => {
       signInLimits: { perAccount: 5, perIp: 1000, windowMs: 15 * 60_000 },
       kickOutbox: () => outbox.kick(),
       publicUrl: 'https://yard.test.example',
+      cardPayments: cardPaymentsClient({ secretKey: payments.secretKey, webhookSecret: payments.webhookSecret, host: payments.host, port: payments.port }),
     })
     outbox.start()
     const listener = await listening(app)
     servers.push({ url: listener.url, handle, bus, outbox, close: listener.close })
   }
+  payments.deliverTo(async (payload, signature) => {
+    webhooks.push({ payload, signature })
+    return (await postWebhook(A, payload, signature)).status
+  })
 })
+
+const postWebhook = (on: number, payload: string, signature: string) =>
+  fetch(`${servers[on]!.url}/api/card-payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json; charset=utf-8', 'stripe-signature': signature }, body: payload })
 
 afterAll(async () => {
   for (const s of servers) {
@@ -58,6 +71,7 @@ afterAll(async () => {
     await s.handle.close()
   }
   await smtp?.close()
+  await payments?.close()
   await dropDatabase(database.adminClient, database.name)
   await database.adminClient.end()
   rmSync(filesDir, { recursive: true, force: true })
@@ -134,6 +148,25 @@ describe('two app servers on one PostgreSQL', () => {
     expect(((await again.json()) as { payment: { id: string } }).payment.id).toBe(((await first.json()) as { payment: { id: string } }).payment.id)
     expect(await db().select().from(t.payments).where(eq(t.payments.vehicleId, v.id))).toHaveLength(1)
     expect(await db().select().from(t.outboundMessages).where(eq(t.outboundMessages.vehicleId, v.id))).toHaveLength(1)
+  })
+
+  it('a card checkout retried on B with the key A answered opens one page, and its webhook replayed to B records one payment', async () => {
+    const staff = await makeStaff(db())
+    const [a, b] = [await fetchSession(servers[A]!.url, staff.office), await fetchSession(servers[B]!.url, staff.office)]
+    const v = await billedVehicle(db(), staff.yard.id)
+    const body = { idempotencyKey: key(), amountCents: 3_000 }
+    const first = await a.post(`/api/vehicles/${v.id}/card-checkouts`, body)
+    expect(first.status).toBe(201)
+    const opened = ((await first.json()) as { checkout: { id: string; url: string } }).checkout
+    const again = await b.post(`/api/vehicles/${v.id}/card-checkouts`, body)
+    expect(again.status).toBe(200)
+    expect(((await again.json()) as { checkout: object }).checkout).toMatchObject({ id: opened.id, url: opened.url, replayed: true })
+    const paid = await fetch(opened.url, { method: 'POST', body: new URLSearchParams({ card: '4242 4242 4242 4242' }), redirect: 'manual' })
+    expect(paid.status).toBe(303)
+    const sent = webhooks.at(-1)!
+    expect((await postWebhook(B, sent.payload, sent.signature)).status).toBe(200)
+    const rows = await db().select().from(t.payments).where(eq(t.payments.vehicleId, v.id))
+    expect(rows.map((p) => [p.method, p.amountCents])).toEqual([['card', 3_000]])
   })
 
   it('a gate pass used on A is refused on B', async () => {
