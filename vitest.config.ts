@@ -2,6 +2,7 @@ import { fileURLToPath } from 'node:url'
 import VueI18nPlugin from '@intlify/unplugin-vue-i18n/vite'
 import vue from '@vitejs/plugin-vue'
 import { defineConfig } from 'vitest/config'
+import { PGLITE_ONLY, testEngineFromEnv } from './tests/helpers/engine'
 
 const alias = {
   '@': fileURLToPath(new URL('./src', import.meta.url)),
@@ -31,6 +32,8 @@ export default defineConfig({
           name: 'api',
           globalSetup: ['tests/helpers/global-setup.ts'],
           include: ['tests/api/**/*.test.ts'],
+          // npm run test:pg leaves out the files that are about the embedded engine itself (each says why there).
+          exclude: testEngineFromEnv() === 'postgres' ? Object.keys(PGLITE_ONLY) : [],
           testTimeout: 30_000,
           hookTimeout: 60_000,
         },

@@ -43,7 +43,7 @@ export async function openDatabase(
     return {
       db: db as unknown as Database,
       driver: 'postgres',
-      migrate: () => migratePg(db, { migrationsFolder }),
+      migrate: () => migrateUnderLock(pool, () => migratePg(db, { migrationsFolder })),
       close: () => pool.end(),
     }
   }
@@ -70,6 +70,26 @@ export async function openDatabase(
       await client.close()
       await release?.()
     },
+  }
+}
+
+/**
+ * Servers starting together on one PostgreSQL migrate once: each waits for a session-level advisory lock
+ * held on a connection of its own, so the second finds every migration applied and does nothing.
+ */
+export const MIGRATION_LOCK_KEY = 7_233_018_114_205_001n
+
+async function migrateUnderLock(pool: pg.Pool, migrate: () => Promise<void>): Promise<void> {
+  const lock = await pool.connect()
+  try {
+    await lock.query('select pg_advisory_lock($1)', [MIGRATION_LOCK_KEY.toString()])
+    try {
+      await migrate()
+    } finally {
+      await lock.query('select pg_advisory_unlock($1)', [MIGRATION_LOCK_KEY.toString()])
+    }
+  } finally {
+    lock.release()
   }
 }
 

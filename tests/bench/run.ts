@@ -14,6 +14,7 @@ const benches: Record<string, () => Promise<{ met: boolean }>> = {
   release: async () => (await import('./release.bench')).run(),
   load: async () => (await import('./load.bench')).run(),
   receivables: async () => (await import('./receivables.bench')).run(),
+  pg: async () => (await import('./pg.bench')).run(),
 }
 const only = process.argv.slice(2)
 let allMet = true

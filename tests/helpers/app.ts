@@ -9,14 +9,20 @@ import { inject } from 'vitest'
 import { openDatabase, type Database, type DatabaseHandle } from '@db/client'
 import { createApp, type AppDeps } from '../../server/app'
 import { localFileStore } from '../../server/files/index'
+import { databaseUrl, dropDatabase } from './postgres'
 
 let template: Buffer | undefined
 
 /** The history key of every app a test file makes: two apps on one database must share it, as servers do. */
 export const TEST_HISTORY_KEY = randomBytes(32)
 
-/** A fresh, migrated in-memory database, a files folder of its own, and an app on them; no port is opened. */
+/**
+ * A fresh, migrated database, a files folder of its own, and an app on them; no port is opened.
+ * The database is an in-memory PGlite, or under `npm run test:pg` a new database on the run's throwaway
+ * PostgreSQL (the engine switch for every API test is here and nowhere else).
+ */
 export async function makeTestApp(overrides: Partial<AppDeps> = {}) {
+  if (inject('testEngine') === 'postgres') return makePostgresTestApp(overrides)
   template ??= readFileSync(inject('templateDataDir'))
   const handle = await openDatabase({ kind: 'memory', loadDataDir: new Blob([new Uint8Array(template)]) })
   return appOn(handle, overrides)
@@ -87,22 +93,32 @@ export type { Database }
  * for what PGlite cannot show: it runs one query at a time, so races never happen on it.
  */
 export async function makePostgresTestApp(overrides: Partial<AppDeps> = {}) {
-  const admin = inject('postgresUrl')
-  const name = `t_${randomUUID().replaceAll('-', '').slice(0, 16)}`
-  const adminClient = new pg.Client({ connectionString: admin })
-  await adminClient.connect()
-  await adminClient.query(`create database ${name}`)
-  const handle = await openDatabase({ kind: 'postgres', url: admin.replace(/\/[^/]*$/, `/${name}`) })
-  await handle.migrate()
+  const { name, url, adminClient } = await makePostgresDatabase()
+  const handle = await openDatabase({ kind: 'postgres', url })
   return appOn(handle, overrides, async () => {
-    // pool.end() resolves before the server has seen every connection go: a forced drop in that moment
-    // kills a closing connection, whose error then surfaces as an unhandled one. Wait for them to leave.
-    for (let i = 0; i < 100; i++) {
-      const { rows } = await adminClient.query('select count(*)::int as n from pg_stat_activity where datname = $1', [name])
-      if (rows[0].n === 0) break
-      await new Promise((r) => setTimeout(r, 20))
-    }
-    await adminClient.query(`drop database ${name} with (force)`)
+    await dropDatabase(adminClient, name)
     await adminClient.end()
   })
+}
+
+/**
+ * A new database on the run's throwaway PostgreSQL, copied from the migrated template (global setup).
+ * Returns the admin connection that made it, to drop it with at the end.
+ */
+export async function makePostgresDatabase(prefix = 't') {
+  const admin = inject('postgresUrl')
+  const name = `${prefix}_${randomUUID().replaceAll('-', '').slice(0, 16)}`
+  const adminClient = new pg.Client({ connectionString: admin })
+  await adminClient.connect()
+  // The copy is refused while anyone is connected to the template (the migrator's pool takes a moment to go).
+  for (let attempt = 0; ; attempt++) {
+    try {
+      await adminClient.query(`create database ${name} template ${inject('postgresTemplate')}`)
+      break
+    } catch (err) {
+      if (attempt > 50 || !/being accessed by other users/.test(String(err))) throw err
+      await new Promise((r) => setTimeout(r, 100))
+    }
+  }
+  return { name, url: databaseUrl(admin, name), adminClient }
 }

@@ -25,7 +25,7 @@ export function startThrowawayPostgres(port = 54_329 + (process.pid % 500)): Thr
   }
   const data = path.join(dir, 'data')
   run([`${PGBIN}/initdb`, '-D', data, '-U', 'postgres', '-A', 'trust', '-E', 'UTF8', '--locale=C.UTF-8'])
-  run([`${PGBIN}/pg_ctl`, '-D', data, '-l', path.join(dir, 'log'), '-o', `-c listen_addresses=127.0.0.1 -p ${port} -k ${dir} -c fsync=off`, '-w', 'start'])
+  run([`${PGBIN}/pg_ctl`, '-D', data, '-l', path.join(dir, 'log'), '-o', `-c listen_addresses=127.0.0.1 -p ${port} -k ${dir} -c fsync=off -c max_connections=300`, '-w', 'start'])
   return {
     url: `postgres://postgres@127.0.0.1:${port}/postgres`,
     stop() {
@@ -38,4 +38,22 @@ export function startThrowawayPostgres(port = 54_329 + (process.pid % 500)): Thr
 
 function quote(s: string): string {
   return `'${s.replaceAll("'", "'\\''")}'`
+}
+
+/** The URL of another database on the same server. */
+export function databaseUrl(serverUrl: string, database: string): string {
+  return serverUrl.replace(/\/[^/]*$/, `/${database}`)
+}
+
+/**
+ * Drops a test database once its connections have gone: pool.end() resolves before the server has seen
+ * every connection leave, and a forced drop in that moment surfaces as an unhandled error in the closing pool.
+ */
+export async function dropDatabase(admin: { query: (sql: string, values?: unknown[]) => Promise<{ rows: { n: number }[] }> }, name: string) {
+  for (let i = 0; i < 100; i++) {
+    const { rows } = await admin.query('select count(*)::int as n from pg_stat_activity where datname = $1', [name])
+    if (rows[0]!.n === 0) break
+    await new Promise((r) => setTimeout(r, 20))
+  }
+  await admin.query(`drop database if exists ${name} with (force)`)
 }
