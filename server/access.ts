@@ -195,7 +195,7 @@ export const enforceAccess: RequestHandler = (req, _res, next) => {
   }
   if (rule === 'public') return next()
   if (!req.user) return next(unauthorized())
-  if (rule === undefined) return next(forbidden('This action is not available.'))
+  if (rule === undefined) return next(forbidden('This action is not available.', 'notAvailable'))
   if (rule === 'staff' || can(req.user.role, rule)) return next()
   next(forbidden())
 }

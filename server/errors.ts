@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
 import { DomainError } from '@shared/domain/errors'
+import type english from '@shared/messages/en/refusals.json'
 import { redactUrl } from './logging'
 
 export interface Issue {
@@ -19,10 +20,19 @@ export class AppError extends Error {
   }
 }
 
+/** A refusal's code: its words in every language are `refusals.<code>` in shared/messages (the type keeps it in the English catalog). */
+export type RefusalCode = Exclude<keyof (typeof english)['refusals'], 'reasons'>
+
+/**
+ * The code and parameters beside a refusal's English sentence (`{ error, code, params }` in the answer),
+ * so the client says it in the reader's language: `conflict('…', said('holdLifted', { date }))`.
+ */
+export const said = (code: RefusalCode, params?: Record<string, string | number>, extra: Record<string, unknown> = {}) => ({ code, ...(params ? { params } : {}), ...extra })
+
 export const badRequest = (message: string, issues?: Issue[]) => new AppError(400, message, issues ? { issues } : {})
-export const unauthorized = () => new AppError(401, 'You are signed out: your session has ended. Sign in again to go on.')
-export const forbidden = (message = 'Your role may not do this.') => new AppError(403, message)
-export const notFound = (what = 'That') => new AppError(404, `${what} was not found.`)
+export const unauthorized = () => new AppError(401, 'You are signed out: your session has ended. Sign in again to go on.', said('signedOut'))
+export const forbidden = (message = 'Your role may not do this.', code: RefusalCode = 'forbidden') => new AppError(403, message, said(code))
+export const notFound = (what = 'That') => new AppError(404, `${what} was not found.`, said('notFound'))
 export const conflict = (message: string, extra: Record<string, unknown> = {}) => new AppError(409, message, extra)
 export const unprocessable = (message: string, extra: Record<string, unknown> = {}) =>
   new AppError(422, message, extra)

@@ -3,7 +3,7 @@ import { chargeAdjustments } from '@db/schema'
 import { formatCents } from '@shared/domain/billing'
 import type { Adjustment, AdjustmentRecord, Invoice } from '@shared/schemas/billing'
 import type { User } from '@shared/schemas/users'
-import { AppError, conflict, forbidden, notFound } from '../errors'
+import { AppError, conflict, forbidden, notFound, said } from '../errors'
 import { changeVehicle, vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { adjustmentsOf, approvalLimitOf } from './billing.queries'
 import { invoiceOf } from './invoice.service'
@@ -25,7 +25,7 @@ async function answer(changes: VehicleChanges, actor: User, vehicleId: string, a
  */
 export async function adjustCharges(changes: VehicleChanges, actor: User, vehicleId: string, input: Adjustment) {
   const { result: id } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
-    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its bill is closed.')
+    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its bill is closed.', said('closedBill'))
     const invoice = await invoiceOf(tx, vehicle, yard)
     if (input.amountCents > invoice.dueCents) throw tooMuch(invoice.dueCents)
     const limit = await approvalLimitOf(tx, yard.id)
@@ -46,11 +46,11 @@ export async function decideAdjustment(changes: VehicleChanges, actor: User, veh
   await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
     const [row] = await tx.select().from(chargeAdjustments).where(and(eq(chargeAdjustments.id, adjustmentId), eq(chargeAdjustments.vehicleId, vehicleId)))
     if (!row) throw notFound('That waiver or discount')
-    if (row.status !== 'pending') throw conflict(`This ${row.kind} was already ${row.status}.`)
-    if (row.requestedById === actor.id) throw forbidden('A second manager decides: the manager who asked for it cannot approve or decline it.')
+    if (row.status !== 'pending') throw conflict(`This ${row.kind} was already ${row.status}.`, said('adjustmentDecided'))
+    if (row.requestedById === actor.id) throw forbidden('A second manager decides: the manager who asked for it cannot approve or decline it.', 'secondManager')
     const now = new Date()
     if (decision.approve) {
-      if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its bill is closed.')
+      if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its bill is closed.', said('closedBill'))
       const invoice = await invoiceOf(tx, vehicle, yard)
       if (row.amountCents > invoice.dueCents) throw tooMuch(invoice.dueCents)
       await tx.update(chargeAdjustments).set({ status: 'approved', decidedById: actor.id, decidedAt: now }).where(eq(chargeAdjustments.id, adjustmentId))

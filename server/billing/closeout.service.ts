@@ -5,7 +5,7 @@ import { countDrawer } from '@shared/domain/billing'
 import { dayFromIsoDate, isoDate, localDay, startOfLocalDay } from '@shared/domain/time'
 import type { CloseoutRecord, Drawer } from '@shared/schemas/billing'
 import type { User } from '@shared/schemas/users'
-import { badRequest, conflict, notFound } from '../errors'
+import { badRequest, conflict, notFound, said } from '../errors'
 import { yardOfUser } from '../yards/index'
 import { paymentRecord } from './billing.queries'
 
@@ -54,7 +54,7 @@ async function closeoutOf(db: Executor, yardId: string, businessDate: string): P
   }
 }
 
-const alreadyClosed = () => conflict('This day’s drawer is already closed.', { issues: [{ path: 'businessDate', message: 'Already closed.' }] })
+const alreadyClosed = () => conflict('This day’s drawer is already closed.', said('drawerClosed', undefined, { issues: [{ path: 'businessDate', message: 'Already closed.' }] }))
 
 const todayIn = (zone: string) => isoDate(localDay(zone, Date.now()))
 

@@ -2,7 +2,7 @@ import type { Executor } from '@db/client'
 import { invoiceCharges, settle } from '@shared/domain/billing'
 import type { Invoice } from '@shared/schemas/billing'
 import { vehicleBill } from '../charges/index'
-import { unprocessable } from '../errors'
+import { unprocessable, said } from '../errors'
 import type { VehicleRow, YardRow } from '../vehicles/index'
 import { adjustmentsOf, approvalLimitOf, paymentsOf } from './billing.queries'
 
@@ -15,7 +15,7 @@ export async function invoiceOf(db: Executor, vehicle: VehicleRow, yard: YardRow
   const frozen = vehicle.closedAt !== null
   const at = frozen ? vehicle.closedAt! : asOf
   const billed = await vehicleBill(db, yard, vehicle, at)
-  if (!billed) throw unprocessable('No rule set bills this vehicle: give it a vehicle class its rule set knows, or give the yard a rule set.')
+  if (!billed) throw unprocessable('No rule set bills this vehicle: give it a vehicle class its rule set knows, or give the yard a rule set.', said('noBilling'))
   const charges = invoiceCharges(billed.bill, billed.towCents)
   const payments = await paymentsOf(db, vehicle.id)
   const adjustments = await adjustmentsOf(db, vehicle.id)

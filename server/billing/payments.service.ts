@@ -4,7 +4,7 @@ import { cashChange, formatCents } from '@shared/domain/billing'
 import type { Payment, PaymentAnswer } from '@shared/schemas/billing'
 import type { Refund } from '@shared/schemas/billing'
 import type { User } from '@shared/schemas/users'
-import { AppError, badRequest } from '../errors'
+import { AppError, badRequest, said, type RefusalCode } from '../errors'
 import { changeVehicle, vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { paymentByKey, paymentRecord, type PaymentRow } from './billing.queries'
 import { invoiceOf } from './invoice.service'
@@ -12,12 +12,12 @@ import { queueReceipt, type ReceiptMail } from './receipt-mail'
 
 const hashOf = (fields: Record<string, unknown>) => createHash('sha256').update(JSON.stringify(fields)).digest('hex')
 
-const refusal = (status: number, path: string, message: string) => new AppError(status, message, { issues: [{ path, message }] })
+const refusal = (status: number, path: string, message: string, code?: RefusalCode) => new AppError(status, message, { ...(code ? said(code) : {}), issues: [{ path, message }] })
 
 /** The same key again: the payment it recorded, or a refusal if the key now asks for something else. */
 function replay(existing: PaymentRow, requestHash: string, takenBy: string) {
   if (existing.requestHash !== requestHash) {
-    throw refusal(409, 'idempotencyKey', 'This payment key was already used for a different payment. Reload the page and try again.')
+    throw refusal(409, 'idempotencyKey', 'This payment key was already used for a different payment. Reload the page and try again.', 'paymentKeyUsed')
   }
   return paymentRecord(existing, takenBy)
 }
@@ -33,7 +33,7 @@ export async function takePayment(changes: VehicleChanges, actor: User, vehicleI
   const { result, changed } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
     const existing = await paymentByKey(tx, vehicleId, input.idempotencyKey)
     if (existing) return { payment: replay(existing, requestHash, actor.name), replayed: true }
-    if (vehicle.state === 'closed') throw refusal(409, 'vehicleId', 'This vehicle has left the yard: its bill is closed and takes no more payments.')
+    if (vehicle.state === 'closed') throw refusal(409, 'vehicleId', 'This vehicle has left the yard: its bill is closed and takes no more payments.', 'closedPayments')
     const before = await invoiceOf(tx, vehicle, yard)
     if (before.dueCents <= 0) throw refusal(400, 'amountCents', 'Nothing is due on this vehicle.')
     if (input.amountCents > before.dueCents) {

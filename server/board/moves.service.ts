@@ -4,7 +4,7 @@ import type { moveRequestSchema } from '@shared/schemas/moves'
 import type { User } from '@shared/schemas/users'
 import type { z } from 'zod'
 import type { Executor } from '@db/client'
-import { AppError, conflict, unprocessable } from '../errors'
+import { AppError, conflict, unprocessable, said } from '../errors'
 import { changeVehicle, spaceOf, type VehicleChanges, type VehicleRow, type VehicleWork, type YardRow } from '../vehicles/index'
 import { cardOf } from './board-cards'
 import { moveFacts } from './move-facts'
@@ -55,7 +55,7 @@ export async function moveVehicle(changes: VehicleChanges, user: User, vehicleId
     stale: async ({ tx, vehicle, yard }) =>
       conflict(
         `Someone else changed ${vehicle.stockNumber} a moment ago; it is now in ${COLUMN_LABELS[vehicle.state]}. The board shows it as it is now — move it again if it still needs moving.`,
-        { current: await cardOf(tx, yard, vehicleId, now) },
+        said('movedElsewhere', { stock: vehicle.stockNumber, column: vehicle.state }, { current: await cardOf(tx, yard, vehicleId, now) }),
       ),
     card: async (db, yard) => cardOf(db, yard, vehicleId, now),
   })

@@ -3,12 +3,12 @@ import { recordsRequests, vehicleContacts } from '@db/schema'
 import type { Contact, RecordsAnswer, RecordsRequest } from '@shared/schemas/contacts'
 import type { User } from '@shared/schemas/users'
 import { addClockEvent } from '../clock-events/index'
-import { badRequest, conflict, notFound, unprocessable } from '../errors'
+import { badRequest, conflict, notFound, unprocessable, said } from '../errors'
 import { changeVehicle, type VehicleChanges } from '../vehicles/index'
 import { contactOf, contactRecord } from './contacts.queries'
 import { pastDay } from './yard-days'
 
-const closed = () => conflict('This vehicle has left the yard; its contacts can no longer be changed.')
+const closed = () => conflict('This vehicle has left the yard; its contacts can no longer be changed.', said('closedContacts'))
 
 // What the history keeps of a contact: who they are and how to reach them (the office's own record).
 const described = (c: Contact | ReturnType<typeof contactRecord>) => ({
@@ -45,7 +45,7 @@ export async function changeContact(changes: VehicleChanges, actor: User, vehicl
     if (input.sourceDate) pastDay(input.sourceDate, yard.timeZone, 'sourceDate', 'The records request date')
     const before = described(contactRecord(current))
     const after = described(input)
-    if (JSON.stringify(before) === JSON.stringify(after)) throw unprocessable('Nothing was changed: the record already says that.')
+    if (JSON.stringify(before) === JSON.stringify(after)) throw unprocessable('Nothing was changed: the record already says that.', said('nothingChanged'))
     await tx.update(vehicleContacts).set({ ...input, updatedAt: new Date() }).where(eq(vehicleContacts.id, contactId))
     record({ kind: 'contact_changed', before: { contactId, ...before }, after: { contactId, ...after } })
   })
@@ -87,7 +87,7 @@ export async function answerRecordsRequest(changes: VehicleChanges, actor: User,
     if (vehicle.state === 'closed') throw closed()
     const [request] = await tx.select().from(recordsRequests).where(and(eq(recordsRequests.id, requestId), eq(recordsRequests.vehicleId, vehicleId)))
     if (!request) throw notFound('That records request')
-    if (request.answeredOn) throw conflict(`This request was already answered on ${request.answeredOn}.`)
+    if (request.answeredOn) throw conflict(`This request was already answered on ${request.answeredOn}.`, said('requestAnswered', { date: request.answeredOn }))
     pastDay(input.answeredOn, yard.timeZone, 'answeredOn', 'The day the answer came')
     if (input.answeredOn < request.sentOn) {
       const message = 'The answer cannot come before the request was sent.'

@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import { holds } from '@db/schema'
 import type { Hold, LiftHold } from '@shared/schemas/holds'
 import type { User } from '@shared/schemas/users'
-import { conflict, notFound } from '../errors'
+import { conflict, notFound, said } from '../errors'
 import { changeVehicle, type VehicleChanges } from '../vehicles/index'
 
 /**
@@ -11,7 +11,7 @@ import { changeVehicle, type VehicleChanges } from '../vehicles/index'
  */
 export async function setHold(changes: VehicleChanges, actor: User, vehicleId: string, input: Hold) {
   const { result } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, record }) => {
-    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard; a hold can no longer be set.')
+    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard; a hold can no longer be set.', said('closedHold'))
     const [row] = await tx
       .insert(holds)
       .values({ vehicleId, ...input, until: input.until ? new Date(input.until) : null, setById: actor.id })
@@ -26,7 +26,7 @@ export async function liftHold(changes: VehicleChanges, actor: User, vehicleId: 
   await changeVehicle(changes, actor, vehicleId, async ({ tx, record }) => {
     const [hold] = await tx.select().from(holds).where(and(eq(holds.id, holdId), eq(holds.vehicleId, vehicleId)))
     if (!hold) throw notFound('That hold')
-    if (hold.liftedAt) throw conflict(`This hold was already lifted on ${hold.liftedAt.toISOString().slice(0, 10)}.`)
+    if (hold.liftedAt) throw conflict(`This hold was already lifted on ${hold.liftedAt.toISOString().slice(0, 10)}.`, said('holdLifted', { date: hold.liftedAt.toISOString().slice(0, 10) }))
     await tx.update(holds).set({ liftedAt: new Date(), liftedById: actor.id, liftReason: input.reason }).where(eq(holds.id, holdId))
     record({ kind: 'hold_lifted', reason: input.reason, before: { holdId, kind: hold.kind, agency: hold.agency, caseNumber: hold.caseNumber } })
   })

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm'
 import { inspections } from '@db/schema'
 import { CAUTIONS, estimateTotals, pickupBadge, repairOrSalvage } from '@shared/domain/inspection'
 import type { User } from '@shared/schemas/users'
-import { conflict, unprocessable, type Issue } from '../errors'
+import { conflict, unprocessable, type Issue, said } from '../errors'
 import { versionsById } from '../rule-sets/index'
 import { changeVehicle, type VehicleChanges } from '../vehicles/index'
 import { changeInspection } from './inspection-change'
@@ -16,7 +16,7 @@ import { itemsOf, latestInspection, linesOf } from './inspections.queries'
 export async function startInspection(changes: VehicleChanges, actor: User, vehicleId: string): Promise<{ created: boolean }> {
   const { changed } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, set, record }) => {
     if (vehicle.state !== 'teardown') {
-      throw conflict(`Move ${vehicle.stockNumber} to Teardown first: the inspection is done there.`)
+      throw conflict(`Move ${vehicle.stockNumber} to Teardown first: the inspection is done there.`, said('teardownFirst', { stock: vehicle.stockNumber }))
     }
     const current = await latestInspection(tx, vehicleId)
     if (current && !current.finishedAt) return

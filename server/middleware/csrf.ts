@@ -1,6 +1,6 @@
 import { timingSafeEqual } from 'node:crypto'
 import type { RequestHandler } from 'express'
-import { AppError } from '../errors'
+import { AppError, said } from '../errors'
 import type { AnonymousCsrf } from './anonymous-csrf'
 
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS'])
@@ -15,12 +15,12 @@ export function csrfProtection(allowedOrigins: string[], anonymous: AnonymousCsr
     if (SAFE.has(req.method) || exempt(req.path)) return next()
     const origin = req.get('origin')
     if (origin && origin !== `${req.protocol}://${req.get('host')}` && !allowedOrigins.includes(origin)) {
-      return next(new AppError(403, 'This request came from another site and was refused.'))
+      return next(new AppError(403, 'This request came from another site and was refused.', said('csrfOtherSite')))
     }
     const sent = req.get('x-csrf-token') ?? ''
     const expected = req.session?.csrfToken
     if (expected ? !sameToken(sent, expected) : !anonymous.accepts(req, sent)) {
-      return next(new AppError(403, 'The page is out of date or the security token is missing. Reload and try again.'))
+      return next(new AppError(403, 'The page is out of date or the security token is missing. Reload and try again.', said('csrfStale')))
     }
     next()
   }

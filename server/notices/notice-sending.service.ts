@@ -6,7 +6,7 @@ import type { ReturnedInput, SendNotice } from '@shared/schemas/notices'
 import type { User } from '@shared/schemas/users'
 import { addClockEvent } from '../clock-events/index'
 import { pastDay } from '../contacts/index'
-import { badRequest, conflict, notFound, summaryOf, type Issue } from '../errors'
+import { badRequest, conflict, notFound, summaryOf, type Issue, said } from '../errors'
 import { queueMessage } from '../outbox/index'
 import { changeVehicle } from '../vehicles/index'
 import { LETTER_WORDS } from './letter-words'
@@ -21,11 +21,11 @@ import { noticeOf } from './notices.queries'
  */
 export async function sendNotice(deps: NoticeDeps, actor: User, vehicleId: string, noticeId: string, input: SendNotice): Promise<void> {
   await changeVehicle(deps.changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
-    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its notices can no longer be sent.')
+    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its notices can no longer be sent.', said('closedNoticeSend'))
     const notice = await noticeOf(tx, vehicleId, noticeId)
     if (!notice) throw notFound('That notice')
     const [contact] = await tx.select().from(vehicleContacts).where(eq(vehicleContacts.id, notice.contactId))
-    if (!contact || contact.removedAt) throw conflict('This recipient was removed from the contacts; make the notice again for whoever replaces them.')
+    if (!contact || contact.removedAt) throw conflict('This recipient was removed from the contacts; make the notice again for whoever replaces them.', said('recipientRemoved'))
     const issues: Issue[] = []
     if (input.certifiedMail && !postalAddress(contact)) {
       issues.push({ path: 'certifiedMail', message: `${contact.name} has no postal address on record: add it before sending by certified mail.` })
@@ -70,7 +70,7 @@ export async function recordReturned(deps: NoticeDeps, actor: User, vehicleId: s
     if (!notice) throw notFound('That notice')
     const [sending] = await tx.select().from(noticeSendings).where(and(eq(noticeSendings.id, sendingId), eq(noticeSendings.noticeId, noticeId)))
     if (!sending) throw notFound('That sending')
-    if (sending.returnedOn) throw conflict(`This letter was already recorded as returned on ${sending.returnedOn}.`)
+    if (sending.returnedOn) throw conflict(`This letter was already recorded as returned on ${sending.returnedOn}.`, said('letterReturned', { date: sending.returnedOn }))
     pastDay(input.returnedOn, yard.timeZone, 'returnedOn', 'The day it came back')
     if (sending.mailedOn && input.returnedOn < sending.mailedOn) {
       const message = 'A letter cannot come back before it was mailed.'

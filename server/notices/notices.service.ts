@@ -6,7 +6,7 @@ import { formatCode } from '@shared/schemas/owner'
 import type { NoticeKind } from '@shared/schemas/notices'
 import type { User } from '@shared/schemas/users'
 import { contactsOf } from '../contacts/index'
-import { badRequest, conflict, notFound } from '../errors'
+import { badRequest, conflict, notFound, said } from '../errors'
 import { putFiles, recordFiles, type FileStore } from '../files/index'
 import { addOwnerLink, newCode, newToken } from '../owner/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges } from '../vehicles/index'
@@ -46,9 +46,9 @@ export async function generateNotices(
 ): Promise<string[]> {
   const { db } = deps.changes
   const { vehicle, yard } = await vehicleForUser(db, actor.id, vehicleId)
-  if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: it needs no notice now.')
+  if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: it needs no notice now.', said('closedNotice'))
   const facts = await noticeFacts(db, vehicle, yard, now)
-  if (!facts) throw conflict('This vehicle has no rule set, so Holdfast cannot tell which notices it needs.')
+  if (!facts) throw conflict('This vehicle has no rule set, so Holdfast cannot tell which notices it needs.', said('noRuleSetNotices'))
   const plan = facts.plan.find((p) => p.kind === input.kind)
   if (!plan) {
     const message = `The rule set asks for no "${LETTER_WORDS.en.title(input.kind)}" for this vehicle.`
@@ -95,7 +95,7 @@ export async function generateNotices(
   )
   try {
     const { result } = await changeVehicle(deps.changes, actor, vehicleId, async (scope) => {
-      if (scope.vehicle.state === 'closed') throw conflict('This vehicle has left the yard: it needs no notice now.')
+      if (scope.vehicle.state === 'closed') throw conflict('This vehicle has left the yard: it needs no notice now.', said('closedNotice'))
       await recordFiles(scope, stored)
       const ids: string[] = []
       for (const [i, l] of letters.entries()) {

@@ -1,6 +1,6 @@
 import type { Executor } from '@db/client'
 import { MESSAGE_STATUSES, type MessageStatus, type OutboxMessage, type OutboxPage, type OutboxRow } from '@shared/schemas/outbox'
-import { conflict, notFound } from '../errors'
+import { conflict, notFound, said } from '../errors'
 import { attachmentsOf, countsByStatus, listMessages, messageOf, retryMessage } from './outbox.queries'
 
 type Listed = NonNullable<Awaited<ReturnType<typeof messageOf>>>
@@ -52,7 +52,7 @@ export async function retryFailed(db: Executor, companyId: string, messageId: st
   if (!(await retryMessage(db, companyId, messageId, userId))) {
     const current = await messageOf(db, companyId, messageId)
     if (!current) throw notFound('That message')
-    throw conflict(`This message is ${current.message.status}: only a failed message can be sent again.`)
+    throw conflict(`This message is ${current.message.status}: only a failed message can be sent again.`, said('onlyFailedRetry'))
   }
   return outboxMessage(db, companyId, messageId)
 }

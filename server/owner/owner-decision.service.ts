@@ -1,7 +1,7 @@
 import { ownerDecisions } from '@db/schema'
 import type { ownerDecisionInputSchema } from '@shared/schemas/owner'
 import type { z } from 'zod'
-import { AppError, conflict } from '../errors'
+import { AppError, conflict, said } from '../errors'
 import { changeVehicleAsOwner, type VehicleChanges } from '../vehicles/index'
 import { linkStatus, openLinkOf, type OwnerLinkRow } from './owner.queries'
 
@@ -21,8 +21,8 @@ export async function recordDecision(
   const label = `${input.fullName} (owner, by link)`
   await changeVehicleAsOwner(changes, label, link.vehicleId, async ({ tx, vehicle, set, record }) => {
     const open = await openLinkOf(tx, link.vehicleId, link.id)
-    if (!open || linkStatus(open, new Date()) !== 'active') throw new AppError(410, 'This link no longer works. Ask the yard for a new one.')
-    if (vehicle.state === 'closed') throw conflict('This vehicle has already left the yard, so there is nothing left to choose.')
+    if (!open || linkStatus(open, new Date()) !== 'active') throw new AppError(410, 'This link no longer works. Ask the yard for a new one.', said('ownerLinkGone'))
+    if (vehicle.state === 'closed') throw conflict('This vehicle has already left the yard, so there is nothing left to choose.', said('closedOwnerChoice'))
     const [row] = await tx
       .insert(ownerDecisions)
       .values({

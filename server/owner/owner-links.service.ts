@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import { ownerLinks } from '@db/schema'
 import type { OwnerLinkCreated } from '@shared/schemas/owner'
 import type { User } from '@shared/schemas/users'
-import { conflict, notFound } from '../errors'
+import { conflict, notFound, said } from '../errors'
 import { changeVehicle, type VehicleChanges, type VehicleWork } from '../vehicles/index'
 import { keyHash, newCode, newToken } from './owner-keys'
 import { linksOf, openLinkOf } from './owner.queries'
@@ -18,7 +18,7 @@ export async function createOwnerLink(changes: VehicleChanges, actor: User, vehi
   const code = newCode()
   const expiresAt = new Date(now.getTime() + days * DAY_MS)
   const { result: id } = await changeVehicle(changes, actor, vehicleId, async (scope) => {
-    if (scope.vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its owner needs no link now.')
+    if (scope.vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its owner needs no link now.', said('closedOwnerLink'))
     return addOwnerLink(scope, { token, code, expiresAt, now })
   })
   const [link] = await linksOf(changes.db, vehicleId, now, id)

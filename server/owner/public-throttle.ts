@@ -3,7 +3,7 @@ import { inArray } from 'drizzle-orm'
 import type { Response } from 'express'
 import type { Database } from '@db/client'
 import { signInFailures } from '@db/schema'
-import { AppError } from '../errors'
+import { AppError, said } from '../errors'
 import { addressKey, countFailure } from '../session/index'
 
 export interface PublicLimits {
@@ -35,7 +35,7 @@ export function publicThrottle(db: Database, limits: PublicLimits) {
       if (wait <= 0) return
       const seconds = Math.ceil(wait / 1000)
       res.setHeader('Retry-After', String(seconds))
-      throw new AppError(429, 'Too many tries from here. Wait a little and try again.', { retryAfterSeconds: seconds })
+      throw new AppError(429, 'Too many tries from here. Wait a little and try again.', said('tooManyTries', undefined, { retryAfterSeconds: seconds }))
     },
 
     /** One more try counted against this address. */

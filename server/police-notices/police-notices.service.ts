@@ -5,7 +5,7 @@ import { needsPoliceNotice, policeNoticeClock, type PoliceNotification } from '@
 import type { PoliceNoticeReply, policeNoticeInputSchema } from '@shared/schemas/police-notices'
 import type { User } from '@shared/schemas/users'
 import { ruleSetsOf } from '../charges/index'
-import { badRequest, conflict, unprocessable } from '../errors'
+import { badRequest, conflict, unprocessable, said } from '../errors'
 import { changeVehicle, type VehicleChanges } from '../vehicles/index'
 
 type Input = z.output<typeof policeNoticeInputSchema>
@@ -17,12 +17,12 @@ type Input = z.output<typeof policeNoticeInputSchema>
 export async function recordPoliceNotice(changes: VehicleChanges, actor: User, vehicleId: string, input: Input): Promise<PoliceNoticeReply> {
   const notification: PoliceNotification = { notifiedAt: new Date(input.notifiedAt).toISOString(), agency: input.agency, person: input.person, reportNumber: input.reportNumber }
   const { version, result } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
-    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard; its police notification can no longer be recorded.')
+    if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard; its police notification can no longer be recorded.', said('closedPolice'))
     const [tow] = await tx.select().from(tows).where(eq(tows.vehicleId, vehicleId))
     const rule = (await ruleSetsOf(tx, yard, [vehicle])).get(vehicle.id)?.policeNotice
-    if (!tow || !needsPoliceNotice(rule, tow.reason)) throw unprocessable("The vehicle's rule set asks no police notification for this tow.")
+    if (!tow || !needsPoliceNotice(rule, tow.reason)) throw unprocessable("The vehicle's rule set asks no police notification for this tow.", said('policeNotAsked'))
     const [already] = await tx.select({ at: policeNotices.notifiedAt }).from(policeNotices).where(eq(policeNotices.vehicleId, vehicleId))
-    if (already) throw conflict(`The police notification is already recorded (${already.at.toISOString()}).`)
+    if (already) throw conflict(`The police notification is already recorded (${already.at.toISOString()}).`, said('policeAlready'))
     const towTimes = [tow.calledAt, tow.hookedAt, tow.arrivedAt].filter((t): t is Date => t !== null)
     const earliest = new Date(Math.min(...towTimes.map((t) => t.getTime())))
     if (Date.parse(notification.notifiedAt) < earliest.getTime()) {

@@ -7,7 +7,7 @@ import { publicationInputSchema, type PublicationInput, type PublicationsPage } 
 import type { User } from '@shared/schemas/users'
 import { addClockEvent, vehicleClocks } from '../clock-events/index'
 import type { Language } from '../documents/index'
-import { badRequest, conflict, notFound, unprocessable } from '../errors'
+import { badRequest, conflict, notFound, unprocessable, said } from '../errors'
 import { prepareUploads, putFiles, recordFiles, type FileStore, type Incoming } from '../files/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges, type VehicleRow, type YardRow } from '../vehicles/index'
 import { publicationText } from './publication-text'
@@ -35,7 +35,7 @@ export async function publicationsPage(db: Executor, user: User, vehicleId: stri
 export async function recordPublication(changes: VehicleChanges, actor: User, vehicleId: string, raw: PublicationInput, now = new Date()) {
   const input = publicationInputSchema.parse(raw)
   return changeVehicle(changes, actor, vehicleId, async (w) => {
-    if (w.vehicle.state === 'closed') throw conflict(`${w.vehicle.stockNumber} has left the yard.`)
+    if (w.vehicle.state === 'closed') throw conflict(`${w.vehicle.stockNumber} has left the yard.`, said('closedPublication', { stock: w.vehicle.stockNumber }))
     const zone = w.yard.timeZone
     const today = localDay(zone, now.getTime())
     const days = input.days.map((d, i) => {

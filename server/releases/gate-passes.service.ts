@@ -4,7 +4,7 @@ import { gatePasses, users, vehicles, yards } from '@db/schema'
 import { dispositionFor, type GateRecorded, type GateVehicle } from '@shared/schemas/releases'
 import type { User } from '@shared/schemas/users'
 import { cardOf, judgeMove, makeMove } from '../board/index'
-import { AppError, conflict, unprocessable } from '../errors'
+import { AppError, conflict, unprocessable, said } from '../errors'
 import { changeVehicle, spaceOf, vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { gateHash, newGateCode, newGateToken, readPass } from './gate-keys'
 import { photoOf, releaseOf } from './releases.queries'
@@ -29,9 +29,9 @@ export async function issueGatePass(changes: VehicleChanges, actor: User, vehicl
   const code = newGateCode()
   const expiresAt = new Date(now.getTime() + GATE_PASS_HOURS * 3_600_000)
   const { result } = await changeVehicle(changes, actor, vehicleId, async (w) => {
-    if (w.vehicle.state !== 'release') throw conflict(`Move ${w.vehicle.stockNumber} to Release first, then issue the gate pass.`)
+    if (w.vehicle.state !== 'release') throw conflict(`Move ${w.vehicle.stockNumber} to Release first, then issue the gate pass.`, said('releaseFirst', { stock: w.vehicle.stockNumber }))
     const release = await releaseOf(w.tx, vehicleId)
-    if (!release?.claimantKind) throw unprocessable("The claimant's ID is not recorded.", { reasons: [{ code: 'claimant-id', message: "The claimant's ID is not recorded." }] })
+    if (!release?.claimantKind) throw unprocessable("The claimant's ID is not recorded.", said('claimantIdMissing', undefined, { reasons: [{ code: 'claimant-id', message: "The claimant's ID is not recorded.", key: 'claimantId' }] }))
     const disposition = dispositionFor(release.claimantKind)
     const verdict = await judgeMove(w.tx, w.vehicle, w.yard, actor, { to: 'closed', disposition, reason: null }, now)
     if (!verdict.allowed) {

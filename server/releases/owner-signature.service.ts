@@ -3,7 +3,7 @@ import type { Executor } from '@db/client'
 import { releases } from '@db/schema'
 import type { SignatureInput } from '@shared/schemas/releases'
 import type { OwnerRelease } from '@shared/schemas/owner'
-import { conflict, unprocessable } from '../errors'
+import { conflict, unprocessable, said } from '../errors'
 import { prepareUploads, putFiles, recordFiles, type FileStore } from '../files/index'
 import { changeVehicleAsOwner, type VehicleChanges } from '../vehicles/index'
 import { releaseOf, type ReleaseRow } from './releases.queries'
@@ -49,8 +49,8 @@ export async function signReleaseAsOwner(
     await changeVehicleAsOwner(changes, `${input.signerName} (owner, by link)`, link.vehicleId, async (w) => {
       const release = await releaseOf(w.tx, link.vehicleId)
       const may = ownerReleaseOf(w.vehicle.state, release)
-      if (may.status === 'signed') throw conflict('The release is already signed.')
-      if (may.status !== 'ready') throw unprocessable('The release cannot be signed from this page yet: the counter records who collects, their ID and the handover first.', { missing: may.missing })
+      if (may.status === 'signed') throw conflict('The release is already signed.', said('releaseAlreadySigned'))
+      if (may.status !== 'ready') throw unprocessable('The release cannot be signed from this page yet: the counter records who collects, their ID and the handover first.', said('ownerCannotSignYet', undefined, { missing: may.missing }))
       // The owner has no staff account: the file names no uploader, the history names the owner.
       await recordFiles({ ...w, actor: { id: null } }, stored)
       await w.tx.update(releases).set({ signatureFileId: stored[0]!.id, signerName: input.signerName, signedAt: now }).where(eq(releases.id, release!.id))

@@ -7,7 +7,7 @@ import type { z } from 'zod'
 import type { handoverInputSchema } from '@shared/schemas/releases'
 import type { Executor } from '@db/client'
 import { judgeMove, moveFacts } from '../board/index'
-import { badRequest, conflict, unprocessable } from '../errors'
+import { badRequest, conflict, unprocessable, said } from '../errors'
 import { prepareUploads, putFiles, recordFiles, type FileStore, type Incoming } from '../files/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges, type VehicleWork } from '../vehicles/index'
 import { currentPass, inventoryOf, propertyAtRelease, releaseOf, releaseRecord, type ReleaseRow } from './releases.queries'
@@ -17,12 +17,12 @@ type Handover = z.output<typeof handoverInputSchema>
 
 /** Release work happens at the counter, in Release, until the claimant signs. */
 function mustBeOpen(w: VehicleWork, release: ReleaseRow | undefined, action: string) {
-  if (w.vehicle.state !== 'release') throw conflict(`Move ${w.vehicle.stockNumber} to Release first, then ${action}.`)
-  if (release?.signedAt) throw conflict('The release is signed: what it records can no longer change.')
+  if (w.vehicle.state !== 'release') throw conflict(`Move ${w.vehicle.stockNumber} to Release first, then ${action}.`, said('releaseFirst', { stock: w.vehicle.stockNumber }))
+  if (release?.signedAt) throw conflict('The release is signed: what it records can no longer change.', said('releaseSigned'))
 }
 
 function needClaimant(release: ReleaseRow | undefined): asserts release is ReleaseRow {
-  if (!release?.claimantKind) throw conflict('Record who is collecting and their ID first.')
+  if (!release?.claimantKind) throw conflict('Record who is collecting and their ID first.', said('claimantFirst'))
 }
 
 /**
@@ -221,10 +221,10 @@ export async function releasePage(db: Executor, user: User, vehicleId: string, n
     disposition,
     gateReasons:
       vehicle.state !== 'release'
-        ? [{ code: 'not-a-move', message: `Move ${vehicle.stockNumber} to Release first.` }]
+        ? [{ code: 'not-a-move', message: `Move ${vehicle.stockNumber} to Release first.`, key: 'releaseFirst', params: { stock: vehicle.stockNumber } }]
         : verdict
-          ? verdict.reasons.map((r) => ({ code: r.code, message: r.message }))
-          : [{ code: 'claimant-id', message: "The claimant's ID is not recorded." }],
+          ? verdict.reasons.map((r) => ({ code: r.code, message: r.message, key: r.key, params: r.params }))
+          : [{ code: 'claimant-id', message: "The claimant's ID is not recorded.", key: 'claimantId' }],
     gatePass: pass && !pass.withdrawnAt ? { id: pass.id, issuedAt: pass.issuedAt.toISOString(), expiresAt: pass.expiresAt.toISOString(), usedAt: pass.usedAt?.toISOString() ?? null } : null,
   }
 }

@@ -6,7 +6,7 @@ import { ruleSetSchema, type RuleSet } from '@shared/schemas/rule-sets'
 import type { CopyRuleSet, RuleSetDetail, RuleSetSummary, SaveRuleSet } from '@shared/schemas/rule-set-editor'
 import { ruleSetEditSchema } from '@shared/schemas/rule-set-editor'
 import type { User } from '@shared/schemas/users'
-import { conflict, forbidden, notFound, unprocessable } from '../errors'
+import { conflict, forbidden, notFound, unprocessable, said } from '../errors'
 import { latestRuleSets, type RuleSetVersion } from '../rule-sets/index'
 import { changedValues, recordSettingsChange } from '../settings-audit/index'
 import { companyOf } from '../users/index'
@@ -73,14 +73,14 @@ export async function saveRuleSet(db: Database, actor: User, slug: string, input
       .where(and(eq(ruleSets.slug, slug), or(isNull(ruleSets.companyId), eq(ruleSets.companyId, companyId))))
       .for('update')
     if (!set) throw notFound('That rule set')
-    if (set.companyId === null) throw forbidden('A sample cannot be changed: copy it, then edit the copy.')
+    if (set.companyId === null) throw forbidden('A sample cannot be changed: copy it, then edit the copy.', 'sampleLocked')
     const [latest] = await tx.select().from(ruleSetVersions).where(eq(ruleSetVersions.ruleSetId, set.id)).orderBy(desc(ruleSetVersions.version)).limit(1)
     if (latest!.version !== input.version) {
-      throw conflict(`Someone saved version ${latest!.version} of this rule set after you opened it. Reload it, then make your change again.`, { version: latest!.version })
+      throw conflict(`Someone saved version ${latest!.version} of this rule set after you opened it. Reload it, then make your change again.`, said('ruleSetStale', { version: latest!.version }, { version: latest!.version }))
     }
     const before = ruleSetSchema.parse(latest!.body)
     const diff = changedValues(before, ruleSet)
-    if (Object.keys(diff.after).length === 0 && Object.keys(diff.before).length === 0) throw unprocessable('Nothing was changed: this version already says that.')
+    if (Object.keys(diff.after).length === 0 && Object.keys(diff.before).length === 0) throw unprocessable('Nothing was changed: this version already says that.', said('nothingChanged'))
     const version = latest!.version + 1
     await tx.insert(ruleSetVersions).values({ ruleSetId: set.id, version, body: ruleSet, createdById: actor.id })
     await tx.update(ruleSets).set({ name: ruleSet.name }).where(eq(ruleSets.id, set.id))

@@ -3,7 +3,7 @@ import type { Database } from '@db/client'
 import { ruleSets, ruleSetVersions, vehicles } from '@db/schema'
 import type { MoveToLatestVersion, OlderVersionVehicles } from '@shared/schemas/rule-set-editor'
 import type { User } from '@shared/schemas/users'
-import { conflict, notFound, unprocessable } from '../errors'
+import { conflict, notFound, unprocessable, said } from '../errors'
 import { latestVersionOf } from '../rule-sets/index'
 import { changeVehicle, type VehicleChanges } from '../vehicles/index'
 import { companyOf } from '../users/index'
@@ -39,8 +39,8 @@ export async function moveToLatestVersion(changes: VehicleChanges, actor: User, 
     actor,
     vehicleId,
     async ({ tx, vehicle, yard, set, record }) => {
-      if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its bill is final.')
-      if (!yard.ruleSetId) throw unprocessable('The yard has no rule set to move the vehicle to: choose one in Settings first.')
+      if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its bill is final.', said('closedBill'))
+      if (!yard.ruleSetId) throw unprocessable('The yard has no rule set to move the vehicle to: choose one in Settings first.', said('noYardRuleSet'))
       const latest = (await latestVersionOf(tx, yard.ruleSetId))!
       if (vehicle.ruleSetVersionId === latest.versionId) throw unprocessable(`This vehicle is already on version ${latest.version} of ${latest.ruleSet.name}.`)
       if (!latest.ruleSet.vehicleClasses.some((c) => c.code === vehicle.vehicleClass)) {
@@ -64,7 +64,7 @@ export async function moveToLatestVersion(changes: VehicleChanges, actor: User, 
     },
     {
       expectedVersion: input.version,
-      stale: ({ vehicle }) => conflict('Someone else changed this vehicle after you opened it. Reload, then move it again.', { version: vehicle.version }),
+      stale: ({ vehicle }) => conflict('Someone else changed this vehicle after you opened it. Reload, then move it again.', said('vehicleStale', undefined, { version: vehicle.version })),
     },
   )
   return { version }

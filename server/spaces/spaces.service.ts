@@ -1,6 +1,6 @@
 import type { AssignSpace } from '@shared/schemas/spaces'
 import type { User } from '@shared/schemas/users'
-import { conflict, unprocessable } from '../errors'
+import { conflict, unprocessable, said } from '../errors'
 import { changeVehicle, spaceOf, type VehicleChanges } from '../vehicles/index'
 import { freeSpace, isSpaceConflict, spaceTaken } from './spaces.queries'
 
@@ -12,8 +12,8 @@ export async function assignSpace(changes: VehicleChanges, actor: User, vehicleI
       actor,
       vehicleId,
       async ({ tx, vehicle, yard, set, record }) => {
-        if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard and no longer takes a space.')
-        if (input.spaceId === vehicle.spaceId) throw unprocessable('The vehicle is already in that space.')
+        if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard and no longer takes a space.', said('closedSpace'))
+        if (input.spaceId === vehicle.spaceId) throw unprocessable('The vehicle is already in that space.', said('alreadyInSpace'))
         const from = await spaceOf(tx, vehicle.spaceId)
         const to = input.spaceId ? await freeSpace(tx, yard.id, input.spaceId, 'spaceId', vehicleId) : null
         set({ spaceId: input.spaceId })
@@ -22,7 +22,7 @@ export async function assignSpace(changes: VehicleChanges, actor: User, vehicleI
       },
       {
         expectedVersion: input.version,
-        stale: ({ vehicle }) => conflict('Someone else changed this vehicle after you opened it. Reload and choose the space again.', { version: vehicle.version }),
+        stale: ({ vehicle }) => conflict('Someone else changed this vehicle after you opened it. Reload and choose the space again.', said('vehicleStale', undefined, { version: vehicle.version })),
       },
     )
     return { version, space }

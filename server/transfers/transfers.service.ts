@@ -10,7 +10,7 @@ import { transferInputSchema } from '@shared/schemas/transfers'
 import type { User } from '@shared/schemas/users'
 import { moveFacts } from '../board/index'
 import { transferPacket, type Language } from '../documents/index'
-import { badRequest, conflict, notFound, unprocessable } from '../errors'
+import { badRequest, conflict, notFound, unprocessable, said } from '../errors'
 import { prepareUploads, putFiles, recordFiles, type FileStore } from '../files/index'
 import { signatureImage } from '../releases/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges, type VehicleRow, type VehicleWork } from '../vehicles/index'
@@ -20,9 +20,9 @@ const field = (path: string, message: string) => badRequest(message, [{ path, me
 
 /** A transfer is recorded while the vehicle waits in Storage or Release, and changes until it is signed. */
 function mustBeOpen(vehicle: VehicleRow, row: TransferRow | undefined, action: string) {
-  if (vehicle.state === 'closed') throw conflict(`${vehicle.stockNumber} has left the yard: its transfer can no longer change.`)
-  if (vehicle.state !== 'storage' && vehicle.state !== 'release') throw unprocessable(`Move ${vehicle.stockNumber} to Storage or Release first, then ${action}.`)
-  if (row?.signedAt) throw conflict('The bill of sale is signed: what it records can no longer change.')
+  if (vehicle.state === 'closed') throw conflict(`${vehicle.stockNumber} has left the yard: its transfer can no longer change.`, said('closedTransfer', { stock: vehicle.stockNumber }))
+  if (vehicle.state !== 'storage' && vehicle.state !== 'release') throw unprocessable(`Move ${vehicle.stockNumber} to Storage or Release first, then ${action}.`, said('storageOrReleaseFirst', { stock: vehicle.stockNumber }))
+  if (row?.signedAt) throw conflict('The bill of sale is signed: what it records can no longer change.', said('billOfSaleSigned'))
 }
 
 /**

@@ -1,7 +1,7 @@
 import type { Database } from '@db/client'
 import type { Locale } from '@shared/messages/locales'
 import type { CreateUser, UpdateUser, User } from '@shared/schemas/users'
-import { conflict, notFound, unprocessable } from '../errors'
+import { conflict, notFound, unprocessable, said } from '../errors'
 import type { BoardNotifier } from '../live/index'
 import { endSessionsOf, localeInSessions, renameInSessions } from '../session/index'
 import { hashPassword } from './passwords'
@@ -16,7 +16,7 @@ export async function listUsers(db: Database, actor: User) {
 
 // Only the manager's own company is looked at: whether another company uses the address is not
 // theirs to learn, and an account there does not stand in the way (sign-in tells them apart by password).
-const alreadyOnStaff = (email: string) => conflict(`${email} is already on your staff list. Find them there, or use another address.`)
+const alreadyOnStaff = (email: string) => conflict(`${email} is already on your staff list. Find them there, or use another address.`, said('alreadyOnStaff', { email }))
 
 export async function createUser(db: Database, actor: User, input: CreateUser) {
   const me = await q.findUser(db, actor.id)
@@ -45,7 +45,7 @@ export async function changeUser(db: Database, boards: BoardNotifier, actor: Use
     if (!target || target.companyId !== me!.companyId) throw notFound('That user')
     const losesManager = target.role === 'manager' && target.active && (input.active === false || (input.role && input.role !== 'manager'))
     if (losesManager && (await q.countActiveManagers(tx, target.companyId)) <= 1) {
-      throw unprocessable('The company must keep at least one active manager.')
+      throw unprocessable('The company must keep at least one active manager.', said('lastManager'))
     }
     const row = await q.updateUser(tx, id, input)
     if (endsSessions) await endSessionsOf(tx, id)

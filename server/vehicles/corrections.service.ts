@@ -3,7 +3,7 @@ import { tows } from '@db/schema'
 import type { correctVehicleSchema } from '@shared/schemas/tow-in'
 import type { User } from '@shared/schemas/users'
 import type { z } from 'zod'
-import { conflict, unprocessable } from '../errors'
+import { conflict, unprocessable, said } from '../errors'
 import { assertKnownClass, classesOfVersion } from './rules'
 import { towColumns } from './tow-charge'
 import { changeVehicle, type VehicleChanges, type VehicleColumns } from './vehicle-change'
@@ -67,13 +67,13 @@ export async function correctVehicle(changes: VehicleChanges, actor: User, vehic
           if ('arrivedAt' in d.after) vehicleChanges.arrivedAt = towRow.arrivedAt
         }
       }
-      if (Object.keys(after).length === 0) throw unprocessable('Nothing was changed: the record already says that.')
+      if (Object.keys(after).length === 0) throw unprocessable('Nothing was changed: the record already says that.', said('nothingChanged'))
       set(vehicleChanges as VehicleColumns)
       record({ kind: 'corrected', reason: input.reason, before, after })
     },
     {
       expectedVersion: input.version,
-      stale: ({ vehicle }) => conflict('Someone else changed this vehicle after you opened it. Reload to see their change, then correct it again.', { version: vehicle.version }),
+      stale: ({ vehicle }) => conflict('Someone else changed this vehicle after you opened it. Reload to see their change, then correct it again.', said('vehicleStale', undefined, { version: vehicle.version })),
     },
   )
   return { version }

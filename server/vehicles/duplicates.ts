@@ -1,7 +1,7 @@
 import { and, eq, ne, or, sql, type SQL } from 'drizzle-orm'
 import type { Executor } from '@db/client'
 import { vehicles, yards } from '@db/schema'
-import { conflict } from '../errors'
+import { conflict, said } from '../errors'
 import type { YardRow } from './vehicles.queries'
 
 export interface Lookalike {
@@ -44,6 +44,6 @@ export function assertNotLoggedTwice(found: Lookalike[], reason: string | null) 
   throw conflict(
     `This vehicle may already be on the lot: ${first.stockNumber} has ${what}${found.length > 1 ? ` (and ${found.length - 1} more)` : ''}. ` +
       'Open it instead, or say why this is a separate tow-in.',
-    { duplicates: found },
+    said('maybeTwice', { stock: first.stockNumber }, { duplicates: found }),
   )
 }

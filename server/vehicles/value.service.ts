@@ -1,7 +1,7 @@
 import type { VehicleValueReply, vehicleValueSchema } from '@shared/schemas/vehicles'
 import type { User } from '@shared/schemas/users'
 import type { z } from 'zod'
-import { conflict, unprocessable } from '../errors'
+import { conflict, unprocessable, said } from '../errors'
 import { changeVehicle, type VehicleChanges } from './vehicle-change'
 
 type ValueInput = z.output<typeof vehicleValueSchema>
@@ -17,9 +17,9 @@ export async function recordValue(changes: VehicleChanges, actor: User, vehicleI
     actor,
     vehicleId,
     async ({ vehicle, set, record }) => {
-      if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard; its value can no longer be changed.')
+      if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard; its value can no longer be changed.', said('closedValue'))
       if (vehicle.estimatedValueCents === input.valueCents && vehicle.estimatedValueSource === input.source) {
-        throw unprocessable('Nothing was changed: the record already says that.')
+        throw unprocessable('Nothing was changed: the record already says that.', said('nothingChanged'))
       }
       set({ estimatedValueCents: input.valueCents, estimatedValueSource: input.source })
       record({
@@ -30,7 +30,7 @@ export async function recordValue(changes: VehicleChanges, actor: User, vehicleI
     },
     {
       expectedVersion: input.version,
-      stale: ({ vehicle }) => conflict('Someone else changed this vehicle after you opened it. Reload to see their change, then record the value again.', { version: vehicle.version }),
+      stale: ({ vehicle }) => conflict('Someone else changed this vehicle after you opened it. Reload to see their change, then record the value again.', said('vehicleStale', undefined, { version: vehicle.version })),
     },
   )
   return { version, valueCents: input.valueCents, source: input.source }

@@ -5,7 +5,7 @@ import { vehicles } from '@db/schema'
 import type { BoardCard } from '@shared/schemas/board'
 import type { HistoryKind } from '@shared/schemas/history'
 import type { User } from '@shared/schemas/users'
-import { conflict, type AppError } from '../errors'
+import { conflict, type AppError, said } from '../errors'
 import type { BoardNotifier } from '../live/index'
 import { vehicleById, vehicleForUser, type VehicleRow, type YardRow } from './vehicles.queries'
 
@@ -58,7 +58,7 @@ export interface Changed<T> {
 }
 
 const staleVersion = (version: number) =>
-  conflict('Someone else changed this vehicle after you opened it. Reload to see their change, then try again.', { version })
+  conflict('Someone else changed this vehicle after you opened it. Reload to see their change, then try again.', said('vehicleStale', undefined, { version }))
 
 function collector() {
   const events: HistoryEntry[] = []

@@ -18,7 +18,13 @@ export const moveRequestSchema = z.object({
 })
 export type MoveRequest = z.input<typeof moveRequestSchema>
 
-export const reasonSchema = z.object({ code: z.string(), message: z.string() })
+export const reasonSchema = z.object({
+  code: z.string(),
+  message: z.string(),
+  // The words in the reader's language (refusals.reasons.<key> in shared/messages) and their parameters.
+  key: z.string().optional(),
+  params: z.record(z.string(), z.union([z.string(), z.number()])).optional(),
+})
 
 /** 403 or 422: the move was refused and nothing was written. */
 export const moveRefusalSchema = z.object({ error: z.string(), reasons: z.array(reasonSchema) })

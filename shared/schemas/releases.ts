@@ -143,7 +143,7 @@ export const releasePageSchema = z.object({
   /** The way out this release closes by, once a claimant is recorded. */
   disposition: z.enum(DISPOSITIONS).nullable(),
   /** Why a gate pass cannot be issued yet (the closing move's reasons), empty when it can. */
-  gateReasons: z.array(z.object({ code: z.string(), message: z.string() })),
+  gateReasons: z.array(z.object({ code: z.string(), message: z.string(), key: z.string().optional(), params: z.record(z.string(), z.union([z.string(), z.number()])).optional() })),
   gatePass: z.object({ id: z.uuid(), issuedAt: z.string(), expiresAt: z.string(), usedAt: z.string().nullable() }).nullable(),
 })
 export type ReleasePage = z.infer<typeof releasePageSchema>

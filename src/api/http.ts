@@ -1,4 +1,5 @@
 import type { z } from 'zod'
+import { refusalText } from '@/composables/refusal-words'
 
 export interface FieldIssue {
   path: string
@@ -60,8 +61,10 @@ async function send(method: Method, url: string, body?: unknown): Promise<Respon
   // Signing in itself answers 401 to a wrong password: that is not a session ending.
   if (res.status === 401 && !url.startsWith('/api/session')) sessionEnded()
   if (!res.ok) {
-    const data = (await res.json().catch(() => ({}))) as { error?: string; issues?: FieldIssue[] }
-    throw new ApiError(res.status, data.error ?? `The server answered ${res.status}.`, data.issues ?? [], data as Record<string, unknown>)
+    const data = (await res.json().catch(() => ({}))) as { error?: string; code?: string; params?: Record<string, string | number>; issues?: FieldIssue[] }
+    // A refusal's code (refusals.<code> in shared/messages) gives its words in the reader's language; the English is the fallback.
+    const message = refusalText(data.code, data.params, data.error ?? `The server answered ${res.status}.`)
+    throw new ApiError(res.status, message, data.issues ?? [], data as Record<string, unknown>)
   }
   return res
 }

@@ -5,6 +5,7 @@ import { moveConflictSchema, moveRefusalSchema } from '@shared/schemas/moves'
 import { useMoveVehicleMutation } from '@/api/board'
 import { ApiError } from '@/api/http'
 import { i18n } from '@/i18n'
+import { reasonText } from './refusal-words'
 import { useSessionStore } from '@/stores/session'
 import { useBoardCache } from './board-cache'
 
@@ -43,7 +44,7 @@ export function useBoardMoves() {
 
   async function move(card: BoardCard, to: VehicleState, details: MoveDetails = {}): Promise<MoveOutcome> {
     const v = verdict(card, to, details)
-    if (!v.allowed) return { ok: false, title: cannot(card, to), reasons: v.reasons.map((r) => r.message) }
+    if (!v.allowed) return { ok: false, title: cannot(card, to), reasons: v.reasons.map(reasonText) }
     pending.add(card.id)
     cache.place(card, to === 'closed' ? 'closed' : to)
     try {
@@ -54,11 +55,11 @@ export function useBoardMoves() {
       const conflict = e instanceof ApiError && e.status === 409 ? moveConflictSchema.safeParse(e.body) : null
       if (conflict?.success) {
         cache.put(conflict.data.current)
-        return { ok: false, conflict: true, title: t('board.changedElsewhere', { stock: card.stockNumber }), reasons: [conflict.data.error] }
+        return { ok: false, conflict: true, title: t('board.changedElsewhere', { stock: card.stockNumber }), reasons: [(e as Error).message] }
       }
       cache.put(card)
       const refusal = e instanceof ApiError ? moveRefusalSchema.safeParse(e.body) : null
-      return { ok: false, title: cannot(card, to), reasons: refusal?.success ? refusal.data.reasons.map((r) => r.message) : [(e as Error).message] }
+      return { ok: false, title: cannot(card, to), reasons: refusal?.success ? refusal.data.reasons.map(reasonText) : [(e as Error).message] }
     } finally {
       pending.delete(card.id)
     }

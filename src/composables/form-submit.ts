@@ -1,5 +1,6 @@
 import { isReactive, ref } from 'vue'
 import type { z } from 'zod'
+import { i18n } from '@/i18n'
 import { useFieldErrors } from './field-errors'
 
 /**
@@ -26,7 +27,8 @@ export function useFormSubmit<S extends z.ZodType>(schema: S, send: (input: z.ou
       await send(parsed.data)
       return true
     } catch (e) {
-      message.value = fromApi(e) ? 'Nothing was saved. Check the fields marked in red.' : `Nothing was saved: ${(e as Error).message}`
+      // The refusal itself is already in the reader's language (src/api/http.ts renders its code).
+      message.value = fromApi(e) ? i18n.global.t('common.notSaved.checkFields') : i18n.global.t('common.notSaved.why', { why: (e as Error).message })
       return false
     } finally {
       busy.value = false

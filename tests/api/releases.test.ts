@@ -42,7 +42,7 @@ describe('the release checklist, enforced through the lifecycle', () => {
     expect(await codes()).toEqual(['balance'])
     const pass = await s.post(`${base(vehicle.id)}/gate-pass`)
     expect(pass.status).toBe(422)
-    expect(pass.body.reasons).toEqual([{ code: 'balance', message: expect.stringMatching(/^Balance unpaid: \$[\d,.]+ due\./) }])
+    expect(pass.body.reasons).toMatchObject([{ code: 'balance', message: expect.stringMatching(/^Balance unpaid: \$[\d,.]+ due\./) }])
     expect(await app.db.select().from(t.gatePasses).where(eq(t.gatePasses.vehicleId, vehicle.id))).toEqual([])
   })
 

@@ -45,6 +45,9 @@ export type ReasonCode =
 export interface Reason {
   code: ReasonCode
   message: string
+  /** The words in the reader's language: a key under `refusals.reasons` in shared/messages and its parameters (codes, cents, dates). */
+  key?: string
+  params?: Record<string, string | number>
 }
 
 export interface GuardContext {
@@ -76,38 +79,43 @@ export function describeHold(h: HoldFact, timeZone: string, now: Date): string {
 }
 
 export const noActiveHold: Guard = (f, ctx) =>
-  f.holds.map((h) => ({ code: 'hold', message: `${describeHold(h, f.timeZone, ctx.now)} — it cannot ${destination(ctx.to)}.` }))
+  f.holds.map((h) => ({
+    code: 'hold',
+    message: `${describeHold(h, f.timeZone, ctx.now)} — it cannot ${destination(ctx.to)}.`,
+    key: ctx.to === 'closed' ? 'holdClose' : 'hold',
+    params: { hold: h.kind, who: h.agency || h.caseNumber ? ` (${[h.agency, h.caseNumber].filter(Boolean).join(', ')})` : '', column: ctx.to },
+  }))
 
 export const inspectionFinished: Guard = (f) =>
-  f.inspected ? [] : [{ code: 'inspection', message: 'The inspection is not finished — the technician finishes it in Teardown first.' }]
+  f.inspected ? [] : [{ code: 'inspection', message: 'The inspection is not finished — the technician finishes it in Teardown first.', key: 'inspection' }]
 
 export const balanceSettled: Guard = (f) => {
   if (f.waived) return []
-  if (f.balanceCents === null) return [{ code: 'balance', message: 'No rule set bills this vehicle, so its balance cannot be settled.' }]
+  if (f.balanceCents === null) return [{ code: 'balance', message: 'No rule set bills this vehicle, so its balance cannot be settled.', key: 'noBill' }]
   const due = f.balanceCents - f.creditedCents - f.paidCents
   if (due <= 0) return []
-  return [{ code: 'balance', message: `Balance unpaid: ${formatCents(due)} due. Take the payment, or a manager waives it with a reason.` }]
+  return [{ code: 'balance', message: `Balance unpaid: ${formatCents(due)} due. Take the payment, or a manager waives it with a reason.`, key: 'balance', params: { dueCents: due } }]
 }
 
 export const claimantIdRecorded: Guard = (f) =>
-  f.claimantIdRecorded ? [] : [{ code: 'claimant-id', message: "The claimant's ID is not recorded." }]
+  f.claimantIdRecorded ? [] : [{ code: 'claimant-id', message: "The claimant's ID is not recorded.", key: 'claimantId' }]
 
-export const releaseSigned: Guard = (f) => (f.releaseSigned ? [] : [{ code: 'release-signed', message: 'The release is not signed.' }])
+export const releaseSigned: Guard = (f) => (f.releaseSigned ? [] : [{ code: 'release-signed', message: 'The release is not signed.', key: 'releaseSigned' }])
 
 export const transferSigned: Guard = (f) =>
-  f.transferSigned ? [] : [{ code: 'release-signed', message: 'The title transfer is not signed.' }]
+  f.transferSigned ? [] : [{ code: 'release-signed', message: 'The title transfer is not signed.', key: 'transferSigned' }]
 
 export const lienSaleSigned: Guard = (f) =>
-  f.lienSaleSigned ? [] : [{ code: 'release-signed', message: 'The lien sale is not recorded and signed: record the buyer, the price and the proceeds, then sign the bill of sale.' }]
+  f.lienSaleSigned ? [] : [{ code: 'release-signed', message: 'The lien sale is not recorded and signed: record the buyer, the price and the proceeds, then sign the bill of sale.', key: 'lienSaleSigned' }]
 
 export const lienSaleAllowed: Guard = (f, ctx) => {
   const gate = f.lienSale
-  if (!gate) return [{ code: 'lien-sale', message: 'No rule set gives this vehicle a lien-sale date, so the law has not been shown to allow a sale or disposal.' }]
+  if (!gate) return [{ code: 'lien-sale', message: 'No rule set gives this vehicle a lien-sale date, so the law has not been shown to allow a sale or disposal.', key: 'lienSaleNoDate' }]
   if (gate.open) return []
   if (gate.code === 'not-before' && gate.date) {
-    return [{ code: 'lien-sale', message: `The law does not allow a lien sale or disposal before ${shortDate(gate.date, f.timeZone, ctx.now)}.` }]
+    return [{ code: 'lien-sale', message: `The law does not allow a lien sale or disposal before ${shortDate(gate.date, f.timeZone, ctx.now)}.`, key: 'lienSaleBefore', params: { date: gate.date } }]
   }
-  return [{ code: 'lien-sale', message: `The law has not been shown to allow a lien sale or disposal yet. ${gate.why}` }]
+  return [{ code: 'lien-sale', message: `The law has not been shown to allow a lien sale or disposal yet. ${gate.why}`, key: 'lienSaleNotYet' }]
 }
 
 /**

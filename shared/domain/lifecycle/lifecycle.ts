@@ -88,13 +88,15 @@ function roleReason(rule: MoveRule): Reason {
   const names = (PERMISSIONS[rule.permission] as readonly Role[]).map((r) => ROLE_WORDS[r])
   const who = names.length > 1 ? `${names.slice(0, -1).join(', ')} and ${names.at(-1)}` : names[0]
   const what = rule.to === 'closed' ? 'close a vehicle' : `move a vehicle from ${COLUMN_LABELS[rule.from]} to ${COLUMN_LABELS[rule.to]}`
-  return { code: 'role', message: `Only ${who} can ${what}.` }
+  const roles = (PERMISSIONS[rule.permission] as readonly Role[]).join(',')
+  const key = rule.to === 'closed' ? 'roleClose' : 'role'
+  return { code: 'role', message: `Only ${who} can ${what}.`, key, params: { roles, from: rule.from, to: rule.to } }
 }
 
 function noSuchMove(from: VehicleState, to: VehicleState): Reason {
-  if (from === to) return { code: 'not-a-move', message: `It is already in ${COLUMN_LABELS[from]}.` }
-  if (from === 'closed') return { code: 'not-a-move', message: 'It is closed; a closed vehicle does not come back to the board.' }
-  return { code: 'not-a-move', message: `A vehicle does not go from ${COLUMN_LABELS[from]} to ${COLUMN_LABELS[to]}.` }
+  if (from === to) return { code: 'not-a-move', message: `It is already in ${COLUMN_LABELS[from]}.`, key: 'alreadyIn', params: { column: from } }
+  if (from === 'closed') return { code: 'not-a-move', message: 'It is closed; a closed vehicle does not come back to the board.', key: 'closed' }
+  return { code: 'not-a-move', message: `A vehicle does not go from ${COLUMN_LABELS[from]} to ${COLUMN_LABELS[to]}.`, key: 'noSuchMove', params: { from, to } }
 }
 
 /** Whether this person may make this move now, and every reason why not, in the yard's words. */
@@ -105,17 +107,17 @@ export function checkMove(a: MoveAttempt): Verdict {
   const ctx = { to: a.to, now: a.now ?? new Date() }
   const reasons = rule.guards.flatMap((guard) => guard(a.facts, ctx))
   if (rule.dispositions) reasons.push(...dispositionReasons(rule, a))
-  if (rule.back && !a.reason?.trim()) reasons.push({ code: 'reason', message: `Say why it goes back to ${COLUMN_LABELS[a.to]}.` })
+  if (rule.back && !a.reason?.trim()) reasons.push({ code: 'reason', message: `Say why it goes back to ${COLUMN_LABELS[a.to]}.`, key: 'sayWhy', params: { column: a.to } })
   return { allowed: reasons.length === 0, forbidden: false, reasons }
 }
 
 function dispositionReasons(rule: MoveRule, a: MoveAttempt): Reason[] {
-  if (!a.disposition) return [{ code: 'disposition', message: 'Choose how the vehicle leaves the yard.' }]
+  if (!a.disposition) return [{ code: 'disposition', message: 'Choose how the vehicle leaves the yard.', key: 'chooseDisposition' }]
   const guards = rule.dispositions![a.disposition]
   if (!guards) {
     const ways = DISPOSITIONS.filter((d) => rule.dispositions![d]).map((d) => DISPOSITION_WORDS[d])
     const list = `${ways.slice(0, -1).join(', ')} or ${ways.at(-1)}`
-    return [{ code: 'disposition', message: `From ${COLUMN_LABELS[rule.from]} a vehicle leaves only by ${list}; to hand it over, move it to Release first.` }]
+    return [{ code: 'disposition', message: `From ${COLUMN_LABELS[rule.from]} a vehicle leaves only by ${list}; to hand it over, move it to Release first.`, key: 'dispositionNotFrom', params: { from: rule.from } }]
   }
   return guards.flatMap((guard) => guard(a.facts, { to: 'closed', now: a.now ?? new Date() }))
 }

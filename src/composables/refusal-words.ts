@@ -1,0 +1,29 @@
+import { i18n } from '@/i18n'
+import { money } from '@/composables/money'
+import { calendarDate } from '@/composables/yard-time'
+
+// A refusal in the reader's language. The server and the shared lifecycle send a code (a key under
+// `refusals` in shared/messages) and its parameters beside their English sentence; the sentence is the
+// fallback for a code the catalogs lack. Parameters that are codes become their words here.
+const { t, te } = i18n.global
+
+type Params = Record<string, string | number>
+
+function words(name: string, value: string | number): string | number {
+  if (typeof value === 'number') return name.endsWith('Cents') ? money(value) : value
+  if ((name === 'column' || name === 'from' || name === 'to' || name === 'state') && te(`lifecycle.columns.${value}`)) return t(`lifecycle.columns.${value}`)
+  if (name === 'hold' && te(`lifecycle.holds.${value}`)) return t(`lifecycle.holds.${value}`)
+  if (name === 'roles') return value.split(',').map((r) => (te(`access.roles.${r}`) ? t(`access.roles.${r}`) : r)).join(', ')
+  if (name === 'date' && /^\d{4}-\d{2}-\d{2}$/.test(value)) return calendarDate(value)
+  return value
+}
+
+/** The catalog's words for `key` (under `refusals`), else the English `fallback`. */
+export function refusalText(key: string | undefined, params: Params | undefined, fallback: string): string {
+  if (!key || !te(`refusals.${key}`)) return fallback
+  const shown = Object.fromEntries(Object.entries(params ?? {}).map(([k, v]) => [k, words(k, v)]))
+  return t(`refusals.${key}`, shown)
+}
+
+/** A lifecycle reason (why a move is refused now) in the reader's language. */
+export const reasonText = (r: { key?: string; params?: Params; message: string }) => refusalText(r.key && `reasons.${r.key}`, r.params, r.message)
