@@ -47,7 +47,8 @@ try {
   await handle.close()
   process.exit(78)
 }
-const loadedDemo = config.demo ? await loadDemoIfEmpty(db, historyKey, new Date(), config.ruleSetsFolder) : null
+const files = localFileStore(config.filesDir)
+const loadedDemo = config.demo ? await loadDemoIfEmpty(db, historyKey, new Date(), config.ruleSetsFolder, files) : null
 if (loadedDemo && !process.stdout.isTTY) log.info('Loaded the demo yard.')
 // A returning person at a terminal is shown the demo sign-ins each time; a log collector only on the first load.
 const demo = process.stdout.isTTY ? (loadedDemo ?? (config.demo ? await demoSignIns(db) : null)) : loadedDemo
@@ -62,7 +63,6 @@ const live = config.database.kind === 'postgres' ? await postgresBus(config.data
 // Mail goes to SMTP_URL, or to the local stand-in through the very same transport.
 const localSmtp = config.mail.smtpUrl ? undefined : await startLocalSmtp({ folder: config.mail.localFolder })
 if (localSmtp) log.info(`No SMTP_URL: e-mail goes to the local stand-in at ${localSmtp.url}, kept in ${config.mail.localFolder}`)
-const files = localFileStore(config.filesDir)
 const outbox = new OutboxWorker(db, smtpTransport(config.mail.smtpUrl ?? localSmtp!.url), files, log, { from: config.mail.from })
 
 const app = createApp({

@@ -1,1 +1,3 @@
 export { gateRouter, releasesRouter, type ReleaseDeps } from './releases.routes'
+export { addIdPhoto, recordClaimant, recordHandover, signRelease } from './releases.service'
+export { issueGatePass, recordOut } from './gate-passes.service'
