@@ -20,7 +20,7 @@ beforeAll(async () => {
   await loadDemoIfEmpty(app.db, TEST_HISTORY_KEY)
   office = await signedIn(app.app, { email: 'priya@tamsincreek.example', password: DEMO_PASSWORD })
   vehicles = await app.db.select().from(t.vehicles).orderBy(asc(t.vehicles.arrivedAt))
-}, 120_000)
+}, 180_000)
 afterAll(() => app.close())
 
 /** The wall-clock weekday and minute of an instant in the yard's zone, read by Intl here (not by the code under test). */
