@@ -237,7 +237,7 @@ function recordsAndNotices(world: DemoWorld, story: Story, v: DemoVehicle, at: A
   const zone = DEMO_YARD.timeZone
   const id = () => story.vehicleId
   const sentTarget = story.arrivedAt + (v.lateRecordsRequest ? 18 : 4) * DAY
-  if (sentTarget > now - 2 * HOUR) return
+  if (v.recordsRequestNotYet || sentTarget > now - 2 * HOUR) return
   const sentAt = at(desk(sentTarget), async () => {})
   const sentOn = dayOf(sentAt, zone)
   let requestId = ''

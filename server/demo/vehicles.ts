@@ -34,6 +34,8 @@ export interface DemoVehicle {
   valueCents?: number
   /** The state records request went out after its 15 days, on purpose: its clock shows it late. */
   lateRecordsRequest?: true
+  /** The records request is not recorded yet, its deadline still ahead (the office's e2e test records it). */
+  recordsRequestNotYet?: true
   /** Who collects a released vehicle, when not its registered owner. */
   collectedBy?: { kind: 'owner_agent' | 'tow_operator'; name: string; actingFor: string; authority: string }
 }
@@ -73,7 +75,7 @@ export const DEMO_VEHICLES: DemoVehicle[] = [
   { state: 'decision', hoursAgo: 180, make: 'Kestra', model: 'Hearth', year: 2010, colour: 'Silver', body: 'Minivan', vehicleClass: 'standard', wmi: '2UB', vds: 'RL3H5', plate: '6MOM510', reason: 'breakdown', pickup: { address: '1502 Kettle Ave, Orrin Flats', lat: 36.4277, lng: -119.3409 }, requester: 'Owner by phone', owner: 'Ximena Halloran', keys: 'yes', odometer: 205_640, rolls: true },
 
   // Storage — decided or silent; fees running, notices out, lien clocks ticking.
-  { state: 'storage', hoursAgo: 24 * 9, make: 'Stanmore', model: 'Ashby', year: 2006, colour: 'White', body: 'Sedan', vehicleClass: 'standard', wmi: '21A', vds: 'WT58K', plate: '5UUV771', reason: 'private_property', pickup: SUNRIDGE, requester: 'Sunridge Plaza management', owner: 'Unknown — registered owner records requested', keys: 'no', odometer: null, rolls: true },
+  { state: 'storage', hoursAgo: 24 * 9, make: 'Stanmore', model: 'Ashby', year: 2006, colour: 'White', body: 'Sedan', vehicleClass: 'standard', wmi: '21A', vds: 'WT58K', plate: '5UUV771', reason: 'private_property', pickup: SUNRIDGE, requester: 'Sunridge Plaza management', owner: 'Unknown — registered owner records requested', keys: 'no', odometer: null, rolls: true, recordsRequestNotYet: true },
   { state: 'storage', hoursAgo: 24 * 12, make: 'Orlan', model: 'Scout', year: 2004, colour: 'Red', body: 'Pickup', vehicleClass: 'standard', wmi: '2ZC', vds: 'NL42N', plate: '6CAB001', reason: 'law_enforcement', pickup: { address: '300 Old Mill Rd, Orrin Flats', lat: 36.4295, lng: -119.3680 }, requester: 'Officer T. Brandvold', agency: OFPD, reference: 'OF-26-11602', owner: 'Anselm Petrakis', keys: 'yes', odometer: 288_012, rolls: true, hold: { kind: 'law_enforcement', agency: OFPD, caseNumber: 'OF-26-11602', daysLeft: 18, note: 'Evidence hold: do not release without written clearance.' } },
   { state: 'storage', hoursAgo: 24 * 15, make: 'Marrow', model: 'Homestead', year: 2008, colour: 'Blue', body: 'Minivan', vehicleClass: 'standard', wmi: '25B', vds: 'HN44P', plate: '6VAN808', reason: 'breakdown', pickup: { address: '77 Cinder Ln, Orrin Flats', lat: 36.4101, lng: -119.3470 }, requester: 'Owner by phone', owner: 'Philippa Ngata', keys: 'yes', odometer: 251_330, rolls: true, notes: 'Owner chose to sign it over for salvage; paperwork pending.' },
   { state: 'storage', hoursAgo: 24 * 19, make: 'Halvard', model: 'Magistrate', year: 2005, colour: 'Black', body: 'Sedan', vehicleClass: 'standard', wmi: '2YA', vds: 'FP71W', plate: '5CVX119', reason: 'private_property', pickup: { address: 'Orrin Flats Community College lot B', lat: 36.4388, lng: -119.3440 }, requester: 'College campus safety', owner: 'Magnus Obi-Lindstrom', keys: 'no', odometer: 310_550, rolls: true, lateRecordsRequest: true },
