@@ -35,7 +35,7 @@ for (const [size, options] of Object.entries(sizes)) {
     await page.locator('input[name="email"]').fill(DEMO[role as DemoRole])
     await page.locator('input[name="password"]').fill(DEMO.password)
     await page.locator('button[type="submit"]').click()
-    await page.waitForURL(/\/board/)
+    await page.waitForURL(/\/(board|today)/)
   }
   const ids: Record<string, string> = role === 'anon' ? {} : await vehicles(page)
   for (const arg of paths) {

@@ -35,6 +35,15 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/rule-sets/:id/holidays': 'board.view',
   'POST /api/quotes/storage': 'board.view',
   'POST /api/quotes/clocks': 'board.view',
+  // Settings (issue 12): managers edit rule sets, choose the yard's, and read the settings audit.
+  'GET /api/settings/rule-sets': 'admin',
+  'GET /api/settings/rule-sets/:id': 'admin',
+  'POST /api/settings/rule-sets/:id/copy': 'admin',
+  'PUT /api/settings/rule-sets/:id': 'admin',
+  'GET /api/settings/rule-sets/:id/older-vehicles': 'admin',
+  'PUT /api/settings/yard-rule-set': 'admin',
+  'GET /api/settings/audit': 'admin',
+  'POST /api/vehicles/:vehicleId/rule-set-version': 'admin',
 
   // Named paths before '/:id', which would match them too.
   'GET /api/vehicles/intake-options': 'towin.write',
@@ -90,6 +99,12 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles/:vehicleId/adjustments': 'charges.waive',
   'POST /api/vehicles/:vehicleId/adjustments/:adjustmentId/approve': 'charges.waive',
   'POST /api/vehicles/:vehicleId/adjustments/:adjustmentId/decline': 'charges.waive',
+  // Card payments on the payment service's hosted page (issue 11): opened by the counter, recorded by its webhook.
+  'POST /api/vehicles/:vehicleId/card-checkouts': 'billing.write',
+  'GET /api/vehicles/:vehicleId/card-checkouts/:checkoutId': 'billing.write',
+  'POST /api/vehicles/:vehicleId/card-checkouts/:checkoutId/expire': 'billing.write',
+  // Public with the service's signature as its guard (checked on the raw body, server/card-payments/).
+  'POST /api/card-payments/webhook': 'public',
   'GET /api/cash-drawer': 'billing.write',
   'POST /api/cash-drawer/closeout': 'billing.write',
   'GET /api/vehicles/:vehicleId/documents/pickup-ticket': 'release.write',
@@ -102,6 +117,16 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles/:vehicleId/release/signature': 'release.write',
   'GET /api/vehicles/:vehicleId/release/form': 'release.write',
   'POST /api/vehicles/:vehicleId/release/gate-pass': 'release.write',
+  // Title transfer (issue 11): a sign-over or a lien sale, its bill of sale, signature and packet.
+  'GET /api/vehicles/:vehicleId/transfer': 'release.write',
+  'PUT /api/vehicles/:vehicleId/transfer': 'release.write',
+  'POST /api/vehicles/:vehicleId/transfer/signature': 'release.write',
+  'GET /api/vehicles/:vehicleId/transfer/packet': 'release.write',
+  // The lien sale's newspaper publication (issue 10): the office's notices.
+  'GET /api/vehicles/:vehicleId/publications': 'owner.write',
+  'POST /api/vehicles/:vehicleId/publications': 'owner.write',
+  'GET /api/vehicles/:vehicleId/publications/text': 'owner.write',
+  'POST /api/vehicles/:vehicleId/publications/:publicationId/proof': 'owner.write',
   // The gate's phone: a pass (in the body, never the path) reaches one vehicle's record-out, once.
   'POST /api/gate/check': 'release.write',
   'POST /api/gate/record-out': 'release.write',
@@ -115,6 +140,15 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/outbox/:messageId': 'outbox',
   'GET /api/outbox/:messageId/attachments/:attachmentId': 'outbox',
   'POST /api/outbox/:messageId/retry': 'outbox',
+  // Issue 12: each person's Today page (what it lists follows the role); the office's reports; the manager's yard at a glance.
+  'GET /api/today': 'board.view',
+  'GET /api/reports/receivables': 'reports',
+  'GET /api/reports/receivables.csv': 'reports',
+  'GET /api/reports/aged': 'reports',
+  'GET /api/reports/daily': 'reports',
+  'GET /api/reports/daily.pdf': 'reports',
+  'GET /api/reports/salvage': 'reports',
+  'GET /api/reports/salvage.csv': 'reports',
   'GET /api/deadlines': 'deadlines',
   'GET /api/deadlines.ics': 'deadlines',
   // Each person's own calendar feed: only ever their own (the routes read the session's user).
@@ -128,6 +162,8 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/owner/:key': 'public',
   'GET /api/owner/:key/quote': 'public',
   'POST /api/owner/:key/decision': 'public',
+  'POST /api/owner/:key/card-checkout': 'public',
+  'POST /api/owner/:key/release-signature': 'public',
   'GET /api/owner/:key/files/:fileId': 'public',
   'GET /api/owner/:key/files/:fileId/thumb': 'public',
   // Public, rate-limited per address: whether a yard here holds a plate + VIN tail, where, what is owed.
@@ -154,7 +190,7 @@ export const enforceAccess: RequestHandler = (req, _res, next) => {
     rule = ruleFor(req.method, req.baseUrl + req.path)
   } catch (err) {
     // path-to-regexp decodes each parameter: a broken %-escape cannot name anything.
-    if (err instanceof URIError) return next(badRequest('That address has a broken %-escape.'))
+    if (err instanceof URIError) return next(badRequest('That address has a broken %-escape.', [{ path: 'url', message: 'That address has a broken %-escape.' }]))
     throw err
   }
   if (rule === 'public') return next()

@@ -13,6 +13,7 @@ import { archiveRouter } from './archive/index'
 import { deadlinesRouter } from './deadlines/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
 import { cashDrawerRouter, vehicleBillingRouter } from './billing/index'
+import { cardCheckoutsRouter, cardWebhookRouter, type CardPayments } from './card-payments/index'
 import { contactsRouter, recordsRequestsRouter } from './contacts/index'
 import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
@@ -27,7 +28,11 @@ import { policeNoticeRouter } from './police-notices/index'
 import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, publicThrottle, type PublicLimits } from './owner/index'
 import { quotesRouter } from './quotes/index'
 import { gateRouter, releasesRouter } from './releases/index'
+import { transfersRouter } from './transfers/index'
+import { publicationsRouter } from './publications/index'
 import { ruleSetsRouter } from './rule-sets/index'
+import { todayRouter } from './today/index'
+import { reportsRouter } from './reports/index'
 import { healthRouter } from './health/index'
 import { logSerializers, safeLogger } from './logging'
 import { type LiveBus, memoryBus } from './live/index'
@@ -38,6 +43,8 @@ import { usersRouter } from './users/index'
 import { type VehicleChanges, vehiclesRouter } from './vehicles/index'
 import { vinDecodeRouter } from './vin-decode/index'
 import { yardsRouter } from './yards/index'
+import { settingsRouter, vehicleRuleSetRouter } from './settings/index'
+import { settingsAuditRouter } from './settings-audit/index'
 
 export interface AppDeps {
   db: Database
@@ -70,6 +77,8 @@ export interface AppDeps {
   ownerLinkDays?: number
   /** Tries per address on the public pages a stranger could guess at: owner codes, the vehicle lookup. */
   publicLimits?: PublicLimits
+  /** The card payment service's SDK client and webhook secret (the local fake by default); absent, card pages answer 503. */
+  cardPayments?: CardPayments
 }
 
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
@@ -105,6 +114,10 @@ export function createApp(deps: AppDeps): Express {
     }),
   )
   app.use(pinoHttp({ logger: log, serializers: logSerializers, autoLogging: { ignore: (req) => req.url === '/api/health' } }))
+  const cards = { changes, cards: deps.cardPayments, mail: { kick: deps.kickOutbox }, publicUrl: deps.publicUrl }
+  // The payment service's webhook: its raw bytes are what the signature covers, so it comes before the
+  // JSON parser; no session and no CSRF token (the signature is its guard), but still the access table.
+  app.use('/api/card-payments/webhook', enforceAccess, cardWebhookRouter(cards))
   app.use(express.json({ limit: '1mb' }))
   app.use('/api', refuseNulCharacters)
   app.use('/api', sessionMiddleware(db, deps.sessionSecret, deps.https ?? false))
@@ -130,6 +143,9 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/inspection', inspectionsRouter(changes, files))
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
+  app.use('/api/settings/audit', settingsAuditRouter(db))
+  app.use('/api/settings', settingsRouter(db))
+  app.use('/api/vehicles/:vehicleId/rule-set-version', vehicleRuleSetRouter(changes))
   app.use('/api/vehicles/:vehicleId/owner-links', ownerLinksRouter(changes, deps.ownerLinkDays ?? 30))
   app.use('/api/vehicles/:vehicleId/holds', holdsRouter(changes))
   app.use('/api/vehicles/:vehicleId/police-notice', policeNoticeRouter(changes))
@@ -140,9 +156,12 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/space', vehicleSpaceRouter(changes))
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))
+  app.use('/api/vehicles/:vehicleId/card-checkouts', cardCheckoutsRouter(cards))
   app.use('/api/vehicles/:vehicleId', vehicleBillingRouter(changes, { kick: deps.kickOutbox }))
   app.use('/api/cash-drawer', cashDrawerRouter(db))
   app.use('/api/vehicles/:vehicleId/release', releasesRouter({ changes, files, publicUrl: deps.publicUrl }))
+  app.use('/api/vehicles/:vehicleId/transfer', transfersRouter({ changes, files }))
+  app.use('/api/vehicles/:vehicleId/publications', publicationsRouter({ changes, files }))
   app.use('/api/gate', gateRouter(changes))
   app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))
@@ -150,10 +169,12 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/map', mapRouter(db, map))
   app.use('/api/vin-decode', vinDecodeRouter())
   app.use('/api/outbox', outboxRouter({ db, files, kick: deps.kickOutbox }))
+  app.use('/api/today', todayRouter(db))
+  app.use('/api/reports', reportsRouter(db, hub))
   app.use('/api', deadlinesRouter(db, deps.publicUrl))
   // Public: the owner's page (its key checked by every route) and "is my vehicle here?".
   const throttle = publicThrottle(db, deps.publicLimits ?? DEFAULT_PUBLIC_LIMITS)
-  app.use('/api/owner', ownerRouter({ changes, files, map, throttle }))
+  app.use('/api/owner', ownerRouter({ changes, files, map, throttle, cardPayments: cards }))
   app.use('/api/vehicle-lookup', lookupRouter(db, throttle))
   if (usesLocalFakes(map)) app.use('/api/fakes', fakesRouter())
   app.use('/api', notFoundHandler)

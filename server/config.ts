@@ -47,6 +47,12 @@ const envSchema = z.object({
   // Where staff and owners reach Holdfast (https://yard.example.com): links and QR codes on documents and e-mail.
   HOLDFAST_PUBLIC_URL: z.url({ protocol: /^https?$/, error: 'HOLDFAST_PUBLIC_URL must be an http(s) URL' }).optional(),
   HOLDFAST_MAIL_FROM: z.string().min(3).max(300).default('Holdfast <holdfast@localhost>'),
+  // Card payments: the payment service's secret key and its webhook signing secret. Left unset, the app
+  // starts its own stand-in of the service on loopback (server/fakes/payment-service.ts).
+  STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_\w+$/, 'STRIPE_SECRET_KEY must be a secret key (sk_test_…, sk_live_…)').optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_\w+$/, 'STRIPE_WEBHOOK_SECRET must be the webhook signing secret (whsec_…)').optional(),
+  // The stand-in's port (0: any free one, named in the start-up log).
+  HOLDFAST_PAYMENTS_FAKE_PORT: z.coerce.number().int().min(0).max(65_535).default(0),
 })
 
 export interface Config {
@@ -75,6 +81,8 @@ export interface Config {
   publicUrl: string | undefined
   /** The SMTP relay, or where the local stand-in keeps what it receives. */
   mail: { smtpUrl: string | undefined; localFolder: string; from: string }
+  /** Card payments: the real service by its key, or the local stand-in. */
+  payments: { kind: 'service'; secretKey: string; webhookSecret: string } | { kind: 'fake'; port: number }
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -92,6 +100,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
         '(e.g. HOLDFAST_TRUST_PROXY=loopback when it runs on this machine, or its IP address), so that its ' +
         'X-Forwarded-Proto header is believed. Or unset HOLDFAST_HTTPS for plain HTTP.',
     )
+  }
+  if (e.STRIPE_SECRET_KEY && !e.STRIPE_WEBHOOK_SECRET) {
+    throw new Error('Holdfast cannot start: STRIPE_SECRET_KEY needs STRIPE_WEBHOOK_SECRET, the signing secret of the webhook endpoint /api/card-payments/webhook, or no card payment is ever recorded.')
   }
   const dataDir = path.resolve(e.HOLDFAST_DATA_DIR)
   return {
@@ -115,6 +126,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     historyKeyFile: path.resolve(e.HOLDFAST_HISTORY_KEY_FILE ?? `${dataDir}.history-key`),
     publicUrl: e.HOLDFAST_PUBLIC_URL?.replace(/\/+$/, ''),
     mail: { smtpUrl: e.SMTP_URL, localFolder: path.join(dataDir, 'mail'), from: e.HOLDFAST_MAIL_FROM },
+    payments: e.STRIPE_SECRET_KEY
+      ? { kind: 'service', secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET! }
+      : { kind: 'fake', port: e.HOLDFAST_PAYMENTS_FAKE_PORT },
     map: {
       tileUrl: e.HOLDFAST_TILE_URL ?? LOCAL_MAP.tileUrl,
       tileAttribution: e.HOLDFAST_TILE_ATTRIBUTION ?? (e.HOLDFAST_TILE_URL ? '' : LOCAL_MAP.tileAttribution),

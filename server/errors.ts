@@ -70,6 +70,12 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
       res.status(400).json({ error: 'Some text contains a character that cannot be stored (NUL). Remove it and try again.' })
       return
     }
+    // A body that is not a JSON object or array (a bare number, `null`, broken JSON): the body is the field.
+    if (err?.type === 'entity.parse.failed') {
+      const message = 'The request body must be a JSON object.'
+      res.status(400).json({ error: message, issues: [{ path: '(body)', message }] })
+      return
+    }
     // body-parser and multer errors carry a status and a safe message.
     const status = typeof err?.status === 'number' ? err.status : typeof err?.statusCode === 'number' ? err.statusCode : 500
     if (status >= 400 && status < 500) {

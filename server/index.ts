@@ -6,7 +6,8 @@ import { createApp } from './app'
 import { localFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
-import { startLocalSmtp } from './fakes/index'
+import { startFakePaymentService, startLocalSmtp } from './fakes/index'
+import { cardPaymentsClient } from './card-payments/index'
 import { OutboxWorker, smtpTransport } from './outbox/index'
 import { pruneExpiredSessions, pruneSignInFailures, sessionSecret } from './session/index'
 import { loadHistoryKey } from './history-key'
@@ -65,6 +66,14 @@ const localSmtp = config.mail.smtpUrl ? undefined : await startLocalSmtp({ folde
 if (localSmtp) log.info(`No SMTP_URL: e-mail goes to the local stand-in at ${localSmtp.url}, kept in ${config.mail.localFolder}`)
 const outbox = new OutboxWorker(db, smtpTransport(config.mail.smtpUrl ?? localSmtp!.url), files, log, { from: config.mail.from })
 
+// Card payments go to the payment service by its key, or to the local stand-in through the very same SDK.
+const fakePayments = config.payments.kind === 'fake' ? await startFakePaymentService({ port: config.payments.port }) : undefined
+if (fakePayments) log.info(`No STRIPE_SECRET_KEY: card payments go to the local stand-in at http://${fakePayments.host}:${fakePayments.port}`)
+const cardPayments =
+  config.payments.kind === 'service'
+    ? cardPaymentsClient({ secretKey: config.payments.secretKey, webhookSecret: config.payments.webhookSecret })
+    : cardPaymentsClient({ secretKey: fakePayments!.secretKey, webhookSecret: fakePayments!.webhookSecret, host: fakePayments!.host, port: fakePayments!.port })
+
 const app = createApp({
   db,
   historyKey,
@@ -83,8 +92,14 @@ const app = createApp({
   map: config.map,
   kickOutbox: () => outbox.kick(),
   publicUrl: config.publicUrl,
+  cardPayments,
 })
 outbox.start()
+// The stand-in's webhooks come to this server's own port, signed as the real service signs them.
+fakePayments?.deliverTo(async (payload, signature) => {
+  const r = await fetch(`http://127.0.0.1:${config.port}/api/card-payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': signature }, body: payload })
+  return r.status
+})
 
 const server = app.listen(config.port, config.host, () => {
   const where = config.database.kind === 'postgres' ? 'PostgreSQL' : `embedded database in ${config.dataDir}`
@@ -97,6 +112,12 @@ const server = app.listen(config.port, config.host, () => {
   }
   log.debug(`start-up: modules and database open ${Math.round(opened - started)} ms, migrations ${Math.round(migrated - opened)} ms`)
 })
+
+// Node closes an idle kept-alive connection after 5 s; a client (a browser, a proxy, a test's request
+// context) that sends on it at that moment gets ECONNRESET. Idle connections are kept longer than the
+// usual clients and proxies keep theirs (60 s), so the server is never the side that closes mid-send.
+server.keepAliveTimeout = 65_000
+server.headersTimeout = 66_000
 
 // Expired sessions and sign-in counters go at start (after a long stop many have) and every 15 minutes after.
 const prune = () =>
@@ -116,6 +137,7 @@ async function shutdown(signal: string) {
   // A message being sent is finished; one not yet taken stays queued for the next start.
   await outbox.stop()
   await localSmtp?.close()
+  await fakePayments?.close()
   server.close()
   server.closeIdleConnections()
   const force = setTimeout(() => server.closeAllConnections(), 5_000)

@@ -16,7 +16,7 @@ const TOKEN_LIKE = /^[A-Za-z0-9_-]{32,}$/
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
 
 /** Headers that grant access: logged only as present. */
-const SECRET_HEADERS = new Set(['cookie', 'set-cookie', 'authorization', 'proxy-authorization', 'x-csrf-token'])
+const SECRET_HEADERS = new Set(['cookie', 'set-cookie', 'authorization', 'proxy-authorization', 'x-csrf-token', 'stripe-signature'])
 /** The others worth reading in a request line; the rest (CSP and other fixed response headers) is noise. */
 const KEPT_HEADERS = new Set([
   'host', 'user-agent', 'accept', 'accept-language', 'content-type', 'content-length', 'origin', 'referer',

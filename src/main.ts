@@ -4,6 +4,7 @@ import { createApp } from 'vue'
 import App from './App.vue'
 import { queryClient } from './api/query-client'
 import { i18n } from './i18n'
+import { activeDescendantFix } from './plugins/active-descendant'
 import { router } from './router'
 import 'element-plus/theme-chalk/base.css'
 // The resolver styles only the components a template names; these are called from code (ElMessage,
@@ -17,4 +18,5 @@ createApp(App)
   .use(i18n)
   .use(router)
   .use(VueQueryPlugin, { queryClient })
+  .use(activeDescendantFix)
   .mount('#app')

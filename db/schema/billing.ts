@@ -28,7 +28,10 @@ export const payments = pgTable(
     requestHash: text().notNull(),
     dueBeforeCents: integer().notNull(),
     receiptEmail: text(),
-    takenById: uuid().notNull().references(() => users.id),
+    // The card payment service's reference (its payment id) for a card paid on its hosted page.
+    providerReference: text(),
+    // Null only for a payment the owner made from their page (card, through the payment service).
+    takenById: uuid().references(() => users.id),
     takenAt: createdAt(),
   },
   (t) => [

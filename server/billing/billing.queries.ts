@@ -18,19 +18,23 @@ export const paymentRecord = (p: PaymentRow, takenBy: string): PaymentRecord => 
   terminalReference: p.terminalReference,
   reason: p.reason,
   receiptEmail: p.receiptEmail,
+  providerReference: p.providerReference,
   takenBy,
   takenAt: p.takenAt.toISOString(),
 })
+
+/** Who a payment names when no staff member took it: the owner paid by card from their page. */
+export const OWNER_ONLINE = 'Owner, online'
 
 /** A vehicle's payments and refunds, oldest first, with who took each. */
 export async function paymentsOf(db: Executor, vehicleId: string): Promise<PaymentRecord[]> {
   const rows = await db
     .select({ p: payments, by: users.name })
     .from(payments)
-    .innerJoin(users, eq(users.id, payments.takenById))
+    .leftJoin(users, eq(users.id, payments.takenById))
     .where(eq(payments.vehicleId, vehicleId))
     .orderBy(asc(payments.takenAt), asc(payments.id))
-  return rows.map((r) => paymentRecord(r.p, r.by))
+  return rows.map((r) => paymentRecord(r.p, r.by ?? OWNER_ONLINE))
 }
 
 const decider = alias(users, 'decider')

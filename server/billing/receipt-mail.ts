@@ -45,7 +45,7 @@ const MAIL = {
 /** Queues the receipt e-mail in the payment's own transaction, so both are kept or neither. */
 export async function queueReceipt(
   tx: Executor,
-  r: { actor: User; vehicle: VehicleRow; yard: YardRow; payment: PaymentRecord; to: string | null; language: 'en' | 'es'; dueAfterCents: number },
+  r: { actor: Pick<User, 'id'> | { id: null }; vehicle: VehicleRow; yard: YardRow; payment: PaymentRecord; to: string | null; language: 'en' | 'es'; dueAfterCents: number },
 ): Promise<boolean> {
   const to = receiptRecipient(r.to)
   if (!to) return false

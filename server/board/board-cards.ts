@@ -18,7 +18,7 @@ export interface BoardYard extends YardForCharges {
 // What is not recorded reads as such: every guard that needs it refuses with its reason. The money
 // comes from its records (handoverMoney), the claimant's ID and the signature from the release's.
 // No title transfer is recorded anywhere yet (issue 11), so signing a vehicle over is refused until it is.
-export const NOTHING_RECORDED: BoardCard['handover'] = { paidCents: 0, creditedCents: 0, waived: false, claimantIdRecorded: false, releaseSigned: false, transferSigned: false }
+export const NOTHING_RECORDED: BoardCard['handover'] = { paidCents: 0, creditedCents: 0, waived: false, claimantIdRecorded: false, releaseSigned: false, transferSigned: false, lienSaleSigned: false }
 
 /** The money side of the handover: payments less refunds, approved waivers and discounts, against the balance. */
 export function handoverMoney(totals: MoneyTotals | undefined, balanceCents: number | null): Pick<BoardCard['handover'], 'paidCents' | 'creditedCents' | 'waived'> {

@@ -21,6 +21,7 @@ export class BoardSnapshot {
   private readonly entries = new Map<string, Entry>()
   private readonly head: string
   private joined: BoardBody | null = null
+  private parsed: readonly BoardCard[] | null = null
 
   private readonly yardId: string
 
@@ -28,7 +29,7 @@ export class BoardSnapshot {
     /** The time bucket it was computed in: balances and days move with the clock. */
     readonly bucket: number,
     yard: BoardYard,
-    asOf: Date,
+    readonly asOf: Date,
     cards: readonly BoardCard[],
   ) {
     this.yardId = yard.id
@@ -39,10 +40,17 @@ export class BoardSnapshot {
   put(card: BoardCard): void {
     this.entries.set(card.id, { column: card.state as BoardColumn, order: card.arrivedAt + card.stockNumber, json: JSON.stringify(card) })
     this.joined = null
+    this.parsed = null
+  }
+
+  /** Every card, parsed once per change from its text and shared: callers read them and never change them. */
+  cards(): readonly BoardCard[] {
+    this.parsed ??= [...this.entries.values()].map((e) => JSON.parse(e.json) as BoardCard)
+    return this.parsed
   }
 
   remove(vehicleId: string): void {
-    if (this.entries.delete(vehicleId)) this.joined = null
+    if (this.entries.delete(vehicleId)) this.joined = this.parsed = null
   }
 
   /** The GET /api/board body; `eventId` is the last live event it already includes. */

@@ -55,18 +55,30 @@ if (!parsed.success) {
 }
 const input = parsed.data
 
+// One call sets up a real yard without the demo: the company, its first manager and its first yard
+// are made together or not at all. Before any yard exists, an account without the yard options is
+// refused before anything is written (it used to be made, and the second call then failed on it).
 await withDatabase(async ({ db }) => {
-  const [n] = await db.select({ n: count() }).from(companies)
-  const [company] = n!.n > 0 ? await db.select().from(companies).limit(1) : await db.insert(companies).values({ name: values.company! }).returning()
-  if (await findUserByEmailInCompany(db, company!.id, input.email)) fail(`A user with the e-mail ${input.email} already exists.`)
-  const user = await insertUser(db, { ...input, companyId: company!.id, passwordHash: await hashPassword(input.password) })
-  console.log(`Created ${user.role} ${user.email} in ${company!.name}.`)
-  if (yard?.success) {
-    const made = await createYard(db, company!.id, yard.data, loadConfig().ruleSetsFolder)
-    console.log(`Created the yard ${made.name} (stock numbers ${made.code}-…) under ${yard.data.ruleSet}.`)
-  } else if ((await db.select({ n: count() }).from(yards))[0]!.n === 0) {
-    console.log('There is no yard yet: run this again for a manager with --yard-name and the other yard options.')
-  }
+  const [yards0] = await db.select({ n: count() }).from(yards)
+  const firstYard = yards0!.n === 0
+  if (firstYard && !yard) fail(`There is no yard yet: give the first manager the yard options in this same command.\n${USAGE}`)
+  if (firstYard && input.role !== 'manager') fail('There is no yard yet: the first account sets it up, so make it a manager (--role manager).')
+  const [company] = await db.select().from(companies).limit(1)
+  const existing = company ? await findUserByEmailInCompany(db, company.id, input.email) : undefined
+  // A manager made by the old two-step set-up, before its yard: the second call now adds the yard.
+  if (existing && !(firstYard && existing.role === 'manager')) fail(`A user with the e-mail ${input.email} already exists.`)
+  await db.transaction(async (tx) => {
+    const owner = company ?? (await tx.insert(companies).values({ name: values.company! }).returning())[0]!
+    if (existing) console.log(`${existing.email} is already a manager in ${owner.name}; their password is unchanged.`)
+    else {
+      const user = await insertUser(tx, { ...input, companyId: owner.id, passwordHash: await hashPassword(input.password) })
+      console.log(`Created ${user.role} ${user.email} in ${owner.name}.`)
+    }
+    if (yard?.success) {
+      const made = await createYard(tx, owner.id, yard.data, loadConfig().ruleSetsFolder)
+      console.log(`Created the yard ${made.name} (stock numbers ${made.code}-…) under ${yard.data.ruleSet}. Start with HOLDFAST_DEMO=0 and sign in.`)
+    }
+  })
 })
 
 async function ask(question: string): Promise<string> {

@@ -25,7 +25,7 @@ export interface NewClockEvent {
   vehicleId: string
   kind: ClockEventKind
   at: Date
-  source: 'records-request' | 'notice-sending'
+  source: 'records-request' | 'notice-sending' | 'publication'
   sourceId: string
   recordedById: string | null
 }

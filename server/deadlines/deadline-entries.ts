@@ -43,6 +43,7 @@ export function entriesOf(v: ActiveVehicle, c: VehicleClocks, today: string, tim
       status: d.status === 'missed' ? 'overdue' : 'due',
       explanation: d.explanation,
       citation: d.source.citation,
+      doneBy: d.doneBy.event,
     })
   }
   const gate = c.lienSale

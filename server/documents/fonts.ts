@@ -25,3 +25,44 @@ export function barlow(): Promise<Record<FontName, Uint8Array>> {
   })()
   return loaded
 }
+
+// What pdf-lib asks of fontkit: `create(bytes)` gives a font whose `layout(text, features)` it reads.
+interface FontkitLike {
+  create(data: Uint8Array, postscriptName?: string): unknown
+}
+interface LayoutFont {
+  layout(text: string, features?: unknown): unknown
+}
+
+// Most of a document's time went to fontkit, not to pdf-lib: every document parsed each font afresh
+// (its GSUB/GPOS tables are decoded lazily, per font object), and every width measured and every line
+// drawn ran the shaping again. A font object is read-only once parsed, and pdf-lib keeps each
+// document's subset in its own embedder (`font.createSubset()`), so one parsed font per file serves
+// every document; the same string shaped by the same font gives the same glyphs, so layouts are kept
+// too (a bounded number: names and addresses vary). The bytes and glyphs written are unchanged.
+const LAYOUTS_KEPT = 20_000
+const parsed = new WeakMap<Uint8Array, unknown>()
+
+/** fontkit with one parsed font per font file and its layouts remembered, for `doc.registerFontkit`. */
+export function sharedFontkit(fontkit: FontkitLike): FontkitLike {
+  return {
+    create(data, postscriptName) {
+      const known = parsed.get(data)
+      if (known) return known
+      const font = fontkit.create(data, postscriptName) as LayoutFont
+      const layout = font.layout.bind(font)
+      const layouts = new Map<string, unknown>()
+      font.layout = (text, features) => {
+        if (features !== undefined) return layout(text, features)
+        const kept = layouts.get(text)
+        if (kept) return kept
+        const run = layout(text)
+        if (layouts.size >= LAYOUTS_KEPT) layouts.clear()
+        layouts.set(text, run)
+        return run
+      }
+      parsed.set(data, font)
+      return font
+    },
+  }
+}

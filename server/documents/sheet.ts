@@ -1,10 +1,12 @@
 import type { PDFDocument, PDFFont, PDFPage } from 'pdf-lib'
-import { barlow, type FontName } from './fonts'
+import { barlow, sharedFontkit, type FontName } from './fonts'
 import { PALETTE, type Colour } from './palette'
 import { COMMON_WORDS, type Language } from './words'
 
 // pdf-lib and fontkit load with the first document, not at start-up (about a third of a second).
-const libraries = () => Promise.all([import('pdf-lib'), import('@pdf-lib/fontkit')])
+let loadedLibraries: Promise<[typeof import('pdf-lib'), ReturnType<typeof sharedFontkit>]> | undefined
+const libraries = () =>
+  (loadedLibraries ??= Promise.all([import('pdf-lib'), import('@pdf-lib/fontkit').then((fontkit) => sharedFontkit(fontkit.default))]))
 type PdfLib = Awaited<ReturnType<typeof libraries>>[0]
 
 export const INCH = 72
@@ -52,7 +54,7 @@ export class Sheet {
   static async create(options: SheetOptions): Promise<Sheet> {
     const [lib, fontkit] = await libraries()
     const doc = await lib.PDFDocument.create()
-    doc.registerFontkit(fontkit.default)
+    doc.registerFontkit(fontkit as Parameters<PDFDocument['registerFontkit']>[0])
     const bytes = await barlow()
     // Subset: only the glyphs a document uses are embedded (a letter is tens of KB, not hundreds).
     const [regular, medium, bold] = await Promise.all([bytes.regular, bytes.medium, bytes.bold].map((b) => doc.embedFont(b, { subset: true })))

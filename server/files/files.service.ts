@@ -43,7 +43,7 @@ export async function putFiles(store: FileStore, vehicleId: string, prepared: Pr
 }
 
 /** Rows and one history event for files already in the store, as part of the caller's change to the vehicle. */
-export async function recordFiles({ tx, vehicleId, actor, now, record }: ChangeScope, stored: StoredFile[]) {
+export async function recordFiles({ tx, vehicleId, actor, now, record }: Omit<ChangeScope, 'actor'> & { actor: { id: string | null } }, stored: StoredFile[]) {
   if (stored.length === 0) return
   await tx.insert(files).values(
     stored.map((f) => ({

@@ -8,6 +8,8 @@ const MAX_SIDE = 3200
 const THUMB_SIDE = 480
 // A decompression bomb (a tiny file that opens to gigapixels) is refused before it is decoded.
 const MAX_INPUT_PIXELS = 80_000_000
+// libvips works off the request loop already; this bounds how long one image may hold a core.
+const TIMEOUT = { seconds: 15 }
 
 export interface Reencoded {
   data: Buffer
@@ -37,8 +39,9 @@ export async function reencodeImage(input: Buffer, format: 'heic' | 'other' = 'o
       // libjpeg-turbo, not mozjpeg: mozjpeg saves a little space but took nine times as long here
       // (4.4 s against 0.5 s for a 12-megapixel phone photo), and a tow-in carries several.
       .jpeg({ quality: 84 })
+      .timeout(TIMEOUT)
       .toBuffer({ resolveWithObject: true })
-    const thumb = await sharp(data).resize({ width: THUMB_SIDE, height: THUMB_SIDE, fit: 'inside' }).jpeg({ quality: 72 }).toBuffer()
+    const thumb = await sharp(data).resize({ width: THUMB_SIDE, height: THUMB_SIDE, fit: 'inside' }).jpeg({ quality: 72 }).timeout(TIMEOUT).toBuffer()
     return { data, thumb, width: info.width, height: info.height }
   } catch (err) {
     throw new UnreadableImageError((err as Error).message)

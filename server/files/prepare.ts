@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto'
 import type { FileKind } from '@shared/schemas/files'
 import { badRequest, type Issue } from '../errors'
 import { reencodeImage, UnreadableImageError } from './images'
-import { cleanPdf, UnreadablePdfError } from './pdfs'
+import { cleanPdf, CostlyPdfError, UnreadablePdfError } from './pdfs'
 import { sniff } from './sniff'
 
 export interface Incoming {
@@ -34,6 +34,7 @@ async function prepareOne(file: Incoming, kind: FileKind, label: string | null):
       const data = await cleanPdf(file.buffer)
       return { kind, mime: 'application/pdf', ext: 'pdf', data, thumb: null, width: null, height: null, sha256: sha(data), label }
     } catch (err) {
+      if (err instanceof CostlyPdfError) return err.message
       if (err instanceof UnreadablePdfError) return 'The PDF could not be read: it may be damaged or password-protected.'
       throw err
     }

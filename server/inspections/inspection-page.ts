@@ -3,7 +3,7 @@ import { estimateTotals, pickupBadge, repairOrSalvage } from '@shared/domain/ins
 import type { Inspection, InspectionPage } from '@shared/schemas/inspections'
 import type { RuleSet } from '@shared/schemas/rule-sets'
 import { versionsById } from '../rule-sets/index'
-import { vehicleForUser, type VehicleRow } from '../vehicles/index'
+import { holdsOf, vehicleForUser, type VehicleRow } from '../vehicles/index'
 import { itemsOf, latestInspection, lineView, linesOf, namesOf, photosByItem, type InspectionRow } from './inspections.queries'
 
 const title = (v: VehicleRow) => [v.year, v.make, v.model].filter(Boolean).join(' ') || 'Unknown vehicle'
@@ -32,6 +32,7 @@ export async function inspectionPage(db: Executor, userId: string, vehicleId: st
     recommendation,
     recommendationMissing: missing,
     pickup: pickupBadge(v),
+    holds: (await holdsOf(db, v.id)).filter((h) => h.liftedAt === null),
   }
 }
 

@@ -8,7 +8,8 @@ export interface MapConfig {
 
 export const LOCAL_MAP: MapConfig = {
   tileUrl: '/api/fakes/tiles/{z}/{x}/{y}.png',
-  tileAttribution: 'Plain local map of the demo town — set HOLDFAST_TILE_URL for street tiles',
+  // The stand-in's own words are the reader's (map.localTiles in the catalogs): none are sent from here.
+  tileAttribution: '',
   maxZoom: 19,
   geocoderUrl: '/api/fakes/geocoder',
 }

@@ -12,6 +12,8 @@ import type { MapConfig } from '../map/index'
 import { latestVersionOf } from '../rule-sets/index'
 import { vehicleById, type VehicleRow, type YardRow } from '../vehicles/index'
 import { checklistItem } from '@shared/domain/inspection'
+import { invoiceOf } from '../billing/index'
+import { ownerRelease } from '../releases/index'
 import { decisionsOf } from './owner.queries'
 
 /** How far ahead the owner may ask what collecting would cost. */
@@ -22,7 +24,7 @@ export const QUOTE_DAYS_AHEAD = 366
  * the findings, estimate and recommendation, the bill so far, the deadlines that concern the owner,
  * where the yard is. No staff names, no IDs or papers, no other vehicle.
  */
-export async function ownerPage(db: Database, vehicleId: string, key: string, map: MapConfig, expiresAt: Date, now = new Date()): Promise<OwnerPage> {
+export async function ownerPage(db: Database, vehicleId: string, key: string, map: MapConfig, expiresAt: Date, now = new Date(), cardsReady = false): Promise<OwnerPage> {
   const { vehicle: v, yard } = await vehicleById(db, vehicleId)
   const { ruleSet, inspection, recommendation } = await inspectionOf(db, v)
   const inspectionPhotoIds = new Set(inspection?.items.flatMap((i) => i.photos.map((p) => p.id)) ?? [])
@@ -77,6 +79,8 @@ export async function ownerPage(db: Database, vehicleId: string, key: string, ma
       citation: recommendation.source.citation,
     },
     bill: await quoteAt(db, v, yard, now, isoDate(localDay(yard.timeZone, now.getTime())), false),
+    money: await moneyOf(db, v, yard, now, cardsReady),
+    release: await ownerRelease(db, v.id, v.state),
     deadlines: billRuleSet ? deadlinesOf(v, billRuleSet, yard, now) : [],
     caution: billRuleSet?.caution ?? null,
     decision: decision ? { choice: decision.choice, signOverTo: decision.signOverTo, fullName: decision.fullName, phone: decision.phone, note: decision.note, at: decision.at } : null,
@@ -97,6 +101,20 @@ export async function ownerQuote(db: Database, vehicleId: string, date: string, 
   const quote = await quoteAt(db, vehicle, yard, new Date(startOfLocalDay(yard.timeZone, day + 1) - 1), date, true)
   if (!quote) throw badRequest('The yard cannot work out this bill here; please call them.')
   return quote
+}
+
+/** The counter's own invoice, to now: what was charged, paid and credited, and what is due. */
+async function moneyOf(db: Database, v: VehicleRow, yard: YardRow, now: Date, cardsReady: boolean): Promise<OwnerPage['money']> {
+  const invoice = await invoiceOf(db, v, yard, now).catch(() => null)
+  if (!invoice) return null
+  const dueCents = Math.max(0, invoice.dueCents)
+  return {
+    totalCents: invoice.totalCents,
+    paidCents: invoice.netPaidCents,
+    creditedCents: invoice.creditedCents,
+    dueCents,
+    canPayByCard: cardsReady && v.state !== 'closed' && dueCents >= 50,
+  }
 }
 
 async function quoteAt(db: Database, v: VehicleRow, yard: YardRow, at: Date, date: string, leaving: boolean): Promise<OwnerQuote | null> {

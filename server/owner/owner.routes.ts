@@ -3,6 +3,9 @@ import { ownerDecisionInputSchema, ownerFileParamsSchema, ownerKeyParamsSchema, 
 import { AppError, notFound } from '../errors'
 import { sendVehicleFile, type FileStore } from '../files/index'
 import type { MapConfig } from '../map/index'
+import { startOwnerCheckout, type CardPaymentDeps } from '../card-payments/index'
+import { signReleaseAsOwner } from '../releases/index'
+import { signatureInputSchema } from '@shared/schemas/releases'
 import type { VehicleChanges } from '../vehicles/index'
 import { readKey } from './owner-keys'
 import { linkByHash, linkStatus, type OwnerLinkRow } from './owner.queries'
@@ -15,6 +18,8 @@ export interface OwnerRouterDeps {
   files: FileStore
   map: MapConfig
   throttle: PublicThrottle
+  /** "Pay by card": the hosted card page (server/card-payments/). */
+  cardPayments: CardPaymentDeps
 }
 
 const GONE = {
@@ -27,7 +32,7 @@ const GONE = {
  * code) is the only credential and reaches one vehicle. Every route finds the link first; a wrong,
  * expired or withdrawn key counts against the address's tries (public-throttle.ts).
  */
-export function ownerRouter({ changes, files, map, throttle }: OwnerRouterDeps): Router {
+export function ownerRouter({ changes, files, map, throttle, cardPayments }: OwnerRouterDeps): Router {
   const { db } = changes
   const router = Router()
 
@@ -52,7 +57,7 @@ export function ownerRouter({ changes, files, map, throttle }: OwnerRouterDeps):
 
   router.get('/:key', async (req, res) => {
     const { link, key } = await linkOf(req, res)
-    res.json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt))
+    res.json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt, new Date(), !!cardPayments.cards))
   })
 
   router.get('/:key/quote', async (req, res) => {
@@ -65,7 +70,21 @@ export function ownerRouter({ changes, files, map, throttle }: OwnerRouterDeps):
     const { link, key } = await linkOf(req, res)
     const input = ownerDecisionInputSchema.parse(req.body)
     await recordDecision(changes, link, input, { ip: req.ip ?? '', userAgent: req.get('user-agent') ?? null })
-    res.status(201).json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt))
+    res.status(201).json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt, new Date(), !!cardPayments.cards))
+  })
+
+  // What is due, paid on the payment service's hosted page; recorded only by its signed webhook.
+  router.post('/:key/card-checkout', async (req, res) => {
+    const { link } = await linkOf(req, res)
+    const checkout = await startOwnerCheckout(cardPayments, req, link, req.body)
+    res.status(checkout.replayed ? 200 : 201).json({ checkout })
+  })
+
+  // The release signed from the owner's page, where the counter's rules allow it (server/releases/owner-signature.service.ts).
+  router.post('/:key/release-signature', async (req, res) => {
+    const { link, key } = await linkOf(req, res)
+    await signReleaseAsOwner(changes, files, link, signatureInputSchema.parse(req.body), { ip: req.ip ?? '' })
+    res.status(201).json(await ownerPage(db, link.vehicleId, key, map, link.expiresAt, new Date(), !!cardPayments.cards))
   })
 
   const photo = (thumb: boolean) => async (req: Request, res: Response) => {

@@ -1,3 +1,3 @@
 export { ruleSetsRouter } from './rule-sets.routes'
 export { loadSampleRuleSets, SAMPLE_RULE_SETS_DIR } from './sample-rule-sets'
-export { latestRuleSetBySlug, latestVersionOf, versionsById } from './rule-sets.queries'
+export { latestRuleSetBySlug, latestRuleSets, latestVersionOf, versionsById, type RuleSetVersion } from './rule-sets.queries'

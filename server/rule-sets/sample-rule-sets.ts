@@ -1,6 +1,6 @@
 import { readdirSync, readFileSync } from 'node:fs'
 import path from 'node:path'
-import type { Database } from '@db/client'
+import type { Executor } from '@db/client'
 import { ruleSets, ruleSetVersions } from '@db/schema'
 
 /**
@@ -15,7 +15,7 @@ export const SAMPLE_RULE_SETS_DIR = path.resolve(process.cwd(), 'server/rule-set
  * are. Runs whenever a yard is created, so a new company starts with the samples to copy from.
  * Returns slug → version id of the ones it added.
  */
-export async function loadSampleRuleSets(db: Database, dir: string = SAMPLE_RULE_SETS_DIR): Promise<Map<string, string>> {
+export async function loadSampleRuleSets(db: Executor, dir: string = SAMPLE_RULE_SETS_DIR): Promise<Map<string, string>> {
   const versions = new Map<string, string>()
   const names = readdirSync(dir).filter((f) => f.endsWith('.json')).sort()
   for (const file of names) {

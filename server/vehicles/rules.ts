@@ -14,6 +14,7 @@ export async function intakeRules(db: Executor, yard: Yard) {
   const current = yard.ruleSetId ? await latestVersionOf(db, yard.ruleSetId) : undefined
   return {
     versionId: current?.versionId ?? null,
+    version: current?.version ?? null,
     ruleSet: current ? { name: current.ruleSet.name, caution: current.ruleSet.caution } : null,
     policeNotice: current?.ruleSet.policeNotice ?? null,
     classes: current ? current.ruleSet.vehicleClasses.map((c) => ({ code: c.code, label: c.label })) : NO_RULE_SET_CLASSES,

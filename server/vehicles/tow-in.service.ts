@@ -33,7 +33,7 @@ export async function createTowIn(changes: VehicleChanges, store: FileStore, act
   const vehicleId = randomUUID()
   const { stored, discard } = await putFiles(store, vehicleId, prepared)
   try {
-    const created = await createVehicle(changes, actor, yard, vehicleId, (scope) => insertTowIn(scope, yard, input, { ruleSetVersionId: rules.versionId, photos: stored }))
+    const created = await createVehicle(changes, actor, yard, vehicleId, (scope) => insertTowIn(scope, yard, input, { ruleSetVersionId: rules.versionId, ruleSet: rules.ruleSet && { name: rules.ruleSet.name, version: rules.version }, photos: stored }))
     // A private-property tow starts the police clock now: the dispatcher sees it before leaving the form.
     const policeNotice = policeNoticeClock(rules.policeNotice ?? undefined, input.tow, null, new Date().toISOString())
     return { ...created, policeNotice }
@@ -52,6 +52,8 @@ async function assertSameCompany(db: Database, yard: YardRow, userId: string) {
 
 interface Extras {
   ruleSetVersionId: string | null
+  /** Named in the history: the rule set and version the vehicle is billed under. */
+  ruleSet: { name: string; version: number | null } | null
   photos: StoredFile[]
 }
 
@@ -95,6 +97,8 @@ async function insertTowIn(scope: ChangeScope, yard: YardRow, input: TowIn, extr
       chargeCents: towRow.chargeCents,
       space,
       propertyItems: condition.property.length,
+      ruleSet: extras.ruleSet?.name ?? null,
+      ruleSetVersion: extras.ruleSet?.version ?? null,
       ...(lookalikes.length > 0 ? { alsoOnTheLot: lookalikes.map((l) => l.stockNumber), whySeparate: input.duplicateReason } : {}),
     },
   })

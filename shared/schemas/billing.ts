@@ -87,6 +87,8 @@ export const paymentRecordSchema = z.object({
   terminalReference: z.string().nullable(),
   reason: z.string().nullable(),
   receiptEmail: z.string().nullable(),
+  /** A card paid on the payment service's hosted page: the service's reference for it. */
+  providerReference: z.string().nullable().default(null),
   takenBy: z.string(),
   takenAt: z.string(),
 })

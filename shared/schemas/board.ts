@@ -24,6 +24,8 @@ export const handoverSchema = z.object({
   releaseSigned: z.boolean(),
   /** The title transfer (bill of sale) signed: its own paper, never the release's signature. */
   transferSigned: z.boolean(),
+  /** The lien sale recorded (buyer, price, proceeds) and its bill of sale signed. */
+  lienSaleSigned: z.boolean(),
 })
 
 /** How a vehicle is named wherever it is listed: the board, the archive. */

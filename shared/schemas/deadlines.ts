@@ -25,6 +25,8 @@ export const deadlineEntrySchema = z.object({
   since: z.string().optional(),
   explanation: z.string(),
   citation: z.string(),
+  /** A timeline step: the recorded event that meets it (e.g. owner-records-requested), for the Today page. */
+  doneBy: z.string().optional(),
 })
 export type DeadlineEntry = z.infer<typeof deadlineEntrySchema>
 

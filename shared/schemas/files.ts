@@ -5,6 +5,12 @@ import { text } from './fields'
 export const MAX_FILE_BYTES = 20 * 1024 * 1024
 export const MAX_FILES_PER_REQUEST = 12
 export const MAX_FILES_PER_VEHICLE = 80
+// What one upload may cost the server to open (issue 13 item 5): a PDF of a few pages has tens or
+// hundreds of objects; a crafted one of 400,000 took 50 s and 400 MB to parse.
+export const MAX_PDF_OBJECTS = 20_000
+export const MAX_PDF_PAGES = 100
+/** Uploads one person may have in progress at once; the next waits for one of them to finish. */
+export const MAX_UPLOADS_IN_PROGRESS_PER_USER = 2
 
 export const FILE_KINDS = ['photo', 'id', 'document'] as const
 export type FileKind = (typeof FILE_KINDS)[number]

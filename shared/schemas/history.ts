@@ -45,6 +45,11 @@ export const HISTORY_KINDS = [
   'release_photos_added',
   'release_signed',
   'gate_pass_issued',
+  'rule_set_changed',
+  'transfer_recorded',
+  'transfer_signed',
+  'publication_recorded',
+  'publication_proof_added',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -113,4 +118,9 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   release_photos_added: 'Photos at release',
   release_signed: 'Release signed',
   gate_pass_issued: 'Gate pass issued',
+  rule_set_changed: 'Moved to a new rule-set version',
+  transfer_recorded: 'Title transfer recorded',
+  transfer_signed: 'Title transfer signed',
+  publication_recorded: 'Newspaper publication recorded',
+  publication_proof_added: 'Proof of publication added',
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { holdRecordSchema } from './holds'
 import { VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { FINDING_STATUSES, ITEM_CODES } from '../domain/inspection/inspection-checklist'
 import { hoursToHundredths, LIMITS } from '../domain/inspection/inspection-estimate'
@@ -165,5 +166,7 @@ export const inspectionPageSchema = z.object({
   /** Why there is no recommendation yet, in plain words. */
   recommendationMissing: z.string().nullable(),
   pickup: pickupBadgeSchema.nullable(),
+  /** Holds in force: an evidence hold usually means "do not touch", so the teardown shows them and asks first. */
+  holds: z.array(holdRecordSchema),
 })
 export type InspectionPage = z.infer<typeof inspectionPageSchema>

@@ -125,6 +125,16 @@ export const ownerDeadlineSchema = z.object({
 })
 export type OwnerDeadline = z.infer<typeof ownerDeadlineSchema>
 
+/** The release as the owner's page sees it: sign here, or what the counter must record first. */
+export const ownerReleaseSchema = z.object({
+  status: z.enum(['not-ready', 'at-counter', 'ready', 'signed']),
+  /** What the counter still records before the owner may sign here. */
+  missing: z.array(z.enum(['claimant', 'id-photo', 'handover'])),
+  signerName: z.string().nullable(),
+  signedAt: z.string().nullable(),
+})
+export type OwnerRelease = z.infer<typeof ownerReleaseSchema>
+
 export const ownerPageSchema = z.object({
   vehicle: z.object({
     stockNumber: z.string(),
@@ -171,6 +181,20 @@ export const ownerPageSchema = z.object({
     })
     .nullable(),
   bill: ownerQuoteSchema.nullable(),
+  /** What was paid and what is still due, by the counter's own invoice (payments and approved waivers subtracted). */
+  money: z
+    .object({
+      totalCents: z.number(),
+      paidCents: z.number(),
+      creditedCents: z.number(),
+      dueCents: z.number(),
+      /** The vehicle is still here and something is due: the owner may pay it by card. */
+      canPayByCard: z.boolean(),
+    })
+    .nullable()
+    .default(null),
+  /** Signing the release from this page (issue 11). */
+  release: ownerReleaseSchema.nullable().default(null),
   deadlines: z.array(ownerDeadlineSchema),
   caution: z.string().nullable(),
   decision: ownerDecisionRecordSchema.omit({ ip: true, id: true }).nullable(),

@@ -22,7 +22,7 @@ export const sourceSchema = z.object({
 })
 
 const code = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'use lower-case words joined by dashes')
-const cents = z.number().int().nonnegative()
+const cents = z.number({ error: 'Enter an amount.' }).int('Enter the amount in whole cents.').nonnegative('An amount cannot be negative.')
 const hours = z.number().positive().max(24 * 7)
 /** A value nobody publishes statewide: the UI shows "set your rate" until the manager does. */
 const placeholder = z.boolean().default(false)

@@ -25,3 +25,9 @@ export function towLineReason(line: Line): string {
       return te(`tow.lines.reasons.${line.code}`) ? t(`tow.lines.reasons.${line.code}`) : line.reason
   }
 }
+
+/** Who asked for the tow. An agency that asked for its own tow is often typed as both the person and the agency: named once. */
+export function askedBy(name: string | null, agency: string | null): string {
+  const same = name && agency && name.trim().toLowerCase() === agency.trim().toLowerCase()
+  return same ? name : [name, agency].filter(Boolean).join(', ')
+}

@@ -88,7 +88,8 @@ describe('GET /api/board/events', () => {
     const v = await makeVehicle(t.db, staff.yard.id, { state: 'storage', ruleSetVersionId, year: 2009, arrivedAt: new Date(Date.now() - 60 * DAY) })
     const s = await fetchSession(server.url, staff.manager)
     const stream = await openStream(server.url, s.cookie)
-    expect((await s.post(`/api/vehicles/${v.id}/moves`, { to: 'closed', version: 1, disposition: 'lien_sale' })).status).toBe(200)
+    // Scrapped: the same lien-sale gate, and no bill of sale to record first.
+    expect((await s.post(`/api/vehicles/${v.id}/moves`, { to: 'closed', version: 1, disposition: 'scrapped' })).status).toBe(200)
     expect((await stream.next((b) => b.type !== undefined)).body).toEqual({ type: 'removed', id: v.id })
     stream.close()
   })

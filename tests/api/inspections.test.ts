@@ -30,6 +30,18 @@ describe('inspection lifecycle', () => {
     expect(await historyKinds(app.db, f.vehicle.id)).toEqual(['moved', 'inspection_started'])
   })
 
+  it('inspectionPage_holdsInForce_areShownAndALiftedOneIsNot', async () => {
+    // Issue 16 item 16: an evidence hold usually means "do not touch"; the teardown screen must show it.
+    const f = await teardownFixture(app)
+    await f.dispatcher.post(`/api/vehicles/${f.vehicle.id}/holds`, { kind: 'law_enforcement', agency: 'Orrin Flats Police Department', caseNumber: 'OF-26-20417' }).expect(201)
+    const lien = (await f.dispatcher.post(`/api/vehicles/${f.vehicle.id}/holds`, { kind: 'lien', note: 'Mechanic lien claimed' }).expect(201)).body.holds
+    const lienId = lien.find((h: { kind: string }) => h.kind === 'lien').id
+    await f.dispatcher.post(`/api/vehicles/${f.vehicle.id}/holds/${lienId}/lift`, { reason: 'Paid off' }).expect(200)
+    const page = (await f.tech.get(f.base).expect(200)).body
+    expect(page.holds).toHaveLength(1)
+    expect(page.holds[0]).toMatchObject({ kind: 'law_enforcement', agency: 'Orrin Flats Police Department', caseNumber: 'OF-26-20417', liftedAt: null })
+  })
+
   it('start_twice_answersTheInspectionUnderWayAndWritesNothingMore', async () => {
     const f = await teardownFixture(app)
     const first = await f.tech.post(f.base).expect(201)

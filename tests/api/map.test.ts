@@ -41,6 +41,10 @@ describe('map settings and the local stand-ins', () => {
   it('reverse geocoding names the nearest place, or says it cannot', async () => {
     const yard = await s.agent.get('/api/fakes/geocoder/reverse').query({ lat: 36.4128, lon: -119.352 }).expect(200)
     expect(yard.body.display_name).toBe('1480 Quarry Spur Rd (Quarry Spur yard), Orrin Flats')
+    // Issue 16 item 4: a pin by a street far from any known place is named on that street, not on the
+    // yard's own street (the nearest known place), so the address follows the pin.
+    const byHarrow = await s.agent.get('/api/fakes/geocoder/reverse').query({ lat: 36.4182, lon: -119.3632 }).expect(200)
+    expect(byHarrow.body.display_name).toMatch(/^\d+ Harrow Way, Orrin Flats$/)
     const nowhere = await s.agent.get('/api/fakes/geocoder/reverse').query({ lat: 40, lon: -100 }).expect(200)
     expect(nowhere.body).toEqual({ error: 'Unable to geocode' })
   })

@@ -5,6 +5,7 @@ import { historyOf } from '@db/history'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { DAY, historyCount, sampleVersion, setHold, vehicleRow } from '../helpers/board'
 import { makeStaff, makeVehicle } from '../helpers/factories'
+import { signaturePng } from '../helpers/release'
 
 let t_: TestApp
 beforeAll(async () => {
@@ -119,13 +120,17 @@ describe('POST /api/vehicles/:vehicleId/moves', () => {
     // Florida's sample: a sale no sooner than 35 days after storage for a vehicle over 3 years old.
     const v = await makeVehicle(t_.db, staff.yard.id, { state: 'storage', ruleSetVersionId, year: 2009, spaceId: space!.id, arrivedAt: new Date(Date.now() - 60 * DAY) })
     const s = await signedIn(t_.app, staff.manager)
-    const res = await s.post(move(v.id), { to: 'closed', version: 1, disposition: 'lien_sale', reason: 'Sold at the yard auction, lot 14' })
+    // The sale itself is recorded and its bill of sale signed first (server/transfers), two changes.
+    const sale = { kind: 'lien_sale', sellerName: 'The yard, lienholder', buyerKind: 'other', buyerName: 'Rosalind Vey', buyerAddress: '22 Kestrel Lane', buyerIdType: 'drivers_license', buyerIdNumber: 'V5521098', priceCents: 90_000, odometer: null, odometerUnreadable: true, date: new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Los_Angeles' }).format(new Date()) }
+    expect((await s.put(`/api/vehicles/${v.id}/transfer`, sale)).status).toBe(200)
+    expect((await s.post(`/api/vehicles/${v.id}/transfer/signature`, { signerName: 'Pat Lindqvist', image: await signaturePng() })).status).toBe(201)
+    const res = await s.post(move(v.id), { to: 'closed', version: 3, disposition: 'lien_sale', reason: 'Sold at the yard auction, lot 14' })
     expect(res.status).toBe(200)
     expect(res.body).toMatchObject({ state: 'closed', disposition: 'lien_sale', space: null })
     const row = await vehicleRow(t_.db, v.id)
     expect(row).toMatchObject({ state: 'closed', disposition: 'lien_sale', spaceId: null })
     expect(row.closedAt).toBeInstanceOf(Date)
-    expect((await historyOf(t_.db, v.id))[0]).toMatchObject({ toState: 'closed', after: { disposition: 'lien_sale', spaceGivenBack: 'Q-7' } })
+    expect((await historyOf(t_.db, v.id)).at(-1)).toMatchObject({ toState: 'closed', after: { disposition: 'lien_sale', spaceGivenBack: 'Q-7' } })
     const board = await s.get('/api/board')
     expect(JSON.stringify(board.body)).not.toContain(v.id)
     const archive = await s.get('/api/vehicles/closed')

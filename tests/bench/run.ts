@@ -12,6 +12,8 @@ const benches: Record<string, () => Promise<{ met: boolean }>> = {
   delivery: async () => (await import('./delivery.bench')).run(),
   deadlines: async () => (await import('./deadlines.bench')).run(),
   release: async () => (await import('./release.bench')).run(),
+  load: async () => (await import('./load.bench')).run(),
+  receivables: async () => (await import('./receivables.bench')).run(),
 }
 const only = process.argv.slice(2)
 let allMet = true

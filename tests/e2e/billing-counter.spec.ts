@@ -71,6 +71,8 @@ test('a payment with a check but no check number is refused beside the field and
   await page.goto(`/vehicles/${id}`)
   await page.getByRole('button', { name: 'Take a payment' }).click()
   const dialog = page.getByRole('dialog', { name: 'Take a payment' })
+  // The dialog starts each payment as cash: wait for that before choosing, or the reset undoes the choice.
+  await expect(dialog.getByRole('radio', { name: 'Cash' })).toBeChecked()
   await dialog.getByRole('radio', { name: 'Check' }).check({ force: true })
   await dialog.getByRole('button', { name: 'Record the payment' }).click()
   await expect(dialog.getByText('Enter the check number.')).toBeVisible()

@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test'
 import { dragCard, dragVia } from './drag'
-import { signInAs, watchConsole } from './helpers'
+import { navLink, signInAs, watchConsole } from './helpers'
 
 const inColumn = (page: Page, column: string, text: string) => page.locator(`[data-column="${column}"] [data-stock]`).filter({ hasText: text })
 const notice = (page: Page) => page.getByTestId('board-notice')
@@ -84,6 +84,21 @@ test('without a mouse: Shift+→ moves a card on, and "Move to…" lists every w
   await confirm.click()
   await expect(inColumn(page, 'arrival', 'Pellam Aster')).toBeVisible()
   await expect(notice(page)).toContainText('is now in Arrival.')
+
+  // Issue 16 item 6: a key press moves at once, so the notice offers to take it back for a few seconds:
+  // a move back with the reason "undone", in the history like any other.
+  await inColumn(page, 'arrival', 'Pellam Aster').focus()
+  await page.keyboard.press('Shift+ArrowRight')
+  await expect(inColumn(page, 'teardown', 'Pellam Aster')).toBeVisible()
+  const undone = page.waitForResponse((r) => r.url().includes('/move') && r.request().method() === 'POST')
+  await notice(page).getByRole('button', { name: 'Undo' }).click()
+  expect((await undone).status()).toBe(200)
+  const back = inColumn(page, 'arrival', 'Pellam Aster')
+  await expect(back).toBeVisible()
+  await expect(notice(page)).toContainText('is now in Arrival.')
+  await expect(notice(page).getByRole('button', { name: 'Undo' })).toHaveCount(0)
+  const vehicle = await (await page.request.get(`/api/vehicles/${await back.getAttribute('data-id')}`)).json()
+  expect(vehicle.history.at(-1)).toMatchObject({ kind: 'moved', fromState: 'teardown', toState: 'arrival', reason: 'Undone: moved by mistake' })
 })
 
 test('Shift+→ on a Release card that cannot close yet chooses nothing and shows why', async ({ page }) => {
@@ -130,7 +145,7 @@ test('filters live in the address and survive a reload', async ({ page }) => {
 
 test('closed vehicles are in the archive with how they left, and can be searched', async ({ page }) => {
   await signInAs(page, 'office')
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Archive' }).click()
+  await (await navLink(page, 'Archive')).click()
   const rows = page.locator('.el-table__body tr')
   await expect(rows.first()).toBeVisible()
   const first = (await rows.first().innerText()).split('\n')

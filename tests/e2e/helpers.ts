@@ -10,12 +10,16 @@ export const DEMO = {
 
 export type DemoRole = 'manager' | 'dispatcher' | 'technician' | 'office'
 
-export async function signInAs(page: Page, role: DemoRole) {
-  await page.goto('/sign-in')
+/**
+ * Signs in and opens `landing` (the board unless said otherwise). Without it the office and managers
+ * land on Today and the others on the board; tests/e2e/today.spec.ts checks that landing itself.
+ */
+export async function signInAs(page: Page, role: DemoRole, landing = '/board') {
+  await page.goto(`/sign-in?next=${encodeURIComponent(landing)}`)
   await page.getByLabel('E-mail').fill(DEMO[role])
   await page.getByLabel('Password', { exact: true }).fill(DEMO.password)
   await page.getByRole('button', { name: 'Sign in' }).click()
-  await expect(page).toHaveURL(/\/board/)
+  await expect(page).toHaveURL(new RegExp(`${landing}$`))
 }
 
 /** Fails the test on any console error or failed request the page makes. */
@@ -40,10 +44,33 @@ export async function mainNav(page: Page, name = 'Main') {
   return nav
 }
 
+/**
+ * A page's link in the top bar, wherever this width puts it: the everyday pages in the main navigation,
+ * the others ("More pages") in the menu at a desk; on a phone both are in the menu.
+ */
+export async function navLink(page: Page, name: string) {
+  await mainNav(page)
+  const link = page.getByRole('navigation', { name: /^(Main|More pages)$/ }).getByRole('link', { name, exact: true })
+  if (!(await link.isVisible())) await openMenu(page)
+  await expect(link).toBeVisible()
+  return link
+}
+
 /** Opens the top bar's menu where the bar has one (a desk: the person and sign-out; a phone: everything). */
 export async function openMenu(page: Page) {
   const menu = page.locator('button[aria-controls="top-bar-panel"]')
   const signOut = page.locator('.top-bar__signout')
   await expect(menu.or(signOut).first()).toBeVisible()
   if ((await menu.isVisible()) && (await menu.getAttribute('aria-expanded')) !== 'true') await menu.click()
+}
+
+/**
+ * Runs axe-core over the page as it stands against WCAG 2.2 level A and AA and fails with what broke
+ * (rule, and the first elements), so a regression names its element (issue 16 item 17).
+ */
+export async function expectAccessible(page: Page) {
+  const { default: AxeBuilder } = await import('@axe-core/playwright')
+  const { violations } = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze()
+  const found = violations.map((v) => `${v.id} (${v.impact}): ${v.nodes.slice(0, 3).map((n) => n.target.join(' ')).join(' | ')}`)
+  expect(found, `axe on ${new URL(page.url()).pathname}`).toEqual([])
 }

@@ -107,9 +107,12 @@ test('a wheel refitted so it rolls answers "Does it roll?" Yes, and the pickup f
   await expect(pickup).toContainText('Flatbed or dollies')
 
   await question(page, 'Did you refit a wheel so it rolls?').getByRole('button', { name: 'Yes' }).click()
+  // Issue 16 item 16: "Yes" alone is not saved; the page says so until the torque is saved with it.
+  await expect(page.getByTestId('refit-unsaved')).toHaveText('Not saved yet: enter the torque you tightened to and tap Save.')
   await page.getByLabel('Lug-nut torque in ft·lbf').fill('80')
   await page.getByRole('button', { name: 'Save', exact: true }).click()
   await expect(question(page, 'Does it roll?').getByRole('button', { name: 'Yes' })).toHaveAttribute('aria-pressed', 'true')
+  await expect(page.getByTestId('refit-unsaved')).toHaveCount(0)
   await expect(page.getByTestId('rolls-note')).toHaveText('Yes, on the refitted wheel. If it still does not roll, tap No.')
   await expect(pickup).toContainText('Wheel-lift')
   await expect(pickup).not.toContainText('refit')
@@ -152,10 +155,16 @@ test('after a manager corrects the record, "Start the inspection" works on the n
   const manager = await someoneElse(await playwright.request.newContext({ baseURL }), 'manager')
   await manager.send('patch', `/api/vehicles/${id}`, { version: await manager.version(id), reason: 'The driver called in', conditionNotes: 'Rear tyre flat.' })
 
-  await start.click()
+  // This demo vehicle is under a law-enforcement hold: each start asks first (issue 16 item 16).
+  await expect(page.getByTestId('inspection-holds')).toBeVisible()
+  const startAnyway = async () => {
+    await start.click()
+    await page.getByRole('dialog', { name: 'Start the teardown under a hold?' }).getByRole('button', { name: 'Start anyway' }).click()
+  }
+  await startAnyway()
   await expect(page.getByTestId('inspection-problem')).toContainText('Someone else changed this vehicle')
   await expect(page.getByText('At intake: Rear tyre flat.')).toBeVisible()
-  await start.click()
+  await startAnyway()
   await expect(page.getByTestId('vehicle-state')).toHaveText('Teardown')
   await expect(page.getByTestId('safety-cautions').first()).toBeVisible()
 })

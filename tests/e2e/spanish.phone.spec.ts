@@ -27,7 +27,8 @@ test('en un teléfono en español: la entrada, el tablero y el registro de un in
   await expect(card.getByRole('button', { name: /^Mover .* a…$/ })).toHaveText('Mover a…')
   await expect(page.getByRole('button', { name: 'Menú' })).toBeVisible()
   const main = await mainNav(page, 'Principal')
-  await expect(main.getByRole('link')).toHaveText(['Tablero', 'Archivo', 'Registrar ingreso'])
+  await expect(main.getByRole('link')).toHaveText(['Hoy', 'Tablero', 'Registrar ingreso'])
+  await expect(page.getByRole('navigation', { name: 'Más páginas' }).getByRole('link')).toHaveText(['Archivo'])
   await expect(page.getByRole('button', { name: 'Salir' })).toBeVisible()
 
   // The tow-in form: its heading and sections, and the quote once the pickup is on the map.

@@ -42,7 +42,13 @@ test('the times show their year and no day after today can be picked', async ({ 
   const arrived = page.getByLabel('Arrived at the gate')
   await expect(arrived).toHaveValue(new RegExp(`\\b${new Date().getFullYear()}\\b`))
   await page.getByLabel('Called', { exact: true }).click()
-  const today = page.locator('.el-date-table td.today').filter({ visible: true })
+  // "Today" is the yard's (the demo yard keeps Pacific time), not the browser's: between midnight UTC and
+  // midnight in Los Angeles the two differ, and the browser's today is rightly not pickable yet.
+  const yardToday = new Intl.DateTimeFormat('en-US', { timeZone: 'America/Los_Angeles', day: 'numeric' }).format(new Date())
+  const today = page
+    .locator('.el-date-table td:not(.prev-month):not(.next-month)')
+    .filter({ visible: true })
+    .filter({ hasText: new RegExp(`^\\s*${yardToday}\\s*$`) })
   await expect(today).not.toHaveClass(/disabled/)
   await expect(today.locator('xpath=following::td[1]')).toHaveClass(/disabled/)
 })

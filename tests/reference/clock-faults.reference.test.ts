@@ -29,6 +29,7 @@ const facts = (lienSale: MoveFacts['lienSale']): MoveFacts => ({
   claimantIdRecorded: false,
   releaseSigned: false,
   transferSigned: false,
+  lienSaleSigned: true,
   lienSale,
 })
 

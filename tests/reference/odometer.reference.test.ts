@@ -56,3 +56,20 @@ describe('odometer exemption by a GVWR class band — 49 CFR 580.17(a)(1): more 
     if (exempt !== null) expect(odometerDisclosure(2020, band.fromLb, true, '2026-06-15').required).toBe(!exempt)
   })
 })
+
+// The transfer packet (server/transfers) asks the same rule, filling in what the yard may not know:
+// an unknown GVWR is not exempt by weight, an unknown model year is not exempt by age [C: disclosing costs nothing].
+describe('odometer statement on the title-transfer packet — 49 CFR 580.5 / 580.17', async () => {
+  const { odometerRule } = await import('../../server/transfers/transfers.queries')
+  it.each([
+    { modelYear: 2009, gvwrLb: null, selfPropelled: true, date: '2026-12-02', required: false, clause: '49 CFR 580.17(a)(3)', source: '(a)(3): MY ≤ 2010, 10 years after 1 Jan of the MY [V]' },
+    { modelYear: 2018, gvwrLb: null, selfPropelled: true, date: '2026-12-02', required: true, clause: '49 CFR 580.5', source: '(a)(4) exempts MY 2018 only from 2038 [V]' },
+    { modelYear: 2011, gvwrLb: null, selfPropelled: true, date: '2031-01-01', required: false, clause: '49 CFR 580.17(a)(4)', source: "the rule's example to (a)(4): 2031 → MY 2011 exempt [V]" },
+    { modelYear: 2024, gvwrLb: 26_000, selfPropelled: true, date: '2026-12-02', required: false, clause: '49 CFR 580.17(a)(1)', source: '(a)(1): GVWR more than 16,000 lb [V]' },
+    { modelYear: 2024, gvwrLb: 3_000, selfPropelled: false, date: '2026-12-02', required: false, clause: '49 CFR 580.17(a)(2)', source: '(a)(2): not self-propelled [V]' },
+    { modelYear: null, gvwrLb: null, selfPropelled: true, date: '2026-12-02', required: true, clause: '49 CFR 580.5', source: 'model year unknown: no age exemption shown [C]' },
+    { modelYear: null, gvwrLb: 20_000, selfPropelled: true, date: '2026-12-02', required: false, clause: '49 CFR 580.17(a)(1)', source: 'model year unknown but over 16,000 lb [V]' },
+  ])('odometerRule_MY$modelYear_gvwr$gvwrLb_on$date_requiredIs$required ($source)', ({ modelYear, gvwrLb, selfPropelled, date, required, clause }) => {
+    expect(odometerRule(modelYear, { gvwrLb, selfPropelled, date })).toMatchObject({ required, clause })
+  })
+})

@@ -19,6 +19,8 @@ export const PERMISSIONS = {
   'outbox': ['manager', 'office'],
   // Issue 10: every open deadline across the yard, on a page and as a calendar feed.
   'deadlines': ['manager', 'office'],
+  // Issue 12: receivables, aged inventory, the daily report and the salvage inventory.
+  'reports': ['manager', 'office'],
   'admin': ['manager'],
 } as const satisfies Record<string, readonly Role[]>
 

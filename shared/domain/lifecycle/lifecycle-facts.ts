@@ -14,6 +14,7 @@ export function factsOfCard(card: BoardCard, timeZone: string): MoveFacts {
     claimantIdRecorded: card.handover.claimantIdRecorded,
     releaseSigned: card.handover.releaseSigned,
     transferSigned: card.handover.transferSigned,
+    lienSaleSigned: card.handover.lienSaleSigned,
     lienSale: card.summary?.lienSale ?? null,
   }
 }

@@ -32,6 +32,8 @@ export interface MoveFacts {
   releaseSigned: boolean
   /** The signed title transfer: a release signed for a hand-over does not sign a vehicle over. */
   transferSigned: boolean
+  /** The lien sale recorded (buyer, price, how the proceeds were applied) and its bill of sale signed. */
+  lienSaleSigned: boolean
   /** Null when no rule set gives the vehicle legal clocks (or the move does not read it, as the balance). */
   lienSale: LienSaleGate | null
 }
@@ -94,6 +96,9 @@ export const releaseSigned: Guard = (f) => (f.releaseSigned ? [] : [{ code: 'rel
 
 export const transferSigned: Guard = (f) =>
   f.transferSigned ? [] : [{ code: 'release-signed', message: 'The title transfer is not signed.' }]
+
+export const lienSaleSigned: Guard = (f) =>
+  f.lienSaleSigned ? [] : [{ code: 'release-signed', message: 'The lien sale is not recorded and signed: record the buyer, the price and the proceeds, then sign the bill of sale.' }]
 
 export const lienSaleAllowed: Guard = (f, ctx) => {
   const gate = f.lienSale

@@ -21,7 +21,9 @@ export interface MoveRule {
 }
 
 const handedOver = [g.noActiveHold, g.balanceSettled, g.claimantIdRecorded, g.releaseSigned]
-const titleTransfer = [g.noActiveHold, g.transferSigned, g.claimantIdRecorded]
+// A title transfer's buyer and their ID are on its own record (server/transfers), not the release's claimant.
+const titleTransfer = [g.noActiveHold, g.transferSigned]
+const lienSale = [g.noActiveHold, g.lienSaleAllowed, g.lienSaleSigned]
 const disposal = [g.noActiveHold, g.lienSaleAllowed]
 
 /**
@@ -42,12 +44,12 @@ export const MOVES: readonly MoveRule[] = [
   { from: 'storage', to: 'decision', permission: 'owner.write', label: 'Owner called back — Owner decision', back: true, guards: [] },
   {
     from: 'storage', to: 'closed', permission: 'release.write', label: 'Close', guards: [],
-    dispositions: { lien_sale: disposal, scrapped: disposal, title_transferred: titleTransfer },
+    dispositions: { lien_sale: lienSale, scrapped: disposal, title_transferred: titleTransfer },
   },
   { from: 'release', to: 'storage', permission: 'release.write', label: 'Release fell through — back to Storage', back: true, guards: [] },
   {
     from: 'release', to: 'closed', permission: 'release.write', label: 'Close', guards: [],
-    dispositions: { returned_to_owner: handedOver, released_to_third_party: handedOver, title_transferred: titleTransfer, lien_sale: disposal, scrapped: disposal },
+    dispositions: { returned_to_owner: handedOver, released_to_third_party: handedOver, title_transferred: titleTransfer, lien_sale: lienSale, scrapped: disposal },
   },
 ]
 

@@ -1,2 +1,3 @@
 export * from './planned-notices'
 export * from './tracking'
+export * from './publication'

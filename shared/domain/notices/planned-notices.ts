@@ -40,7 +40,8 @@ export function plannedNotices(clocks: Pick<LegalClocks, 'deadlines'>, today: st
   return out
 }
 
-function statusOf(due: Deadline | undefined, opens: Deadline | undefined, mailedAt: string | null, today: string): NoticePlanStatus {
+/** Where a notice (a letter, or the newspaper publication) stands against its window. */
+export function statusOf(due: Deadline | undefined, opens: Deadline | undefined, mailedAt: string | null, today: string): NoticePlanStatus {
   if (mailedAt) return due?.status === 'missed' || opens?.status === 'missed' ? 'late' : 'sent'
   // A deadline that has not started (a sale date not yet set) or a window not yet known.
   if ((due && !due.dueDate) || (opens && !opens.dueDate)) return 'not-started'

@@ -17,6 +17,7 @@ const clear: MoveFacts = {
   claimantIdRecorded: true,
   releaseSigned: true,
   transferSigned: true,
+  lienSaleSigned: true,
   lienSale: { open: true, date: '2026-11-20', why: 'Open since 2026-11-20.', code: 'open' },
 }
 const facts = (over: Partial<MoveFacts>): MoveFacts => ({ ...clear, ...over })
@@ -147,16 +148,30 @@ describe('lifecycle guards', () => {
     expect(v.reasons.slice(2).map((r) => r.message)).toEqual(["The claimant's ID is not recorded.", 'The release is not signed.'])
   })
 
-  it('titleTransferGuard_needsTheSignedTransferAndTheBuyersIdButNotTheBalance', () => {
+  it('titleTransferGuard_needsTheSignedTransferButNotTheBalanceNorTheReleasesClaimant', () => {
     const fromStorage = (over: Partial<MoveFacts>) =>
       checkMove({ from: 'storage', to: 'closed', role: 'manager', disposition: 'title_transferred', facts: facts({ paidCents: 0, ...over }), now: NOW })
     expect(fromStorage({}).allowed).toBe(true)
+    // The buyer and their ID are on the transfer's own record, which must be signed; no release is needed.
+    expect(fromStorage({ claimantIdRecorded: false }).allowed).toBe(true)
     expect(fromStorage({ transferSigned: false, claimantIdRecorded: false }).reasons).toEqual([
       { code: 'release-signed', message: 'The title transfer is not signed.' },
-      { code: 'claimant-id', message: "The claimant's ID is not recorded." },
     ])
-    // A release signed for a hand-over is not a signed transfer: the vehicle cannot be signed over on it.
+    // A release signed for a hand-over is not a signed transfer: the vehicle cannot be signed over on it,
+    // nor on a signed lien sale.
     expect(fromStorage({ releaseSigned: true, transferSigned: false }).reasons.map((r) => r.code)).toEqual(['release-signed'])
+    expect(fromStorage({ lienSaleSigned: true, transferSigned: false }).reasons.map((r) => r.code)).toEqual(['release-signed'])
+  })
+
+  it('lienSaleGuard_openButSaleNotRecordedAndSigned_refuses; scrapping needs no bill of sale', () => {
+    const close = (disposition: Disposition, over: Partial<MoveFacts>) =>
+      checkMove({ from: 'storage', to: 'closed', role: 'office', disposition, facts: facts(over), now: NOW })
+    expect(close('lien_sale', { lienSaleSigned: false }).reasons).toEqual([
+      { code: 'release-signed', message: 'The lien sale is not recorded and signed: record the buyer, the price and the proceeds, then sign the bill of sale.' },
+    ])
+    // A signed sign-over is not a lien sale's bill of sale.
+    expect(close('lien_sale', { lienSaleSigned: false, transferSigned: true }).allowed).toBe(false)
+    expect(close('scrapped', { lienSaleSigned: false, transferSigned: false }).allowed).toBe(true)
   })
 
   const dispose = (lienSale: MoveFacts['lienSale'], disposition: Disposition = 'lien_sale') =>

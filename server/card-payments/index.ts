@@ -1,0 +1,2 @@
+export { cardCheckoutsRouter, cardWebhookRouter, startOwnerCheckout, type CardPaymentDeps } from './card-payments.routes'
+export { cardPaymentsClient, type CardPayments } from './card-payments.service'

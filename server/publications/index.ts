@@ -1,0 +1,1 @@
+export { publicationsRouter } from './publications.routes'

@@ -1,0 +1,1 @@
+export { reportsRouter } from './reports.routes'

@@ -1,0 +1,1 @@
+export { settingsRouter, vehicleRuleSetRouter } from './settings.routes'

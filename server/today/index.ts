@@ -1,0 +1,2 @@
+export { todayRouter } from './today.routes'
+export { todayOf } from './today.service'

@@ -1,0 +1,1 @@
+export { transfersRouter } from './transfers.routes'

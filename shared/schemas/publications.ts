@@ -1,0 +1,41 @@
+import { z } from 'zod'
+import { NOTICE_PLAN_STATUSES } from './notices'
+import { requiredText, text } from './fields'
+
+const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/
+
+/** The office records a newspaper publication: the paper and each day it ran (first day first). */
+export const publicationInputSchema = z.object({
+  newspaper: requiredText(160, 'Enter the newspaper the notice ran in.'),
+  days: z
+    .array(text({ error: 'Enter the day it was published.' }).regex(ISO_DAY, 'Enter the day it was published.'), { error: 'Enter the days it was published.' })
+    .min(1, 'Enter the day it was published.')
+    .max(8, 'Enter at most 8 days.'),
+})
+export type PublicationInput = z.input<typeof publicationInputSchema>
+
+export const plannedPublicationSchema = z.object({
+  kind: z.literal('publication'),
+  status: z.enum(NOTICE_PLAN_STATUSES),
+  dueDate: z.string().nullable(),
+  opensOn: z.string().nullable(),
+  publishedAt: z.string().nullable(),
+  label: z.string(),
+  citation: z.string(),
+})
+
+export const publicationRecordSchema = z.object({
+  id: z.uuid(),
+  newspaper: z.string(),
+  days: z.array(z.string()),
+  proofFileId: z.uuid().nullable(),
+  recordedAt: z.string(),
+})
+
+export const publicationsPageSchema = z.object({
+  vehicleId: z.uuid(),
+  /** What the rule set asks for; null when its branch has no publication step. */
+  plan: plannedPublicationSchema.nullable(),
+  publications: z.array(publicationRecordSchema),
+})
+export type PublicationsPage = z.infer<typeof publicationsPageSchema>

@@ -1,0 +1,193 @@
+import { randomUUID } from 'node:crypto'
+import { spawn, type ChildProcess } from 'node:child_process'
+import { mkdtempSync, rmSync } from 'node:fs'
+import { cpus, loadavg, tmpdir } from 'node:os'
+import path from 'node:path'
+import { pathToFileURL } from 'node:url'
+import { bundleServer } from '../soak/crash-rounds'
+import { anotherVehicle, towInBody } from '../helpers/tow-in'
+import { writeResult, type BenchResult } from './results'
+
+// Issue 13, "Load": 50 simulated staff for 60 s on a mixed workload (board reads, tow-ins, moves, quotes,
+// payments) against one server on the embedded database, while 500 board streams are held open.
+const GOALS = { staff: 50, seconds: Number(process.env.HOLDFAST_LOAD_SECONDS ?? 60), streams: 500, errors: 0, p95Ms: 150, boardP95RatioWithStreams: 1.5 }
+const PORT = 3394
+const base = `http://127.0.0.1:${PORT}`
+// The demo yard's manager and office clerk (server/demo): 40 at the desk and on the trucks, 10 at the counter.
+const MANAGER = { email: 'ruben@tamsincreek.example', password: 'quarry-spur-demo' }
+const OFFICE = { email: 'priya@tamsincreek.example', password: 'quarry-spur-demo' }
+const COUNTER_STAFF = 10
+// Between two actions a person reads the screen: 0.5–2 s (an assumption, not a measured figure).
+const think = () => new Promise((r) => setTimeout(r, 500 + Math.random() * 1500))
+
+class Staff {
+  cookie = ''
+  csrf = ''
+  userId = ''
+  async call(method: string, url: string, body?: unknown) {
+    const res = await fetch(base + url, {
+      method,
+      headers: { cookie: this.cookie, 'content-type': 'application/json', 'x-csrf-token': this.csrf },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    })
+    const set = res.headers.getSetCookie().map((c) => c.split(';')[0]!)
+    if (set.length) this.cookie = [...new Map([...this.cookie.split('; ').filter(Boolean), ...set].map((c) => [c.split('=')[0], c])).values()].join('; ')
+    const text = await res.text()
+    return { status: res.status, body: text.startsWith('{') ? (JSON.parse(text) as Record<string, unknown>) : {} }
+  }
+  async signIn(who = MANAGER) {
+    this.csrf = String((await this.call('GET', '/api/session')).body.csrfToken)
+    const res = await this.call('POST', '/api/session', who)
+    if (res.status !== 200) throw new Error(`sign-in ${res.status}`)
+    this.csrf = String(res.body.csrfToken)
+    this.userId = String((res.body.user as { id: string }).id)
+    return this
+  }
+}
+
+const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor(sorted.length * p))] ?? NaN
+const summary = (times: number[]) => {
+  const s = [...times].sort((a, b) => a - b)
+  return { count: s.length, p50Ms: Math.round(percentile(s, 0.5)), p95Ms: Math.round(percentile(s, 0.95)), maxMs: Math.round(s.at(-1) ?? NaN) }
+}
+
+async function boardOneAtATime(s: Staff, seconds: number) {
+  const times: number[] = []
+  const until = performance.now() + seconds * 1000
+  while (performance.now() < until) {
+    const t = performance.now()
+    await s.call('GET', '/api/board')
+    times.push(performance.now() - t)
+  }
+  return summary(times)
+}
+
+type Record_ = (op: string, ms: number, ok: boolean, detail?: string) => void
+const towed: string[] = []
+
+function timer(s: Staff, record: Record_) {
+  return async (op: string, method: string, url: string, body?: unknown) => {
+    const t = performance.now()
+    const res = await s.call(method, url, body).catch((err: Error) => ({ status: 0, body: { error: `${err.message} ${String((err.cause as { code?: string } | undefined)?.code ?? "")}` } as Record<string, unknown> }))
+    record(op, performance.now() - t, res.status >= 200 && res.status < 300, res.status >= 300 || res.status === 0 ? `${op} ${res.status} ${JSON.stringify(res.body).slice(0, 160)}` : undefined)
+    await think()
+    return res
+  }
+}
+
+/** A dispatcher's loop: the board, a tow-in, its move to teardown, a storage quote. */
+async function desk(s: Staff, until: number, record: Record_) {
+  const timed = timer(s, record)
+  while (performance.now() < until) {
+    await timed('board', 'GET', '/api/board')
+    const res = await timed('tow-in', 'POST', '/api/vehicles', towInBody(s.userId, anotherVehicle))
+    if (res.status === 201) {
+      const id = String(res.body.id)
+      towed.push(id)
+      await timed('move', 'POST', `/api/vehicles/${id}/moves`, { to: 'teardown', version: Number(res.body.version ?? 1) })
+    }
+    await timed('quote', 'POST', '/api/quotes/storage', { ruleSetId: 'california-sample', stay: { arrivedAt: '2026-03-01T12:00:00Z', vehicleClass: 'standard' }, asOf: '2026-03-04T12:00:00Z' })
+  }
+}
+
+/** A counter clerk's loop: the board, then a small cash payment on a vehicle towed in during the run. */
+async function counter(s: Staff, until: number, record: Record_) {
+  const timed = timer(s, record)
+  while (performance.now() < until) {
+    await timed('board', 'GET', '/api/board')
+    const id = towed[Math.floor(Math.random() * towed.length)]
+    if (id) await timed('payment', 'POST', `/api/vehicles/${id}/payments`, { idempotencyKey: randomUUID(), method: 'cash', amountCents: 100, tenderedCents: 100 })
+  }
+}
+
+export async function run(): Promise<BenchResult> {
+  const loadBefore = loadavg()[0]!
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'holdfast-load-bench-'))
+  let server: ChildProcess | undefined
+  const streams: AbortController[] = []
+  try {
+    const entry = await bundleServer()
+    server = spawn(process.execPath, [entry], {
+      env: { ...process.env, HOLDFAST_DATA_DIR: dataDir, PORT: String(PORT), HOST: '127.0.0.1', LOG_LEVEL: 'warn', HOLDFAST_DEMO: '1', HOLDFAST_SIGNIN_PER_IP: '100000' },
+      stdio: ['ignore', 'ignore', 'inherit'],
+    })
+    for (let i = 0; ; i++) {
+      if (await fetch(`${base}/api/health`).then((r) => r.ok, () => false)) break
+      if (i > 1200) throw new Error('the server did not start')
+      await new Promise((r) => setTimeout(r, 100))
+    }
+    const staff: Staff[] = []
+    for (let i = 0; i < GOALS.staff; i++) staff.push(await new Staff().signIn(i < COUNTER_STAFF ? OFFICE : MANAGER))
+    const reader = staff.at(-1)!
+    const boardBefore = await boardOneAtATime(reader, 8)
+
+    // 500 live board streams, five to a session (the cap), each drained as events arrive.
+    let streamsOpen = 0
+    const streamSessions: Staff[] = []
+    for (let i = 0; i < GOALS.streams / 5; i++) streamSessions.push(await new Staff().signIn())
+    await Promise.all(
+      Array.from({ length: GOALS.streams }, async (_, i) => {
+        const abort = new AbortController()
+        streams.push(abort)
+        const s = streamSessions[Math.floor(i / 5)]!
+        const res = await fetch(`${base}/api/board/events`, { headers: { cookie: s.cookie, accept: 'text/event-stream' }, signal: abort.signal })
+        if (res.status === 200) streamsOpen++
+        void (async () => {
+          for await (const _chunk of res.body ?? []) void _chunk
+        })().catch(() => undefined)
+      }),
+    )
+    const boardWithStreams = await boardOneAtATime(reader, 8)
+
+    // The mixed workload, streams still open.
+    const times = new Map<string, number[]>()
+    const failedBy = new Map<string, number>()
+    const all: number[] = []
+    let errors = 0
+    const firstErrors: string[] = []
+    const until = performance.now() + GOALS.seconds * 1000
+    await Promise.all(
+      staff.map((s, i) =>
+        (i < COUNTER_STAFF ? counter : desk)(s, until, (op, ms, ok, detail) => {
+          times.set(op, [...(times.get(op) ?? []), ms])
+          all.push(ms)
+          if (!ok) {
+            errors++
+            failedBy.set(op, (failedBy.get(op) ?? 0) + 1)
+            if (detail && firstErrors.length < 5) firstErrors.push(detail)
+          }
+        }),
+      ),
+    )
+    const overall = summary(all)
+    const byOperation = Object.fromEntries([...times].map(([op, t]) => [op, { ...summary(t), errors: failedBy.get(op) ?? 0 }]))
+    const streamRatio = Number((boardWithStreams.p95Ms / Math.max(1, boardBefore.p95Ms)).toFixed(2))
+    const met = errors === GOALS.errors && overall.p95Ms <= GOALS.p95Ms && streamsOpen === GOALS.streams && streamRatio <= GOALS.boardP95RatioWithStreams
+    const result: BenchResult = {
+      name: 'load',
+      goals: GOALS,
+      met,
+      workload: `${GOALS.staff - COUNTER_STAFF} dispatchers (board, tow-in, move, quote) and ${COUNTER_STAFF} counter clerks (board, payment), each waiting 0.5–2 s between actions`,
+      requests: overall.count,
+      requestsPerSecond: Math.round(overall.count / GOALS.seconds),
+      errors,
+      firstErrors,
+      overall,
+      byOperation,
+      streams: { open: streamsOpen, boardOneAtATimeBefore: boardBefore, boardOneAtATimeWithStreams: boardWithStreams, p95Ratio: streamRatio },
+      machine: { cores: cpus().length, loadAverage1m: { before: Math.round(loadBefore * 100) / 100, after: Math.round(loadavg()[0]! * 100) / 100 } },
+    }
+    writeResult(result)
+    return result
+  } finally {
+    for (const a of streams) a.abort()
+    if (server && server.exitCode === null && server.signalCode === null) {
+      const gone = new Promise((r) => server!.once('exit', r))
+      server.kill('SIGTERM')
+      await gone
+    }
+    rmSync(dataDir, { recursive: true, force: true })
+  }
+}
+
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) console.log(JSON.stringify(await run(), null, 2))

@@ -1,0 +1,43 @@
+import { expect, test } from '@playwright/test'
+import { anotherVehicle, towInBody } from '../helpers/tow-in'
+import { signInAs, watchConsole } from './helpers'
+
+// Issue 16 item 16: a technician could start a teardown on a vehicle under a law-enforcement hold and the
+// teardown never showed holds. An evidence hold usually means "do not touch": it is shown, and asked about.
+test('a teardown under a law-enforcement hold shows the hold and asks before starting', async ({ page, browser }) => {
+  test.slow()
+  const problems = watchConsole(page)
+  const desk = await browser.newPage()
+  await signInAs(desk, 'dispatcher')
+  const session = await (await desk.request.get('/api/session')).json()
+  const headers = { 'x-csrf-token': session.csrfToken }
+  // A vehicle of its own (a fresh VIN and plate): no demo position is touched.
+  const created = await desk.request.post('/api/vehicles', { headers, data: towInBody(session.user.id, anotherVehicle) })
+  expect(created.status()).toBe(201)
+  const vehicleId = (await created.json()).id as string
+  const held = await desk.request.post(`/api/vehicles/${vehicleId}/holds`, { headers, data: { kind: 'law_enforcement', agency: 'Orrin Flats Police Department', caseNumber: 'OF-26-20533' } })
+  expect(held.status()).toBe(201)
+  await desk.close()
+
+  await signInAs(page, 'technician')
+  await page.goto(`/vehicles/${vehicleId}/inspection`)
+  const holds = page.getByTestId('inspection-holds')
+  await expect(holds).toContainText('A hold is set on this vehicle')
+  await expect(holds).toContainText('OF-26-20533')
+  await expect(holds).toContainText('do not take it apart')
+
+  const start = page.getByRole('button', { name: /Start the teardown|Start the inspection/ }).first()
+  await start.click()
+  const ask = page.getByRole('dialog', { name: 'Start the teardown under a hold?' })
+  await expect(ask).toContainText('Law-enforcement hold')
+  await ask.getByRole('button', { name: 'Do not start' }).click()
+  await expect(ask).toBeHidden()
+  await expect(page.getByTestId('vehicle-state')).toHaveText('Arrival')
+
+  await start.click()
+  const moved = page.waitForResponse((r) => r.url().endsWith('/inspection') && r.request().method() === 'POST')
+  await page.getByRole('dialog', { name: 'Start the teardown under a hold?' }).getByRole('button', { name: 'Start anyway' }).click()
+  expect((await moved).status()).toBe(201)
+  await expect(page.getByTestId('vehicle-state')).toHaveText('Teardown')
+  expect(problems).toEqual([])
+})
