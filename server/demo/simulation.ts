@@ -16,6 +16,7 @@ import { sendNoticeSchema } from '@shared/schemas/notices'
 import { policeNoticeInputSchema } from '@shared/schemas/police-notices'
 import { claimantInputSchema, handoverInputSchema, signatureInputSchema } from '@shared/schemas/releases'
 import { towInSchema } from '@shared/schemas/tow-in'
+import { transferInputSchema } from '@shared/schemas/transfers'
 import type { User } from '@shared/schemas/users'
 import { invoiceOf, takePayment } from '../billing/index'
 import { makeMove } from '../board/index'
@@ -26,9 +27,10 @@ import { acknowledgeSafety, addLine, finishInspection, markRollAbility, setFindi
 import { generateNotices, sendNotice } from '../notices/index'
 import { recordPoliceNotice } from '../police-notices/index'
 import { addIdPhoto, issueGatePass, recordClaimant, recordHandover, recordOut, signRelease } from '../releases/index'
+import { recordTransfer, signTransfer } from '../transfers/index'
 import { changeVehicle, createTowIn, type VehicleChanges, vehicleById } from '../vehicles/index'
 import { demoInspection } from './inspections'
-import { DEMO_DRIVERS, DEMO_YARD } from './scenario'
+import { DEMO_COMPANY, DEMO_DRIVERS, DEMO_YARD } from './scenario'
 import type { DemoVehicle } from './vehicles'
 
 const MINUTE = 60_000
@@ -200,7 +202,8 @@ function planStory(world: DemoWorld, v: DemoVehicle, index: number, arrivedAt: n
     }
     if (to === 'closed' && v.disposition === 'lien_sale') {
       // Disposal once the law allows it: the guards judge it on the clocks the notices started.
-      at(desk(Math.max(target(step), plan.last() + 16 * DAY)), move('closed', staff.office, { disposition: 'lien_sale' }))
+      lienSale(world, story, v, at, desk(Math.max(target(step), plan.last() + 16 * DAY), 30))
+      at(desk(0), move('closed', staff.office, { disposition: 'lien_sale' }))
     }
   }
   return plan.last() < now - 30 * MINUTE ? story : null
@@ -288,6 +291,18 @@ function handOver(world: DemoWorld, story: Story, v: DemoVehicle, at: At, desk: 
     pass = (await issueGatePass(changes, office, id(), new Date(t0 + 17 * MINUTE))).token
   })
   step(31, async () => void (await recordOut(changes, office, pass, new Date(t0 + 31 * MINUTE))))
+}
+
+/** The lien sale itself, on the day the law allows it: the buyer and price recorded, the bill of sale signed by the yard. */
+function lienSale(world: DemoWorld, story: Story, v: DemoVehicle, at: At, t0: number) {
+  const { changes, staff, files } = world
+  const office = staff.office
+  const id = () => story.vehicleId
+  const date = dayOf(t0, DEMO_YARD.timeZone)
+  at(t0, () =>
+    recordTransfer(changes, office, id(), transferInputSchema.parse({ kind: 'lien_sale', sellerName: DEMO_COMPANY.name, buyerKind: 'other', buyerName: 'Delphine Okafor', buyerAddress: '58 Tamarack Rd, Orrin Flats, CA 93599', buyerIdType: 'drivers_license', buyerIdNumber: 'D8820417', priceCents: Math.round(demoValueCents(v) / 2), date, odometer: v.odometer, odometerUnreadable: v.odometer === null }), new Date(t0)),
+  )
+  at(t0 + 12 * MINUTE, async () => signTransfer(changes, files, office, id(), signatureInputSchema.parse({ signerName: office.name, image: await signaturePng() }), new Date(t0 + 12 * MINUTE)))
 }
 
 let idPhoto: Buffer | undefined
