@@ -28,6 +28,8 @@ export default defineConfig({
   webServer: {
     command: `node scripts/e2e-server.mjs ${port}`,
     url: `http://127.0.0.1:${port}/api/health`,
+    // A fresh data directory is copied from the build's demo template (server/demo/template.ts); without a recent one it
+    // plays the demo yard through the services first: slow on a busy machine.
     timeout: 180_000,
     reuseExistingServer: false,
     stdout: 'ignore',

@@ -23,6 +23,8 @@ export interface DatabaseHandle {
   /** Applies the committed migrations (db/migrations unless the caller names another folder). */
   migrate(): Promise<void>
   close(): Promise<void>
+  /** The template a new embedded data directory was just made from; absent otherwise. */
+  startedFrom?: string
 }
 
 export type DatabaseTarget =
@@ -49,11 +51,14 @@ export async function openDatabase(
   }
   let release: (() => Promise<void>) | undefined
   let client: PGlite
+  let startedFrom: string | undefined
   if (target.kind === 'pglite') {
     mkdirSync(target.dataDir, { recursive: true })
     release = lockDataDir(target.dataDir)
     try {
-      client = await PGlite.create(path.join(target.dataDir, 'pg'), startingPoint(target))
+      const start = startingPoint(target)
+      client = await PGlite.create(path.join(target.dataDir, 'pg'), start)
+      if (start.loadDataDir) startedFrom = target.template
     } catch (err) {
       await release()
       throw err
@@ -65,6 +70,7 @@ export async function openDatabase(
   return {
     db: db as unknown as Database,
     driver: 'pglite',
+    startedFrom,
     migrate: () => migratePglite(db, { migrationsFolder }),
     async close() {
       await client.close()
@@ -94,7 +100,7 @@ async function migrateUnderLock(pool: pg.Pool, migrate: () => Promise<void>): Pr
 }
 
 // A new directory starts from the build's migrated template: loading it is about twice as fast as initdb.
-function startingPoint(target: { dataDir: string; template?: string }) {
+function startingPoint(target: { dataDir: string; template?: string }): { loadDataDir?: Blob } {
   const fresh = !existsSync(path.join(target.dataDir, 'pg', 'PG_VERSION'))
   if (!fresh || !target.template || !existsSync(target.template)) return {}
   return { loadDataDir: new Blob([new Uint8Array(readFileSync(target.template))]) }

@@ -13,6 +13,8 @@ const envSchema = z.object({
   HOLDFAST_DATA_DIR: z.string().min(1).default('./data'),
   // A migrated empty embedded database (npm run build makes it): a new data directory starts from it.
   HOLDFAST_DB_TEMPLATE: z.string().min(1).default('dist/db-template.tar.gz'),
+  // The same with the demo yard played into it (npm run build), and beside it <file>.json: used when the demo is on.
+  HOLDFAST_DEMO_TEMPLATE: z.string().min(1).default('dist/db-demo-template.tar.gz'),
   // The committed migrations, applied at every start; a bundle run from elsewhere points here.
   HOLDFAST_MIGRATIONS: z.string().min(1).default('db/migrations'),
   // The shipped sample rule sets (JSON), loaded with the demo or a company's first yard.
@@ -63,6 +65,8 @@ export interface Config {
   ruleSetsFolder: string
   dataDir: string
   demo: boolean
+  /** The database template with the demo yard in it; `${demoTemplate}.json` says when it was built and holds its files. */
+  demoTemplate: string
   https: boolean
   trustProxy: string | undefined
   /** Origins allowed to make state-changing requests besides the server's own host. */
@@ -113,6 +117,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     ruleSetsFolder: path.resolve(e.HOLDFAST_RULE_SETS),
     dataDir,
     demo: e.HOLDFAST_DEMO,
+    demoTemplate: path.resolve(e.HOLDFAST_DEMO_TEMPLATE),
     https: e.HOLDFAST_HTTPS,
     trustProxy: e.HOLDFAST_TRUST_PROXY,
     origins: (e.HOLDFAST_ORIGINS ?? '').split(',').map((s) => s.trim()).filter(Boolean),

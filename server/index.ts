@@ -1,7 +1,7 @@
 import { pino } from 'pino'
 import { openDatabase, DataDirLockedError, type DatabaseHandle } from '@db/client'
 import { hasHistory, type HistoryKey } from '@db/history'
-import { demoSignIns, loadDemoIfEmpty } from './demo/index'
+import { adoptDemoTemplate, demoSignIns, loadDemoIfEmpty, usableDemoTemplate, type DemoLoaded } from './demo/index'
 import { createApp } from './app'
 import { localFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
@@ -26,9 +26,11 @@ try {
 // Readable lines on a terminal, JSON lines for a log collector.
 const log = pino({ level: config.logLevel, serializers: logSerializers, ...(process.stdout.isTTY ? { transport: { target: 'pino-pretty', options: { ignore: 'pid,hostname' } } } : {}) })
 
+// A new embedded database with the demo starts from the build's demo template while its demo is recent.
+const demoTemplate = config.demo && config.database.kind === 'pglite' ? usableDemoTemplate(`${config.demoTemplate}.json`) : null
 let handle: DatabaseHandle
 try {
-  handle = await openDatabase(config.database, config.migrationsFolder)
+  handle = await openDatabase(demoTemplate && config.database.kind === 'pglite' ? { ...config.database, template: config.demoTemplate } : config.database, config.migrationsFolder)
 } catch (err) {
   if (err instanceof DataDirLockedError) {
     log.fatal(err.message)
@@ -41,14 +43,23 @@ await handle.migrate()
 const migrated = performance.now()
 const { db } = handle
 let historyKey: HistoryKey
+const files = localFileStore(config.filesDir)
+let adopted: DemoLoaded | null = null
 try {
-  historyKey = loadHistoryKey(config.historyKeyFile, await hasHistory(db))
+  if (demoTemplate && handle.startedFrom === config.demoTemplate) {
+    // Made from the demo template just now: this install's own key, and the demo re-sealed with it before anything is served.
+    historyKey = loadHistoryKey(config.historyKeyFile, false)
+    const resealStarted = performance.now()
+    const made = await adoptDemoTemplate(db, historyKey, files, demoTemplate)
+    adopted = made
+    log.info({ ...made.resealed, ms: Math.round(performance.now() - resealStarted) }, 'Started from the demo template: its history is re-sealed with this install\'s key.')
+  } else historyKey = loadHistoryKey(config.historyKeyFile, await hasHistory(db))
 } catch (err) {
   log.fatal((err as Error).message)
   await handle.close()
   process.exit(78)
 }
-const loadedDemo = config.demo ? await loadDemoIfEmpty(db, historyKey, new Date(), config.ruleSetsFolder) : null
+const loadedDemo = adopted ?? (config.demo ? await loadDemoIfEmpty(db, historyKey, new Date(), config.ruleSetsFolder, files) : null)
 if (loadedDemo && !process.stdout.isTTY) log.info('Loaded the demo yard.')
 // A returning person at a terminal is shown the demo sign-ins each time; a log collector only on the first load.
 const demo = process.stdout.isTTY ? (loadedDemo ?? (config.demo ? await demoSignIns(db) : null)) : loadedDemo
@@ -63,7 +74,6 @@ const live = config.database.kind === 'postgres' ? await postgresBus(config.data
 // Mail goes to SMTP_URL, or to the local stand-in through the very same transport.
 const localSmtp = config.mail.smtpUrl ? undefined : await startLocalSmtp({ folder: config.mail.localFolder })
 if (localSmtp) log.info(`No SMTP_URL: e-mail goes to the local stand-in at ${localSmtp.url}, kept in ${config.mail.localFolder}`)
-const files = localFileStore(config.filesDir)
 const outbox = new OutboxWorker(db, smtpTransport(config.mail.smtpUrl ?? localSmtp!.url), files, log, { from: config.mail.from })
 
 // Card payments go to the payment service by its key, or to the local stand-in through the very same SDK.

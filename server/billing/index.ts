@@ -1,6 +1,7 @@
 export { cashDrawerRouter, vehicleBillingRouter } from './billing.routes'
 export { moneyTotals, type MoneyTotals } from './billing.queries'
-export { drawerOf } from './closeout.service'
+export { takePayment } from './payments.service'
 export { invoiceOf } from './invoice.service'
+export { drawerOf } from './closeout.service'
 export { queueReceipt, type ReceiptMail } from './receipt-mail'
 export { paymentRecord, OWNER_ONLINE } from './billing.queries'

@@ -30,11 +30,11 @@ function replay(existing: PaymentRow, requestHash: string, takenBy: string) {
  */
 export async function takePayment(changes: VehicleChanges, actor: User, vehicleId: string, input: Payment, mail: ReceiptMail): Promise<PaymentAnswer> {
   const requestHash = hashOf({ kind: 'payment', method: input.method, amountCents: input.amountCents, tenderedCents: input.tenderedCents, checkNumber: input.checkNumber, terminalReference: input.terminalReference })
-  const { result, changed } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
+  const { result, changed } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, now, record }) => {
     const existing = await paymentByKey(tx, vehicleId, input.idempotencyKey)
     if (existing) return { payment: replay(existing, requestHash, actor.name), replayed: true }
     if (vehicle.state === 'closed') throw refusal(409, 'vehicleId', 'This vehicle has left the yard: its bill is closed and takes no more payments.', 'closedPayments')
-    const before = await invoiceOf(tx, vehicle, yard)
+    const before = await invoiceOf(tx, vehicle, yard, now)
     if (before.dueCents <= 0) throw refusal(400, 'amountCents', 'Nothing is due on this vehicle.')
     if (input.amountCents > before.dueCents) {
       throw refusal(400, 'amountCents', `That is more than is due: ${formatCents(before.dueCents)} is due. Take at most that.`)
@@ -59,6 +59,7 @@ export async function takePayment(changes: VehicleChanges, actor: User, vehicleI
         dueBeforeCents: before.dueCents,
         receiptEmail: input.receiptEmail,
         takenById: actor.id,
+        takenAt: now,
       })
       .returning()
     const payment = paymentRecord(row!, actor.name)

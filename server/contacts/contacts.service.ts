@@ -66,13 +66,13 @@ export async function removeContact(changes: VehicleChanges, actor: User, vehicl
  * "owner-records-requested", which meets the rule set's deadline to request the records.
  */
 export async function recordRecordsRequest(changes: VehicleChanges, actor: User, vehicleId: string, input: RecordsRequest): Promise<string> {
-  const { result } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
+  const { result } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, now, record }) => {
     if (vehicle.state === 'closed') throw closed()
-    const sentAt = pastDay(input.sentOn, yard.timeZone, 'sentOn', 'The day the request was sent')
-    if (input.answeredOn) pastDay(input.answeredOn, yard.timeZone, 'answeredOn', 'The day the answer came')
+    const sentAt = pastDay(input.sentOn, yard.timeZone, 'sentOn', 'The day the request was sent', now)
+    if (input.answeredOn) pastDay(input.answeredOn, yard.timeZone, 'answeredOn', 'The day the answer came', now)
     const [row] = await tx
       .insert(recordsRequests)
-      .values({ vehicleId, agency: input.agency, sentOn: input.sentOn, answeredOn: input.answeredOn, outcome: input.outcome, createdById: actor.id })
+      .values({ vehicleId, agency: input.agency, sentOn: input.sentOn, answeredOn: input.answeredOn, outcome: input.outcome, createdById: actor.id, createdAt: now })
       .returning({ id: recordsRequests.id })
     await addClockEvent(tx, { vehicleId, kind: 'owner-records-requested', at: sentAt, source: 'records-request', sourceId: row!.id, recordedById: actor.id })
     record({ kind: 'records_requested', after: { requestId: row!.id, agency: input.agency, sentOn: input.sentOn } })
@@ -83,12 +83,12 @@ export async function recordRecordsRequest(changes: VehicleChanges, actor: User,
 }
 
 export async function answerRecordsRequest(changes: VehicleChanges, actor: User, vehicleId: string, requestId: string, input: RecordsAnswer): Promise<void> {
-  await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
+  await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, now, record }) => {
     if (vehicle.state === 'closed') throw closed()
     const [request] = await tx.select().from(recordsRequests).where(and(eq(recordsRequests.id, requestId), eq(recordsRequests.vehicleId, vehicleId)))
     if (!request) throw notFound('That records request')
     if (request.answeredOn) throw conflict(`This request was already answered on ${request.answeredOn}.`, said('requestAnswered', { date: request.answeredOn }))
-    pastDay(input.answeredOn, yard.timeZone, 'answeredOn', 'The day the answer came')
+    pastDay(input.answeredOn, yard.timeZone, 'answeredOn', 'The day the answer came', now)
     if (input.answeredOn < request.sentOn) {
       const message = 'The answer cannot come before the request was sent.'
       throw badRequest(message, [{ path: 'answeredOn', message }])

@@ -1,1 +1,2 @@
 export { demoSignIns, loadDemoIfEmpty, type DemoLoaded } from './seed'
+export { adoptDemoTemplate, buildDemoTemplate, resealHistory, usableDemoTemplate, type DemoTemplateMeta } from './template'

@@ -1,13 +1,10 @@
-// Finished teardowns for a few demo vehicles past Teardown, matching their intake notes. Every
-// part, price and figure is invented; labour is priced at the demo yard's rate.
-import { randomUUID } from 'node:crypto'
-import { CAUTIONS, estimateTotals, type FindingStatus, hoursToHundredths, itemName, pickupBadge } from '@shared/domain/inspection'
-import type { Database } from '@db/client'
-import type { NewHistoryEvent } from '@db/history'
-import * as schema from '@db/schema'
+// What the technician finds on the demo vehicles past Teardown, matching their intake notes. Every
+// part, price and figure is invented; the estimate's labour is priced at the demo yard's rate by the
+// estimate service itself. Vehicles without their own teardown here get a short walk-round.
+import type { FindingStatus } from '@shared/domain/inspection'
 import type { DemoVehicle } from './vehicles'
 
-interface DemoInspection {
+export interface DemoInspection {
   findings: { item: string; status: FindingStatus; note?: string }[]
   lines: { item?: string; part: string; quantity: number; unitPriceCents: number; labourHours: number }[]
   salvageValueCents: number
@@ -104,72 +101,15 @@ const BY_VEHICLE: Record<string, DemoInspection> = {
   },
 }
 
-type Actor = { id: string; name: string }
-type Event = Omit<NewHistoryEvent, 'vehicleId'>
-
-export interface DemoTeardown {
-  inspection: typeof schema.inspections.$inferInsert
-  items: (typeof schema.inspectionItems.$inferInsert)[]
-  lines: (typeof schema.inspectionLines.$inferInsert)[]
-  events: Event[]
-}
-
-/**
- * The demo teardown of one vehicle, or null if it has none: rows for the three tables and the
- * history entries the API would have written, spread over the 40 minutes before it was finished.
- * The value entered is the vehicle's own demo value, so its lien clocks stay as they are.
- */
-export function demoTeardown(v: DemoVehicle, vehicleId: string, valueCents: number, labourRateCents: number, finishedAt: Date, tech: Actor): DemoTeardown | null {
-  const demo = BY_VEHICLE[`${v.make} ${v.model}`]
-  if (!demo) return null
-  const id = randomUUID()
-  let minute = -40
-  const at = () => new Date(finishedAt.getTime() + minute++ * 60_000)
-  const by = { actorId: tech.id, actorLabel: tech.name }
-  const startedAt = at()
-  const safetyAt = at()
-  const events: Event[] = [
-    { ...by, kind: 'inspection_started', at: startedAt, after: { inspectionId: id, reinspection: false } },
-    { ...by, kind: 'safety_acknowledged', at: safetyAt, after: { inspectionId: id, cautions: CAUTIONS.map((c) => c.text) } },
-  ]
-  const items = demo.findings.map((f) => {
-    const updatedAt = at()
-    events.push({ ...by, kind: 'inspection_item_marked', at: updatedAt, after: { inspectionId: id, item: f.item, name: itemName(f.item), status: f.status, note: f.note ?? null } })
-    return { inspectionId: id, itemCode: f.item, status: f.status, note: f.note ?? null, updatedById: tech.id, updatedAt }
-  })
-  const lines = demo.lines.map((l) => {
-    const createdAt = at()
-    const row = { id: randomUUID(), inspectionId: id, itemCode: l.item ?? null, part: l.part, quantity: l.quantity, unitPriceCents: l.unitPriceCents, labourHundredths: hoursToHundredths(l.labourHours)!, labourRateCents, createdById: tech.id, createdAt }
-    events.push({ ...by, kind: 'estimate_line_added', at: createdAt, after: { inspectionId: id, lineId: row.id, part: l.part, quantity: l.quantity, unitPriceCents: l.unitPriceCents, labourHours: l.labourHours, labourRateCents } })
-    return row
-  })
-  const rolls = v.rolls ?? true
-  events.push({ ...by, kind: 'roll_ability_marked', at: at(), after: { inspectionId: id, rolls, steers: rolls, brakes: rolls } })
-  const values = { actualCashValueCents: valueCents, actualCashValueSource: demo.valueSource, salvageValueCents: Math.min(demo.salvageValueCents, valueCents), salvageValueSource: demo.salvageSource }
-  const valuesAt = at()
-  events.push({ ...by, kind: 'vehicle_values_entered', at: valuesAt, after: { inspectionId: id, ...values, estimatedValueCents: valueCents } })
-  const found = (status: FindingStatus) => demo.findings.filter((f) => f.status === status).map((f) => f.item)
-  const pickupNeeds = pickupBadge({ rolls, steers: rolls, brakes: rolls, keys: v.keys })?.label ?? null
-  events.push({ ...by, kind: 'inspection_finished', at: finishedAt, after: { inspectionId: id, broken: found('broken'), worn: found('worn'), estimateCents: estimateTotals(lines).totalCents, pickupNeeds } })
-  return {
-    inspection: { id, vehicleId, startedById: tech.id, startedAt, safetyAcknowledgedById: tech.id, safetyAcknowledgedAt: safetyAt, ...values, valuesEnteredById: tech.id, valuesEnteredAt: valuesAt, finishedById: tech.id, finishedAt },
-    items,
-    lines,
-    events,
-  }
-}
-
-/** The rows of every demo teardown, one statement per table (the demo must load within the start-up budget). */
-export async function insertDemoTeardowns(db: Database, teardowns: (DemoTeardown | null)[]): Promise<void> {
-  const all = teardowns.filter((x): x is DemoTeardown => x !== null)
-  if (all.length === 0) return
-  await db.insert(schema.inspections).values(all.map((x) => x.inspection))
-  await db.insert(schema.inspectionItems).values(all.flatMap((x) => x.items))
-  await db.insert(schema.inspectionLines).values(all.flatMap((x) => x.lines))
-}
-
-/** A vehicle's demo history with its teardown's entries in time order, ready to be chained. */
-export function withTeardown(events: Event[], teardown: DemoTeardown | null): Event[] {
-  if (!teardown) return events
-  return [...events, ...teardown.events].sort((a, b) => a.at!.getTime() - b.at!.getTime())
+/** The demo teardown of one vehicle: its own when it has one, else a short walk-round by its tow reason. */
+export function demoInspection(v: DemoVehicle, valueCents: number): DemoInspection {
+  const own = BY_VEHICLE[`${v.make} ${v.model}`]
+  if (own) return own
+  const walkRound: DemoInspection['findings'] =
+    v.reason === 'accident'
+      ? [{ item: 'front-body', status: 'broken', note: 'Front bumper cover cracked' }, { item: 'headlamps', status: 'ok' }, { item: 'tyres', status: 'ok' }]
+      : v.reason === 'breakdown'
+        ? [{ item: 'engine', status: 'worn', note: 'Will not start; owner reports it died on the road' }, { item: 'tyres', status: 'ok' }, { item: 'brakes-front', status: 'ok' }]
+        : [{ item: 'tyres', status: 'ok' }, { item: 'brakes-front', status: 'ok' }, { item: 'headlamps', status: 'ok' }]
+  return { findings: walkRound, lines: [], salvageValueCents: Math.round(valueCents / 4), valueSource: GUIDE, salvageSource: 'Scrap weight at today’s price' }
 }

@@ -43,7 +43,7 @@ export async function putFiles(store: FileStore, vehicleId: string, prepared: Pr
 }
 
 /** Rows and one history event for files already in the store, as part of the caller's change to the vehicle. */
-export async function recordFiles({ tx, vehicleId, actor, record }: Omit<ChangeScope, 'actor'> & { actor: { id: string | null } }, stored: StoredFile[]) {
+export async function recordFiles({ tx, vehicleId, actor, now, record }: Omit<ChangeScope, 'actor'> & { actor: { id: string | null } }, stored: StoredFile[]) {
   if (stored.length === 0) return
   await tx.insert(files).values(
     stored.map((f) => ({
@@ -59,6 +59,7 @@ export async function recordFiles({ tx, vehicleId, actor, record }: Omit<ChangeS
       height: f.height,
       label: f.label,
       uploadedById: actor.id,
+      createdAt: now,
     })),
   )
   record({ kind: 'file_added', after: { files: stored.map((f) => ({ id: f.id, kind: f.kind, label: f.label, sha256: f.sha256 })) } })

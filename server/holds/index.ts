@@ -1,1 +1,2 @@
 export { holdsRouter } from './holds.routes'
+export { setHold } from './holds.service'

@@ -34,9 +34,9 @@ const proof = (l: Pick<LineRow, 'part' | 'quantity' | 'unitPriceCents' | 'labour
 
 /** A line priced at the yard's labour rate of today; the rate stays with the line. */
 export async function addLine(changes: VehicleChanges, actor: User, vehicleId: string, input: LineInput): Promise<string> {
-  const { result } = await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, inspection, yard, record }) => {
+  const { result } = await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, inspection, yard, now, record }) => {
     const values = { ...stored(input), labourRateCents: yard.labourRateCents }
-    const [row] = await tx.insert(inspectionLines).values({ inspectionId: inspection.id, createdById: actor.id, ...values }).returning()
+    const [row] = await tx.insert(inspectionLines).values({ inspectionId: inspection.id, createdById: actor.id, createdAt: now, ...values }).returning()
     record({ kind: 'estimate_line_added', after: { inspectionId: inspection.id, lineId: row!.id, ...proof(row!) } })
     return row!.id
   })
@@ -72,8 +72,7 @@ export async function removeLine(changes: VehicleChanges, actor: User, vehicleId
  * deadline may change, and the history shows the value before and after.
  */
 export async function setValues(changes: VehicleChanges, actor: User, vehicleId: string, input: Values): Promise<void> {
-  await changeInspection(changes, actor, vehicleId, 'any', async ({ tx, vehicle, inspection, set, record }) => {
-    const at = new Date()
+  await changeInspection(changes, actor, vehicleId, 'any', async ({ tx, vehicle, inspection, now: at, set, record }) => {
     await tx
       .update(inspections)
       .set({ ...input, valuesEnteredById: actor.id, valuesEnteredAt: at })

@@ -14,14 +14,14 @@ type Finding = z.output<typeof itemFindingSchema>
 
 /** Marks one checklist item; a mark that changes nothing writes nothing. */
 export async function setFinding(changes: VehicleChanges, actor: User, vehicleId: string, itemCode: string, finding: Finding): Promise<void> {
-  await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, inspection, record }) => {
+  await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, inspection, now, record }) => {
     const [before] = await tx
       .select()
       .from(inspectionItems)
       .where(and(eq(inspectionItems.inspectionId, inspection.id), eq(inspectionItems.itemCode, itemCode)))
     if (before && before.status === finding.status && before.note === finding.note) return
     if (!before && finding.status === 'not_checked' && finding.note === null) return
-    const values = { status: finding.status, note: finding.note, updatedById: actor.id, updatedAt: new Date() }
+    const values = { status: finding.status, note: finding.note, updatedById: actor.id, updatedAt: now }
     await tx
       .insert(inspectionItems)
       .values({ inspectionId: inspection.id, itemCode, ...values })

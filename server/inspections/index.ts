@@ -1,2 +1,6 @@
 export { inspectionsRouter } from './inspections.routes'
 export { inspectionOf } from './inspection-page'
+export { acknowledgeSafety, finishInspection, startInspection } from './inspections.service'
+export { setFinding } from './findings.service'
+export { addLine, setValues } from './estimate.service'
+export { markRollAbility } from './roll-ability.service'

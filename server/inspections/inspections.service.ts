@@ -14,13 +14,13 @@ import { itemsOf, latestInspection, linesOf } from './inspections.queries'
  * "inspected" mark, so it cannot go on to Owner decision until this one is finished too.
  */
 export async function startInspection(changes: VehicleChanges, actor: User, vehicleId: string): Promise<{ created: boolean }> {
-  const { changed } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, set, record }) => {
+  const { changed } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, now, set, record }) => {
     if (vehicle.state !== 'teardown') {
       throw conflict(`Move ${vehicle.stockNumber} to Teardown first: the inspection is done there.`, said('teardownFirst', { stock: vehicle.stockNumber }))
     }
     const current = await latestInspection(tx, vehicleId)
     if (current && !current.finishedAt) return
-    const [row] = await tx.insert(inspections).values({ vehicleId, startedById: actor.id }).returning({ id: inspections.id })
+    const [row] = await tx.insert(inspections).values({ vehicleId, startedById: actor.id, startedAt: now }).returning({ id: inspections.id })
     const cleared = vehicle.inspectedAt !== null
     if (cleared) set({ inspectedAt: null, inspectedById: null })
     record({
@@ -34,9 +34,8 @@ export async function startInspection(changes: VehicleChanges, actor: User, vehi
 
 /** Once per inspection: the technician has read the cautions. A second tap records nothing. */
 export async function acknowledgeSafety(changes: VehicleChanges, actor: User, vehicleId: string): Promise<void> {
-  await changeInspection(changes, actor, vehicleId, 'any', async ({ tx, inspection, record }) => {
+  await changeInspection(changes, actor, vehicleId, 'any', async ({ tx, inspection, now: at, record }) => {
     if (inspection.safetyAcknowledgedAt) return
-    const at = new Date()
     await tx.update(inspections).set({ safetyAcknowledgedAt: at, safetyAcknowledgedById: actor.id }).where(eq(inspections.id, inspection.id))
     record({ kind: 'safety_acknowledged', after: { inspectionId: inspection.id, cautions: CAUTIONS.map((c) => c.text) }, at })
   })
@@ -50,7 +49,7 @@ export const NOT_ACKNOWLEDGED = 'Read the safety cautions and tap “I have read
  * cautions are acknowledged, something has been checked, and rolls, steers and brakes are marked.
  */
 export async function finishInspection(changes: VehicleChanges, actor: User, vehicleId: string): Promise<void> {
-  await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, vehicle, inspection, set, record }) => {
+  await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, vehicle, inspection, now: at, set, record }) => {
     const items = await itemsOf(tx, inspection.id)
     const issues: Issue[] = []
     if (!inspection.safetyAcknowledgedAt) issues.push({ path: 'safety', message: NOT_ACKNOWLEDGED })
@@ -63,7 +62,6 @@ export async function finishInspection(changes: VehicleChanges, actor: User, veh
     if (issues.length > 0) {
       throw unprocessable(`The inspection cannot be finished yet. ${issues.map((i) => i.message).join(' ')}`, { issues })
     }
-    const at = new Date()
     await tx.update(inspections).set({ finishedAt: at, finishedById: actor.id }).where(eq(inspections.id, inspection.id))
     set({ inspectedAt: at, inspectedById: actor.id })
     const totals = estimateTotals(await linesOf(tx, inspection.id))

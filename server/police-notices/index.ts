@@ -1,1 +1,2 @@
 export { policeNoticeRouter } from './police-notices.routes'
+export { recordPoliceNotice } from './police-notices.service'

@@ -16,7 +16,7 @@ type Input = z.output<typeof policeNoticeInputSchema>
  */
 export async function recordPoliceNotice(changes: VehicleChanges, actor: User, vehicleId: string, input: Input): Promise<PoliceNoticeReply> {
   const notification: PoliceNotification = { notifiedAt: new Date(input.notifiedAt).toISOString(), agency: input.agency, person: input.person, reportNumber: input.reportNumber }
-  const { version, result } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
+  const { version, result } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, now, record }) => {
     if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard; its police notification can no longer be recorded.', said('closedPolice'))
     const [tow] = await tx.select().from(tows).where(eq(tows.vehicleId, vehicleId))
     const rule = (await ruleSetsOf(tx, yard, [vehicle])).get(vehicle.id)?.policeNotice
@@ -29,10 +29,10 @@ export async function recordPoliceNotice(changes: VehicleChanges, actor: User, v
       const message = `When the police were told cannot be before the tow (${earliest.toISOString()}).`
       throw badRequest(message, [{ path: 'notifiedAt', message }])
     }
-    await tx.insert(policeNotices).values({ vehicleId, ...notification, notifiedAt: new Date(notification.notifiedAt), recordedById: actor.id })
+    await tx.insert(policeNotices).values({ vehicleId, ...notification, notifiedAt: new Date(notification.notifiedAt), recordedById: actor.id, recordedAt: now })
     record({ kind: 'police_notified', after: { ...notification } })
     const times = { reason: tow.reason, calledAt: tow.calledAt?.toISOString() ?? null, hookedAt: tow.hookedAt?.toISOString() ?? null, arrivedAt: tow.arrivedAt.toISOString() }
-    return policeNoticeClock(rule, times, notification, new Date().toISOString())!
+    return policeNoticeClock(rule, times, notification, now.toISOString())!
   })
   return { version, clock: result }
 }

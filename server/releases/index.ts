@@ -1,3 +1,5 @@
 export { gateRouter, releasesRouter, type ReleaseDeps } from './releases.routes'
+export { addIdPhoto, recordClaimant, recordHandover, signRelease } from './releases.service'
+export { issueGatePass, recordOut } from './gate-passes.service'
 export { ownerRelease, signReleaseAsOwner } from './owner-signature.service'
 export { signatureImage } from './signature'

@@ -1,1 +1,2 @@
 export { transfersRouter } from './transfers.routes'
+export { recordTransfer, signTransfer } from './transfers.service'

@@ -58,7 +58,7 @@ interface Extras {
 }
 
 async function insertTowIn(scope: ChangeScope, yard: YardRow, input: TowIn, extras: Extras) {
-  const { tx, vehicleId, actor, record } = scope
+  const { tx, vehicleId, actor, now, record } = scope
   const { tow, vehicle: v, condition } = input
   // Inside the transaction, so the answer holds for this insert (one writer at a time on the embedded database).
   const lookalikes = await activeLookalikes(tx, yard, v)
@@ -76,8 +76,10 @@ async function insertTowIn(scope: ChangeScope, yard: YardRow, input: TowIn, extr
     checkedById: condition.checkedById,
     ruleSetVersionId: extras.ruleSetVersionId,
     arrivedAt: towRow.arrivedAt,
+    createdAt: now,
+    updatedAt: now,
   })
-  await tx.insert(tows).values({ vehicleId, ...towRow })
+  await tx.insert(tows).values({ vehicleId, ...towRow, createdAt: now })
   if (condition.property.length > 0) {
     await tx.insert(propertyItems).values(condition.property.map((p) => ({ vehicleId, ...p })))
   }
@@ -101,7 +103,7 @@ async function insertTowIn(scope: ChangeScope, yard: YardRow, input: TowIn, extr
     },
   })
   for (const h of input.holds) {
-    const [row] = await tx.insert(holds).values({ vehicleId, ...h, until: h.until ? new Date(h.until) : null, setById: actor.id }).returning({ id: holds.id })
+    const [row] = await tx.insert(holds).values({ vehicleId, ...h, until: h.until ? new Date(h.until) : null, setById: actor.id, setAt: now }).returning({ id: holds.id })
     record({ kind: 'hold_set', after: { holdId: row!.id, kind: h.kind, agency: h.agency, caseNumber: h.caseNumber, until: h.until, note: h.note } })
   }
   await recordFiles(scope, extras.photos)

@@ -15,6 +15,11 @@ export interface VehicleChanges {
   boards: BoardNotifier
   /** Seals each history event and the vehicle's head (db/history.ts). */
   historyKey: HistoryKey
+  /**
+   * The instant a change is made at, read once per change: the wall clock unless given. The demo
+   * loader drives the same services through a few simulated weeks with its own clock.
+   */
+  clock?: () => Date
 }
 
 /** One event of a change for the vehicle's history; who made it comes from the change. */
@@ -28,6 +33,8 @@ export interface ChangeScope {
   tx: Tx
   vehicleId: string
   actor: User
+  /** The instant of this change (the changes' clock): its history events' time unless they say another. */
+  now: Date
   /** An event for the history, appended in this transaction once the work is done. */
   record(event: HistoryEntry): void
 }
@@ -110,6 +117,7 @@ async function change<T>(
   work: (w: OwnerWork) => Promise<T>,
   options: ChangeOptions,
 ): Promise<Changed<T>> {
+  const now = changes.clock?.() ?? new Date()
   const done = await changes.db.transaction(async (tx) => {
     const { vehicle, yard } = await lock(tx)
     if (options.expectedVersion !== undefined && options.expectedVersion !== vehicle.version) {
@@ -117,14 +125,14 @@ async function change<T>(
     }
     const { events, record } = collector()
     let columns: VehicleColumns = {}
-    const result = await work({ tx, vehicleId, vehicle, yard, record, set: (c) => void (columns = { ...columns, ...c }) })
+    const result = await work({ tx, vehicleId, vehicle, yard, now, record, set: (c) => void (columns = { ...columns, ...c }) })
     if (events.length === 0) {
       if (Object.keys(columns).length > 0) throw new Error('A change to a vehicle must say in its history what it changed.')
       return { result, yard, version: vehicle.version, cause: null }
     }
     // The row is locked, so the version read above is still the row's.
-    await tx.update(vehicles).set({ ...columns, version: vehicle.version + 1, updatedAt: new Date() }).where(eq(vehicles.id, vehicleId))
-    await appendAll(tx, changes.historyKey, vehicleId, who, events)
+    await tx.update(vehicles).set({ ...columns, version: vehicle.version + 1, updatedAt: now }).where(eq(vehicles.id, vehicleId))
+    await appendAll(tx, changes.historyKey, vehicleId, who, events, now)
     return { result, yard, version: vehicle.version + 1, cause: events[0]!.kind }
   })
   if (!done.cause) return { result: done.result, version: done.version, changed: false }
@@ -144,11 +152,12 @@ export async function createVehicle<T>(
   vehicleId: string,
   work: (scope: ChangeScope) => Promise<T>,
 ): Promise<T> {
+  const now = changes.clock?.() ?? new Date()
   const done = await changes.db.transaction(async (tx) => {
     const { events, record } = collector()
-    const result = await work({ tx, vehicleId, actor, record })
+    const result = await work({ tx, vehicleId, actor, now, record })
     if (events.length === 0) throw new Error('A new vehicle starts its history with how it came in.')
-    await appendAll(tx, changes.historyKey, vehicleId, { id: actor.id, label: actor.name }, events)
+    await appendAll(tx, changes.historyKey, vehicleId, { id: actor.id, label: actor.name }, events, now)
     return { result, cause: events[0]!.kind }
   })
   await tellBoards(changes, { yard, vehicleId, cause: done.cause })
@@ -156,8 +165,8 @@ export async function createVehicle<T>(
 }
 
 // The vehicle row is held (locked, or new and seen by no other transaction): no second lock per event.
-async function appendAll(tx: Tx, key: HistoryKey, vehicleId: string, who: Who, events: HistoryEntry[]) {
-  for (const e of events) await appendHistory(tx, key, { ...e, vehicleId, actorId: who.id, actorLabel: who.label }, { vehicleLocked: true })
+async function appendAll(tx: Tx, key: HistoryKey, vehicleId: string, who: Who, events: HistoryEntry[], now: Date) {
+  for (const e of events) await appendHistory(tx, key, { ...e, at: e.at ?? now, vehicleId, actorId: who.id, actorLabel: who.label }, { vehicleLocked: true })
 }
 
 async function tellBoards(

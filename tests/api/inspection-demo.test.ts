@@ -12,7 +12,8 @@ beforeAll(async () => {
   app = await makeTestApp()
   await loadDemoIfEmpty(app.db, TEST_HISTORY_KEY)
   tech = await signedIn(app.app, { email: 'sunny@tamsincreek.example', password: DEMO_PASSWORD })
-})
+  // The demo is played through the services: hundreds of changes, slow on a busy machine.
+}, 180_000)
 afterAll(() => app.close())
 
 async function demoVehicle(model: string) {

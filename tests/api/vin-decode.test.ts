@@ -20,7 +20,7 @@ beforeAll(async () => {
   dispatcher = await signedIn(app.app, staff.dispatcher)
   // The first decode opens the vPIC database (a second or more); no single test pays for it.
   await dispatcher.get(`/api/vin-decode/${SAMPLE}`).expect(200)
-}, 120_000)
+}, 180_000)
 afterAll(() => app.close())
 
 describe('GET /api/vin-decode/:vin', () => {
