@@ -149,6 +149,8 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/reports/daily.pdf': 'reports',
   'GET /api/reports/salvage': 'reports',
   'GET /api/reports/salvage.csv': 'reports',
+  'GET /api/reports/salvage.pdf': 'reports',
+  'GET /api/glance': 'admin',
   'GET /api/deadlines': 'deadlines',
   'GET /api/deadlines.ics': 'deadlines',
   // Each person's own calendar feed: only ever their own (the routes read the session's user).

@@ -33,6 +33,7 @@ import { publicationsRouter } from './publications/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { todayRouter } from './today/index'
 import { reportsRouter } from './reports/index'
+import { glanceRouter } from './glance/index'
 import { healthRouter } from './health/index'
 import { logSerializers, safeLogger } from './logging'
 import { type LiveBus, memoryBus } from './live/index'
@@ -171,6 +172,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/outbox', outboxRouter({ db, files, kick: deps.kickOutbox }))
   app.use('/api/today', todayRouter(db))
   app.use('/api/reports', reportsRouter(db, hub))
+  app.use('/api/glance', glanceRouter(db, hub))
   app.use('/api', deadlinesRouter(db, deps.publicUrl))
   // Public: the owner's page (its key checked by every route) and "is my vehicle here?".
   const throttle = publicThrottle(db, deps.publicLimits ?? DEFAULT_PUBLIC_LIMITS)

@@ -23,6 +23,8 @@ export const settingsChanges = pgTable(
     /** Only the values that changed, keyed by their path ("vehicleClasses.0.dailyRateCents"). */
     before: jsonb().$type<Record<string, unknown>>(),
     after: jsonb().$type<Record<string, unknown>>(),
+    /** How a person names the list items those paths point into ("vehicleClasses.0" → "Car"), as they were then. */
+    names: jsonb().$type<Record<string, string>>(),
     reason: text(),
     at: createdAt(),
   },

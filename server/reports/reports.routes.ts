@@ -14,13 +14,14 @@ import { csvStream } from './csv'
 import { lotOf } from './lot'
 import { receivablesCsv } from './receivables-csv'
 import { salvageCsv } from './salvage-csv'
+import { salvageInventoryPdf } from './salvage-pdf'
 import { salvageInventory } from './salvage.service'
 import { receivablesPage, receivableRows } from './receivables.service'
 
 /**
  * The office's reports (permission `reports`): receivables (a page of rows with the totals of all, and
  * the same rows as CSV), the aged inventory, the daily report (JSON and PDF), the monthly salvage
- * inventory of 28 CFR 25.56 (JSON and CSV).
+ * inventory of 28 CFR 25.56 (JSON, CSV and PDF).
  */
 export function reportsRouter(db: Database, hub: BoardHub): Router {
   const router = Router()
@@ -67,6 +68,13 @@ export function reportsRouter(db: Database, hub: BoardHub): Router {
     const report = await salvageInventory(db, req.user!.id, month)
     res.set({ 'content-type': 'text/csv; charset=utf-8', 'cache-control': 'private, no-store', 'content-disposition': `attachment; filename="salvage-inventory-${report.month}.csv"` })
     await pipeline(csvStream(salvageCsv(report.rows)), res)
+  })
+  router.get('/salvage.pdf', async (req, res) => {
+    const { month, lang } = salvageQuerySchema.parse(req.query)
+    const yard = await yardOfUser(db, req.user!.id)
+    if (!yard) throw notFound('A yard for your company')
+    const report = await salvageInventory(db, req.user!.id, month)
+    sendPdf(res, await salvageInventoryPdf(report, yard, lang, new Date()), `salvage-inventory-${report.month}.pdf`)
   })
   return router
 }

@@ -28,3 +28,29 @@ function walk(a: Json, b: Json, path: string, out: { before: Record<string, Json
   if (a !== undefined) out.before[key] = a
   if (b !== undefined) out.after[key] = b
 }
+
+/**
+ * How a person names each list item a changed path points into — "vehicleClasses.0" → "Car" — read from
+ * the item's `label` (or `name`) after the change, else before it: the audit can then say "Car — daily
+ * rate" even when the label itself did not change. Items without a label are left out.
+ */
+export function itemNames(before: Json, after: Json, paths: readonly string[]): Record<string, string> {
+  const names: Record<string, string> = {}
+  for (const path of paths) {
+    const parts = path.split('.')
+    for (let i = 1; i < parts.length; i++) {
+      if (!/^\d+$/.test(parts[i]!)) continue
+      const prefix = parts.slice(0, i + 1).join('.')
+      const item = at(after, parts.slice(0, i + 1)) ?? at(before, parts.slice(0, i + 1))
+      const name = isPlainObject(item) ? (item.label ?? item.name) : undefined
+      if (typeof name === 'string') names[prefix] = name
+    }
+  }
+  return names
+}
+
+function at(value: Json, parts: readonly string[]): Json {
+  let v = value
+  for (const p of parts) v = isPlainObject(v) || Array.isArray(v) ? (v as Record<string, Json>)[p] : undefined
+  return v
+}

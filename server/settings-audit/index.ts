@@ -1,3 +1,3 @@
 export { settingsAuditRouter } from './settings-audit.routes'
 export { listSettingsChanges, recordSettingsChange, type SettingsChangeEntry } from './settings-audit.queries'
-export { changedValues } from './changed-values'
+export { changedValues, itemNames } from './changed-values'

@@ -12,12 +12,14 @@ export interface SettingsChangeEntry {
   subjectLabel: string
   before?: Record<string, unknown> | null
   after?: Record<string, unknown> | null
+  /** The names of the list items the paths point into (`itemNames`). */
+  names?: Record<string, string> | null
   reason?: string | null
 }
 
 /** Writes one audit row; call it with the transaction that makes the change, so both or neither are kept. */
 export async function recordSettingsChange(db: Executor, entry: SettingsChangeEntry): Promise<void> {
-  await db.insert(settingsChanges).values({ ...entry, before: entry.before ?? null, after: entry.after ?? null, reason: entry.reason ?? null })
+  await db.insert(settingsChanges).values({ ...entry, before: entry.before ?? null, after: entry.after ?? null, names: entry.names ?? null, reason: entry.reason ?? null })
 }
 
 /** A company's settings changes, newest first. */
@@ -43,6 +45,7 @@ export async function listSettingsChanges(db: Executor, companyId: string, page:
       subjectLabel: c.subjectLabel,
       before: c.before,
       after: c.after,
+      names: c.names ?? {},
       reason: c.reason,
     })),
   }

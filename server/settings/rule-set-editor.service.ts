@@ -8,7 +8,7 @@ import { ruleSetEditSchema } from '@shared/schemas/rule-set-editor'
 import type { User } from '@shared/schemas/users'
 import { conflict, forbidden, notFound, unprocessable, said } from '../errors'
 import { latestRuleSets, type RuleSetVersion } from '../rule-sets/index'
-import { changedValues, recordSettingsChange } from '../settings-audit/index'
+import { changedValues, itemNames, recordSettingsChange } from '../settings-audit/index'
 import { companyOf } from '../users/index'
 import { yardOfUser } from '../yards/index'
 
@@ -92,6 +92,7 @@ export async function saveRuleSet(db: Database, actor: User, slug: string, input
       subjectId: slug,
       subjectLabel: `${ruleSet.name} (version ${version})`,
       ...diff,
+      names: itemNames(before, ruleSet, [...Object.keys(diff.before), ...Object.keys(diff.after)]),
       reason: input.reason ?? null,
     })
     const [yard] = await tx.select({ ruleSetId: yards.ruleSetId }).from(yards).where(eq(yards.companyId, companyId)).limit(1)

@@ -18,6 +18,8 @@ export const settingsChangeSchema = z.object({
   subjectLabel: z.string(),
   before: z.record(z.string(), z.unknown()).nullable(),
   after: z.record(z.string(), z.unknown()).nullable(),
+  /** How a person names the list items the paths point into: "vehicleClasses.0" → "Car". */
+  names: z.record(z.string(), z.string()),
   reason: z.string().nullable(),
 })
 export type SettingsChange = z.infer<typeof settingsChangeSchema>

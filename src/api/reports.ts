@@ -44,3 +44,5 @@ export const fetchSalvage = (month: string | undefined) => request('GET', `/api/
 export const useSalvageQuery = (month: MaybeRefOrGetter<string | undefined>) =>
   useQuery({ queryKey: computed(() => reportKeys.salvage(toValue(month))), queryFn: () => fetchSalvage(toValue(month)) })
 export const salvageCsvUrl = (month: string) => `/api/reports/salvage.csv?month=${month}`
+/** The same month as a PDF in the reader's language (28 CFR 25.56, with the legal caution). */
+export const salvagePdfUrl = (month: string, lang: string) => `/api/reports/salvage.pdf?month=${month}&lang=${lang}`

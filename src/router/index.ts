@@ -42,6 +42,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/reports/aged', name: 'aged', component: () => import('@/views/AgedInventoryView.vue'), meta: { permission: 'reports', title: 'reports.aged.title' } },
   { path: '/reports/salvage', name: 'salvage', component: () => import('@/views/SalvageInventoryView.vue'), meta: { permission: 'reports', title: 'reports.salvage.title' } },
   { path: '/reports/daily', name: 'daily', component: () => import('@/views/DailyReportView.vue'), meta: { permission: 'reports', title: 'reports.daily.title' } },
+  { path: '/reports/glance', name: 'glance', component: () => import('@/views/YardGlanceView.vue'), meta: { permission: 'admin', title: 'glance.title' } },
   // The gate's phone: a pass scanned or typed; /g/<token> is where a pass's QR leads a phone's own camera.
   { path: '/gate', name: 'gate', component: () => import('@/views/GateView.vue'), meta: { permission: 'release.write', nav: 'shell.nav.gate', title: 'shell.titles.gate' } },
   { path: '/g/:token', name: 'gate-pass', component: () => import('@/views/GateView.vue'), meta: { permission: 'release.write', title: 'shell.titles.gate' } },

@@ -148,6 +148,8 @@ describe('the settings audit', () => {
       before: { [`vehicleClasses.${standard}.dailyRateCents`]: was, [`vehicleClasses.${standard}.placeholder`]: true },
       after: { [`vehicleClasses.${standard}.dailyRateCents`]: was + 500, [`vehicleClasses.${standard}.placeholder`]: false },
     })
+    // The class is named as a person reads it, so the record can say "Car — daily rate".
+    expect(changes[0].names).toEqual({ [`vehicleClasses.${standard}`]: (copy.ruleSet.vehicleClasses[standard] as { label?: string }).label })
     expect(Date.now() - Date.parse(changes[0].at)).toBeLessThan(60_000)
     expect(changes[1]).toMatchObject({ action: 'copied', subjectLabel: 'Our Fresno rates' })
   })

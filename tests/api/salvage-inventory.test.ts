@@ -4,6 +4,7 @@ import { dayFromCivil, startOfLocalDay } from '@shared/domain/time'
 import { salvageSchema } from '@shared/schemas/reports'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { makeStaff, makeVehicle } from '../helpers/factories'
+import { pdfText, renderFirstPage } from '../helpers/pdf'
 
 // Issue 12, "Monthly salvage inventory": 28 CFR 25.56 asks junk and salvage yards for a monthly
 // inventory of the vehicles obtained in the month — VIN, date obtained, from whom, and whether crushed or
@@ -66,6 +67,46 @@ describe('salvage inventory', () => {
     expect(lines[2]).toBe(`not recorded,${signedOver.stockNumber},2013 Halvard Finch,2026-10-31,'=Dov Kessler,Title transferred,no,Ferrow Salvage,not recorded`)
   })
 
+  const pdfOf = (s: Awaited<ReturnType<typeof october>>['office'], url: string) =>
+    s.get(url).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = []
+      r.on('data', (c: Buffer) => chunks.push(c))
+      r.on('end', () => cb(null, Buffer.concat(chunks)))
+    })
+
+  it('salvagePdf_inEnglish_readsBackWithTheRulesColumnsEachVehicleAndTheCaution', async () => {
+    const { office, crushed, signedOver, november } = await october()
+    const res = await pdfOf(office, '/api/reports/salvage.pdf?month=2026-10').expect(200)
+    expect(res.headers['content-type']).toBe('application/pdf')
+    expect(res.headers['content-disposition']).toBe('inline; filename="salvage-inventory-2026-10.pdf"')
+    const pdf = res.body as Buffer
+    const text = await pdfText(pdf)
+    expect(text).toContain('MONTHLY SALVAGE INVENTORY — 2026-10')
+    expect(text).toContain('28 CFR 25.56')
+    expect(text).toMatch(/Vehicles\s+2/)
+    expect(text).toContain(crushed.stockNumber)
+    expect(text).toContain('1G4AH59H45G118341')
+    expect(text).toContain('Iola Brandt')
+    expect(text).toContain('Ferrow Salvage')
+    expect(text).toContain('2026-10-31')
+    expect(text).toContain(signedOver.stockNumber)
+    expect(text).not.toContain(november.stockNumber)
+    // The legal caution every legal document carries (DESIGN.md, "Documents").
+    expect(text).toContain('Check the rules where you are')
+    await renderFirstPage(pdf, 'salvage-inventory-en')
+  })
+
+  it('salvagePdf_inSpanish_saysItInSpanish_andAnEmptyMonthSaysSo', async () => {
+    const { office } = await october()
+    const es = await pdfText((await pdfOf(office, '/api/reports/salvage.pdf?month=2026-10&lang=es').expect(200)).body as Buffer)
+    expect(es).toContain('INVENTARIO MENSUAL DE SALVAMENTO — 2026-10')
+    expect(es).toContain('Chatarra')
+    expect(es).toContain('Verifique las normas de su lugar')
+    const emptyPdf = (await pdfOf(office, '/api/reports/salvage.pdf?month=2026-09&lang=es').expect(200)).body as Buffer
+    expect(await pdfText(emptyPdf)).toContain('Ningún vehículo se obtuvo como chatarra o salvamento en este mes.')
+    await renderFirstPage(((await pdfOf(office, '/api/reports/salvage.pdf?month=2026-10&lang=es')).body as Buffer), 'salvage-inventory-es')
+  })
+
   it('salvage_badMonth_isRefusedNamingTheField_andOnlyTheOfficeAndManagersReadIt', async () => {
     const { office, staff } = await october()
     for (const m of ['2026-13', '2026-1', 'october']) {
@@ -76,5 +117,7 @@ describe('salvage inventory', () => {
     const dispatcher = await signedIn(app.app, staff.dispatcher)
     await dispatcher.get('/api/reports/salvage').expect(403)
     await dispatcher.get('/api/reports/salvage.csv').expect(403)
+    await dispatcher.get('/api/reports/salvage.pdf').expect(403)
+    expect((await office.get('/api/reports/salvage.pdf?lang=fr')).body.issues[0].path).toBe('lang')
   })
 })

@@ -50,6 +50,16 @@ for (const [role, list] of Object.entries(pages) as [DemoRole, (typeof pages)[De
   })
 }
 
+test("the manager's yard at a glance passes axe once its charts have drawn, and its figures are in tables too", async ({ page }) => {
+  test.slow()
+  await signInAs(page, 'manager', '/reports/glance')
+  // echarts comes with this page only (its own chunk): the chart's SVG is the sign it arrived and drew.
+  await expect(page.getByTestId('glance-weeks').locator('svg').first()).toBeVisible()
+  await expect(page.getByTestId('glance-columns').getByRole('rowheader', { name: 'Storage' })).toBeVisible()
+  await expect(page.getByRole('img', { name: 'Storage earned by week' })).toBeVisible()
+  await expectAccessible(page)
+})
+
 test("a vehicle's page, its teardown and the owner's page pass axe, in English and in Spanish", async ({ page, browser }) => {
   test.slow()
   await signInAs(page, 'manager')

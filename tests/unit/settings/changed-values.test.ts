@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { changedValues } from '../../../server/settings-audit/changed-values'
+import { changedValues, itemNames } from '../../../server/settings-audit/changed-values'
 
 describe('changedValues', () => {
   it('changedValues_ofOneNestedValue_keepsOnlyThatPathOnEachSide', () => {
@@ -14,5 +14,13 @@ describe('changedValues', () => {
 
   it('changedValues_ofEqualValues_isEmpty', () => {
     expect(changedValues({ a: [1, { b: 2 }] }, { a: [1, { b: 2 }] })).toEqual({ before: {}, after: {} })
+  })
+})
+
+describe('itemNames', () => {
+  it('itemNames_ofAChangedRate_namesItsClassByItsLabel_andARemovedFeeByItsLabelBefore', () => {
+    const before = { vehicleClasses: [{ label: 'Car', dailyRateCents: 6500 }], fees: [{ label: 'Impound', amountCents: 9500 }], notes: ['a'] }
+    const after = { vehicleClasses: [{ label: 'Car', dailyRateCents: 7000 }], fees: [], notes: ['b'] }
+    expect(itemNames(before, after, ['vehicleClasses.0.dailyRateCents', 'fees.0', 'notes.0', 'storage.cap.maxDays'])).toEqual({ 'vehicleClasses.0': 'Car', 'fees.0': 'Impound' })
   })
 })

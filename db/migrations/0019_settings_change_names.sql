@@ -1,0 +1,1 @@
+ALTER TABLE "settings_changes" ADD COLUMN "names" jsonb;

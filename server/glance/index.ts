@@ -1,0 +1,1 @@
+export { glanceRouter } from './glance.routes'
