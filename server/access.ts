@@ -24,6 +24,8 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/users/:id/password': 'admin',
 
   'GET /api/yards/current': 'board.view',
+  'GET /api/yards/mine': 'board.view',
+  'PUT /api/yards/current': 'board.view',
   'GET /api/board': 'board.view',
   'GET /api/board/events': 'board.view',
   // Which moves a role may make is the lifecycle's to say (shared/domain/lifecycle/lifecycle.ts), per move.
