@@ -145,9 +145,9 @@ describe('the yard chooser', () => {
   })
 
   it.each([
-    ['a yard the person does not belong to', () => staff.yard.id, 'otherYardOffice'],
-    ['another company’s yard', () => staff.yard.id, 'otherCompanyManager'],
-    ['a yard that does not exist', () => NOBODY, 'otherYardOffice'],
+    ['a yard the person does not belong to', (): string => staff.yard.id, 'otherYardOffice'],
+    ['another company’s yard', (): string => staff.yard.id, 'otherCompanyManager'],
+    ['a yard that does not exist', (): string => NOBODY, 'otherYardOffice'],
   ] as const)('choosing %s is 404 and changes nothing', async (_name, yardId, who) => {
     const before = (await callers[who].get('/api/yards/mine').expect(200)).body
     const res = await callers[who].agent.put('/api/yards/current').set('x-csrf-token', callers[who].csrf).send({ yardId: yardId() })
