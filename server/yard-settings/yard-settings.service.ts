@@ -2,6 +2,7 @@ import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { Database, Executor } from '@db/client'
 import { ruleSets, userYards, users, vehicles, yardSpaces, yards } from '@db/schema'
 import { spaceLabel } from '@shared/schemas/spaces'
+import { towRatesSchema } from '@shared/schemas/tows'
 import type { User } from '@shared/schemas/users'
 import type { EditYard, SpaceBlock, YardSettings } from '@shared/schemas/yard-settings'
 import type { NewYard } from '@shared/schemas/yard-settings'
@@ -20,7 +21,8 @@ const fields = (y: YardRow) => ({
   lng: y.lng,
   timeZone: y.timeZone,
   labourRateCents: y.labourRateCents,
-  towRates: y.towRates as YardSettings['towRates'],
+  // The known rates only (the demo's rates carry a note); an edit saves these and nothing else.
+  towRates: towRatesSchema.parse(y.towRates ?? {}),
 })
 
 /** The manager's yards (those they belong to) with every space, retired ones included. */
