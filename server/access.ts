@@ -24,6 +24,8 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/users/:id/password': 'admin',
 
   'GET /api/yards/current': 'board.view',
+  'GET /api/yards/mine': 'board.view',
+  'PUT /api/yards/current': 'board.view',
   'GET /api/board': 'board.view',
   'GET /api/board/events': 'board.view',
   // Which moves a role may make is the lifecycle's to say (shared/domain/lifecycle/lifecycle.ts), per move.
@@ -43,6 +45,12 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/settings/rule-sets/:id/older-vehicles': 'admin',
   'PUT /api/settings/yard-rule-set': 'admin',
   'GET /api/settings/audit': 'admin',
+  // Settings → Yards (issue 12): the manager's yards, their rates and spaces.
+  'GET /api/settings/yards': 'admin',
+  'POST /api/settings/yards': 'admin',
+  'PATCH /api/settings/yards/:yardId': 'admin',
+  'POST /api/settings/yards/:yardId/spaces': 'admin',
+  'POST /api/settings/yards/:yardId/spaces/:spaceId/retire': 'admin',
   'POST /api/vehicles/:vehicleId/rule-set-version': 'admin',
 
   // Named paths before '/:id', which would match them too.

@@ -46,6 +46,7 @@ import { vinDecodeRouter } from './vin-decode/index'
 import { yardsRouter } from './yards/index'
 import { settingsRouter, vehicleRuleSetRouter } from './settings/index'
 import { settingsAuditRouter } from './settings-audit/index'
+import { yardSettingsRouter } from './yard-settings/index'
 
 export interface AppDeps {
   db: Database
@@ -145,6 +146,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/rule-sets', ruleSetsRouter(db))
   app.use('/api/quotes', quotesRouter(db))
   app.use('/api/settings/audit', settingsAuditRouter(db))
+  app.use('/api/settings/yards', yardSettingsRouter(db))
   app.use('/api/settings', settingsRouter(db))
   app.use('/api/vehicles/:vehicleId/rule-set-version', vehicleRuleSetRouter(changes))
   app.use('/api/vehicles/:vehicleId/owner-links', ownerLinksRouter(changes, deps.ownerLinkDays ?? 30))

@@ -3,6 +3,7 @@ import { boolean, index, integer, jsonb, pgTable, text, uniqueIndex, uuid } from
 import { ROLES } from '@shared/domain/access'
 import { LOCALES } from '@shared/messages/locales'
 import { companies } from './companies'
+import { yards } from './yards'
 import { at, createdAt, id } from './columns'
 
 export const users = pgTable(
@@ -17,6 +18,10 @@ export const users = pgTable(
     active: boolean().notNull().default(true),
     /** The language they chose to work in; null: their browser's. */
     locale: text({ enum: LOCALES }),
+    /** Belongs to every yard of the company (a single-yard company's staff); false: the yards in user_yards. */
+    allYards: boolean().notNull().default(true),
+    /** The yard chosen in the top bar, remembered per person; null or no longer theirs: their first yard. */
+    currentYardId: uuid().references(() => yards.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
     updatedAt: at().notNull().defaultNow(),
   },

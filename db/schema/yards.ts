@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm'
-import { check, doublePrecision, integer, jsonb, pgTable, text, unique, uuid } from 'drizzle-orm/pg-core'
+import { check, doublePrecision, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core'
 import { companies } from './companies'
 import { createdAt, id } from './columns'
 
@@ -35,6 +35,8 @@ export const yardSpaces = pgTable(
     number: integer().notNull(),
     // Wide spaces take trucks over 25 ft and trailers.
     size: text({ enum: ['standard', 'wide', 'motorcycle'] }).notNull().default('standard'),
+    // A retired space takes no vehicle and leaves the picker; its row stays for the history's labels.
+    retiredAt: timestamp({ withTimezone: true, mode: 'date' }),
   },
   (t) => [unique('yard_spaces_position').on(t.yardId, t.row, t.number)],
 )

@@ -2,6 +2,7 @@ import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { Executor } from '@db/client'
 import { files, users, vehicles, yards } from '@db/schema'
 import type { FileRecord } from '@shared/schemas/files'
+import { yardOfStaff } from '../yards/index'
 
 function toRecord(r: { file: typeof files.$inferSelect; uploadedBy: string | null }): FileRecord {
   const f = r.file
@@ -31,15 +32,14 @@ export async function filesOf(db: Executor, vehicleId: string, only?: string[]):
   return rows.map(toRecord)
 }
 
-/** A file with the stock number it belongs to, if the staff member's company holds the vehicle. */
+/** A file with the stock number it belongs to, if the vehicle is in one of the staff member's yards. */
 export async function fileForUser(db: Executor, userId: string, fileId: string) {
   const [row] = await db
     .select({ file: files, stockNumber: vehicles.stockNumber })
     .from(files)
     .innerJoin(vehicles, eq(vehicles.id, files.vehicleId))
     .innerJoin(yards, eq(yards.id, vehicles.yardId))
-    .innerJoin(users, eq(users.companyId, yards.companyId))
-    .where(and(eq(files.id, fileId), eq(users.id, userId)))
+    .where(and(eq(files.id, fileId), yardOfStaff(userId)))
   return row
 }
 

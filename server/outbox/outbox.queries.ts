@@ -1,5 +1,5 @@
 import { createHash, randomUUID } from 'node:crypto'
-import { and, asc, count, desc, eq, inArray, lt, lte, or, sql } from 'drizzle-orm'
+import { and, asc, count, desc, eq, inArray, isNull, lt, lte, or, sql } from 'drizzle-orm'
 import type { Executor } from '@db/client'
 import { files, outboundAttachments, outboundMessages, users, vehicles } from '@db/schema'
 import { newMessageSchema, type MessageStatus, type NewMessage } from '@shared/schemas/outbox'
@@ -99,12 +99,21 @@ export const markFailed = (db: Executor, job: MessageRow, error: string) => fini
 export const requeue = (db: Executor, job: MessageRow, error: string, delayMs: number) =>
   finish(db, job, { status: 'queued', lastError: error, nextAttemptAt: sql`now() + ${delayMs} * interval '1 millisecond'` as unknown as Date })
 
+/** What a staff member's Outbox shows: their company's messages about a vehicle of the yard chosen in the top bar, and those about no vehicle. */
+export type OutboxScope = { companyId: string; yardId: string }
+
+const inScope = (scope: OutboxScope) =>
+  and(
+    eq(outboundMessages.companyId, scope.companyId),
+    or(isNull(outboundMessages.vehicleId), sql`${outboundMessages.vehicleId} in (select id from vehicles where yard_id = ${scope.yardId})`),
+  )
+
 /** A failed message goes back in the queue as it was, with the same Message-ID; the worker starts counting its attempts again. */
-export async function retryMessage(db: Executor, companyId: string, messageId: string, userId: string) {
+export async function retryMessage(db: Executor, scope: OutboxScope, messageId: string, userId: string) {
   const [row] = await db
     .update(outboundMessages)
     .set({ status: 'queued', attempts: 0, nextAttemptAt: sql`now()`, retriedById: userId, retriedAt: sql`now()`, updatedAt: sql`now()` })
-    .where(and(eq(outboundMessages.id, messageId), eq(outboundMessages.companyId, companyId), eq(outboundMessages.status, 'failed')))
+    .where(and(eq(outboundMessages.id, messageId), inScope(scope), eq(outboundMessages.status, 'failed')))
     .returning({ id: outboundMessages.id })
   return row !== undefined
 }
@@ -113,12 +122,12 @@ export async function attachmentsOf(db: Executor, messageId: string) {
   return db.select().from(outboundAttachments).where(eq(outboundAttachments.messageId, messageId)).orderBy(asc(outboundAttachments.position))
 }
 
-export async function attachmentOf(db: Executor, companyId: string, messageId: string, attachmentId: string) {
+export async function attachmentOf(db: Executor, scope: OutboxScope, messageId: string, attachmentId: string) {
   const [row] = await db
     .select({ attachment: outboundAttachments })
     .from(outboundAttachments)
     .innerJoin(outboundMessages, eq(outboundMessages.id, outboundAttachments.messageId))
-    .where(and(eq(outboundAttachments.id, attachmentId), eq(outboundMessages.id, messageId), eq(outboundMessages.companyId, companyId)))
+    .where(and(eq(outboundAttachments.id, attachmentId), eq(outboundMessages.id, messageId), inScope(scope)))
   return row?.attachment
 }
 
@@ -129,8 +138,8 @@ const listColumns = {
   attachmentCount: sql<number>`(select count(*)::int from ${outboundAttachments} where ${outboundAttachments.messageId} = ${outboundMessages.id})`,
 }
 
-export async function listMessages(db: Executor, companyId: string, status: MessageStatus | null, page: { limit: number; offset: number }) {
-  const where = and(eq(outboundMessages.companyId, companyId), status ? eq(outboundMessages.status, status) : undefined)
+export async function listMessages(db: Executor, scope: OutboxScope, status: MessageStatus | null, page: { limit: number; offset: number }) {
+  const where = and(inScope(scope), status ? eq(outboundMessages.status, status) : undefined)
   const rows = await db
     .select(listColumns)
     .from(outboundMessages)
@@ -144,20 +153,20 @@ export async function listMessages(db: Executor, companyId: string, status: Mess
   return { rows, total: total!.n }
 }
 
-export async function countsByStatus(db: Executor, companyId: string) {
+export async function countsByStatus(db: Executor, scope: OutboxScope) {
   return db
     .select({ status: outboundMessages.status, n: count() })
     .from(outboundMessages)
-    .where(eq(outboundMessages.companyId, companyId))
+    .where(inScope(scope))
     .groupBy(outboundMessages.status)
 }
 
-export async function messageOf(db: Executor, companyId: string, messageId: string) {
+export async function messageOf(db: Executor, scope: OutboxScope, messageId: string) {
   const [row] = await db
     .select(listColumns)
     .from(outboundMessages)
     .leftJoin(vehicles, eq(vehicles.id, outboundMessages.vehicleId))
     .leftJoin(users, eq(users.id, outboundMessages.queuedById))
-    .where(and(eq(outboundMessages.id, messageId), eq(outboundMessages.companyId, companyId)))
+    .where(and(eq(outboundMessages.id, messageId), inScope(scope)))
   return row
 }

@@ -3,7 +3,7 @@ import type { Database } from '@db/client'
 import { outboxAttachmentParamsSchema, outboxMessageParamsSchema, outboxQuerySchema } from '@shared/schemas/outbox'
 import { notFound } from '../errors'
 import { type FileStore } from '../files/index'
-import { companyOf } from '../users/index'
+import { yardOfUser } from '../yards/index'
 import { attachmentOf } from './outbox.queries'
 import { storedFileBytes } from './stored-file'
 import { outboxMessage, outboxPage, retryFailed } from './outbox.service'
@@ -18,17 +18,22 @@ export interface OutboxDeps {
 /** /api/outbox: what was sent, what waits, what failed; a failed message can be sent again. */
 export function outboxRouter({ db, files, kick }: OutboxDeps): Router {
   const router = Router()
+  const scopeOf = async (userId: string) => {
+    const yard = await yardOfUser(db, userId)
+    if (!yard) throw notFound('A yard for your company')
+    return { companyId: yard.companyId, yardId: yard.id }
+  }
   router.get('/', async (req, res) => {
     const q = outboxQuerySchema.parse(req.query)
-    res.json(await outboxPage(db, await companyOf(db, req.user!.id), q.status, q.page, q.pageSize))
+    res.json(await outboxPage(db, await scopeOf(req.user!.id), q.status, q.page, q.pageSize))
   })
   router.get('/:messageId', async (req, res) => {
     const { messageId } = outboxMessageParamsSchema.parse(req.params)
-    res.json(await outboxMessage(db, await companyOf(db, req.user!.id), messageId))
+    res.json(await outboxMessage(db, await scopeOf(req.user!.id), messageId))
   })
   router.get('/:messageId/attachments/:attachmentId', async (req, res) => {
     const { messageId, attachmentId } = outboxAttachmentParamsSchema.parse(req.params)
-    const a = await attachmentOf(db, await companyOf(db, req.user!.id), messageId, attachmentId)
+    const a = await attachmentOf(db, await scopeOf(req.user!.id), messageId, attachmentId)
     if (!a) throw notFound('That attachment')
     const body = a.content ?? (await storedFileBytes(db, files, a.fileId!))
     if (!body) throw notFound('That attachment')
@@ -42,7 +47,7 @@ export function outboxRouter({ db, files, kick }: OutboxDeps): Router {
   })
   router.post('/:messageId/retry', async (req, res) => {
     const { messageId } = outboxMessageParamsSchema.parse(req.params)
-    const message = await retryFailed(db, await companyOf(db, req.user!.id), messageId, req.user!.id)
+    const message = await retryFailed(db, await scopeOf(req.user!.id), messageId, req.user!.id)
     kick?.()
     res.json(message)
   })

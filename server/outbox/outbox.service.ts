@@ -1,7 +1,7 @@
 import type { Executor } from '@db/client'
 import { MESSAGE_STATUSES, type MessageStatus, type OutboxMessage, type OutboxPage, type OutboxRow } from '@shared/schemas/outbox'
 import { conflict, notFound, said } from '../errors'
-import { attachmentsOf, countsByStatus, listMessages, messageOf, retryMessage } from './outbox.queries'
+import { attachmentsOf, countsByStatus, listMessages, messageOf, retryMessage, type OutboxScope } from './outbox.queries'
 
 type Listed = NonNullable<Awaited<ReturnType<typeof messageOf>>>
 
@@ -24,15 +24,15 @@ function rowOf({ message: m, stockNumber, queuedBy, attachmentCount }: Listed): 
   }
 }
 
-export async function outboxPage(db: Executor, companyId: string, status: MessageStatus | null, page: number, pageSize: number): Promise<OutboxPage> {
-  const { rows, total } = await listMessages(db, companyId, status, { limit: pageSize, offset: (page - 1) * pageSize })
+export async function outboxPage(db: Executor, scope: OutboxScope, status: MessageStatus | null, page: number, pageSize: number): Promise<OutboxPage> {
+  const { rows, total } = await listMessages(db, scope, status, { limit: pageSize, offset: (page - 1) * pageSize })
   const counts = Object.fromEntries(MESSAGE_STATUSES.map((s) => [s, 0])) as Record<MessageStatus, number>
-  for (const c of await countsByStatus(db, companyId)) counts[c.status] = c.n
+  for (const c of await countsByStatus(db, scope)) counts[c.status] = c.n
   return { rows: rows.map(rowOf), total, page, pageSize, counts }
 }
 
-export async function outboxMessage(db: Executor, companyId: string, messageId: string): Promise<OutboxMessage> {
-  const found = await messageOf(db, companyId, messageId)
+export async function outboxMessage(db: Executor, scope: OutboxScope, messageId: string): Promise<OutboxMessage> {
+  const found = await messageOf(db, scope, messageId)
   if (!found) throw notFound('That message')
   const m = found.message
   return {
@@ -48,11 +48,11 @@ export async function outboxMessage(db: Executor, companyId: string, messageId: 
 }
 
 /** Only a failed message can be sent again; a queued or sent one is left as it is (409). */
-export async function retryFailed(db: Executor, companyId: string, messageId: string, userId: string): Promise<OutboxMessage> {
-  if (!(await retryMessage(db, companyId, messageId, userId))) {
-    const current = await messageOf(db, companyId, messageId)
+export async function retryFailed(db: Executor, scope: OutboxScope, messageId: string, userId: string): Promise<OutboxMessage> {
+  if (!(await retryMessage(db, scope, messageId, userId))) {
+    const current = await messageOf(db, scope, messageId)
     if (!current) throw notFound('That message')
     throw conflict(`This message is ${current.message.status}: only a failed message can be sent again.`, said('onlyFailedRetry'))
   }
-  return outboxMessage(db, companyId, messageId)
+  return outboxMessage(db, scope, messageId)
 }

@@ -1,11 +1,12 @@
 import { and, eq, isNull } from 'drizzle-orm'
 import type { Executor } from '@db/client'
-import { gatePasses, users, vehicles, yards } from '@db/schema'
+import { gatePasses, vehicles, yards } from '@db/schema'
 import { dispositionFor, type GateRecorded, type GateVehicle } from '@shared/schemas/releases'
 import type { User } from '@shared/schemas/users'
 import { cardOf, judgeMove, makeMove } from '../board/index'
 import { AppError, conflict, unprocessable, said } from '../errors'
 import { changeVehicle, spaceOf, vehicleForUser, type VehicleChanges } from '../vehicles/index'
+import { yardOfStaff } from '../yards/index'
 import { gateHash, newGateCode, newGateToken, readPass } from './gate-keys'
 import { photoOf, releaseOf } from './releases.queries'
 
@@ -75,8 +76,7 @@ async function findPass(db: Executor, user: User, value: string, lock = false) {
     .from(gatePasses)
     .innerJoin(vehicles, eq(vehicles.id, gatePasses.vehicleId))
     .innerJoin(yards, eq(yards.id, vehicles.yardId))
-    .innerJoin(users, eq(users.companyId, yards.companyId))
-    .where(and(eq(column, key.hash), eq(users.id, user.id)))
+    .where(and(eq(column, key.hash), yardOfStaff(user.id)))
   const [row] = lock ? await query.for('update', { of: gatePasses }) : await query
   return row
 }

@@ -2,7 +2,8 @@ import { and, asc, eq, ne } from 'drizzle-orm'
 import type { Executor } from '@db/client'
 import { vehicles, yardSpaces } from '@db/schema'
 import { spaceLabel, type Space } from '@shared/schemas/spaces'
-import { badRequest, conflict } from '../errors'
+import { spaceFit } from '@shared/domain/vehicle'
+import { badRequest, conflict, unprocessable } from '../errors'
 
 export async function spacesOfYard(db: Executor, yardId: string): Promise<Space[]> {
   const rows = await db
@@ -16,6 +17,7 @@ export async function spacesOfYard(db: Executor, yardId: string): Promise<Space[
     row: r.space.row,
     number: r.space.number,
     size: r.space.size,
+    retired: r.space.retiredAt !== null,
     label: spaceLabel(r.space),
     occupant: r.vehicleId ? { id: r.vehicleId, stockNumber: r.stockNumber! } : null,
   }))
@@ -25,10 +27,19 @@ export async function spacesOfYard(db: Executor, yardId: string): Promise<Space[
  * A space of this yard that no other vehicle holds; the label for messages and history. The unique
  * index on vehicles.space_id still decides a race between two dispatchers (see spaceTaken).
  */
-export async function freeSpace(db: Executor, yardId: string, spaceId: string, path: string, forVehicleId?: string) {
+export async function freeSpace(db: Executor, yardId: string, spaceId: string, path: string, forVehicleId?: string, vehicleClass?: string) {
   const [space] = await db.select().from(yardSpaces).where(and(eq(yardSpaces.id, spaceId), eq(yardSpaces.yardId, yardId)))
   if (!space) throw badRequest('That space is not in this yard.', [{ path, message: 'That space is not in this yard.' }])
   const label = spaceLabel(space)
+  if (space.retiredAt) {
+    const message = `Space ${label} is retired. Choose another space.`
+    throw conflict(message, { issues: [{ path, message }] })
+  }
+  const fit = vehicleClass === undefined ? null : spaceFit(vehicleClass, space.size)
+  if (fit && !fit.fits) {
+    const message = `Space ${label}: ${fit.reason}`
+    throw unprocessable(message, { issues: [{ path, message }], needs: fit.needs })
+  }
   const holder = db.select({ stockNumber: vehicles.stockNumber }).from(vehicles)
   const [taken] = await (forVehicleId
     ? holder.where(and(eq(vehicles.spaceId, spaceId), ne(vehicles.id, forVehicleId)))

@@ -15,7 +15,7 @@ export async function assignSpace(changes: VehicleChanges, actor: User, vehicleI
         if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard and no longer takes a space.', said('closedSpace'))
         if (input.spaceId === vehicle.spaceId) throw unprocessable('The vehicle is already in that space.', said('alreadyInSpace'))
         const from = await spaceOf(tx, vehicle.spaceId)
-        const to = input.spaceId ? await freeSpace(tx, yard.id, input.spaceId, 'spaceId', vehicleId) : null
+        const to = input.spaceId ? await freeSpace(tx, yard.id, input.spaceId, 'spaceId', vehicleId, vehicle.vehicleClass) : null
         set({ spaceId: input.spaceId })
         record({ kind: 'space_assigned', before: { space: from?.label ?? null }, after: { space: to } })
         return to

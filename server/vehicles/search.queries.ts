@@ -1,7 +1,8 @@
 import { and, desc, eq, or, sql, type SQLWrapper } from 'drizzle-orm'
 import type { Executor } from '@db/client'
-import { users, vehicles, yards } from '@db/schema'
+import { vehicles } from '@db/schema'
 import type { SearchHit } from '@shared/schemas/search'
+import { yardOfUser } from '../yards/index'
 
 const LIMIT = 20
 /** A VIN fragment shorter than this matches too many vehicles to be a search. */
@@ -14,7 +15,7 @@ const squeezed = (s: string) => s.toUpperCase().replace(/[\s-]+/g, '')
 const described = sql`lower(concat_ws(' ', ${vehicles.year}, ${vehicles.make}, ${vehicles.model}, ${vehicles.colour}))`
 const squeezedColumn = (col: SQLWrapper) => sql`regexp_replace(upper(coalesce(${col}, '')), '[[:space:]-]+', '', 'g')`
 
-/** Vehicles of the staff member's company by stock number, plate, VIN (6+ characters), year/make/model/colour or owner name. */
+/** Vehicles of the yard chosen in the top bar by stock number, plate, VIN (6+ characters), year/make/model/colour or owner name. */
 export async function searchVehicles(db: Executor, userId: string, q: string): Promise<SearchHit[]> {
   const key = squeezed(q)
   const pattern = `%${likeEscaped(key)}%`
@@ -26,6 +27,8 @@ export async function searchVehicles(db: Executor, userId: string, q: string): P
     sql`${described} like ${words}`,
   ]
   if (key.length >= MIN_VIN) matches.push(sql`${vehicles.vin} like ${pattern}`)
+  const yard = await yardOfUser(db, userId)
+  if (!yard) return []
   const rows = await db
     .select({
       id: vehicles.id,
@@ -40,9 +43,7 @@ export async function searchVehicles(db: Executor, userId: string, q: string): P
       state: vehicles.state,
     })
     .from(vehicles)
-    .innerJoin(yards, eq(yards.id, vehicles.yardId))
-    .innerJoin(users, eq(users.companyId, yards.companyId))
-    .where(and(eq(users.id, userId), or(...matches)))
+    .where(and(eq(vehicles.yardId, yard.id), or(...matches)))
     // Vehicles still on the lot first, newest arrivals first.
     .orderBy(sql`${vehicles.state} = 'closed'`, desc(vehicles.arrivedAt))
     .limit(LIMIT)

@@ -63,7 +63,7 @@ async function insertTowIn(scope: ChangeScope, yard: YardRow, input: TowIn, extr
   // Inside the transaction, so the answer holds for this insert (one writer at a time on the embedded database).
   const lookalikes = await activeLookalikes(tx, yard, v)
   assertNotLoggedTwice(lookalikes, input.duplicateReason)
-  const space = input.spaceId ? await freeSpace(tx, yard.id, input.spaceId, 'spaceId') : null
+  const space = input.spaceId ? await freeSpace(tx, yard.id, input.spaceId, 'spaceId', undefined, v.vehicleClass) : null
   const towRow = towColumns(tow, yard)
   const stockNumber = await nextStockNumber(tx, yard, towRow.arrivedAt)
   await tx.insert(vehicles).values({

@@ -1,3 +1,3 @@
 export { yardsRouter } from './yards.routes'
-export { yardOfUser } from './yards.queries'
+export { yardOfStaff, yardOfUser, yardsOfUser } from './yards.queries'
 export { createYard } from './yards.service'

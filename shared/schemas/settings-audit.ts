@@ -2,10 +2,10 @@ import { z } from 'zod'
 import { pagingShape } from './fields'
 
 /** The settings the audit covers; yards and staff join rule sets later. */
-export const SETTINGS_AREAS = ['rule-set', 'yard'] as const
+export const SETTINGS_AREAS = ['rule-set', 'yard', 'staff'] as const
 export type SettingsArea = (typeof SETTINGS_AREAS)[number]
 
-export const SETTINGS_ACTIONS = ['copied', 'saved', 'rule-set-chosen'] as const
+export const SETTINGS_ACTIONS = ['copied', 'saved', 'rule-set-chosen', 'yard-added', 'yard-edited', 'spaces-added', 'space-retired', 'staff-yards'] as const
 export type SettingsAction = (typeof SETTINGS_ACTIONS)[number]
 
 export const settingsChangeSchema = z.object({

@@ -5,6 +5,8 @@ export const spaceSchema = z.object({
   row: z.string(),
   number: z.number(),
   size: z.enum(['standard', 'wide', 'motorcycle']),
+  /** Retired: takes no vehicle; still listed where a vehicle sits in it. */
+  retired: z.boolean(),
   label: z.string(),
   /** The vehicle in it now; null when free. */
   occupant: z.object({ id: z.uuid(), stockNumber: z.string() }).nullable(),

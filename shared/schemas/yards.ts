@@ -23,3 +23,14 @@ export const currentYardSchema = z.object({
   yard: z.object({ id: z.uuid(), name: z.string(), code: z.string(), timeZone: z.string() }),
 })
 export type CurrentYard = z.infer<typeof currentYardSchema>['yard']
+
+/** GET /api/yards/mine: the yards the signed-in person belongs to (the top bar's chooser) and the one chosen. */
+export const myYardsSchema = z.object({
+  yards: z.array(z.object({ id: z.uuid(), name: z.string(), code: z.string(), timeZone: z.string() })),
+  currentId: z.uuid().nullable(),
+})
+export type MyYards = z.infer<typeof myYardsSchema>
+
+/** PUT /api/yards/current: work in another of one's yards (remembered per person). */
+export const chooseYardSchema = z.object({ yardId: z.uuid({ error: 'Choose one of your yards.' }) })
+export type ChooseYard = z.infer<typeof chooseYardSchema>

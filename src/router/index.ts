@@ -53,6 +53,7 @@ export const routes: RouteRecordRaw[] = [
   { path: '/o/:key', name: 'owner', component: () => import('@/views/OwnerView.vue'), meta: { public: true, bare: true, title: 'shell.titles.owner' } },
   { path: '/settings', name: 'settings', component: () => import('@/views/SettingsView.vue'), meta: { navMore: true, permission: 'admin', nav: 'settings.nav', title: 'settings.title' } },
   { path: '/settings/rule-sets/:ruleSetId', name: 'settings-rule-set', component: () => import('@/views/RuleSetEditorView.vue'), meta: { permission: 'admin', title: 'settings.ruleSets.title' } },
+  { path: '/settings/yards', name: 'settings-yards', component: () => import('@/views/YardSettingsView.vue'), meta: { permission: 'admin', title: 'yards.settings.title' } },
   { path: '/settings/audit', name: 'settings-audit', component: () => import('@/views/SettingsAuditView.vue'), meta: { permission: 'admin', title: 'settings.audit.title' } },
   { path: '/users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { navMore: true, permission: 'admin', nav: 'shell.nav.users', title: 'shell.titles.users' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'shell.titles.notFound' } },

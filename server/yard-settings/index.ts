@@ -1,0 +1,1 @@
+export { yardSettingsRouter } from './yard-settings.routes'

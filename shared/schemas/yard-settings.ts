@@ -1,0 +1,70 @@
+import { z } from 'zod'
+import { SPACE_SIZES } from '../domain/vehicle/space-fit'
+import { isTimeZone } from '../domain/time/local-time'
+import { text } from './fields'
+import { towRatesSchema } from './tows'
+
+const cents = (what: string) => z.number({ error: `Enter ${what} in cents.` }).int(`Enter ${what} in whole cents.`).nonnegative(`${what} cannot be negative.`)
+
+/** What a manager sets for a yard in Settings → Yards (the stock-number prefix is `code`). */
+export const yardFieldsSchema = z.object({
+  name: text().trim().min(1, 'Give the yard a name.').max(120),
+  code: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{2,4}$/, 'Use 2 to 4 letters: they start every stock number (e.g. TC-2026-00041).'),
+  address: text().trim().min(1, 'Enter the yard address.').max(300),
+  phone: text().trim().max(40).nullish(),
+  lat: z.number({ error: 'Place the yard on the map.' }).min(-90).max(90),
+  lng: z.number({ error: 'Place the yard on the map.' }).min(-180).max(180),
+  timeZone: z.string().refine(isTimeZone, 'Use an IANA time zone such as America/Chicago.'),
+  labourRateCents: cents('the labour rate'),
+  towRates: towRatesSchema.strict(),
+})
+export type YardFields = z.infer<typeof yardFieldsSchema>
+
+/** A block of spaces: rows (A, B, … from `firstRow`) × numbers 1…perRow, all of one size. */
+export const spaceBlockSchema = z.object({
+  firstRow: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]$/, 'Start the rows at a letter, A to Z.')
+    .default('A'),
+  rows: z.number({ error: 'Enter how many rows.' }).int().min(1, 'At least one row.').max(26, 'At most 26 rows (A to Z).'),
+  perRow: z.number({ error: 'Enter how many spaces a row has.' }).int().min(1, 'At least one space a row.').max(200, 'At most 200 spaces a row.'),
+  size: z.enum(SPACE_SIZES).default('standard'),
+})
+export type SpaceBlock = z.infer<typeof spaceBlockSchema>
+
+export const newYardSchema = yardFieldsSchema.extend({
+  ruleSet: z.string().min(1).max(80).default('california-sample'),
+  spaces: spaceBlockSchema.optional(),
+})
+export type NewYard = z.infer<typeof newYardSchema>
+
+export const editYardSchema = yardFieldsSchema.partial().refine((v) => Object.keys(v).length > 0, 'Change at least one value.')
+export type EditYard = z.infer<typeof editYardSchema>
+
+export const yardSettingsSpaceSchema = z.object({
+  id: z.uuid(),
+  label: z.string(),
+  row: z.string(),
+  number: z.number(),
+  size: z.enum(SPACE_SIZES),
+  retired: z.boolean(),
+  occupant: z.string().nullable(),
+})
+
+export const yardSettingsSchema = yardFieldsSchema.extend({
+  id: z.uuid(),
+  phone: z.string().nullable(),
+  ruleSetName: z.string().nullable(),
+  spaces: z.array(yardSettingsSpaceSchema),
+})
+export type YardSettings = z.infer<typeof yardSettingsSchema>
+export const yardSettingsListSchema = z.object({ yards: z.array(yardSettingsSchema) })
+
+export const yardParamsSchema = z.object({ yardId: z.uuid() })
+export const spaceParamsSchema = z.object({ yardId: z.uuid(), spaceId: z.uuid() })
