@@ -3,7 +3,7 @@ import { openDatabase, DataDirLockedError, type DatabaseHandle } from '@db/clien
 import { hasHistory, type HistoryKey } from '@db/history'
 import { demoSignIns, loadDemoIfEmpty } from './demo/index'
 import { createApp } from './app'
-import { localFileStore } from './files/index'
+import { openFileStore } from './files/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
 import { startFakePaymentService, startLocalSmtp } from './fakes/index'
@@ -63,7 +63,7 @@ const live = config.database.kind === 'postgres' ? await postgresBus(config.data
 // Mail goes to SMTP_URL, or to the local stand-in through the very same transport.
 const localSmtp = config.mail.smtpUrl ? undefined : await startLocalSmtp({ folder: config.mail.localFolder })
 if (localSmtp) log.info(`No SMTP_URL: e-mail goes to the local stand-in at ${localSmtp.url}, kept in ${config.mail.localFolder}`)
-const files = localFileStore(config.filesDir)
+const files = await openFileStore(config)
 const outbox = new OutboxWorker(db, smtpTransport(config.mail.smtpUrl ?? localSmtp!.url), files, log, { from: config.mail.from })
 
 // Card payments go to the payment service by its key, or to the local stand-in through the very same SDK.
@@ -106,7 +106,7 @@ const server = app.listen(config.port, config.host, () => {
   const url = `http://localhost:${config.port}`
   const readyMs = performance.now() - started
   if (process.stdout.isTTY) {
-    console.log(startupBanner({ url, database: where, filesDir: config.filesDir, historyKeyFile: config.historyKeyFile, demo, readyMs }))
+    console.log(startupBanner({ url, database: where, filesDir: files.where, historyKeyFile: config.historyKeyFile, demo, readyMs }))
   } else {
     log.info(`Holdfast is serving ${url} (${where}), ready in ${Math.round(readyMs)} ms`)
   }
