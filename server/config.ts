@@ -1,6 +1,6 @@
 import path from 'node:path'
 import { z } from 'zod'
-import type { S3Settings } from './files/s3-file-store'
+import type { S3Settings } from './files/index'
 import { LOCAL_MAP, type MapConfig } from './map/index'
 
 const flag = z

@@ -6,7 +6,7 @@ import { buffer } from 'node:stream/consumers'
 import { sql } from 'drizzle-orm'
 import type { Database, Executor } from '@db/client'
 import { verifyVehicleHistory, type HistoryKey } from '@db/history'
-import type { FileStore } from '../files/file-store'
+import type { FileStore } from '../files/index'
 
 /**
  * A logical backup: every table of the `public` schema as the JSON PostgreSQL itself writes

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs'
 import path from 'node:path'
 import { sql } from 'drizzle-orm'
 import type { Database } from '@db/client'
-import type { FileStore } from '../files/file-store'
+import type { FileStore } from '../files/index'
 import type { Drain } from './drain'
 
 export type CheckResult = 'ok' | 'down' | 'behind'
