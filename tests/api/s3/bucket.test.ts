@@ -9,14 +9,11 @@ import { standInClient, TEST_BUCKET } from '../../helpers/s3-setup'
 const endpoint = inject('s3Endpoint')!
 let app: TestApp
 let key: string
-let objectUrl: string
 beforeAll(async () => {
   expect(endpoint, 'the api-s3 project starts the stand-in (tests/helpers/s3-setup.ts)').toMatch(/^http:\/\/127\.0\.0\.1:53(1[2-9])$/)
   app = await makeTestApp()
   key = 'vehicles/00000000-0000-4000-8000-000000000001/11111111-2222-4333-8444-555555555555.jpg'
   await app.files.put(key, Buffer.from('bytes in the bucket'))
-  const prefix = app.files.where.replace(`s3://${TEST_BUCKET}/`, '')
-  objectUrl = `${endpoint}/${TEST_BUCKET}/${prefix}${key}`
 })
 afterAll(() => app?.close())
 
@@ -24,12 +21,6 @@ describe('files in an S3 bucket', () => {
   it('the app keeps them in the bucket, under its prefix, readable with its credentials', async () => {
     expect(app.files.where).toMatch(new RegExp(`^s3://${TEST_BUCKET}/[0-9a-f-]{36}/$`))
     expect((await app.storedBytes(key)).toString()).toBe('bytes in the bucket')
-  })
-
-  it('the bucket refuses a request without a signature: the browser never reaches it, the server streams', async () => {
-    const res = await fetch(objectUrl)
-    expect(res.status).toBe(403)
-    expect(await res.text()).not.toContain('bytes in the bucket')
   })
 
   it('the bucket refuses a request signed with the wrong secret, and one whose signed address was changed', async () => {
@@ -49,7 +40,8 @@ describe('files in an S3 bucket', () => {
     await expect(tampering.send(new GetObjectCommand({ Bucket: TEST_BUCKET, Key: `${prefix}${key}` }))).rejects.toMatchObject({ $metadata: { httpStatusCode: 403 } })
   })
 
-  it('readiness says the storage is down, with no details, when the bucket cannot be reached', async () => {
+  // A second app on a busy machine takes a while to make.
+  it('readiness says the storage is down, with no details, when the bucket cannot be reached', { timeout: 90_000 }, async () => {
     const settings = { bucket: 'no-such-bucket', endpoint, region: 'us-east-1', forcePathStyle: true, prefix: '' }
     const missing = await makeTestApp({ files: s3FileStore(settings, standInClient(endpoint)) })
     try {
