@@ -1,6 +1,11 @@
-import { DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, ListObjectsV2Command, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
+import type { S3Client } from '@aws-sdk/client-s3'
 import { Readable } from 'node:stream'
 import { checked, FileMissingError, isStorageKey, type FileStore } from './file-store'
+
+// The SDK is imported when a bucket is first used, not with the server: a bundle would otherwise load
+// it (seconds on a busy two-core machine) at every start of every install, bucket or not.
+let sdk: Promise<typeof import('@aws-sdk/client-s3')> | undefined
+const loadSdk = () => (sdk ??= import('@aws-sdk/client-s3'))
 
 export interface S3Settings {
   bucket: string
@@ -14,7 +19,8 @@ export interface S3Settings {
 }
 
 /** The SDK's client as the settings say; credentials come from the SDK's usual chain (env, profile, role). */
-export function s3Client(s: Pick<S3Settings, 'endpoint' | 'region' | 'forcePathStyle'>, credentials?: { accessKeyId: string; secretAccessKey: string }): S3Client {
+export async function s3Client(s: Pick<S3Settings, 'endpoint' | 'region' | 'forcePathStyle'>, credentials?: { accessKeyId: string; secretAccessKey: string }): Promise<S3Client> {
+  const { S3Client } = await loadSdk()
   return new S3Client({
     region: s.region,
     credentials,
@@ -27,22 +33,27 @@ export function s3Client(s: Pick<S3Settings, 'endpoint' | 'region' | 'forcePathS
   })
 }
 
-const isMissing = (err: unknown) => err instanceof NoSuchKey || (err as { name?: string }).name === 'NoSuchKey' || (err as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404
+const isMissing = (err: unknown) => (err as { name?: string }).name === 'NoSuchKey' || (err as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404
 
 /**
  * Files in an S3-compatible bucket, under the same keys the disk store uses. The bucket stays private:
  * the browser never reaches it; downloads stream through the server after its access check.
  */
-export function s3FileStore(s: S3Settings, client: S3Client = s3Client(s)): FileStore {
+export function s3FileStore(s: S3Settings, client: Promise<S3Client> = s3Client(s)): FileStore {
   const Bucket = s.bucket
+  const ready = Promise.all([loadSdk(), client])
+  // Nothing is sent before the first use; a client that could not be made fails that use, not the start.
+  ready.catch(() => undefined)
   const at = (key: string) => `${s.prefix}${checked(key)}`
   return {
     where: `s3://${Bucket}/${s.prefix}`,
     async put(key, data) {
       // A PUT replaces the object whole or not at all: a reader never sees half a file.
+      const [{ PutObjectCommand }, client] = await ready
       await client.send(new PutObjectCommand({ Bucket, Key: at(key), Body: data, ContentLength: data.length, ContentType: key.endsWith('.pdf') ? 'application/pdf' : 'image/jpeg' }))
     },
     async get(key) {
+      const [{ GetObjectCommand }, client] = await ready
       try {
         const out = await client.send(new GetObjectCommand({ Bucket, Key: at(key) }))
         if (!(out.Body instanceof Readable)) throw new Error('the S3 client answered without a Node stream')
@@ -53,9 +64,11 @@ export function s3FileStore(s: S3Settings, client: S3Client = s3Client(s)): File
       }
     },
     async delete(key) {
+      const [{ DeleteObjectCommand }, client] = await ready
       await client.send(new DeleteObjectCommand({ Bucket, Key: at(key) }))
     },
     async list() {
+      const [{ ListObjectsV2Command }, client] = await ready
       const keys: string[] = []
       let ContinuationToken: string | undefined
       do {
@@ -69,6 +82,7 @@ export function s3FileStore(s: S3Settings, client: S3Client = s3Client(s)): File
       return keys.sort()
     },
     async check() {
+      const [{ HeadBucketCommand }, client] = await ready
       await client.send(new HeadBucketCommand({ Bucket }))
     },
   }

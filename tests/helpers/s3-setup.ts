@@ -23,8 +23,8 @@ export const TEST_S3_CREDENTIALS = { accessKeyId: 'S3RVER', secretAccessKey: 'S3
  * signature over `/bucket`, so it would refuse every such request. The path loses its trailing slash
  * before signing; object requests are untouched.
  */
-export function standInClient(endpoint: string): S3Client {
-  const client = s3Client({ endpoint, region: 'us-east-1', forcePathStyle: true }, TEST_S3_CREDENTIALS)
+export async function standInClient(endpoint: string): Promise<S3Client> {
+  const client = await s3Client({ endpoint, region: 'us-east-1', forcePathStyle: true }, TEST_S3_CREDENTIALS)
   client.middlewareStack.add(
     (next) => async (args) => {
       const request = args.request as { path?: string }

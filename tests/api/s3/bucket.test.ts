@@ -24,11 +24,11 @@ describe('files in an S3 bucket', () => {
   })
 
   it('the bucket refuses a request signed with the wrong secret, and one whose signed address was changed', async () => {
-    const wrong = s3Client({ endpoint, region: 'us-east-1', forcePathStyle: true }, { accessKeyId: 'S3RVER', secretAccessKey: 'not-the-secret' })
+    const wrong = await s3Client({ endpoint, region: 'us-east-1', forcePathStyle: true }, { accessKeyId: 'S3RVER', secretAccessKey: 'not-the-secret' })
     const prefix = app.files.where.replace(`s3://${TEST_BUCKET}/`, '')
     await expect(wrong.send(new GetObjectCommand({ Bucket: TEST_BUCKET, Key: `${prefix}${key}` }))).rejects.toMatchObject({ name: 'SignatureDoesNotMatch' })
     // A correctly signed request sent to another object: the signature covers the path, so it fails.
-    const tampering = standInClient(endpoint)
+    const tampering = await standInClient(endpoint)
     tampering.middlewareStack.add(
       (next) => async (args) => {
         const req = args.request as { path: string }
