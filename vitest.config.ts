@@ -10,6 +10,22 @@ const alias = {
   '@db': fileURLToPath(new URL('./db', import.meta.url)),
 }
 
+// Every API test file that writes, reads or deletes stored files.
+const S3_TESTS = [
+  'tests/api/uploads.test.ts',
+  'tests/api/upload-bounds.test.ts',
+  'tests/api/inspection-refusals.test.ts',
+  'tests/api/backup-restore.test.ts',
+  'tests/api/releases.test.ts',
+  'tests/api/owner-release-signature.test.ts',
+  'tests/api/transfers.test.ts',
+  'tests/api/publications.test.ts',
+  'tests/api/owner-links.test.ts',
+  'tests/api/notices.test.ts',
+  'tests/api/file-storage.test.ts',
+  'tests/api/s3/*.test.ts',
+]
+
 export default defineConfig({
   resolve: { alias },
   test: {
@@ -32,8 +48,21 @@ export default defineConfig({
           name: 'api',
           globalSetup: ['tests/helpers/global-setup.ts'],
           include: ['tests/api/**/*.test.ts'],
-          // npm run test:pg leaves out the files that are about the embedded engine itself (each says why there).
-          exclude: testEngineFromEnv() === 'postgres' ? Object.keys(PGLITE_ONLY) : [],
+          // What only a bucket has: the api-s3 project, with the S3 stand-in running.
+          // npm run test:pg leaves out the files that are about the embedded engine itself (each says why there);
+          // what only a bucket has runs in the api-s3 project, with the S3 stand-in running.
+          exclude: ['tests/api/s3/**', ...(testEngineFromEnv() === 'postgres' ? Object.keys(PGLITE_ONLY) : [])],
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        // The file tests again with every file in a bucket of the local S3 stand-in (issue 15, "Files").
+        resolve: { alias },
+        test: {
+          name: 'api-s3',
+          globalSetup: ['tests/helpers/global-setup.ts', 'tests/helpers/s3-setup.ts'],
+          include: S3_TESTS,
           testTimeout: 30_000,
           hookTimeout: 60_000,
         },

@@ -7,6 +7,7 @@ const steps = [
   ['lint and import rules', 'npm run lint'],
   ['unit and reference tests', 'npx vitest run --project unit --project reference'],
   ['API tests', 'npx vitest run --project api'],
+  ['API tests with files in the S3 stand-in', 'npx vitest run --project api-s3'],
   ['build', 'npm run build'],
   ['browser tests', 'npm run test:e2e'],
 ]

@@ -12,6 +12,8 @@ type Rule = 'public' | 'staff' | Permission
  */
 export const ACCESS: Record<string, Rule> = {
   'GET /api/health': 'public',
+  'GET /api/health/live': 'public',
+  'GET /api/health/ready': 'public',
   'GET /api/session': 'public',
   'POST /api/session': 'public',
   'DELETE /api/session': 'public',

@@ -34,7 +34,7 @@ import { ruleSetsRouter } from './rule-sets/index'
 import { todayRouter } from './today/index'
 import { reportsRouter } from './reports/index'
 import { glanceRouter } from './glance/index'
-import { healthRouter } from './health/index'
+import { Drain, healthRouter, readinessCheck } from './health/index'
 import { logSerializers, safeLogger } from './logging'
 import { type LiveBus, memoryBus } from './live/index'
 import { anonymousCsrf, csrfProtection, currentUser, refuseNulCharacters, sessionMiddleware } from './middleware/index'
@@ -81,6 +81,10 @@ export interface AppDeps {
   publicLimits?: PublicLimits
   /** The card payment service's SDK client and webhook secret (the local fake by default); absent, card pages answer 503. */
   cardPayments?: CardPayments
+  /** Set when the server is shutting down: readiness answers 503, no new board stream opens. */
+  drain?: Drain
+  /** The committed migrations, for readiness to know the database has them all (db/migrations). */
+  migrationsFolder?: string
 }
 
 const DEFAULT_LIMITS: SignInLimits = { perAccount: 5, perIp: 50, windowMs: 15 * 60_000 }
@@ -115,7 +119,7 @@ export function createApp(deps: AppDeps): Express {
       strictTransportSecurity: deps.https ? { maxAge: 15_552_000 } : false,
     }),
   )
-  app.use(pinoHttp({ logger: log, serializers: logSerializers, autoLogging: { ignore: (req) => req.url === '/api/health' } }))
+  app.use(pinoHttp({ logger: log, serializers: logSerializers, autoLogging: { ignore: (req) => req.url === '/api/health' || req.url?.startsWith('/api/health/') === true } }))
   const cards = { changes, cards: deps.cardPayments, mail: { kick: deps.kickOutbox }, publicUrl: deps.publicUrl }
   // The payment service's webhook: its raw bytes are what the signature covers, so it comes before the
   // JSON parser; no session and no CSRF token (the signature is its guard), but still the access table.
@@ -130,7 +134,10 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', enforceAccess)
   app.use('/api', csrfProtection(deps.origins ?? [], anonymous))
 
-  app.use('/api/health', healthRouter(db, deps.version))
+  const drain = deps.drain ?? new Drain()
+  app.use('/api/health', healthRouter(db, deps.version, readinessCheck({ db, files, drain, migrationsFolder: deps.migrationsFolder ?? path.resolve('db/migrations') })))
+  // A board stream opened while this server shuts down would be cut at once: the browser retries elsewhere.
+  app.use('/api/board/events', (_req, res, next) => (drain.draining ? res.status(503).setHeader('Retry-After', '1').json({ error: 'This server is restarting; the board reconnects to another one.' }) : next()))
   const limits = deps.signInLimits ?? DEFAULT_LIMITS
   app.use(
     '/api/session',

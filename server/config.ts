@@ -1,5 +1,6 @@
 import path from 'node:path'
 import { z } from 'zod'
+import type { S3Settings } from './files/index'
 import { LOCAL_MAP, type MapConfig } from './map/index'
 
 const flag = z
@@ -38,6 +39,17 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   // Uploaded photos and papers; outside any served folder. Defaults to <data dir>/files.
   HOLDFAST_FILES_DIR: z.string().min(1).optional(),
+  // Files in an S3-compatible bucket instead of HOLDFAST_FILES_DIR (every server of one database must
+  // share one place). Credentials come from the AWS SDK's usual chain: AWS_ACCESS_KEY_ID and
+  // AWS_SECRET_ACCESS_KEY, AWS_PROFILE, or the machine's role.
+  HOLDFAST_S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'HOLDFAST_S3_BUCKET must be a bucket name (3–63 lower-case letters, digits, dots, hyphens)').optional(),
+  HOLDFAST_S3_ENDPOINT: z.url({ protocol: /^https?$/, error: 'HOLDFAST_S3_ENDPOINT must be an http(s) URL' }).optional(),
+  HOLDFAST_S3_REGION: z.string().min(1).optional(),
+  HOLDFAST_S3_PREFIX: z.string().regex(/^([a-z0-9-]+\/)*$/, 'HOLDFAST_S3_PREFIX must be folder names ending in / (e.g. holdfast/)').default(''),
+  // Bucket in the path rather than the host name: the default with HOLDFAST_S3_ENDPOINT (MinIO and most others).
+  HOLDFAST_S3_PATH_STYLE: flag.optional(),
+  // On SIGTERM/SIGINT, how long open requests may take to finish before their connections are cut.
+  HOLDFAST_SHUTDOWN_SECONDS: z.coerce.number().int().min(0).max(300).default(10),
   // A z/x/y tile template and a Nominatim-style geocoder; by default the built-in local stand-ins.
   HOLDFAST_TILE_URL: z.string().regex(/^(https?:\/\/|\/).*\{z\}.*\{x\}.*\{y\}/, 'HOLDFAST_TILE_URL must be a tile template with {z}, {x} and {y}').optional(),
   HOLDFAST_TILE_ATTRIBUTION: z.string().max(300).optional(),
@@ -78,6 +90,10 @@ export interface Config {
   publicLimits: { perAddress: number; windowMs: number }
   clientDir: string
   filesDir: string
+  /** Files in a bucket instead of filesDir, when HOLDFAST_S3_BUCKET is set. */
+  s3: S3Settings | undefined
+  /** How long a graceful shutdown waits for open requests. */
+  shutdownMs: number
   /** The history key's file: beside the data directory unless set (every server of one database needs the same file). */
   historyKeyFile: string
   map: MapConfig
@@ -105,6 +121,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
         'X-Forwarded-Proto header is believed. Or unset HOLDFAST_HTTPS for plain HTTP.',
     )
   }
+  const s3Only = (['HOLDFAST_S3_ENDPOINT', 'HOLDFAST_S3_REGION', 'HOLDFAST_S3_PATH_STYLE'] as const).filter((k) => e[k] !== undefined)
+  if (!e.HOLDFAST_S3_BUCKET && (s3Only.length > 0 || e.HOLDFAST_S3_PREFIX)) {
+    throw new Error(`Holdfast cannot start: ${[...s3Only, ...(e.HOLDFAST_S3_PREFIX ? ['HOLDFAST_S3_PREFIX'] : [])].join(', ')} set without HOLDFAST_S3_BUCKET; name the bucket, or unset them to keep files on disk.`)
+  }
+  if (e.HOLDFAST_S3_BUCKET && e.HOLDFAST_FILES_DIR) {
+    throw new Error('Holdfast cannot start: both HOLDFAST_S3_BUCKET and HOLDFAST_FILES_DIR are set; files live in one place. Unset one.')
+  }
   if (e.STRIPE_SECRET_KEY && !e.STRIPE_WEBHOOK_SECRET) {
     throw new Error('Holdfast cannot start: STRIPE_SECRET_KEY needs STRIPE_WEBHOOK_SECRET, the signing secret of the webhook endpoint /api/card-payments/webhook, or no card payment is ever recorded.')
   }
@@ -128,6 +151,16 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     publicLimits: { perAddress: e.HOLDFAST_PUBLIC_TRIES, windowMs: 15 * 60_000 },
     clientDir: path.resolve(e.HOLDFAST_CLIENT_DIR),
     filesDir: path.resolve(e.HOLDFAST_FILES_DIR ?? path.join(dataDir, 'files')),
+    s3: e.HOLDFAST_S3_BUCKET
+      ? {
+          bucket: e.HOLDFAST_S3_BUCKET,
+          endpoint: e.HOLDFAST_S3_ENDPOINT,
+          region: e.HOLDFAST_S3_REGION ?? env.AWS_REGION ?? 'us-east-1',
+          prefix: e.HOLDFAST_S3_PREFIX,
+          forcePathStyle: e.HOLDFAST_S3_PATH_STYLE ?? e.HOLDFAST_S3_ENDPOINT !== undefined,
+        }
+      : undefined,
+    shutdownMs: e.HOLDFAST_SHUTDOWN_SECONDS * 1000,
     historyKeyFile: path.resolve(e.HOLDFAST_HISTORY_KEY_FILE ?? `${dataDir}.history-key`),
     publicUrl: e.HOLDFAST_PUBLIC_URL?.replace(/\/+$/, ''),
     mail: { smtpUrl: e.SMTP_URL, localFolder: path.join(dataDir, 'mail'), from: e.HOLDFAST_MAIL_FROM },

@@ -3,7 +3,8 @@ import { openDatabase, DataDirLockedError, type DatabaseHandle } from '@db/clien
 import { hasHistory, type HistoryKey } from '@db/history'
 import { adoptDemoTemplate, demoSignIns, loadDemoIfEmpty, usableDemoTemplate, type DemoLoaded } from './demo/index'
 import { createApp } from './app'
-import { localFileStore } from './files/index'
+import { openFileStore } from './files/index'
+import { Drain } from './health/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
 import { startFakePaymentService, startLocalSmtp } from './fakes/index'
@@ -43,7 +44,7 @@ await handle.migrate()
 const migrated = performance.now()
 const { db } = handle
 let historyKey: HistoryKey
-const files = localFileStore(config.filesDir)
+const files = await openFileStore(config)
 let adopted: DemoLoaded | null = null
 try {
   if (demoTemplate && handle.startedFrom === config.demoTemplate) {
@@ -74,6 +75,7 @@ const live = config.database.kind === 'postgres' ? await postgresBus(config.data
 // Mail goes to SMTP_URL, or to the local stand-in through the very same transport.
 const localSmtp = config.mail.smtpUrl ? undefined : await startLocalSmtp({ folder: config.mail.localFolder })
 if (localSmtp) log.info(`No SMTP_URL: e-mail goes to the local stand-in at ${localSmtp.url}, kept in ${config.mail.localFolder}`)
+const drain = new Drain()
 const outbox = new OutboxWorker(db, smtpTransport(config.mail.smtpUrl ?? localSmtp!.url), files, log, { from: config.mail.from })
 
 // Card payments go to the payment service by its key, or to the local stand-in through the very same SDK.
@@ -103,6 +105,8 @@ const app = createApp({
   kickOutbox: () => outbox.kick(),
   publicUrl: config.publicUrl,
   cardPayments,
+  drain,
+  migrationsFolder: config.migrationsFolder,
 })
 outbox.start()
 // The stand-in's webhooks come to this server's own port, signed as the real service signs them.
@@ -116,7 +120,7 @@ const server = app.listen(config.port, config.host, () => {
   const url = `http://localhost:${config.port}`
   const readyMs = performance.now() - started
   if (process.stdout.isTTY) {
-    console.log(startupBanner({ url, database: where, filesDir: config.filesDir, historyKeyFile: config.historyKeyFile, demo, readyMs }))
+    console.log(startupBanner({ url, database: where, filesDir: files.where, historyKeyFile: config.historyKeyFile, demo, readyMs }))
   } else {
     log.info(`Holdfast is serving ${url} (${where}), ready in ${Math.round(readyMs)} ms`)
   }
@@ -140,20 +144,31 @@ let stopping = false
 async function shutdown(signal: string) {
   if (stopping) return
   stopping = true
-  log.info(`${signal}: finishing open requests and closing the database`)
+  log.info(`${signal}: readiness now answers 503; finishing open requests (at most ${config.shutdownMs / 1000} s), then closing the database`)
+  // Readiness turns to 503 and no board stream opens here any more; no new connection is taken.
+  drain.begin()
+  const closed = new Promise((resolve) => server.once('close', resolve))
+  server.close()
   clearInterval(pruning)
-  // Open board streams would hold the server open: end them first (browsers reconnect elsewhere).
+  // Open board streams would hold the server open: they end now, and each browser's EventSource
+  // reconnects (through the proxy, to another server) and catches up there.
   await live.close()
-  // A message being sent is finished; one not yet taken stays queued for the next start.
+  // A message being sent is finished; one not yet taken stays for another server or the next start.
   await outbox.stop()
+  // A kept-alive connection goes as soon as its request is answered; whatever is still open when the
+  // wait is over is cut.
+  const idle = setInterval(() => server.closeIdleConnections(), 100)
+  const force = setTimeout(() => {
+    log.warn('shutdown: requests still open after the wait; closing their connections')
+    server.closeAllConnections()
+  }, config.shutdownMs)
+  await closed
+  clearInterval(idle)
+  clearTimeout(force)
   await localSmtp?.close()
   await fakePayments?.close()
-  server.close()
-  server.closeIdleConnections()
-  const force = setTimeout(() => server.closeAllConnections(), 5_000)
-  force.unref()
-  await new Promise((resolve) => server.once('close', resolve))
   await handle.close()
+  log.info('shutdown: done')
   process.exit(0)
 }
 process.on('SIGINT', () => void shutdown('SIGINT'))

@@ -1,10 +1,12 @@
 import { createHash, createHmac } from 'node:crypto'
-import { chmod, cp, mkdir, readdir, readFile, writeFile } from 'node:fs/promises'
+import { chmod, mkdir, readFile, writeFile } from 'node:fs/promises'
 import { existsSync } from 'node:fs'
 import path from 'node:path'
+import { buffer } from 'node:stream/consumers'
 import { sql } from 'drizzle-orm'
 import type { Database, Executor } from '@db/client'
 import { verifyVehicleHistory, type HistoryKey } from '@db/history'
+import type { FileStore } from '../files/index'
 
 /**
  * A logical backup: every table of the `public` schema as the JSON PostgreSQL itself writes
@@ -82,21 +84,13 @@ export async function companyCheckpoints(db: Executor, key: HistoryKey): Promise
   })
 }
 
-async function filesUnder(root: string, dir = ''): Promise<string[]> {
-  if (!existsSync(path.join(root, dir))) return []
-  const out: string[] = []
-  for (const entry of await readdir(path.join(root, dir), { withFileTypes: true })) {
-    const rel = path.posix.join(dir, entry.name)
-    if (entry.isDirectory()) out.push(...(await filesUnder(root, rel)))
-    else if (entry.isFile() && !entry.name.endsWith('.part')) out.push(rel)
-  }
-  return out.sort()
-}
-
 const sha256 = (data: Buffer) => createHash('sha256').update(data).digest('hex')
 
-/** Writes a backup of the database and the files folder into `outDir` (made; must not exist yet). */
-export async function makeBackup(db: Database, opts: { filesDir: string; key: HistoryKey; outDir: string; driver: string }): Promise<Manifest> {
+/**
+ * Writes a backup of the database and every stored file (from the files folder or the bucket alike)
+ * into `outDir` (made; must not exist yet).
+ */
+export async function makeBackup(db: Database, opts: { files: FileStore; key: HistoryKey; outDir: string; driver: string }): Promise<Manifest> {
   if (existsSync(opts.outDir)) throw new Error(`${opts.outDir} already exists: a backup goes into a new folder.`)
   await mkdir(path.join(opts.outDir, 'tables'), { recursive: true, mode: 0o700 })
   // One snapshot: on PostgreSQL a repeatable-read transaction sees every table at the same instant.
@@ -120,11 +114,13 @@ export async function makeBackup(db: Database, opts: { filesDir: string; key: Hi
     },
     { isolationLevel: 'repeatable read', accessMode: 'read only' },
   )
-  for (const rel of await filesUnder(opts.filesDir)) {
-    const data = await readFile(path.join(opts.filesDir, rel))
-    manifest.files[rel] = sha256(data)
+  for (const key of await opts.files.list()) {
+    const data = await buffer((await opts.files.get(key)).stream)
+    const to = path.join(opts.outDir, 'files', ...key.split('/'))
+    await mkdir(path.dirname(to), { recursive: true, mode: 0o700 })
+    await writeFile(to, data, { mode: 0o600 })
+    manifest.files[key] = sha256(data)
   }
-  if (existsSync(opts.filesDir)) await cp(opts.filesDir, path.join(opts.outDir, 'files'), { recursive: true, filter: (src) => !src.endsWith('.part') })
   await writeFile(path.join(opts.outDir, 'manifest.json'), `${JSON.stringify(manifest, null, 2)}\n`, { mode: 0o600 })
   // The checkpoints on their own, to keep apart from the backup (print them, mail them to the owner).
   await writeFile(path.join(opts.outDir, 'checkpoints.json'), `${JSON.stringify(manifest.checkpoints, null, 2)}\n`, { mode: 0o600 })
@@ -148,11 +144,11 @@ export async function readManifest(backupDir: string): Promise<Manifest> {
 }
 
 /**
- * Restores a backup into a fresh, migrated database (no company yet) and an empty files folder, then
+ * Restores a backup into a fresh, migrated database (no company yet) and its file store, then
  * checks it: row counts and checksums per table, each file's hash, every vehicle's history chain and
  * sealed head under `key`, and each company's checkpoint. Refuses a database of another version.
  */
-export async function restoreBackup(db: Database, opts: { backupDir: string; filesDir: string; key: HistoryKey }): Promise<RestoreReport> {
+export async function restoreBackup(db: Database, opts: { backupDir: string; files: FileStore; key: HistoryKey }): Promise<RestoreReport> {
   const manifest = await readManifest(opts.backupDir)
   const migrations = await migrationsOf(db)
   if (migrations.join() !== manifest.migrations.join()) {
@@ -186,9 +182,7 @@ export async function restoreBackup(db: Database, opts: { backupDir: string; fil
       problems.push(`file ${rel}: missing or changed in the backup`)
       continue
     }
-    const to = path.join(opts.filesDir, ...rel.split('/'))
-    await mkdir(path.dirname(to), { recursive: true, mode: 0o700 })
-    await writeFile(to, data, { mode: 0o600 })
+    await opts.files.put(rel, data)
   }
   const vehicles = await rowsOf(db, sql`select id from vehicles order by id`)
   for (const v of vehicles) {

@@ -2,6 +2,7 @@ import path from 'node:path'
 import { hasHistory } from '@db/history'
 import { makeBackup } from '../backup/index'
 import { loadConfig } from '../config'
+import { openFileStore } from '../files/index'
 import { loadHistoryKey } from '../history-key'
 import { withDatabase } from './open'
 
@@ -12,7 +13,7 @@ const stamp = new Date().toISOString().replace(/[:.]/g, '-')
 const outDir = path.resolve(process.argv[2] ?? path.join('backups', `holdfast-${stamp}`))
 await withDatabase(async ({ db, driver }) => {
   const key = loadHistoryKey(config.historyKeyFile, await hasHistory(db))
-  const manifest = await makeBackup(db, { filesDir: config.filesDir, key, outDir, driver })
+  const manifest = await makeBackup(db, { files: await openFileStore(config), key, outDir, driver })
   const rows = Object.values(manifest.tables).reduce((n, t) => n + t.rows, 0)
   console.log(`Backup written to ${outDir}: ${Object.keys(manifest.tables).length} tables, ${rows} rows, ${Object.keys(manifest.files).length} files.`)
   console.log(`History checkpoints (also in checkpoints.json; keep a copy apart from the backup):`)

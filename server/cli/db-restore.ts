@@ -1,6 +1,7 @@
 import path from 'node:path'
 import { restoreBackup } from '../backup/index'
 import { loadConfig } from '../config'
+import { openFileStore } from '../files/index'
 import { loadHistoryKey } from '../history-key'
 import { fail, withDatabase } from './open'
 
@@ -11,7 +12,8 @@ if (!from) fail('Name the backup folder: npm run db:restore -- backups/holdfast-
 const config = loadConfig()
 // The key must already be there: a new one would make every restored chain look forged.
 const key = loadHistoryKey(config.historyKeyFile, true)
-const report = await withDatabase(({ db }) => restoreBackup(db, { backupDir: path.resolve(from), filesDir: config.filesDir, key }))
+const files = await openFileStore(config)
+const report = await withDatabase(({ db }) => restoreBackup(db, { backupDir: path.resolve(from), files, key }))
 console.log(`Restored ${report.tables} tables, ${report.rows} rows, ${report.files} files; checked the history of ${report.vehicles} vehicles.`)
 if (report.problems.length > 0) {
   console.error(`The restore is NOT equal to the backup (${report.problems.length} problems):`)

@@ -30,11 +30,14 @@ function keepingStore(): FileStore & { kept: Map<string, Buffer> } {
   const kept = new Map<string, Buffer>()
   return {
     kept,
+    where: 'the demo template build (in memory)',
     put: async (key, data) => void kept.set(key, Buffer.from(data)),
     get: async () => {
       throw new Error('The demo template build reads no files back.')
     },
     delete: async (key) => void kept.delete(key),
+    list: async () => [...kept.keys()].sort(),
+    check: async () => {},
   }
 }
 

@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto'
-import { mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs'
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
@@ -8,7 +8,7 @@ import { makeTestApp, signedIn, TEST_HISTORY_KEY, type TestApp } from '../helper
 import { billedVehicle, key } from '../helpers/billing'
 import { vehicleRow } from '../helpers/board'
 import { makeStaff } from '../helpers/factories'
-import { filesOnDisk, photo, towInBody } from '../helpers/tow-in'
+import { photo, towInBody } from '../helpers/tow-in'
 
 // Issue 13, "Backup and restore": a logical dump restored into a fresh database equals the original.
 let yard: TestApp
@@ -40,14 +40,14 @@ beforeAll(async () => {
     await office.post(`/api/vehicles/${billed.id}/payments`, { idempotencyKey: key(), method: 'cash', amountCents: 5_000, tenderedCents: 5_000 }).expect(201)
   }
   backupDir = path.join(scratch, 'backup')
-  await makeBackup(yard.db, { filesDir: yard.filesDir, key: TEST_HISTORY_KEY, outDir: backupDir, driver: 'pglite' })
+  await makeBackup(yard.db, { files: yard.files, key: TEST_HISTORY_KEY, outDir: backupDir, driver: 'pglite' })
 })
 
 describe('npm run db:backup / db:restore (server/backup)', () => {
   it('the restored yard equals the original: rows and checksum per table, files, chains and checkpoints', async () => {
     const fresh = await makeTestApp()
     try {
-      const report = await restoreBackup(fresh.db, { backupDir, filesDir: fresh.filesDir, key: TEST_HISTORY_KEY })
+      const report = await restoreBackup(fresh.db, { backupDir, files: fresh.files, key: TEST_HISTORY_KEY })
       expect(report.problems).toEqual([])
       const [original, restored] = [await tableStats(yard.db), await tableStats(fresh.db)]
       expect(restored).toEqual(original)
@@ -57,10 +57,11 @@ describe('npm run db:backup / db:restore (server/backup)', () => {
       expect(report.vehicles).toBe(4)
       expect(await companyCheckpoints(fresh.db, TEST_HISTORY_KEY)).toEqual(await companyCheckpoints(yard.db, TEST_HISTORY_KEY))
       // The uploads, byte for byte, under the same keys.
-      const names = filesOnDisk(yard.filesDir).map((f) => path.relative(yard.filesDir, f)).sort()
+      // (from the files folder or the bucket, whichever the run keeps them in: see the api-s3 project)
+      const names = await yard.storedKeys()
       expect(names).toHaveLength(6)
-      expect(filesOnDisk(fresh.filesDir).map((f) => path.relative(fresh.filesDir, f)).sort()).toEqual(names)
-      for (const n of names) expect(readFileSync(path.join(fresh.filesDir, n)).equals(readFileSync(path.join(yard.filesDir, n)))).toBe(true)
+      expect(await fresh.storedKeys()).toEqual(names)
+      for (const n of names) expect((await fresh.storedBytes(n)).equals(await yard.storedBytes(n))).toBe(true)
       // The restored app serves the restored yard: a vehicle's history verifies through the API.
       const manager = await signedIn(fresh.app, first!.manager)
       const verify = await manager.get(`/api/vehicles/${first!.vehicleId}/history/verify`).expect(200)
@@ -76,7 +77,7 @@ describe('npm run db:backup / db:restore (server/backup)', () => {
   it('a restore with another history key reports every chain as forged', async () => {
     const fresh = await makeTestApp()
     try {
-      const report = await restoreBackup(fresh.db, { backupDir, filesDir: fresh.filesDir, key: randomBytes(32) })
+      const report = await restoreBackup(fresh.db, { backupDir, files: fresh.files, key: randomBytes(32) })
       expect(report.problems.filter((p) => /content was changed after it was written/.test(p))).toHaveLength(4)
       expect(report.problems.at(-1)).toMatch(/checkpoints differ from the backup/)
     } finally {
@@ -92,7 +93,7 @@ describe('npm run db:backup / db:restore (server/backup)', () => {
     writeFileSync(file, readFileSync(file, 'utf8').replace('"amount_cents":5000', '"amount_cents":500'))
     const fresh = await makeTestApp()
     try {
-      const report = await restoreBackup(fresh.db, { backupDir: edited, filesDir: fresh.filesDir, key: TEST_HISTORY_KEY })
+      const report = await restoreBackup(fresh.db, { backupDir: edited, files: fresh.files, key: TEST_HISTORY_KEY })
       expect(report.problems).toContain('payments: the rows differ from the backup\'s (checksum)')
     } finally {
       await fresh.close()
@@ -100,7 +101,7 @@ describe('npm run db:backup / db:restore (server/backup)', () => {
   })
 
   it('refuses to restore over a yard, and into a database of another version', async () => {
-    await expect(restoreBackup(yard.db, { backupDir, filesDir: yard.filesDir, key: TEST_HISTORY_KEY })).rejects.toThrow(/already holds a yard/)
+    await expect(restoreBackup(yard.db, { backupDir, files: yard.files, key: TEST_HISTORY_KEY })).rejects.toThrow(/already holds a yard/)
     const manifest = await readManifest(backupDir)
     const older = path.join(scratch, 'older')
     const { cpSync } = await import('node:fs')
@@ -108,8 +109,8 @@ describe('npm run db:backup / db:restore (server/backup)', () => {
     writeFileSync(path.join(older, 'manifest.json'), JSON.stringify({ ...manifest, migrations: manifest.migrations.slice(0, -1) }))
     const fresh = await makeTestApp()
     try {
-      await expect(restoreBackup(fresh.db, { backupDir: older, filesDir: fresh.filesDir, key: TEST_HISTORY_KEY })).rejects.toThrow(/same Holdfast version/)
-      expect(readdirSync(fresh.filesDir)).toEqual([])
+      await expect(restoreBackup(fresh.db, { backupDir: older, files: fresh.files, key: TEST_HISTORY_KEY })).rejects.toThrow(/same Holdfast version/)
+      expect(await fresh.storedKeys()).toEqual([])
     } finally {
       await fresh.close()
     }

@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { makeTestApp, type TestApp } from '../helpers/app'
 import { acknowledged, inspectionCounts, line, put, teardownFixture, type Fixture } from '../helpers/inspection'
-import { filesOnDisk } from '../helpers/tow-in'
 
 let app: TestApp
 beforeAll(async () => {
@@ -13,13 +12,13 @@ type Send = (f: Fixture) => Promise<{ status: number; body: { error: string; iss
 
 /** Sends the request and checks it is refused at the named field with nothing written, no file kept. */
 async function refused(f: Fixture, send: Send, status: number, path: string, words: string) {
-  const [before, onDisk] = [await inspectionCounts(app.db, f.vehicle.id), filesOnDisk(app.filesDir)]
+  const [before, onDisk] = [await inspectionCounts(app.db, f.vehicle.id), await app.storedKeys()]
   const res = await send(f)
   expect(res.status, JSON.stringify(res.body)).toBe(status)
   expect(res.body.issues?.map((i) => i.path)).toContain(path)
   expect(res.body.issues?.find((i) => i.path === path)?.message).toContain(words)
   expect(await inspectionCounts(app.db, f.vehicle.id)).toEqual(before)
-  expect(filesOnDisk(app.filesDir)).toEqual(onDisk)
+  expect(await app.storedKeys()).toEqual(onDisk)
 }
 
 const values = { actualCashValueCents: 200_000, actualCashValueSource: 'Price guide', salvageValueCents: 30_000, salvageValueSource: 'Scrap weight' }

@@ -4,7 +4,6 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { historyOf } from '@db/history'
 import * as t from '@db/schema'
 import { startLocalSmtp, type LocalSmtp } from '../../server/fakes/index'
-import { localFileStore } from '../../server/files/index'
 import { OutboxWorker, smtpTransport } from '../../server/outbox/index'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { makeStaff, makeVehicle } from '../helpers/factories'
@@ -194,7 +193,7 @@ describe('sending notices', () => {
     expect(await app.db.select().from(t.clockEvents).where(eq(t.clockEvents.vehicleId, vehicle.id))).toEqual([])
 
     smtp.received.length = 0
-    const worker = new OutboxWorker(app.db, smtpTransport(smtp.url), localFileStore(app.filesDir), pino({ level: 'silent' }), { from: 'Test Yard <yard@test.example>' })
+    const worker = new OutboxWorker(app.db, smtpTransport(smtp.url), app.files, pino({ level: 'silent' }), { from: 'Test Yard <yard@test.example>' })
     expect(await worker.drain()).toBe(1)
     await worker.stop()
     expect(smtp.received).toHaveLength(1)

@@ -26,7 +26,7 @@ describe('the outbox on PostgreSQL', () => {
     const noFiles = () => Promise.reject(new Error('no stored files here'))
     const workers = Array.from(
       { length: 4 },
-      () => new OutboxWorker(app.db, smtpTransport(smtp.url), { put: noFiles, get: noFiles, delete: noFiles }, pino({ level: 'silent' }), { from: 'yard@test.example' }),
+      () => new OutboxWorker(app.db, smtpTransport(smtp.url), { where: 'nowhere', put: noFiles, get: noFiles, delete: noFiles, list: noFiles, check: noFiles }, pino({ level: 'silent' }), { from: 'yard@test.example' }),
     )
     const sent = await Promise.all(workers.map((w) => w.drain()))
     await Promise.all(workers.map((w) => w.stop()))

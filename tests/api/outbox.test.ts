@@ -33,7 +33,7 @@ beforeEach(async () => {
 })
 
 function worker(url = smtp.url, options: Partial<WorkerOptions> = {}) {
-  const w = new OutboxWorker(app.db, smtpTransport(url), { put: notUsed, get: notUsed, delete: notUsed }, log, { from: 'Test Yard <yard@test.example>', ...options })
+  const w = new OutboxWorker(app.db, smtpTransport(url), { where: 'nowhere', put: notUsed, get: notUsed, delete: notUsed, list: notUsed, check: notUsed }, log, { from: 'Test Yard <yard@test.example>', ...options })
   workers.push(w)
   return w
 }
@@ -99,7 +99,7 @@ describe('sending from the outbox', () => {
   it('a crash between claiming and sending loses nothing: the job waits out its lease, then is sent exactly once', async () => {
     const queued = await queue()
     // Worker A claims the job and never gets an answer from its SMTP connection: as good as dead.
-    const hung = new OutboxWorker(app.db, { send: () => new Promise(() => {}), close() {} }, { put: notUsed, get: notUsed, delete: notUsed }, log, { from: 'yard@test.example' })
+    const hung = new OutboxWorker(app.db, { send: () => new Promise(() => {}), close() {} }, { where: 'nowhere', put: notUsed, get: notUsed, delete: notUsed, list: notUsed, check: notUsed }, log, { from: 'yard@test.example' })
     void hung.drain()
     await vi.waitFor(async () => expect((await rowOf(queued.id)).status).toBe('sending'))
     const restarted = worker()

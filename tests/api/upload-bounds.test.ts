@@ -5,7 +5,7 @@ import { MAX_PDF_OBJECTS, MAX_PDF_PAGES, MAX_UPLOADS_IN_PROGRESS_PER_USER } from
 import { uploadsInProgress } from '../../server/files/upload'
 import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
 import { makeStaff } from '../helpers/factories'
-import { counts, filesOnDisk, photo, towInBody } from '../helpers/tow-in'
+import { counts, photo, towInBody } from '../helpers/tow-in'
 
 // Issue 13 item 5: an upload's work is bounded (objects, pages, time, memory, pixels) and per user.
 let app: TestApp
@@ -40,11 +40,11 @@ async function vehicleId() {
 }
 
 async function refusedDocument(id: string, pdf: Buffer, name: string) {
-  const [before, onDisk] = [await counts(app.db), filesOnDisk(app.filesDir)]
+  const [before, onDisk] = [await counts(app.db), await app.storedKeys()]
   const res = await d.agent.post(`/api/vehicles/${id}/files`).set('x-csrf-token', d.csrf).field('kind', 'document').attach('files', pdf, name)
   expect(res.status, JSON.stringify(res.body)).toBe(400)
   expect(await counts(app.db)).toEqual(before)
-  expect(filesOnDisk(app.filesDir)).toEqual(onDisk)
+  expect(await app.storedKeys()).toEqual(onDisk)
   return res.body as { error: string; issues: { path: string; message: string }[] }
 }
 

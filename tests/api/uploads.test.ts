@@ -10,7 +10,7 @@ import * as t from '@db/schema'
 import { MAX_FILE_BYTES } from '@shared/schemas/files'
 import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
 import { makeCompany, makeStaff, makeUser } from '../helpers/factories'
-import { counts, filesOnDisk, photo, pngImage, towInBody } from '../helpers/tow-in'
+import { counts, photo, pngImage, towInBody } from '../helpers/tow-in'
 
 let app: TestApp
 let staff: Awaited<ReturnType<typeof makeStaff>>
@@ -36,7 +36,7 @@ const sha256 = (b: Buffer) => createHash('sha256').update(b).digest('hex')
 
 describe('photos at tow-in', () => {
   it('two photos are re-encoded, thumbnailed, hashed in the history and kept outside any served folder', async () => {
-    const onDisk = filesOnDisk(app.filesDir).length
+    const onDisk = (await app.storedKeys()).length
     const res = await towInWithPhotos([
       { data: await photo(), name: 'front.jpg' },
       { data: await pngImage(), name: 'rear.png', type: 'image/png' },
@@ -47,11 +47,11 @@ describe('photos at tow-in', () => {
     expect(rows.every((r) => r.mime === 'image/jpeg' && r.kind === 'photo' && r.uploadedById === staff.dispatcher.id)).toBe(true)
     // Server-made keys only; nothing of the browser's names.
     expect(rows.map((r) => r.storageKey).join(' ')).not.toMatch(/front|rear/)
-    expect(filesOnDisk(app.filesDir)).toHaveLength(onDisk + 4)
+    expect(await app.storedKeys()).toHaveLength(onDisk + 4)
     const page = (await d.get(`/api/vehicles/${res.body.id}`)).body
     const added = page.history.find((e: { kind: string }) => e.kind === 'file_added')
     expect(added.after.files.map((f: { sha256: string }) => f.sha256).sort()).toEqual(rows.map((r) => r.sha256).sort())
-    for (const r of rows) expect(sha256(readFileSync(path.join(app.filesDir, r.storageKey)))).toBe(r.sha256)
+    for (const r of rows) expect(sha256(await app.storedBytes(r.storageKey))).toBe(r.sha256)
   })
 
   it('strips the metadata and turns the pixels by the EXIF orientation', async () => {
@@ -59,7 +59,7 @@ describe('photos at tow-in', () => {
     expect(original.includes('secret-camera-owner')).toBe(true)
     const res = await towInWithPhotos([{ data: original, name: 'side.jpg' }]).expect(201)
     const [row] = await app.db.select().from(t.files).where(eq(t.files.vehicleId, res.body.id))
-    const stored = readFileSync(path.join(app.filesDir, row!.storageKey))
+    const stored = await app.storedBytes(row!.storageKey)
     expect(stored.includes('secret-camera-owner')).toBe(false)
     const meta = await sharp(stored).metadata()
     expect(meta.exif).toBeUndefined()
@@ -70,12 +70,12 @@ describe('photos at tow-in', () => {
 
 describe('refused uploads leave no row and no file', () => {
   async function refusedUpload(parts: Part[], status: number) {
-    const [before, onDisk] = [await counts(app.db), filesOnDisk(app.filesDir)]
+    const [before, onDisk] = [await counts(app.db), await app.storedKeys()]
     const res = await towInWithPhotos(parts)
     expect(res.status, JSON.stringify(res.body)).toBe(status)
     expect(await counts(app.db)).toEqual(before)
     // Not even a half-written ".part" file is left behind.
-    expect(filesOnDisk(app.filesDir)).toEqual(onDisk)
+    expect(await app.storedKeys()).toEqual(onDisk)
     return res.body as { error: string; issues: { path: string; message: string }[] }
   }
 
@@ -118,10 +118,10 @@ describe('refused uploads leave no row and no file', () => {
     expect(res.status, JSON.stringify(res.body)).toBe(201)
     const [row] = await app.db.select().from(t.files).where(eq(t.files.vehicleId, res.body.id))
     expect(row).toMatchObject({ mime: 'image/jpeg', width: 640, height: 480 })
-    const stored = await sharp(readFileSync(path.join(app.filesDir, row!.storageKey))).metadata()
+    const stored = await sharp(await app.storedBytes(row!.storageKey)).metadata()
     expect(stored).toMatchObject({ format: 'jpeg', width: 640, height: 480 })
     // The source had an amber (#E9A23B) block at 40-240 × 40-160 on grey: the pixels survive the trip.
-    const { data } = await sharp(readFileSync(path.join(app.filesDir, row!.storageKey))).extract({ left: 140, top: 100, width: 1, height: 1 }).raw().toBuffer({ resolveWithObject: true })
+    const { data } = await sharp(await app.storedBytes(row!.storageKey)).extract({ left: 140, top: 100, width: 1, height: 1 }).raw().toBuffer({ resolveWithObject: true })
     expect([...data].map((c, i) => Math.abs(c - [0xe9, 0xa2, 0x3b][i]!)).every((d) => d < 24)).toBe(true)
     // Issue 13: libheif decodes in a worker thread; it is never loaded on the request loop.
     expect(Object.keys(createRequire(import.meta.url).cache).filter((m) => m.includes('heic-decode') || m.includes('libheif'))).toEqual([])

@@ -2,13 +2,16 @@ import { randomBytes, randomUUID } from 'node:crypto'
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
+import { buffer } from 'node:stream/consumers'
 import pg from 'pg'
 import { pino } from 'pino'
 import request from 'supertest'
 import { inject } from 'vitest'
 import { openDatabase, type Database, type DatabaseHandle } from '@db/client'
 import { createApp, type AppDeps } from '../../server/app'
-import { localFileStore } from '../../server/files/index'
+import { localFileStore, type FileStore } from '../../server/files/index'
+import { s3FileStore } from '../../server/files/s3-file-store'
+import { standInClient, TEST_BUCKET } from './s3-setup'
 import { databaseUrl, dropDatabase } from './postgres'
 
 let template: Buffer | undefined
@@ -28,10 +31,22 @@ export async function makeTestApp(overrides: Partial<AppDeps> = {}) {
   return appOn(handle, overrides)
 }
 
+/**
+ * The store a test app keeps its files in: a folder of its own, or — in the api-s3 project, where
+ * tests/helpers/s3-setup.ts runs the S3 stand-in — a folder (prefix) of its own in the test bucket.
+ */
+export function testFileStore(filesDir: string): FileStore {
+  const endpoint = inject('s3Endpoint')
+  if (!endpoint) return localFileStore(filesDir)
+  const settings = { bucket: TEST_BUCKET, endpoint, region: 'us-east-1', forcePathStyle: true, prefix: `${randomUUID()}/` }
+  return s3FileStore(settings, standInClient(endpoint))
+}
+
 function appOn(handle: DatabaseHandle, overrides: Partial<AppDeps>, afterClose = async () => {}) {
   const filesDir = mkdtempSync(path.join(tmpdir(), 'holdfast-files-'))
+  const files = overrides.files ?? testFileStore(filesDir)
   const app = createApp({
-    files: localFileStore(filesDir),
+    files,
     db: handle.db,
     historyKey: TEST_HISTORY_KEY,
     log: pino({ level: process.env.TEST_LOG ?? 'silent' }),
@@ -44,6 +59,12 @@ function appOn(handle: DatabaseHandle, overrides: Partial<AppDeps>, afterClose =
     app,
     db: handle.db,
     filesDir,
+    /** The app's file store, on disk or in the bucket. */
+    files,
+    /** Every key in the app's file store, sorted. */
+    storedKeys: () => files.list(),
+    /** One stored file's bytes. */
+    storedBytes: async (key: string) => buffer((await files.get(key)).stream),
     async close() {
       await handle.close()
       rmSync(filesDir, { recursive: true, force: true })
