@@ -19,6 +19,7 @@ export const paymentRecord = (p: PaymentRow, takenBy: string): PaymentRecord => 
   reason: p.reason,
   receiptEmail: p.receiptEmail,
   providerReference: p.providerReference,
+  refundOfPaymentId: p.refundOfPaymentId,
   takenBy,
   takenAt: p.takenAt.toISOString(),
 })

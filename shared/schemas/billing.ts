@@ -89,6 +89,8 @@ export const paymentRecordSchema = z.object({
   receiptEmail: z.string().nullable(),
   /** A card paid on the payment service's hosted page: the service's reference for it. */
   providerReference: z.string().nullable().default(null),
+  /** A refund through the payment service: the card payment it gives money back on. */
+  refundOfPaymentId: z.uuid().nullable().default(null),
   takenBy: z.string(),
   takenAt: z.string(),
 })
