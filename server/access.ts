@@ -113,6 +113,8 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles/:vehicleId/card-checkouts': 'billing.write',
   'GET /api/vehicles/:vehicleId/card-checkouts/:checkoutId': 'billing.write',
   'POST /api/vehicles/:vehicleId/card-checkouts/:checkoutId/expire': 'billing.write',
+  // A refund of a hosted-page card payment through the service: managers, as every refund.
+  'POST /api/vehicles/:vehicleId/card-refunds': 'charges.waive',
   // Public with the service's signature as its guard (checked on the raw body, server/card-payments/).
   'POST /api/card-payments/webhook': 'public',
   'GET /api/cash-drawer': 'billing.write',

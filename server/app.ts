@@ -13,7 +13,7 @@ import { archiveRouter } from './archive/index'
 import { deadlinesRouter } from './deadlines/index'
 import { BoardHub, boardRouter, movesRouter, type StreamTiming } from './board/index'
 import { cashDrawerRouter, vehicleBillingRouter } from './billing/index'
-import { cardCheckoutsRouter, cardWebhookRouter, type CardPayments } from './card-payments/index'
+import { cardCheckoutsRouter, cardRefundsRouter, cardWebhookRouter, type CardPayments } from './card-payments/index'
 import { contactsRouter, recordsRequestsRouter } from './contacts/index'
 import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
@@ -167,6 +167,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/files', vehicleFilesRouter(changes, files))
   app.use('/api/vehicles/:vehicleId/documents', documentsRouter({ db, publicUrl: deps.publicUrl }))
   app.use('/api/vehicles/:vehicleId/card-checkouts', cardCheckoutsRouter(cards))
+  app.use('/api/vehicles/:vehicleId/card-refunds', cardRefundsRouter(cards))
   app.use('/api/vehicles/:vehicleId', vehicleBillingRouter(changes, { kick: deps.kickOutbox }))
   app.use('/api/cash-drawer', cashDrawerRouter(db))
   app.use('/api/vehicles/:vehicleId/release', releasesRouter({ changes, files, publicUrl: deps.publicUrl }))

@@ -30,6 +30,8 @@ export const payments = pgTable(
     receiptEmail: text(),
     // The card payment service's reference (its payment id) for a card paid on its hosted page.
     providerReference: text(),
+    // A refund through the payment service: the card payment (on its hosted page) it gives money back on.
+    refundOfPaymentId: uuid(),
     // Null only for a payment the owner made from their page (card, through the payment service).
     takenById: uuid().references(() => users.id),
     takenAt: createdAt(),

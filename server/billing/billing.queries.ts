@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray, sql } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/pg-core'
 import type { Executor } from '@db/client'
-import { chargeAdjustments, companies, payments, users, yards } from '@db/schema'
+import { chargeAdjustments, companies, payments, titleTransfers, users, yards } from '@db/schema'
 import type { AdjustmentRecord, PaymentRecord } from '@shared/schemas/billing'
 
 export type PaymentRow = typeof payments.$inferSelect
@@ -19,12 +19,23 @@ export const paymentRecord = (p: PaymentRow, takenBy: string): PaymentRecord => 
   reason: p.reason,
   receiptEmail: p.receiptEmail,
   providerReference: p.providerReference,
+  refundOfPaymentId: p.refundOfPaymentId,
   takenBy,
   takenAt: p.takenAt.toISOString(),
 })
 
 /** Who a payment names when no staff member took it: the owner paid by card from their page. */
 export const OWNER_ONLINE = 'Owner, online'
+
+/** A lien sale recorded on the vehicle (its day and how its price was applied), if any. */
+export async function lienSaleOf(db: Executor, vehicleId: string) {
+  const [row] = await db
+    .select({ saleDate: titleTransfers.saleDate, priceCents: titleTransfers.priceCents, appliedCents: titleTransfers.appliedCents, surplusCents: titleTransfers.surplusCents, shortfallCents: titleTransfers.shortfallCents })
+    .from(titleTransfers)
+    .where(and(eq(titleTransfers.vehicleId, vehicleId), eq(titleTransfers.kind, 'lien_sale')))
+  if (!row || row.appliedCents === null) return null
+  return { saleDate: row.saleDate, priceCents: row.priceCents, appliedCents: row.appliedCents, surplusCents: row.surplusCents ?? 0, shortfallCents: row.shortfallCents ?? 0 }
+}
 
 /** A vehicle's payments and refunds, oldest first, with who took each. */
 export async function paymentsOf(db: Executor, vehicleId: string): Promise<PaymentRecord[]> {

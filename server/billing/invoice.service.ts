@@ -1,10 +1,11 @@
 import type { Executor } from '@db/client'
 import { invoiceCharges, settle } from '@shared/domain/billing'
+import { dayFromIsoDate, startOfLocalDay } from '@shared/domain/time'
 import type { Invoice } from '@shared/schemas/billing'
 import { vehicleBill } from '../charges/index'
 import { unprocessable, said } from '../errors'
 import type { VehicleRow, YardRow } from '../vehicles/index'
-import { adjustmentsOf, approvalLimitOf, paymentsOf } from './billing.queries'
+import { adjustmentsOf, approvalLimitOf, lienSaleOf, paymentsOf } from './billing.queries'
 
 /**
  * A vehicle's invoice: the tow, storage and fees from the core with tax per line, the approved
@@ -13,7 +14,11 @@ import { adjustmentsOf, approvalLimitOf, paymentsOf } from './billing.queries'
  */
 export async function invoiceOf(db: Executor, vehicle: VehicleRow, yard: YardRow, asOf = new Date()): Promise<Invoice> {
   const frozen = vehicle.closedAt !== null
-  const at = frozen ? vehicle.closedAt! : asOf
+  const lienSale = await lienSaleOf(db, vehicle.id)
+  // Sold at lien sale: the owner owes storage to the end of the sale day, not beyond (the proceeds were
+  // applied to what was owed then), so the bill and the transfer's record agree to the cent.
+  const endOfSale = lienSale ? startOfLocalDay(yard.timeZone, dayFromIsoDate(lienSale.saleDate) + 1) : Infinity
+  const at = new Date(Math.min((frozen ? vehicle.closedAt! : asOf).getTime(), endOfSale))
   const billed = await vehicleBill(db, yard, vehicle, at)
   if (!billed) throw unprocessable('No rule set bills this vehicle: give it a vehicle class its rule set knows, or give the yard a rule set.', said('noBilling'))
   const charges = invoiceCharges(billed.bill, billed.towCents)
@@ -38,5 +43,6 @@ export async function invoiceOf(db: Executor, vehicle: VehicleRow, yard: YardRow
     approvalLimitCents: await approvalLimitOf(db, yard.id),
     ruleSet: { name: billed.ruleSet.name, caution: billed.ruleSet.caution },
     warnings: billed.bill.warnings,
+    lienSale,
   }
 }

@@ -1,10 +1,11 @@
 import express, { Router, type Request } from 'express'
-import { cardCheckoutInputSchema, cardCheckoutParamsSchema, ownerCardCheckoutInputSchema } from '@shared/schemas/card-payments'
+import { cardCheckoutInputSchema, cardCheckoutParamsSchema, cardRefundInputSchema, ownerCardCheckoutInputSchema } from '@shared/schemas/card-payments'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import type { ReceiptMail } from '../billing/index'
 import { publicBase } from '../documents/index'
 import { notFound } from '../errors'
 import { vehicleForUser, type VehicleChanges } from '../vehicles/index'
+import { refundCard } from './card-refunds.service'
 import { checkoutAnswer, checkoutOf, expireCheckout, receiveWebhook, startCheckout, type CardPayments } from './card-payments.service'
 
 export interface CardPaymentDeps {
@@ -68,6 +69,17 @@ export function cardWebhookRouter(deps: CardPaymentDeps): Router {
   router.post('/', express.raw({ type: '*/*', limit: '512kb' }), async (req, res) => {
     const answer = await receiveWebhook(deps.changes, deps.cards, req.body as Buffer, req.get('stripe-signature'), deps.mail)
     res.status(answer.status).json(answer.body)
+  })
+  return router
+}
+
+/** /api/vehicles/:vehicleId/card-refunds: a manager gives back a hosted-page card payment through the service. */
+export function cardRefundsRouter({ changes, cards }: CardPaymentDeps): Router {
+  const router = Router({ mergeParams: true })
+  router.post('/', async (req, res) => {
+    const { vehicleId } = vehicleParamsSchema.parse(req.params)
+    const answer = await refundCard(changes, cards, req.user!, vehicleId, cardRefundInputSchema.parse(req.body))
+    res.status(answer.replayed ? 200 : 201).json(answer)
   })
   return router
 }

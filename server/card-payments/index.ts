@@ -1,2 +1,2 @@
-export { cardCheckoutsRouter, cardWebhookRouter, startOwnerCheckout, type CardPaymentDeps } from './card-payments.routes'
+export { cardCheckoutsRouter, cardRefundsRouter, cardWebhookRouter, startOwnerCheckout, type CardPaymentDeps } from './card-payments.routes'
 export { cardPaymentsClient, type CardPayments } from './card-payments.service'

@@ -10,6 +10,8 @@ import Stripe from 'stripe'
  *
  * - `POST /v1/checkout/sessions` (form-encoded, as the SDK sends; `Idempotency-Key` honoured),
  *   `GET /v1/checkout/sessions/:id`, `POST /v1/checkout/sessions/:id/expire`;
+ * - `POST /v1/refunds` (`payment_intent`, `amount`; `Idempotency-Key` honoured): never more than is left
+ *   unrefunded on that payment, answered `succeeded` at once;
  * - its own hosted checkout page, `/pay/:id`: a test card number, Pay and Cancel, which sends the
  *   app a signed `checkout.session.completed` webhook and goes back to the session's success URL.
  *
@@ -72,6 +74,8 @@ export async function startFakePaymentService(options: { host?: string; port?: n
   const sessions = new Map<string, FakeSession>()
   const idempotent = new Map<string, { hash: string; status: number; body: unknown }>()
   const pending: string[] = []
+  // What each paid payment took and how much of it has been given back.
+  const intents = new Map<string, { amount: number; currency: string; refunded: number }>()
   let deliver: WebhookDelivery | undefined
   let base = ''
 
@@ -111,7 +115,44 @@ export async function startFakePaymentService(options: { host?: string; port?: n
     await send('checkout.session.expired', s)
     res.json(s)
   })
+  api.post('/refunds', (req, res) => {
+    const key = req.get('idempotency-key')
+    const hash = createHash('sha256').update(JSON.stringify(req.body)).digest('hex')
+    if (key) {
+      const seen = idempotent.get(`refund:${key}`)
+      if (seen && seen.hash !== hash) return apiError(res, 400, 'Keys for idempotent requests can only be used with the same parameters they were first used with.', undefined, 'idempotency_error')
+      if (seen) return res.status(seen.status).set('Idempotent-Replayed', 'true').json(seen.body)
+    }
+    const answer = createRefund(req.body)
+    if (key) idempotent.set(`refund:${key}`, { hash, ...answer })
+    res.status(answer.status).json(answer.body)
+  })
   app.use('/v1', api)
+
+  function createRefund(body: Record<string, unknown>): { status: number; body: unknown } {
+    const fail = (message: string, param?: string) => ({ status: 400, body: { error: { type: 'invalid_request_error', message, ...(param ? { param } : {}) } } })
+    const pi = typeof body.payment_intent === 'string' ? body.payment_intent : ''
+    const intent = intents.get(pi)
+    if (!intent) return { status: 404, body: { error: { type: 'invalid_request_error', message: `No such payment_intent: '${pi}'`, param: 'payment_intent' } } }
+    const left = intent.amount - intent.refunded
+    const amount = body.amount === undefined ? left : Number(body.amount)
+    if (!Number.isInteger(amount) || amount <= 0) return fail('Invalid positive integer', 'amount')
+    if (left <= 0) return fail(`Charge for payment_intent ${pi} has already been refunded.`)
+    if (amount > left) return fail(`Refund amount ($${(amount / 100).toFixed(2)}) is greater than unrefunded amount on charge ($${(left / 100).toFixed(2)})`, 'amount')
+    intent.refunded += amount
+    const refund = {
+      id: newId('re'),
+      object: 'refund',
+      amount,
+      currency: intent.currency,
+      payment_intent: pi,
+      status: 'succeeded',
+      reason: typeof body.reason === 'string' ? body.reason : null,
+      metadata: (body.metadata ?? {}) as Record<string, string>,
+      created: Math.floor(now() / 1000),
+    }
+    return { status: 200, body: refund }
+  }
 
   function createSession(body: Record<string, unknown>): { status: number; body: unknown } {
     const items = Array.isArray(body.line_items) ? (body.line_items as Record<string, unknown>[]) : []
@@ -198,6 +239,7 @@ export async function startFakePaymentService(options: { host?: string; port?: n
     s.status = 'complete'
     s.payment_status = 'paid'
     s.payment_intent = newId('pi')
+    intents.set(s.payment_intent, { amount: s.amount_total, currency: s.currency, refunded: 0 })
     s.url = null
     // The real service tells the app a moment after the redirect; here the webhook is sent first, so a
     // test reading the bill right after the redirect sees it (the app's pages wait for it either way).

@@ -1,5 +1,5 @@
-import { and, eq } from 'drizzle-orm'
-import { files, titleTransfers } from '@db/schema'
+import { and, eq, sql } from 'drizzle-orm'
+import { files, payments, titleTransfers } from '@db/schema'
 import type { Executor } from '@db/client'
 import { applyProceeds } from '@shared/domain/billing'
 import { dayFromIsoDate, localDay, startOfLocalDay } from '@shared/domain/time'
@@ -47,6 +47,9 @@ export async function recordTransfer(changes: VehicleChanges, actor: User, vehic
     if (input.odometer !== null && w.vehicle.odometer !== null && input.odometer < w.vehicle.odometer) {
       throw field('odometer', `The odometer cannot read less than at intake (${w.vehicle.odometer.toLocaleString('en-US')}).`)
     }
+    // A sale recorded again (a corrected price, or no longer a lien sale): its earlier proceeds are taken
+    // off the bill first, as a reversing line (the ledger is never edited), then applied afresh below.
+    const reversed = await reverseProceeds(w, actor)
     let proceeds: ReturnType<typeof applyProceeds> | null = null
     if (input.kind === 'lien_sale') {
       // The gate as the clocks stand today; a computed date never lets the yard sell earlier than the law allows.
@@ -84,6 +87,8 @@ export async function recordTransfer(changes: VehicleChanges, actor: User, vehic
     }
     if (before) await w.tx.update(titleTransfers).set(values).where(eq(titleTransfers.id, before.id))
     else await w.tx.insert(titleTransfers).values({ ...values, vehicleId, createdById: actor.id })
+    // The proceeds pay the charges: one payment line of method lien_sale, in this same transaction.
+    const proceedsPaymentId = proceeds && proceeds.appliedCents > 0 ? await postProceeds(w, actor, proceeds) : null
     // The buyer's ID appears in the history by its last four characters only, as the release's does.
     const summary = (t: Pick<TransferRow, 'kind' | 'buyerKind' | 'buyerName' | 'buyerIdNumber' | 'priceCents' | 'saleDate' | 'odometer'>) => ({
       kind: t.kind,
@@ -94,8 +99,59 @@ export async function recordTransfer(changes: VehicleChanges, actor: User, vehic
       date: t.saleDate,
       odometer: t.odometer,
     })
-    w.record({ kind: 'transfer_recorded', before: before ? summary(before) : null, after: { ...summary(values), proceeds, odometerDisclosure: rule.required, odometerClause: rule.clause } })
+    w.record({ kind: 'transfer_recorded', before: before ? summary(before) : null, after: { ...summary(values), proceeds, proceedsPaymentId, proceedsReversedCents: reversed || null, odometerDisclosure: rule.required, odometerClause: rule.clause } })
   })
+}
+
+/** What earlier recordings of a lien sale applied to the bill and is still on it (payments less reversals). */
+async function proceedsOnBill(w: VehicleWork) {
+  const rows = await w.tx.select().from(payments).where(and(eq(payments.vehicleId, w.vehicle.id), eq(payments.method, 'lien_sale')))
+  return { count: rows.length, cents: rows.reduce((sum, p) => sum + (p.kind === 'payment' ? p.amountCents : -p.amountCents), 0) }
+}
+
+async function reverseProceeds(w: VehicleWork, actor: User): Promise<number> {
+  const on = await proceedsOnBill(w)
+  if (on.cents <= 0) return 0
+  const due = await dueNow(w)
+  await w.tx.insert(payments).values({
+    vehicleId: w.vehicle.id,
+    kind: 'refund',
+    method: 'lien_sale',
+    amountCents: on.cents,
+    reason: 'The sale was recorded again: its earlier proceeds come off the bill.',
+    idempotencyKey: `lien-sale-proceeds:${on.count + 1}`,
+    requestHash: 'lien-sale-proceeds',
+    dueBeforeCents: due,
+    takenById: actor.id,
+    // The statement's own clock (not the transaction's), so the reversal lists before the new proceeds.
+    takenAt: sql`clock_timestamp()`,
+  })
+  return on.cents
+}
+
+async function postProceeds(w: VehicleWork, actor: User, proceeds: ReturnType<typeof applyProceeds>): Promise<string> {
+  const on = await proceedsOnBill(w)
+  const [row] = await w.tx
+    .insert(payments)
+    .values({
+      vehicleId: w.vehicle.id,
+      kind: 'payment',
+      method: 'lien_sale',
+      amountCents: proceeds.appliedCents,
+      idempotencyKey: `lien-sale-proceeds:${on.count + 1}`,
+      requestHash: 'lien-sale-proceeds',
+      dueBeforeCents: proceeds.dueCents,
+      takenById: actor.id,
+      takenAt: sql`clock_timestamp()`,
+    })
+    .returning({ id: payments.id })
+  return row!.id
+}
+
+/** What is owed now, as the move guards read it (charges less credits less payments). */
+async function dueNow(w: VehicleWork): Promise<number> {
+  const facts = await moveFacts(w.tx, w.vehicle, w.yard, true, new Date())
+  return Math.max(0, (facts.balanceCents ?? 0) - facts.creditedCents - facts.paidCents)
 }
 
 /** The seller's signature on the bill of sale: the transfer's guard opens once it is captured. */

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { ADJUSTMENT_KINDS, ADJUSTMENT_STATUSES, PAYMENT_METHODS } from '../domain/billing/payments'
+import { ADJUSTMENT_KINDS, ADJUSTMENT_STATUSES, COUNTER_PAYMENT_METHODS, PAYMENT_METHODS } from '../domain/billing/payments'
 import { LOCALES } from '../messages/locales'
 import { alongsideFieldIssues, optionalText, requiredText } from './fields'
 
@@ -17,7 +17,7 @@ const idempotencyKey = z.uuid({ error: 'The request has no valid idempotency key
 export const paymentInputSchema = z
   .object({
     idempotencyKey,
-    method: z.enum(PAYMENT_METHODS, { error: 'Choose cash, check or card.' }),
+    method: z.enum(COUNTER_PAYMENT_METHODS, { error: 'Choose cash, check or card.' }),
     amountCents: positiveCents('the amount'),
     /** Cash: what the customer handed over (the amount itself when left out). */
     tenderedCents: z.number({ error: 'Enter the cash handed over.' }).int('Enter the cash handed over to the cent.').max(100_000_000).nullish().transform((v) => v ?? null),
@@ -43,7 +43,7 @@ export type Payment = z.output<typeof paymentInputSchema>
 
 export const refundInputSchema = z.object({
   idempotencyKey,
-  method: z.enum(PAYMENT_METHODS, { error: 'Choose how the money goes back: cash, check or card.' }),
+  method: z.enum(COUNTER_PAYMENT_METHODS, { error: 'Choose how the money goes back: cash, check or card.' }),
   amountCents: positiveCents('the refund'),
   reason: requiredText(500, 'Say why the money is given back.'),
   checkNumber: optionalText(30),
@@ -89,6 +89,8 @@ export const paymentRecordSchema = z.object({
   receiptEmail: z.string().nullable(),
   /** A card paid on the payment service's hosted page: the service's reference for it. */
   providerReference: z.string().nullable().default(null),
+  /** A refund through the payment service: the card payment it gives money back on. */
+  refundOfPaymentId: z.uuid().nullable().default(null),
   takenBy: z.string(),
   takenAt: z.string(),
 })
@@ -133,6 +135,14 @@ export const invoiceSchema = z.object({
   approvalLimitCents: z.number(),
   ruleSet: z.object({ name: z.string(), caution: z.string() }),
   warnings: z.array(z.string()),
+  /**
+   * Sold at lien sale: the bill runs to the end of the sale day, the price paid the charges (a payment
+   * line of method lien_sale) and what was left over is owed to the owner.
+   */
+  lienSale: z
+    .object({ saleDate: z.string(), priceCents: z.number(), appliedCents: z.number(), surplusCents: z.number(), shortfallCents: z.number() })
+    .nullable()
+    .default(null),
 })
 export type Invoice = z.infer<typeof invoiceSchema>
 

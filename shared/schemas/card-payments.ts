@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { LOCALES } from '../messages/locales'
+import { requiredText } from './fields'
 
 /** Made by the client once per attempt to pay by card; a retry or a second tap sends the same one. */
 const idempotencyKey = z.uuid({ error: 'The request has no valid idempotency key: reload the page and try again.' })
@@ -53,3 +54,20 @@ export const cardCheckoutParamsSchema = z.object({
   vehicleId: z.uuid({ error: 'That is not a vehicle id.' }),
   checkoutId: z.uuid({ error: 'That is not a card payment id.' }),
 })
+
+/**
+ * A manager gives back money paid by card on the hosted page, through the payment service: all of that
+ * payment or a part of it, with the reason. Recorded once the service confirms the refund.
+ */
+export const cardRefundInputSchema = z.object({
+  idempotencyKey,
+  paymentId: z.uuid({ error: 'Choose the card payment to refund.' }),
+  amountCents: z
+    .number({ error: 'Enter the amount to refund.' })
+    .int('Enter the amount to the cent.')
+    .positive('The refund must be more than $0.00.')
+    .max(100_000_000, 'The amount cannot be above $1,000,000.00.'),
+  reason: requiredText(500, 'Say why the money is given back.'),
+})
+export type CardRefundInput = z.input<typeof cardRefundInputSchema>
+export type CardRefund = z.output<typeof cardRefundInputSchema>

@@ -4,10 +4,13 @@ import { z } from 'zod'
 import {
   cardCheckoutInputSchema,
   cardCheckoutSchema,
+  cardRefundInputSchema,
   ownerCardCheckoutInputSchema,
+  type CardRefundInput,
   type CardCheckoutInput,
   type OwnerCardCheckoutInput,
 } from '@shared/schemas/card-payments'
+import { paymentAnswerSchema } from '@shared/schemas/billing'
 import { ownerPageSchema } from '@shared/schemas/owner'
 import { signatureInputSchema, type SignatureInput } from '@shared/schemas/releases'
 import { billingKeys } from './billing'
@@ -93,5 +96,19 @@ export function useOwnerReleaseSignatureMutation(key: MaybeRefOrGetter<string>) 
   return useMutation({
     mutationFn: (input: SignatureInput) => request('POST', `/api/owner/${encodeURIComponent(toValue(key))}/release-signature`, ownerPageSchema, signatureInputSchema.parse(input)),
     onSuccess: (page, _input, _context, { client }) => client.setQueryData(ownerKeys.page(toValue(key)), page),
+  })
+}
+
+/** A manager gives back (all or part of) a card payment made on the hosted page, through the payment service. */
+export const refundCardPayment = (vehicleId: string, input: CardRefundInput) =>
+  request('POST', `/api/vehicles/${vehicleId}/card-refunds`, paymentAnswerSchema, cardRefundInputSchema.parse(input))
+
+export function useCardRefundMutation() {
+  return useMutation({
+    mutationFn: ({ vehicleId, input }: { vehicleId: string; input: CardRefundInput }) => refundCardPayment(vehicleId, input),
+    onSuccess: async (_a, { vehicleId }, _c, { client }) => {
+      await client.invalidateQueries({ queryKey: billingKeys.invoices(vehicleId) })
+      await vehicleChanged(client, vehicleId)
+    },
   })
 }

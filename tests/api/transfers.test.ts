@@ -182,9 +182,26 @@ describe('title transfer: lien sale', () => {
     const over = await s.put(base(v.id), { ...LIEN_SALE, date: saleDay, priceCents: due + 12_345 })
     expect(over.status).toBe(200)
     expect(over.body.record.proceeds).toEqual({ dueCents: due, appliedCents: due, surplusCents: 12_345, shortfallCents: 0 })
+    // The proceeds pay the bill (a payment line of method lien_sale, written with the transfer and its event);
+    // the bill runs to the end of the sale day and shows the surplus owed to the owner.
+    const paidBySale = (await s.get(`/api/vehicles/${v.id}/invoice`)).body.invoice
+    expect(paidBySale).toMatchObject({ dueCents: 0, endsAt: endOfSaleDay, lienSale: { saleDate: saleDay, appliedCents: due, surplusCents: 12_345, shortfallCents: 0 } })
+    const salePayment = paidBySale.payments.find((p: { method: string }) => p.method === 'lien_sale')
+    expect(salePayment).toMatchObject({ kind: 'payment', amountCents: due })
+    const overEvent = (await historyOf(t_.db, v.id)).filter((e) => e.kind === 'transfer_recorded').at(-1)!
+    expect(overEvent.after).toMatchObject({ proceedsPaymentId: salePayment.id, proceedsReversedCents: null })
     // Recorded again with a lower price (not yet signed): the charges take all of it, one cent short.
     const under = await s.put(base(v.id), { ...LIEN_SALE, date: saleDay, priceCents: due - 1 })
     expect(under.body.record.proceeds).toEqual({ dueCents: due, appliedCents: due - 1, surplusCents: 0, shortfallCents: 1 })
+    // The earlier proceeds come off the bill by a reversing line, the new ones go on: one cent is left owing.
+    const reRecorded = (await s.get(`/api/vehicles/${v.id}/invoice`)).body.invoice
+    expect(reRecorded.payments.map((p: { kind: string; method: string; amountCents: number }) => [p.kind, p.method, p.amountCents])).toEqual([
+      ['payment', 'cash', 10_000],
+      ['payment', 'lien_sale', due],
+      ['refund', 'lien_sale', due],
+      ['payment', 'lien_sale', due - 1],
+    ])
+    expect(reRecorded).toMatchObject({ dueCents: 1, lienSale: { surplusCents: 0, shortfallCents: 1 } })
     const events = (await historyOf(t_.db, v.id)).filter((e) => e.kind === 'transfer_recorded')
     expect(events).toHaveLength(2)
     expect(events.at(-1)!.after).toMatchObject({ priceCents: due - 1, buyerId: '…1098', proceeds: { appliedCents: due - 1, shortfallCents: 1 } })
@@ -196,6 +213,10 @@ describe('title transfer: lien sale', () => {
     await s.post(`${base(v.id)}/signature`, { signerName: 'Pat Lindqvist, for the yard', image: await signaturePng() })
     const closed = await close(s, v.id, (await vehicleRow(t_.db, v.id)).version, 'lien_sale')
     expect(closed.status).toBe(200)
+    // The closed record and its frozen bill agree: what the sale did not cover is still owed, nothing more.
+    const frozen = (await s.get(`/api/vehicles/${v.id}/invoice`)).body.invoice
+    expect(frozen).toMatchObject({ frozen: true, endsAt: endOfSaleDay, dueCents: 1, lienSale: { shortfallCents: 1 } })
+    expect((await s.get(base(v.id))).body.record.proceeds).toMatchObject({ shortfallCents: frozen.dueCents })
     expect((await s.put(base(v.id), LIEN_SALE)).status).toBe(409)
   })
 

@@ -1,7 +1,10 @@
 import type { Cents } from './money'
 
 /** How money is taken at the counter. Card payments here are at the counter's own terminal. */
-export const PAYMENT_METHODS = ['cash', 'check', 'card'] as const
+export const COUNTER_PAYMENT_METHODS = ['cash', 'check', 'card'] as const
+export type CounterPaymentMethod = (typeof COUNTER_PAYMENT_METHODS)[number]
+/** Every way money reaches the bill: the counter's, and a lien sale's proceeds applied to the charges. */
+export const PAYMENT_METHODS = [...COUNTER_PAYMENT_METHODS, 'lien_sale'] as const
 export type PaymentMethod = (typeof PAYMENT_METHODS)[number]
 
 /** A waiver forgives a charge (the tow was the yard's mistake); a discount lowers it (goodwill). */

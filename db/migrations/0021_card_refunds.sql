@@ -1,0 +1,1 @@
+ALTER TABLE "payments" ADD COLUMN "refund_of_payment_id" uuid;
