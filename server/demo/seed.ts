@@ -1,7 +1,7 @@
 import { mkdtempSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
-import { count, eq, inArray } from 'drizzle-orm'
+import { count, eq, inArray, sql } from 'drizzle-orm'
 import { hashPassword } from '../users/index'
 import { loadSampleRuleSets } from '../rule-sets/index'
 import { type FileStore, localFileStore } from '../files/index'
@@ -28,6 +28,9 @@ export async function demoSignIns(db: Database): Promise<DemoLoaded | null> {
   return present.length > 0 ? { password: DEMO_PASSWORD, users: present.map(({ email, role }) => ({ email, role })) } : null
 }
 
+/** The advisory lock servers take to load the demo once (any constant of Holdfast's own, unlike the migrations' key). */
+const DEMO_LOCK_KEY = 4_640_221_907
+
 /**
  * The demo yard, when the database has no yard yet; its history is sealed with the server's history key.
  * Its files (ID photos, signatures, notice letters) go to `files` — a throwaway folder when none is given.
@@ -36,8 +39,16 @@ export async function loadDemoIfEmpty(db: Database, historyKey: HistoryKey, now 
   const [row] = await db.select({ n: count() }).from(t.yards)
   if ((row?.n ?? 0) > 0) return null
   const store = files ?? localFileStore(mkdtempSync(path.join(tmpdir(), 'holdfast-demo-files-')))
-  await db.transaction((tx) => loadDemo(tx as unknown as Database, historyKey, now, ruleSetsFolder, store))
-  return { password: DEMO_PASSWORD, users: DEMO_STAFF.map(({ email, role }) => ({ email, role })) }
+  const loaded = await db.transaction(async (tx) => {
+    // Two servers starting together on one empty PostgreSQL: the first loads the demo, the other waits
+    // here and then finds it there. (One embedded database has one server; the lock costs it nothing.)
+    await tx.execute(sql`select pg_advisory_xact_lock(${DEMO_LOCK_KEY})`)
+    const [again] = await tx.select({ n: count() }).from(t.yards)
+    if ((again?.n ?? 0) > 0) return false
+    await loadDemo(tx as unknown as Database, historyKey, now, ruleSetsFolder, store)
+    return true
+  })
+  return loaded ? { password: DEMO_PASSWORD, users: DEMO_STAFF.map(({ email, role }) => ({ email, role })) } : null
 }
 
 async function loadDemo(db: Database, historyKey: HistoryKey, now: Date, ruleSetsFolder: string | undefined, files: FileStore): Promise<void> {

@@ -3,6 +3,8 @@ import { randomUUID } from 'node:crypto'
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { openDatabase, type DatabaseHandle } from '@db/client'
+import { loadDemoIfEmpty } from '../../server/demo/index'
+import { TEST_HISTORY_KEY } from '../helpers/app'
 import { databaseUrl, dropDatabase } from '../helpers/postgres'
 
 // Issue 15: servers starting together on one empty PostgreSQL migrate once, under an advisory lock.
@@ -44,5 +46,16 @@ describe('migrations on PostgreSQL (db/client.ts)', () => {
     } finally {
       await check.end()
     }
+  })
+
+  it('two servers starting on it together with the demo on load the demo once', { timeout: 300_000 }, async () => {
+    // Each start counts yards, finds none, and would load the demo: the second waits on the first's lock and then finds it.
+    const [a, b] = handles
+    const loaded = await Promise.all([loadDemoIfEmpty(a!.db, TEST_HISTORY_KEY), loadDemoIfEmpty(b!.db, TEST_HISTORY_KEY)])
+    expect(loaded.filter((l) => l !== null)).toHaveLength(1)
+    const check = new pg.Client({ connectionString: databaseUrl(inject('postgresUrl'), database) })
+    await check.connect()
+    const companies = await check.query('select count(*)::int as n from companies').finally(() => check.end())
+    expect(companies.rows[0].n).toBe(1)
   })
 })
