@@ -25,6 +25,4 @@ export const firstRunSchema = z.object({
 })
 export type FirstRun = z.input<typeof firstRunSchema>
 
-/** GET /api/first-run: whether this install still waits for its first manager (no company yet). */
-export const firstRunStateSchema = z.object({ needed: z.boolean() })
-export type FirstRunState = z.infer<typeof firstRunStateSchema>
+export { firstRunStateSchema, type FirstRunState } from './first-run-state'
