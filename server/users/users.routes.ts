@@ -28,7 +28,10 @@ export function usersRouter(db: Database, boards: BoardNotifier): Router {
   router.put('/:id/yards', async (req, res) => {
     const { id } = idParam.parse(req.params)
     const input = staffYardsSchema.parse(req.body)
-    res.json({ user: await service.setStaffYards(db, req.user!, id, input) })
+    const user = await service.setStaffYards(db, req.user!, id, input)
+    // Their open board streams (each of one yard) end on every app server; the board reopens on a yard still theirs.
+    await boards.sessionsEnded({ userId: id })
+    res.json({ user })
   })
   router.post('/:id/password', async (req, res) => {
     const { id } = idParam.parse(req.params)

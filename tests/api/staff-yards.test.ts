@@ -2,7 +2,8 @@ import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import * as t from '@db/schema'
 import { makeTestApp, signedIn, type BrowserSession, type TestApp } from '../helpers/app'
-import { makeStaff, makeVehicle } from '../helpers/factories'
+import { makeStaff, makeUser, makeVehicle } from '../helpers/factories'
+import { fetchSession, listening, openStream } from '../helpers/live'
 
 // Issue 12, "Staff belong to one or more yards": the manager chooses a person's yards on the Staff page
 // (PUT /api/users/:id/yards), in one transaction with its settings-audit row, and the person's access
@@ -90,6 +91,21 @@ describe('PUT /api/users/:id/yards', () => {
     expect(await auditRows()).toHaveLength(before.length)
     expect(await app.db.$count(t.userYards, eq(t.userYards.userId, staff.office.id))).toBe(0)
     expect((await officeRow()).allYards).toBe(true)
+  })
+
+  it('setStaffYards_endsThePersonsOpenBoardStream_soNoCardOfALostYardReachesIt', async () => {
+    const server = await listening(app.app)
+    try {
+      const clerk = await makeUser(app.db, staff.company.id, 'office')
+      const watcher = await fetchSession(server.url, clerk)
+      const stream = await openStream(server.url, watcher.cookie)
+      expect(stream.status).toBe(200)
+      await manager.put(`/api/users/${clerk.id}/yards`, { allYards: false, yardIds: [yardB.id] }).expect(200)
+      // The stream of yard A ends (heartbeats are far apart, so only the change can end it this soon).
+      await expect(stream.next(() => false)).rejects.toThrow('the event stream ended')
+    } finally {
+      await server.close()
+    }
   })
 
   it('setStaffYards_aPersonOfAnotherCompany_is404', async () => {
