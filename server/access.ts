@@ -19,10 +19,14 @@ export const ACCESS: Record<string, Rule> = {
   'DELETE /api/session': 'public',
   // Anyone signed in sets their own language, and only their own.
   'PUT /api/session/locale': 'staff',
+  // A fresh install's first manager (no company yet): the routes refuse (409) once any company exists.
+  'GET /api/first-run': 'public',
+  'POST /api/first-run': 'public',
 
   'GET /api/users': 'admin',
   'POST /api/users': 'admin',
   'PATCH /api/users/:id': 'admin',
+  'PUT /api/users/:id/yards': 'admin',
   'POST /api/users/:id/password': 'admin',
 
   'GET /api/yards/current': 'board.view',

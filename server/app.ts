@@ -18,6 +18,7 @@ import { contactsRouter, recordsRequestsRouter } from './contacts/index'
 import { documentsRouter } from './documents/index'
 import { errorHandler, notFoundHandler } from './errors'
 import { fakesRouter } from './fakes/index'
+import { firstRunRouter } from './first-run/index'
 import { filesRouter, vehicleFilesRouter, type FileStore } from './files/index'
 import { holdsRouter } from './holds/index'
 import { inspectionsRouter } from './inspections/index'
@@ -143,6 +144,7 @@ export function createApp(deps: AppDeps): Express {
     '/api/session',
     sessionRouter(db, { anonymous, devices: knownDevices(deps.sessionSecret, deps.https ?? false, limits.now), throttle: signInThrottle(db, limits, log), boards: hub }),
   )
+  app.use('/api/first-run', firstRunRouter(db))
   app.use('/api/users', usersRouter(db, hub))
   app.use('/api/yards', yardsRouter(db))
   app.use('/api/board', boardRouter(db, hub, deps.boardStream))

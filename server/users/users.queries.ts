@@ -1,6 +1,6 @@
 import { asc, count, eq, and, sql } from 'drizzle-orm'
 import type { Executor } from '@db/client'
-import { users } from '@db/schema'
+import { userYards, users } from '@db/schema'
 
 const publicColumns = {
   id: users.id,
@@ -9,6 +9,7 @@ const publicColumns = {
   role: users.role,
   active: users.active,
   createdAt: users.createdAt,
+  allYards: users.allYards,
 }
 
 export const listUsers = (db: Executor, companyId: string) =>
@@ -58,4 +59,16 @@ export async function companyOf(db: Executor, userId: string): Promise<string> {
   const [row] = await db.select({ companyId: users.companyId }).from(users).where(eq(users.id, userId))
   if (!row) throw new Error(`no user ${userId}`)
   return row.companyId
+}
+
+/** The yards chosen for each person of a company who does not have all yards. */
+export async function chosenYardsOf(db: Executor, companyId: string): Promise<Map<string, string[]>> {
+  const rows = await db
+    .select({ userId: userYards.userId, yardId: userYards.yardId })
+    .from(userYards)
+    .innerJoin(users, eq(users.id, userYards.userId))
+    .where(eq(users.companyId, companyId))
+  const byUser = new Map<string, string[]>()
+  for (const r of rows) byUser.set(r.userId, [...(byUser.get(r.userId) ?? []), r.yardId])
+  return byUser
 }

@@ -2,7 +2,7 @@ import { Router } from 'express'
 import { z } from 'zod'
 import type { Database } from '@db/client'
 import type { BoardNotifier } from '../live/index'
-import { createUserSchema, resetPasswordSchema, updateUserSchema } from '@shared/schemas/users'
+import { createUserSchema, resetPasswordSchema, staffYardsSchema, updateUserSchema } from '@shared/schemas/users'
 import { refusingCommonPasswords } from './common-passwords'
 import * as service from './users.service'
 
@@ -24,6 +24,14 @@ export function usersRouter(db: Database, boards: BoardNotifier): Router {
     const { id } = idParam.parse(req.params)
     const input = updateUserSchema.parse(req.body)
     res.json({ user: await service.changeUser(db, boards, req.user!, id, input) })
+  })
+  router.put('/:id/yards', async (req, res) => {
+    const { id } = idParam.parse(req.params)
+    const input = staffYardsSchema.parse(req.body)
+    const user = await service.setStaffYards(db, req.user!, id, input)
+    // Their open board streams (each of one yard) end on every app server; the board reopens on a yard still theirs.
+    await boards.sessionsEnded({ userId: id })
+    res.json({ user })
   })
   router.post('/:id/password', async (req, res) => {
     const { id } = idParam.parse(req.params)

@@ -1,9 +1,12 @@
 import type { Database } from '@db/client'
 import type { Locale } from '@shared/messages/locales'
+import { and, asc, eq, inArray } from 'drizzle-orm'
+import { userYards, yards } from '@db/schema'
 import type { CreateUser, UpdateUser, User } from '@shared/schemas/users'
 import { conflict, notFound, unprocessable, said } from '../errors'
 import type { BoardNotifier } from '../live/index'
 import { endSessionsOf, localeInSessions, renameInSessions } from '../session/index'
+import { recordSettingsChange } from '../settings-audit/index'
 import { hashPassword } from './passwords'
 import * as q from './users.queries'
 
@@ -11,7 +14,8 @@ const toRow = (u: Awaited<ReturnType<typeof q.insertUser>>) => ({ ...u, createdA
 
 export async function listUsers(db: Database, actor: User) {
   const me = await q.findUser(db, actor.id)
-  return (await q.listUsers(db, me!.companyId)).map(toRow)
+  const [rows, chosen] = await Promise.all([q.listUsers(db, me!.companyId), q.chosenYardsOf(db, me!.companyId)])
+  return rows.map((u) => ({ ...toRow(u), yardIds: u.allYards ? [] : (chosen.get(u.id) ?? []) }))
 }
 
 // Only the manager's own company is looked at: whether another company uses the address is not
@@ -78,4 +82,42 @@ export async function resetPassword(db: Database, boards: BoardNotifier, actor: 
     await endSessionsOf(tx, id)
   })
   await boards.sessionsEnded({ userId: id })
+}
+
+/**
+ * The yards a person works in: all of the company's, or the ones chosen. One transaction with its
+ * settings-audit row; a yard of another company (or none at all) is "not found", as everywhere else.
+ * Their access follows at once: every read goes through `yardOfStaff`, and the top bar's yard falls
+ * back to their first when the chosen one is no longer theirs (`yardOfUser`).
+ */
+export async function setStaffYards(db: Database, actor: User, id: string, input: { allYards: boolean; yardIds: string[] }) {
+  return db.transaction(async (tx) => {
+    const target = await q.findUser(tx, id)
+    const me = await q.findUser(tx, actor.id)
+    if (!target || target.companyId !== me!.companyId) throw notFound('That user')
+    const wanted = input.allYards ? [] : [...new Set(input.yardIds)]
+    const found = wanted.length ? await tx.select({ id: yards.id, name: yards.name }).from(yards).where(and(inArray(yards.id, wanted), eq(yards.companyId, target.companyId))) : []
+    if (found.length !== wanted.length) throw notFound('That yard')
+    const before = await tx
+      .select({ name: yards.name })
+      .from(userYards)
+      .innerJoin(yards, eq(yards.id, userYards.yardId))
+      .where(eq(userYards.userId, id))
+      .orderBy(asc(yards.name))
+    await tx.delete(userYards).where(eq(userYards.userId, id))
+    if (wanted.length) await tx.insert(userYards).values(wanted.map((yardId) => ({ userId: id, yardId })))
+    const row = await q.updateUser(tx, id, { allYards: input.allYards })
+    const view = (all: boolean, names: string[]) => ({ allYards: all, yards: all ? [] : names.sort() })
+    await recordSettingsChange(tx, {
+      companyId: target.companyId,
+      actorId: actor.id,
+      area: 'staff',
+      action: 'staff-yards',
+      subjectId: id,
+      subjectLabel: target.name,
+      before: view(target.allYards, before.map((b) => b.name)),
+      after: view(input.allYards, found.map((f) => f.name)),
+    })
+    return { ...toRow(row!), yardIds: wanted }
+  })
 }

@@ -1,1 +1,2 @@
 export { yardSettingsRouter } from './yard-settings.routes'
+export { insertSpaces } from './yard-settings.service'

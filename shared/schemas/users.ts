@@ -32,6 +32,10 @@ export type User = z.infer<typeof userSchema>
 export const userRowSchema = userSchema.extend({
   active: z.boolean(),
   createdAt: z.string(),
+  /** Belongs to every yard of the company, present and future (else to `yardIds`). */
+  allYards: z.boolean(),
+  /** The yards the manager chose for them (the Staff list fills it; empty with all yards). */
+  yardIds: z.array(z.uuid()).optional(),
 })
 export type UserRow = z.infer<typeof userRowSchema>
 
@@ -57,3 +61,14 @@ export const resetPasswordSchema = z.object({ password: passwordSchema })
 /** A person's own language, saved with their account (PUT /api/session/locale). */
 export const setLocaleSchema = z.object({ locale: localeSchema })
 export type SetLocale = z.infer<typeof setLocaleSchema>
+
+/** PUT /api/users/:id/yards: every yard of the company, or the yards chosen (at least one). */
+export const staffYardsSchema = z
+  .object({
+    allYards: z.boolean({ error: 'Choose all yards or the yards this person works in.' }),
+    yardIds: z.array(z.uuid({ error: 'Choose one of your yards.' })).max(200).default([]),
+  })
+  .superRefine((v, ctx) => {
+    if (!v.allYards && v.yardIds.length === 0) ctx.addIssue({ code: 'custom', path: ['yardIds'], message: 'Choose at least one yard, or all yards.' })
+  })
+export type StaffYards = z.input<typeof staffYardsSchema>

@@ -1,6 +1,6 @@
 import { useMutation, useQuery } from '@tanstack/vue-query'
 import { z } from 'zod'
-import { userRowSchema, type CreateUser, type UpdateUser } from '@shared/schemas/users'
+import { userRowSchema, type CreateUser, type StaffYards, type UpdateUser } from '@shared/schemas/users'
 import { request, requestEmpty } from './http'
 
 export const userKeys = {
@@ -33,3 +33,13 @@ export function useUpdateUserMutation() {
 
 /** Changes nothing the list shows (the server ends their sessions). */
 export const useResetPasswordMutation = () => useMutation({ mutationFn: ({ id, password }: { id: string; password: string }) => resetPassword(id, password) })
+
+export const setStaffYards = (id: string, input: StaffYards) => request('PUT', `/api/users/${id}/yards`, z.object({ user: userRowSchema }), input).then((r) => r.user)
+
+/** A person's yards (all, or the ones chosen): the Staff list is fetched again to show what the server kept. */
+export function useStaffYardsMutation() {
+  return useMutation({
+    mutationFn: ({ id, input }: { id: string; input: StaffYards }) => setStaffYards(id, input),
+    onSettled: (_user, _error, _vars, _context, { client }) => client.invalidateQueries({ queryKey: userKeys.all }),
+  })
+}

@@ -28,6 +28,8 @@ export const routes: RouteRecordRaw[] = [
   // Home is each role's landing page (homeOf), chosen in the guard once the session is known.
   { path: '/', name: 'home', component: { render: () => null } },
   { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { public: true, title: 'signIn.pageTitle' } },
+  // A fresh install without the demo (no company yet): the first manager sets it up (the sign-in page sends them here).
+  { path: '/first-run', name: 'first-run', component: () => import('@/views/FirstRunView.vue'), meta: { public: true, bare: true, title: 'firstRun.pageTitle' } },
   { path: '/today', name: 'today', component: () => import('@/views/TodayView.vue'), meta: { permission: 'board.view', nav: 'today.nav', title: 'today.pageTitle' } },
   { path: '/board', name: 'board', component: () => import('@/views/BoardView.vue'), meta: { permission: 'board.view', nav: 'shell.nav.board', title: 'shell.titles.board', prefetch: prefetchBoard } },
   { path: '/archive', name: 'archive', component: () => import('@/views/ArchiveView.vue'), meta: { navMore: true, permission: 'board.view', nav: 'shell.nav.archive', title: 'shell.titles.archive' } },

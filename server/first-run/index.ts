@@ -1,0 +1,1 @@
+export { firstRunRouter } from './first-run.routes'
