@@ -60,7 +60,7 @@ test('the first manager sets up the company and its first yard, and lands signed
   await page.getByLabel('Latitude').fill('36.41')
   await page.getByLabel('Longitude').fill('-119.35')
   await page.getByLabel('Rows').fill('2')
-  await page.getByLabel('Spaces a row').fill('5')
+  await page.getByLabel('Spaces in each row').fill('5')
   await page.getByLabel('Your name').fill('Rosa Quarry')
   await page.getByLabel('E-mail').fill('rosa@quarry-road.example')
   await page.getByLabel('Password', { exact: true }).fill('gravel-pit-owl-93')
