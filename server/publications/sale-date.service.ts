@@ -29,9 +29,9 @@ async function saleRules(db: Executor, vehicle: VehicleRow, yard: YardRow, now: 
   const zone = yard.timeZone
   const today = isoDate(localDay(zone, now.getTime()))
   const clocksFor = await vehicleClocksWith(db, vehicle, yard, now)
-  if (!clocksFor) return { today, blocked: "This vehicle's yard has no rule set, so it has no sale date.", clocksFor: null, earliest: null }
-  const blocked = saleDateBlocked(clocksFor([]))
-  if (blocked) return { today, blocked: blocked.why, clocksFor, earliest: null }
+  if (!clocksFor) return { today, blocked: { code: 'no-rule-set' as const, why: "This vehicle's yard has no rule set, so it has no sale date." }, clocksFor: null, earliest: null }
+  const gate = saleDateBlocked(clocksFor([]))
+  if (gate) return { today, blocked: { code: gate.code as SaleDatePage['blocked'] & string, why: gate.why }, clocksFor, earliest: null }
   const earliest = earliestSaleDay((day) => clocksFor([saleEvent(zone, day)]), today)
   return { today, blocked: null, clocksFor, earliest }
 }
@@ -39,7 +39,7 @@ async function saleRules(db: Executor, vehicle: VehicleRow, yard: YardRow, now: 
 export async function saleDatePage(db: Executor, user: User, vehicleId: string, now = new Date()): Promise<SaleDatePage> {
   const { vehicle, yard } = await vehicleForUser(db, user.id, vehicleId)
   const { blocked, earliest } = await saleRules(db, vehicle, yard, now)
-  return { vehicleId, applies: blocked === null, blocked, scheduled: await scheduledDay(db, vehicleId, yard.timeZone), earliest }
+  return { vehicleId, applies: blocked === null, blocked: blocked?.code ?? null, scheduled: await scheduledDay(db, vehicleId, yard.timeZone), earliest }
 }
 
 /**
@@ -55,7 +55,7 @@ export async function setSaleDate(changes: VehicleChanges, actor: User, vehicleI
     if (w.vehicle.state === 'closed') throw conflict(`${w.vehicle.stockNumber} has left the yard.`, said('closedSaleDate', { stock: w.vehicle.stockNumber }))
     const zone = w.yard.timeZone
     const { today, blocked, clocksFor, earliest } = await saleRules(w.tx, w.vehicle, w.yard, now)
-    if (blocked || !clocksFor) throw unprocessable(blocked ?? 'No sale date can be set.')
+    if (blocked || !clocksFor) throw unprocessable(blocked?.why ?? 'No sale date can be set.')
     const early = saleDayTooEarly(clocksFor([saleEvent(zone, input.day)]), input.day, today)
     if (early) {
       const message = earliest

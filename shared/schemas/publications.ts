@@ -48,9 +48,9 @@ export type SaleDateInput = z.input<typeof saleDateInputSchema>
 
 export const saleDatePageSchema = z.object({
   vehicleId: z.uuid(),
-  /** False when no sale date can be set yet (`blocked` says why). */
+  /** False when no sale date can be set yet (`blocked` says why: the lien-sale gate's code, or no rule set). */
   applies: z.boolean(),
-  blocked: z.string().nullable(),
+  blocked: z.enum(['no-rule-set', 'no-sale-date', 'no-branch', 'needs-value', 'needs-model-year']).nullable(),
   /** The sale day on record, if one is set. */
   scheduled: z.string().nullable(),
   /** The first day the law allows the sale as of today, when the clocks can say. */

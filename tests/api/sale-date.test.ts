@@ -92,7 +92,7 @@ describe('the lien sale date (Cal. Civ. Code § 3071, valued over $4,000)', () =
   it('saleDate_noValue_isRefusedUntilTheValueIsEntered', async () => {
     const { staff, v } = await californian(null)
     const s = await signedIn(t_.app, staff.office)
-    expect((await s.get(base(v.id))).body).toMatchObject({ applies: false, earliest: null })
+    expect((await s.get(base(v.id))).body).toMatchObject({ applies: false, blocked: 'needs-value', earliest: null })
     expect((await s.put(base(v.id), { day: '2027-01-04' })).status).toBe(422)
     expect(await saleEvents(v.id)).toEqual([])
   })
