@@ -11,7 +11,9 @@ import { dayFromIsoDate, isoDate } from '../time/calendar-dates'
  * - every step the rule set wants done some days BEFORE the sale (the notice of sale mailed 20 days
  *   before it, the advertisement 5 days before) must still be possible: done already in time, or
  *   its last day not yet past today.
- * `today` is the yard's calendar day. Only "too early" is judged here; a sale later than a notice
+ * `today` is the yard's calendar day. The answer names the step, its citation and its date (for a "not
+ * before" step the first day it allows; for a step before the sale, the last day it could be done).
+ * Only "too early" is judged here; a sale later than a notice
  * covers is the gate's "expired" when the sale comes.
  */
 export function saleDayTooEarly(clocks: Pick<LegalClocks, 'deadlines'>, saleDay: string, today: string): { step: string; citation: string; date: string } | null {
