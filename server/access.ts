@@ -143,6 +143,9 @@ export const ACCESS: Record<string, Rule> = {
   'POST /api/vehicles/:vehicleId/publications': 'owner.write',
   'GET /api/vehicles/:vehicleId/publications/text': 'owner.write',
   'POST /api/vehicles/:vehicleId/publications/:publicationId/proof': 'owner.write',
+  // The lien sale's day (issue 10): never earlier than the law allows.
+  'GET /api/vehicles/:vehicleId/sale-date': 'owner.write',
+  'PUT /api/vehicles/:vehicleId/sale-date': 'owner.write',
   // The gate's phone: a pass (in the body, never the path) reaches one vehicle's record-out, once.
   'POST /api/gate/check': 'release.write',
   'POST /api/gate/record-out': 'release.write',

@@ -30,7 +30,7 @@ import { DEFAULT_PUBLIC_LIMITS, lookupRouter, ownerLinksRouter, ownerRouter, pub
 import { quotesRouter } from './quotes/index'
 import { gateRouter, releasesRouter } from './releases/index'
 import { transfersRouter } from './transfers/index'
-import { publicationsRouter } from './publications/index'
+import { publicationsRouter, saleDateRouter } from './publications/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { todayRouter } from './today/index'
 import { reportsRouter } from './reports/index'
@@ -175,6 +175,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/release', releasesRouter({ changes, files, publicUrl: deps.publicUrl }))
   app.use('/api/vehicles/:vehicleId/transfer', transfersRouter({ changes, files }))
   app.use('/api/vehicles/:vehicleId/publications', publicationsRouter({ changes, files }))
+  app.use('/api/vehicles/:vehicleId/sale-date', saleDateRouter({ changes }))
   app.use('/api/gate', gateRouter(changes))
   app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))

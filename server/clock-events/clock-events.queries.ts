@@ -25,8 +25,8 @@ export interface NewClockEvent {
   vehicleId: string
   kind: ClockEventKind
   at: Date
-  source: 'records-request' | 'notice-sending' | 'publication'
-  sourceId: string
+  source: 'records-request' | 'notice-sending' | 'publication' | 'sale-date'
+  sourceId: string | null
   recordedById: string | null
 }
 

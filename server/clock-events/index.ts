@@ -1,2 +1,2 @@
 export { addClockEvent, clockEventsOf, type NewClockEvent } from './clock-events.queries'
-export { clocksOfVehicles, vehicleClocks, type ClockedVehicle, type WorkedClocks } from './vehicle-clocks'
+export { clocksOfVehicles, vehicleClocks, vehicleClocksWith, type ClockedVehicle, type WorkedClocks } from './vehicle-clocks'

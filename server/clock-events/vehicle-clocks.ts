@@ -46,19 +46,34 @@ export async function clocksOfVehicles(
       out.set(vehicle.id, null)
       continue
     }
-    const arrival = (ruleSet.arrivalEvents?.kinds ?? ['stored']).map((kind) => ({ kind, at: vehicle.arrivedAt.toISOString() }))
-    const at = asOf.getTime() < vehicle.arrivedAt.getTime() ? vehicle.arrivedAt : asOf
-    const clocks = legalClocks(
-      { modelYear: vehicle.year, valueCents: vehicle.estimatedValueCents },
-      [...arrival, ...(recorded.get(vehicle.id) ?? []), ...extra],
-      ruleSet,
-      ruleSetCalendars(ruleSet),
-      at.toISOString(),
-      { timeZone: yard.timeZone },
-    )
-    out.set(vehicle.id, { clocks, ruleSet })
+    out.set(vehicle.id, { clocks: work(vehicle, ruleSet, recorded.get(vehicle.id) ?? [], yard, asOf, extra), ruleSet })
   }
   return out
+}
+
+function work(vehicle: ClockedVehicle, ruleSet: RuleSet, recorded: readonly ClockEvent[], yard: ClockYard, asOf: Date, extra: readonly ClockEvent[]): LegalClocks {
+  const arrival = (ruleSet.arrivalEvents?.kinds ?? ['stored']).map((kind) => ({ kind, at: vehicle.arrivedAt.toISOString() }))
+  const at = asOf.getTime() < vehicle.arrivedAt.getTime() ? vehicle.arrivedAt : asOf
+  return legalClocks(
+    { modelYear: vehicle.year, valueCents: vehicle.estimatedValueCents },
+    [...arrival, ...recorded, ...extra],
+    ruleSet,
+    ruleSetCalendars(ruleSet),
+    at.toISOString(),
+    { timeZone: yard.timeZone },
+  )
+}
+
+/**
+ * One vehicle's clocks as a function of events put IN PLACE of the recorded ones of their kind (a
+ * sale date being tried day by day replaces the one on record): the rule set and the recorded
+ * events read once. Null for a vehicle with no rule set.
+ */
+export async function vehicleClocksWith(db: Executor, vehicle: ClockedVehicle, yard: ClockYard, asOf = new Date()): Promise<((extra: readonly ClockEvent[]) => LegalClocks) | null> {
+  const worked = await vehicleClocks(db, vehicle, yard, asOf)
+  if (!worked) return null
+  const recorded = (await clockEventsOf(db, [vehicle.id])).get(vehicle.id) ?? []
+  return (instead) => work(vehicle, worked.ruleSet, recorded.filter((e) => !instead.some((i) => i.kind === e.kind)), yard, asOf, instead)
 }
 
 /** One vehicle's clocks (see clocksOfVehicles). */

@@ -1,1 +1,1 @@
-export { publicationsRouter } from './publications.routes'
+export { publicationsRouter, saleDateRouter } from './publications.routes'

@@ -4,6 +4,7 @@ import { publicationInputSchema } from '@shared/schemas/publications'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { receiveFiles, type FileStore } from '../files/index'
 import type { VehicleChanges } from '../vehicles/index'
+import { saleDatePage, setSaleDate } from './sale-date.service'
 import { addPublicationProof, publicationNoticeText, publicationsPage, recordPublication } from './publications.service'
 
 const languageQuery = z.object({ lang: z.enum(['en', 'es'], { error: 'Choose en or es.' }).default('en') })
@@ -34,6 +35,22 @@ export function publicationsRouter({ changes, files }: { changes: VehicleChanges
     const { vehicleId, publicationId } = publicationParams.parse(req.params)
     await addPublicationProof(changes, files, req.user!, vehicleId, publicationId, (req.files as Express.Multer.File[] | undefined) ?? [])
     res.status(201).json(await publicationsPage(db, req.user!, vehicleId))
+  })
+  return router
+}
+
+/** Mounted at /api/vehicles/:vehicleId/sale-date: the lien sale's day, never earlier than the law allows. */
+export function saleDateRouter({ changes }: { changes: VehicleChanges }): Router {
+  const { db } = changes
+  const router = Router({ mergeParams: true })
+  router.get('/', async (req, res) => {
+    const { vehicleId } = vehicleParamsSchema.parse(req.params)
+    res.json(await saleDatePage(db, req.user!, vehicleId))
+  })
+  router.put('/', async (req, res) => {
+    const { vehicleId } = vehicleParamsSchema.parse(req.params)
+    await setSaleDate(changes, req.user!, vehicleId, req.body)
+    res.json(await saleDatePage(db, req.user!, vehicleId))
   })
   return router
 }

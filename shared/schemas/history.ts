@@ -50,6 +50,7 @@ export const HISTORY_KINDS = [
   'transfer_signed',
   'publication_recorded',
   'publication_proof_added',
+  'sale_date_set',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -123,4 +124,5 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   transfer_signed: 'Title transfer signed',
   publication_recorded: 'Newspaper publication recorded',
   publication_proof_added: 'Proof of publication added',
+  sale_date_set: 'Lien sale date set',
 }

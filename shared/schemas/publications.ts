@@ -39,3 +39,21 @@ export const publicationsPageSchema = z.object({
   publications: z.array(publicationRecordSchema),
 })
 export type PublicationsPage = z.infer<typeof publicationsPageSchema>
+
+/** The office sets the lien sale's day (the yard's calendar day); the server refuses a day earlier than the law allows. */
+export const saleDateInputSchema = z.object({
+  day: text({ error: 'Enter the sale date.' }).regex(ISO_DAY, 'Enter the sale date.'),
+})
+export type SaleDateInput = z.input<typeof saleDateInputSchema>
+
+export const saleDatePageSchema = z.object({
+  vehicleId: z.uuid(),
+  /** False when no sale date can be set yet (`blocked` says why: the lien-sale gate's code, or no rule set). */
+  applies: z.boolean(),
+  blocked: z.enum(['no-rule-set', 'no-sale-date', 'no-branch', 'needs-value', 'needs-model-year']).nullable(),
+  /** The sale day on record, if one is set. */
+  scheduled: z.string().nullable(),
+  /** The first day the law allows the sale as of today, when the clocks can say. */
+  earliest: z.string().nullable(),
+})
+export type SaleDatePage = z.infer<typeof saleDatePageSchema>
