@@ -59,23 +59,39 @@ export async function renderFirstPage(pdf: Uint8Array, name: string, dpi = 96): 
   return `${prefix}.png`
 }
 
-/** Reads the QR code on a rendered page (a PNG) with ZXing, the library the app's scanner uses. */
+/**
+ * Reads the QR code on a rendered page (a PNG) with ZXing, the library the app's scanner uses: as rendered
+ * and cut to black and white, each with its local (hybrid) binarizer and its global one, trying harder.
+ */
 export async function readQr(png: string): Promise<string> {
   const { default: sharp } = await import('sharp')
-  const { BinaryBitmap, HybridBinarizer, QRCodeReader, RGBLuminanceSource } = await import('@zxing/library')
-  const { data, info } = await sharp(png).greyscale().raw().toBuffer({ resolveWithObject: true })
-  const luminance = new RGBLuminanceSource(new Uint8ClampedArray(data), info.width, info.height)
-  return new QRCodeReader().decode(new BinaryBitmap(new HybridBinarizer(luminance))).getText()
+  const { BinaryBitmap, DecodeHintType, GlobalHistogramBinarizer, HybridBinarizer, QRCodeReader, RGBLuminanceSource } = await import('@zxing/library')
+  const hints = new Map([[DecodeHintType.TRY_HARDER, true]])
+  let last: unknown
+  // As rendered (grey edges), then cut to black and white at mid-grey.
+  for (const image of [sharp(png).greyscale(), sharp(png).greyscale().threshold(128)]) {
+    const { data, info } = await image.raw().toBuffer({ resolveWithObject: true })
+    const luminance = new RGBLuminanceSource(new Uint8ClampedArray(data), info.width, info.height)
+    for (const binarizer of [new HybridBinarizer(luminance), new GlobalHistogramBinarizer(luminance)]) {
+      try {
+        return new QRCodeReader().decode(new BinaryBitmap(binarizer), hints).getText()
+      } catch (err) {
+        last = err
+      }
+    }
+  }
+  throw last
 }
 
 /**
- * The QR code on page 1, rendered at a few resolutions until ZXing reads it: @zxing/library 0.21 fails
+ * The QR code on page 1, rendered at several resolutions until ZXing reads it: @zxing/library 0.21 fails
  * on a few percent of valid symbols at any one scale (measured here with symbols straight from the
- * qrcode package), and a different scale usually gets past it.
+ * qrcode package; a gate pass's random token failed now and then at all of 96, 150, 200 and 300 dpi),
+ * and a different scale or binarizer usually gets past it.
  */
 export async function readQrOfPdf(pdf: Uint8Array, name: string): Promise<string> {
   let last: unknown
-  for (const dpi of [96, 150, 200, 300]) {
+  for (const dpi of [96, 120, 150, 180, 200, 240, 300, 360]) {
     try {
       return await readQr(await renderFirstPage(pdf, name, dpi))
     } catch (err) {
