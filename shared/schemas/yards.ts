@@ -1,19 +1,12 @@
 import { z } from 'zod'
-import { isTimeZone } from '../domain/time/local-time'
 import { text } from './fields'
+import { yardFieldsSchema } from './yard-settings'
 
-export const yardSetupSchema = z.object({
-  name: text().trim().min(1, 'Give the yard a name.').max(120),
-  code: z
-    .string()
-    .trim()
-    .toUpperCase()
-    .regex(/^[A-Z]{2,4}$/, 'Use 2 to 4 letters: they start every stock number (e.g. TC-2026-00041).'),
-  address: text().trim().min(1, 'Enter the yard address.').max(300),
+/** A yard as the first-run CLI sets it up: Settings → Yards' own fields, the position typed as text, and a sample rule set. */
+export const yardSetupSchema = yardFieldsSchema.pick({ name: true, code: true, address: true, timeZone: true }).extend({
   phone: text().trim().max(40).optional(),
   lat: z.coerce.number().min(-90).max(90),
   lng: z.coerce.number().min(-180).max(180),
-  timeZone: z.string().refine(isTimeZone, 'Use an IANA time zone such as America/Chicago.'),
   ruleSet: z.string().min(1).default('california-sample'),
 })
 export type YardSetup = z.infer<typeof yardSetupSchema>
