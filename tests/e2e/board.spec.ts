@@ -58,7 +58,7 @@ test('a move blocked by a police hold shows the reason and the card goes back', 
   const card = inColumn(page, 'storage', 'Orlan Scout')
   await dragCard(page, card, page.locator('[data-drop="release"]'))
   await expect(notice(page)).toContainText('cannot go to Release')
-  await expect(notice(page)).toContainText('Law-enforcement hold (Orrin Flats Police Department, case OF-26-11602) until')
+  await expect(notice(page)).toContainText('Law-enforcement hold (Orrin Flats Police Department, OF-26-11602), set until ')
   await expect(card).toBeVisible()
   await expect(inColumn(page, 'release', 'Orlan Scout')).toHaveCount(0)
   await page.reload()

@@ -78,12 +78,18 @@ export function describeHold(h: HoldFact, timeZone: string, now: Date): string {
   return new Date(h.until).getTime() > now.getTime() ? `${what} until ${when}` : `${what}, set until ${when} and not yet lifted`
 }
 
+/** The day a hold was set until, in the yard's zone (YYYY-MM-DD), for the reader's own date format. */
+function yardDay(value: string, timeZone: string): string {
+  if (/^\d{4}-\d{2}-\d{2}$/.test(value)) return value
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(value))
+}
+
 export const noActiveHold: Guard = (f, ctx) =>
   f.holds.map((h) => ({
     code: 'hold',
     message: `${describeHold(h, f.timeZone, ctx.now)} — it cannot ${destination(ctx.to)}.`,
-    key: ctx.to === 'closed' ? 'holdClose' : 'hold',
-    params: { hold: h.kind, who: h.agency || h.caseNumber ? ` (${[h.agency, h.caseNumber].filter(Boolean).join(', ')})` : '', column: ctx.to },
+    key: ctx.to === 'closed' ? (h.until ? 'holdCloseUntil' : 'holdClose') : h.until ? 'holdUntil' : 'hold',
+    params: { hold: h.kind, who: h.agency || h.caseNumber ? ` (${[h.agency, h.caseNumber].filter(Boolean).join(', ')})` : '', column: ctx.to, ...(h.until ? { date: yardDay(h.until, f.timeZone) } : {}) },
   }))
 
 export const inspectionFinished: Guard = (f) =>
