@@ -79,6 +79,7 @@ export async function addPublicationProof(changes: VehicleChanges, store: FileSt
 export async function publicationNoticeText(db: Executor, user: User, vehicleId: string, language: Language, now = new Date()) {
   const { vehicle, yard } = await vehicleForUser(db, user.id, vehicleId)
   const { plan, clocks } = await planOf(db, vehicle, yard, now)
-  if (!plan || !clocks) throw unprocessable("This vehicle's rule set asks for no newspaper publication.")
-  return { stockNumber: vehicle.stockNumber, text: publicationText({ yard, vehicle, saleNotBefore: nextStepDate(clocks), citation: plan.citation }, language) }
+  if (!plan) throw unprocessable("This vehicle's rule set asks for no newspaper publication.")
+  // Clocks that cannot run yet (no value recorded) leave the sale's day blank in the text, to fill in later.
+  return { stockNumber: vehicle.stockNumber, text: publicationText({ yard, vehicle, saleNotBefore: clocks ? nextStepDate(clocks) : null, citation: plan.citation }, language) }
 }

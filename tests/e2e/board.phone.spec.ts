@@ -11,7 +11,7 @@ test('on a phone the board shows one column at a time and moves through the menu
   await card.getByRole('button', { name: `Move ${stock} to…` }).click()
   const dialog = page.getByRole('dialog')
   await expect(dialog.getByLabel('Owner collects — go to Release')).toBeDisabled()
-  await expect(dialog).toContainText('Only managers and office staff can move a vehicle from Arrival to Release.')
+  await expect(dialog).toContainText('Only these roles can move a vehicle from Arrival to Release: Manager, Office.')
   await dialog.getByRole('button', { name: 'Start the teardown' }).click()
   await expect(page.getByTestId('board-notice')).toContainText(`${stock} is now in Teardown.`)
   await tabs.getByRole('button', { name: /Teardown/ }).click()
