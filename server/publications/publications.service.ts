@@ -79,7 +79,8 @@ export async function addPublicationProof(changes: VehicleChanges, store: FileSt
 export async function publicationNoticeText(db: Executor, user: User, vehicleId: string, language: Language, now = new Date()) {
   const { vehicle, yard } = await vehicleForUser(db, user.id, vehicleId)
   const { plan, clocks } = await planOf(db, vehicle, yard, now)
-  if (!plan) throw unprocessable("This vehicle's rule set asks for no newspaper publication.")
+  // No publication asked (yet, or any more: a value just recorded can take a vehicle out of it): no text.
+  if (!plan) return { stockNumber: vehicle.stockNumber, text: '' }
   // Clocks that cannot run yet (no value recorded) leave the sale's day blank in the text, to fill in later.
   return { stockNumber: vehicle.stockNumber, text: publicationText({ yard, vehicle, saleNotBefore: clocks ? nextStepDate(clocks) : null, citation: plan.citation }, language) }
 }
