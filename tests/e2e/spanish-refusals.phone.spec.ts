@@ -18,10 +18,17 @@ test('en un teléfono en español: del tablero al historial de un vehículo rete
   await expect(page).toHaveURL(/^[^?]*\/board$/)
   await expect(page.getByRole('navigation', { name: 'Columnas' }).getByRole('button').first()).toContainText('Llegada')
 
-  // A vehicle in Arrival under a police hold, with a value on record (the demo yard has one).
+  // A vehicle in Arrival under a police hold.
   const board = boardSchema.parse(await page.evaluate(async () => (await fetch('/api/board')).json()))
   const held = board.columns.find((c) => c.column === 'arrival')!.cards.find((c) => c.holds.some((h) => h.kind === 'law_enforcement'))!
   expect(held).toBeDefined()
+  // A value on record, so that saving it again changes nothing (set through the API when the demo has none).
+  const session = await (await page.request.get('/api/session')).json()
+  const current = await (await page.request.get(`/api/vehicles/${held.id}`)).json()
+  if (current.vehicle.valueCents == null) {
+    const valued = await page.request.put(`/api/vehicles/${held.id}/value`, { headers: { 'x-csrf-token': session.csrfToken }, data: { version: current.vehicle.version, valueCents: 320_000, source: 'Price guide' } })
+    expect(valued.status()).toBe(200)
+  }
   const card = page.locator(`[data-stock="${held.stockNumber}"]`)
   await expect(card).toBeVisible()
   await card.getByRole('link').first().tap()
@@ -40,7 +47,7 @@ test('en un teléfono en español: del tablero al historial de un vehículo rete
   // The lifecycle refuses Entrega while the hold stands, and says so in Spanish.
   await page.getByTestId('vehicle-move').tap()
   const moves = page.getByRole('dialog')
-  await expect(moves).toContainText(/Retención policial \(.+\): no puede pasar a Entrega\./)
+  await expect(moves).toContainText(/Retención policial \(.+\), puesta hasta el .+: no puede pasar a Entrega\./)
   await page.screenshot({ path: 'test-results/spanish-move-refused-phone.png' })
   await page.keyboard.press('Escape')
   await expect(moves).toBeHidden()
