@@ -18,9 +18,13 @@ test('a hold set and lifted from the vehicle page shows on the page at once; the
   await expect(setting).toBeHidden()
   await expect(opener).toBeFocused()
 
+  // A box typed into before the dialog has finished opening keeps the focus: the opening never pulls a fast
+  // typist's cursor back to the first box mid-word (a full browser run once lost a password that way).
   await opener.click()
-  await setting.getByLabel('Agency', { exact: true }).fill('Orrin Flats Police Department')
   await setting.getByLabel('Case number').fill('OF-26-20001')
+  await expect(page.locator('.dialog-fade-enter-active')).toHaveCount(0)
+  await expect(setting.getByLabel('Case number')).toBeFocused()
+  await setting.getByLabel('Agency', { exact: true }).fill('Orrin Flats Police Department')
   await setting.getByRole('button', { name: 'Set the hold' }).click()
   await expect(setting).toBeHidden()
   await expect(holds).toContainText('Law-enforcement hold — in force')
