@@ -18,7 +18,7 @@ export const GOOD_VIN = '1G4AH59H45G118341'
  */
 export function anotherVehicle(b: TowInInput) {
   b.vehicle.vin = freshVin()
-  b.vehicle.plate = `8T${b.vehicle.vin.slice(-5)}`
+  b.vehicle.plate = `8T${b.vehicle.vin.slice(-6)}`
 }
 
 export function towInBody(checkedById: string, edit: (b: TowInInput) => void = () => {}): TowInInput {
