@@ -150,6 +150,9 @@ test("from the records request to the owner's choice: the e-mailed letter's link
   await expect(owner.getByText('2005 Dunmore Tallis')).toBeVisible()
   const bill = ownerPage.bill!
   await expect(owner.getByTestId('owner-balance')).toHaveText(formatCents(bill.balanceCents))
+  // The records request the office recorded is done on the owner's page too, as the office's pages count it.
+  expect(ownerPage.deadlines.find((d) => d.code === 'records-request')).toMatchObject({ status: 'met' })
+  await expect(owner.getByTestId('owner-deadlines').locator('li').filter({ hasText: 'ask the state for the names' })).toContainText('Done')
   await owner.screenshot({ path: testInfo.outputPath('owner-page-phone.png'), fullPage: true })
 
   // Next Friday on the yard's calendar, priced by the page against the bill it shows today.
