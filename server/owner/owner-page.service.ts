@@ -1,12 +1,10 @@
 import type { Database } from '@db/client'
-import { legalClocks } from '@shared/domain/clocks'
 import { dayFromIsoDate, isoDate, localDay, startOfLocalDay } from '@shared/domain/time'
 import type { OwnerDeadline, OwnerPage, OwnerQuote } from '@shared/schemas/owner'
-import type { RuleSet } from '@shared/schemas/rule-sets'
 import { badRequest } from '../errors'
 import { summarizeVehicles } from '../charges/index'
 import { filesOf } from '../files/index'
-import { holidayCalendar } from '../holidays/index'
+import { vehicleClocks } from '../clock-events/index'
 import { inspectionOf } from '../inspections/index'
 import type { MapConfig } from '../map/index'
 import { latestVersionOf } from '../rule-sets/index'
@@ -81,7 +79,7 @@ export async function ownerPage(db: Database, vehicleId: string, key: string, ma
     bill: await quoteAt(db, v, yard, now, isoDate(localDay(yard.timeZone, now.getTime())), false),
     money: await moneyOf(db, v, yard, now, cardsReady),
     release: await ownerRelease(db, v.id, v.state),
-    deadlines: billRuleSet ? deadlinesOf(v, billRuleSet, yard, now) : [],
+    deadlines: await deadlinesOf(db, v, yard, now),
     caution: billRuleSet?.caution ?? null,
     decision: decision ? { choice: decision.choice, signOverTo: decision.signOverTo, fullName: decision.fullName, phone: decision.phone, note: decision.note, at: decision.at } : null,
     expiresAt: expiresAt.toISOString(),
@@ -125,10 +123,14 @@ async function quoteAt(db: Database, v: VehicleRow, yard: YardRow, at: Date, dat
   return { date, daysOnLot: summary.daysOnLot, storageCents: summary.storageCents, towCents: summary.towCents, balanceCents: summary.balanceCents }
 }
 
-function deadlinesOf(v: VehicleRow, ruleSet: RuleSet, yard: YardRow, now: Date): OwnerDeadline[] {
-  const arrival = (ruleSet.arrivalEvents?.kinds ?? ['stored']).map((kind) => ({ kind, at: v.arrivedAt.toISOString() }))
-  const clocks = legalClocks({ modelYear: v.year, valueCents: v.estimatedValueCents }, arrival, ruleSet, holidayCalendar(ruleSet.holidayCalendar), now.toISOString(), { timeZone: yard.timeZone })
-  return clocks.deadlines.map((d) => ({
+/**
+ * The legal clocks as the office's pages count them (server/clock-events): the version the vehicle arrived under,
+ * the rule set's calendars, and what the office recorded — a records request sent or a notice mailed shows as done,
+ * and the steps that start from a mailing get their dates.
+ */
+async function deadlinesOf(db: Database, v: VehicleRow, yard: YardRow, now: Date): Promise<OwnerDeadline[]> {
+  const worked = await vehicleClocks(db, v, yard, now)
+  return (worked?.clocks.deadlines ?? []).map((d) => ({
     code: d.code,
     label: d.label,
     kind: d.kind,
