@@ -15,7 +15,8 @@ function formatter(locale: Locale): Intl.NumberFormat {
 
 /** Whole cents as US dollars in the given language, else the one chosen: 123456 → "$1,234.56". */
 export function money(cents: number, locale: Locale = i18n.global.locale.value): string {
-  return formatter(locale).format(cents / 100)
+  // `|| 0` turns -0 (nothing, shown as a deduction) into 0: Intl writes "-$0.00" otherwise.
+  return formatter(locale).format(cents / 100 || 0)
 }
 
 /** A plain number in the chosen language (miles, counts), with exactly `decimals` places when given. */

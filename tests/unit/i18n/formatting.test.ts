@@ -32,6 +32,9 @@ describe('money and numbers in the reader’s language', () => {
     ['es', 123456, '$1,234.56'],
     ['en', 5, '$0.05'],
     ['es', 0, '$0.00'],
+    // Nothing paid, shown as a deduction (-0 cents): no minus sign before nothing.
+    ['en', -0, '$0.00'],
+    ['en', -1250, '-$12.50'],
   ] as const)('money in %s of %i cents is %s', (locale, cents, expected) => {
     expect(money(cents, locale)).toBe(expected)
   })
