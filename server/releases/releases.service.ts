@@ -7,7 +7,7 @@ import type { z } from 'zod'
 import type { handoverInputSchema } from '@shared/schemas/releases'
 import type { Executor } from '@db/client'
 import { judgeMove, moveFacts } from '../board/index'
-import { badRequest, conflict, unprocessable, said } from '../errors'
+import { badRequest, conflict, fieldIssue, type Issue, unprocessable, said } from '../errors'
 import { prepareUploads, putFiles, recordFiles, type FileStore, type Incoming } from '../files/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges, type VehicleWork } from '../vehicles/index'
 import { currentPass, inventoryOf, propertyAtRelease, releaseOf, releaseRecord, type ReleaseRow } from './releases.queries'
@@ -119,17 +119,21 @@ export async function recordHandover(changes: VehicleChanges, actor: User, vehic
     needClaimant(release)
     const inventory = await inventoryOf(w.tx, vehicleId)
     const known = new Set(inventory.map((i) => i.id))
-    const issues: { path: string; message: string }[] = []
+    const issues: Issue[] = []
     const seen = new Set<string>()
     input.property.forEach((p, i) => {
-      if (!known.has(p.itemId)) issues.push({ path: `property.${i}.itemId`, message: 'This item is not in this vehicle’s intake inventory.' })
-      else if (seen.has(p.itemId)) issues.push({ path: `property.${i}.itemId`, message: 'This item is checked off twice.' })
+      if (!known.has(p.itemId)) issues.push(fieldIssue(`property.${i}.itemId`, 'releases.notInInventory', 'This item is not in this vehicle’s intake inventory.'))
+      else if (seen.has(p.itemId)) issues.push(fieldIssue(`property.${i}.itemId`, 'releases.checkedTwice', 'This item is checked off twice.'))
       seen.add(p.itemId)
     })
     const missing = inventory.filter((i) => !seen.has(i.id))
-    if (missing.length > 0) issues.push({ path: 'property', message: `Check off every item of the intake inventory: ${missing.map((m) => m.item).join(', ')} still to do.` })
+    if (missing.length > 0) {
+      const items = missing.map((m) => m.item).join(', ')
+      issues.push(fieldIssue('property', 'releases.checkOffEvery', `Check off every item of the intake inventory: ${items} still to do.`, { items }))
+    }
     if (input.odometer !== null && w.vehicle.odometer !== null && input.odometer < w.vehicle.odometer) {
-      issues.push({ path: 'odometer', message: `The odometer reads less than at intake (${w.vehicle.odometer.toLocaleString('en-US')}). Read it again.` })
+      const intake = w.vehicle.odometer.toLocaleString('en-US')
+      issues.push(fieldIssue('odometer', 'releases.odometerBelowIntake', `The odometer reads less than at intake (${intake}). Read it again.`, { intake }))
     }
     if (issues.length > 0) throw badRequest(issues.length === 1 ? issues[0]!.message : `${issues.length} things to fix. First: ${issues[0]!.message}`, issues)
     await w.tx.delete(releaseProperty).where(eq(releaseProperty.releaseId, release.id))

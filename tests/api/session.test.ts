@@ -79,7 +79,7 @@ describe('session API', () => {
     const s = await browserSession(t.app)
     const res = await s.post('/api/session', { email: 'a@b.example' })
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'password', message: 'Enter your password.' }])
+    expect(res.body.issues).toEqual([{ path: 'password', message: 'Enter your password.', code: 'session.enterYourPassword' }])
   })
 
   it('DELETE /api/session signs out and removes the session row', async () => {
