@@ -128,6 +128,8 @@ export const releaseStepSchema = z.object({
   code: z.enum(['hold', 'balance', 'claimant', 'id-photo', 'handover', 'signature']),
   done: z.boolean(),
   message: z.string().nullable(),
+  /** Why a step is not done, each with its words' key under `refusals.reasons` (the message is their English). */
+  reasons: z.array(z.object({ message: z.string(), key: z.string().optional(), params: z.record(z.string(), z.union([z.string(), z.number()])).optional() })).default([]),
 })
 
 export const releasePageSchema = z.object({
