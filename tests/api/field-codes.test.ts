@@ -22,7 +22,7 @@ describe('field codes in a 400 answer', () => {
   it('a schema check answers its English message with its code', async () => {
     const staff = await makeStaff(app.db)
     const m = await signedIn(app.app, staff.manager)
-    const res = await m.post('/api/users', { email: 'not an address', name: 'New clerk', role: 'office' })
+    const res = await m.post('/api/users', { email: 'not an address', name: 'New clerk', role: 'office', password: 'gravel-lantern-harbor' })
     expect(res.status).toBe(400)
     expect(res.body.issues).toEqual([{ path: 'email', message: 'Enter a valid e-mail address.', code: 'users.enterValidMailAddress' }])
     expect(res.body.error).toBe('Enter a valid e-mail address.')
@@ -45,7 +45,7 @@ describe('field codes in a 400 answer', () => {
   it('zod’s own message (no schema wrote it) has no code', async () => {
     const staff = await makeStaff(app.db)
     const m = await signedIn(app.app, staff.manager)
-    const res = await m.post('/api/users', { email: 'new@example.test', name: 42, role: 'office' })
+    const res = await m.post('/api/users', { email: 'new@example.test', name: 42, role: 'office', password: 'gravel-lantern-harbor' })
     expect(res.status).toBe(400)
     expect(res.body.issues).toEqual([{ path: 'name', message: expect.stringMatching(/expected string/i) }])
   })
