@@ -2,12 +2,19 @@ import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
 import { DomainError } from '@shared/domain/errors'
 import type english from '@shared/messages/en/refusals.json'
+import { type FieldCode, type FieldParams, withFieldWords } from '@shared/schemas/field-messages'
 import { redactUrl } from './logging'
 
+/** A refused field: `message` in English, `code` (a key under `fields` in shared/messages) and `params` for the reader's language. */
 export interface Issue {
   path: string
   message: string
+  code?: FieldCode
+  params?: FieldParams
 }
+
+/** A field the server itself refuses (not the schema): its English beside its code, as `said()` is for a refusal. */
+export const fieldIssue = (path: string, code: FieldCode, message: string, params?: FieldParams): Issue => ({ path, message, code, ...(params ? { params } : {}) })
 
 /** An error with a status and a message meant for the person using the app. */
 export class AppError extends Error {
@@ -37,8 +44,9 @@ export const conflict = (message: string, extra: Record<string, unknown> = {}) =
 export const unprocessable = (message: string, extra: Record<string, unknown> = {}) =>
   new AppError(422, message, extra)
 
+/** Each issue's path and English message, with the code and parameters of a message a schema wrote (zod's own have none). */
 export function zodIssues(err: ZodError): Issue[] {
-  return err.issues.map((i) => ({ path: i.path.join('.') || '(body)', message: i.message }))
+  return err.issues.map((i) => withFieldWords({ path: i.path.join('.') || '(body)', message: i.message }))
 }
 
 /** The refusal in words for a person: each issue's own message, not the field paths a program reads in `issues`. */

@@ -10,7 +10,7 @@ import { invoiceOf } from './invoice.service'
 
 const tooMuch = (dueCents: number) => {
   const message = `That is more than is owed: ${formatCents(Math.max(0, dueCents))} is due.`
-  return new AppError(400, message, { issues: [{ path: 'amountCents', message }] })
+  return new AppError(400, message, said('moreThanOwed', { dueCents: Math.max(0, dueCents) }, { issues: [{ path: 'amountCents', message }] }))
 }
 
 async function answer(changes: VehicleChanges, actor: User, vehicleId: string, adjustmentId: string): Promise<{ adjustment: AdjustmentRecord; invoice: Invoice }> {

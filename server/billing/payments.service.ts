@@ -4,7 +4,7 @@ import { cashChange, formatCents } from '@shared/domain/billing'
 import type { Payment, PaymentAnswer } from '@shared/schemas/billing'
 import type { Refund } from '@shared/schemas/billing'
 import type { User } from '@shared/schemas/users'
-import { AppError, badRequest, said, type RefusalCode } from '../errors'
+import { AppError, badRequest, said } from '../errors'
 import { changeVehicle, vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { paymentByKey, paymentRecord, type PaymentRow } from './billing.queries'
 import { invoiceOf } from './invoice.service'
@@ -12,12 +12,13 @@ import { queueReceipt, type ReceiptMail } from './receipt-mail'
 
 const hashOf = (fields: Record<string, unknown>) => createHash('sha256').update(JSON.stringify(fields)).digest('hex')
 
-const refusal = (status: number, path: string, message: string, code?: RefusalCode) => new AppError(status, message, { ...(code ? said(code) : {}), issues: [{ path, message }] })
+// `words` is the refusal's code for the reader's language (`said(…)`); the field's issue repeats the sentence and reads as it does.
+const refusal = (status: number, path: string, message: string, words: ReturnType<typeof said> | Record<string, never> = {}) => new AppError(status, message, { ...words, issues: [{ path, message }] })
 
 /** The same key again: the payment it recorded, or a refusal if the key now asks for something else. */
 function replay(existing: PaymentRow, requestHash: string, takenBy: string) {
   if (existing.requestHash !== requestHash) {
-    throw refusal(409, 'idempotencyKey', 'This payment key was already used for a different payment. Reload the page and try again.', 'paymentKeyUsed')
+    throw refusal(409, 'idempotencyKey', 'This payment key was already used for a different payment. Reload the page and try again.', said('paymentKeyUsed'))
   }
   return paymentRecord(existing, takenBy)
 }
@@ -33,16 +34,16 @@ export async function takePayment(changes: VehicleChanges, actor: User, vehicleI
   const { result, changed } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, now, record }) => {
     const existing = await paymentByKey(tx, vehicleId, input.idempotencyKey)
     if (existing) return { payment: replay(existing, requestHash, actor.name), replayed: true }
-    if (vehicle.state === 'closed') throw refusal(409, 'vehicleId', 'This vehicle has left the yard: its bill is closed and takes no more payments.', 'closedPayments')
+    if (vehicle.state === 'closed') throw refusal(409, 'vehicleId', 'This vehicle has left the yard: its bill is closed and takes no more payments.', said('closedPayments'))
     const before = await invoiceOf(tx, vehicle, yard, now)
-    if (before.dueCents <= 0) throw refusal(400, 'amountCents', 'Nothing is due on this vehicle.')
+    if (before.dueCents <= 0) throw refusal(400, 'amountCents', 'Nothing is due on this vehicle.', said('nothingDue'))
     if (input.amountCents > before.dueCents) {
-      throw refusal(400, 'amountCents', `That is more than is due: ${formatCents(before.dueCents)} is due. Take at most that.`)
+      throw refusal(400, 'amountCents', `That is more than is due: ${formatCents(before.dueCents)} is due. Take at most that.`, said('moreThanDue', { dueCents: before.dueCents }))
     }
     const cash = input.method === 'cash'
     const tenderedCents = cash ? (input.tenderedCents ?? input.amountCents) : null
     const changeCents = cash ? cashChange(input.amountCents, tenderedCents!) : null
-    if (cash && changeCents === null) throw refusal(400, 'tenderedCents', 'The cash handed over is less than the amount paid.')
+    if (cash && changeCents === null) throw refusal(400, 'tenderedCents', 'The cash handed over is less than the amount paid.', said('cashShort'))
     const [row] = await tx
       .insert(payments)
       .values({
@@ -96,7 +97,7 @@ export async function refund(changes: VehicleChanges, actor: User, vehicleId: st
         { path: 'amountCents', message: `At most ${formatCents(before.netPaidCents)} can be refunded.` },
       ])
     }
-    if (input.method === 'check' && !input.checkNumber) throw refusal(400, 'checkNumber', 'Enter the number of the check you give back.')
+    if (input.method === 'check' && !input.checkNumber) throw refusal(400, 'checkNumber', 'Enter the number of the check you give back.', said('checkNumberBack'))
     const [row] = await tx
       .insert(payments)
       .values({

@@ -7,7 +7,7 @@ import { formatCents } from '@shared/domain/billing'
 import type { CardCheckout, CardCheckoutRequest } from '@shared/schemas/card-payments'
 import type { User } from '@shared/schemas/users'
 import { invoiceOf, OWNER_ONLINE, paymentRecord, queueReceipt, type ReceiptMail } from '../billing/index'
-import { AppError, said, type RefusalCode } from '../errors'
+import { AppError, said } from '../errors'
 import { changeVehicle, changeVehicleAsOwner, vehicleById, vehicleForUser, type OwnerWork, type VehicleChanges } from '../vehicles/index'
 
 /**
@@ -34,7 +34,8 @@ const CHECKOUT_MINUTES = 60
 
 export type CheckoutRow = typeof cardCheckouts.$inferSelect
 
-const refusal = (status: number, path: string, message: string, code?: RefusalCode) => new AppError(status, message, { ...(code ? said(code) : {}), issues: [{ path, message }] })
+// `words` is the refusal's code for the reader's language (`said(…)`); the field's issue repeats the sentence and reads as it does.
+const refusal = (status: number, path: string, message: string, words: ReturnType<typeof said> | Record<string, never> = {}) => new AppError(status, message, { ...words, issues: [{ path, message }] })
 
 export const unavailable = () => new AppError(503, 'Card payments are not set up on this server. Take the card at the counter terminal instead.')
 
@@ -76,15 +77,15 @@ export async function startCheckout(
   const requestHash = hashOf({ amountCents: input.amountCents, by: payer.kind === 'staff' ? payer.actor.id : payer.linkId })
   const existing = await checkoutByKey(db, vehicleId, input.idempotencyKey)
   if (existing) {
-    if (existing.requestHash !== requestHash) throw refusal(409, 'idempotencyKey', 'This payment key was already used for a different payment. Reload the page and try again.', 'paymentKeyUsed')
+    if (existing.requestHash !== requestHash) throw refusal(409, 'idempotencyKey', 'This payment key was already used for a different payment. Reload the page and try again.', said('paymentKeyUsed'))
     return checkoutAnswer(existing, true)
   }
-  if (vehicle.state === 'closed') throw refusal(409, 'vehicleId', 'This vehicle has left the yard: its bill is closed and takes no more payments.', 'closedPayments')
+  if (vehicle.state === 'closed') throw refusal(409, 'vehicleId', 'This vehicle has left the yard: its bill is closed and takes no more payments.', said('closedPayments'))
   const { dueCents } = await invoiceOf(db, vehicle, yard)
-  if (dueCents <= 0) throw refusal(400, 'amountCents', 'Nothing is due on this vehicle.')
+  if (dueCents <= 0) throw refusal(400, 'amountCents', 'Nothing is due on this vehicle.', said('nothingDue'))
   const amountCents = input.amountCents ?? dueCents
-  if (amountCents > dueCents) throw refusal(400, 'amountCents', `That is more than is due: ${formatCents(dueCents)} is due. Take at most that.`)
-  if (amountCents < 50) throw refusal(400, 'amountCents', 'A card payment must be at least $0.50: take the rest in cash.')
+  if (amountCents > dueCents) throw refusal(400, 'amountCents', `That is more than is due: ${formatCents(dueCents)} is due. Take at most that.`, said('moreThanDue', { dueCents }))
+  if (amountCents < 50) throw refusal(400, 'amountCents', 'A card payment must be at least $0.50: take the rest in cash.', said('cardMinimum'))
 
   let session: Stripe.Checkout.Session
   try {

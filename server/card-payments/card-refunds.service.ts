@@ -8,11 +8,12 @@ import type { PaymentAnswer } from '@shared/schemas/billing'
 import type { CardRefund } from '@shared/schemas/card-payments'
 import type { User } from '@shared/schemas/users'
 import { invoiceOf, paymentRecord } from '../billing/index'
-import { AppError } from '../errors'
+import { AppError, said } from '../errors'
 import { changeVehicle, vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { unavailable, type CardPayments } from './card-payments.service'
 
-const refusal = (status: number, path: string, message: string) => new AppError(status, message, { issues: [{ path, message }] })
+// `words` is the refusal's code for the reader's language (`said(…)`); the field's issue repeats the sentence and reads as it does.
+const refusal = (status: number, path: string, message: string, words: ReturnType<typeof said> | Record<string, never> = {}) => new AppError(status, message, { ...words, issues: [{ path, message }] })
 const hashOf = (fields: Record<string, unknown>) => createHash('sha256').update(JSON.stringify(fields)).digest('hex')
 
 type PaymentRow = typeof payments.$inferSelect
@@ -24,7 +25,7 @@ const byKey = async (db: Executor, vehicleId: string, key: string) =>
 async function chargeOf(db: Executor, vehicleId: string, paymentId: string): Promise<{ charge: PaymentRow; leftCents: number }> {
   const [charge] = await db.select().from(payments).where(and(eq(payments.vehicleId, vehicleId), eq(payments.id, paymentId)))
   if (!charge || charge.kind !== 'payment' || charge.method !== 'card' || !charge.providerReference) {
-    throw refusal(400, 'paymentId', 'Only a card payment made on the payment page can be refunded through the payment service.')
+    throw refusal(400, 'paymentId', 'Only a card payment made on the payment page can be refunded through the payment service.', said('notRefundable'))
   }
   const [done] = await db
     .select({ cents: sql<number>`coalesce(sum(${payments.amountCents}), 0)::int` })
@@ -34,7 +35,9 @@ async function chargeOf(db: Executor, vehicleId: string, paymentId: string): Pro
 }
 
 const overRefund = (leftCents: number) =>
-  refusal(400, 'amountCents', leftCents > 0 ? `At most ${formatCents(leftCents)} of this card payment can still be refunded.` : 'This card payment has been refunded in full.')
+  leftCents > 0
+    ? refusal(400, 'amountCents', `At most ${formatCents(leftCents)} of this card payment can still be refunded.`, said('refundAtMost', { leftCents }))
+    : refusal(400, 'amountCents', 'This card payment has been refunded in full.', said('refundedInFull'))
 
 /**
  * A manager's refund of a card payment through the payment service (the SDK's refunds call). Nothing is
@@ -49,7 +52,7 @@ export async function refundCard(changes: VehicleChanges, cards: CardPayments | 
   const requestHash = hashOf({ kind: 'card-refund', paymentId: input.paymentId, amountCents: input.amountCents, reason: input.reason })
   const answer = async (payment: PaymentRow, replayed: boolean): Promise<PaymentAnswer> => {
     if (payment.requestHash !== requestHash) {
-      throw refusal(409, 'idempotencyKey', 'This refund key was already used for a different refund. Reload the page and try again.')
+      throw refusal(409, 'idempotencyKey', 'This refund key was already used for a different refund. Reload the page and try again.', said('refundKeyUsed'))
     }
     const { vehicle, yard } = await vehicleForUser(db, actor.id, vehicleId)
     return { payment: paymentRecord(payment, actor.name), replayed, invoice: await invoiceOf(db, vehicle, yard) }

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm'
 import { inspections } from '@db/schema'
 import { CAUTIONS, estimateTotals, pickupBadge, repairOrSalvage } from '@shared/domain/inspection'
 import type { User } from '@shared/schemas/users'
-import { conflict, unprocessable, type Issue, said } from '../errors'
+import { conflict, fieldIssue, unprocessable, type Issue, said } from '../errors'
 import { versionsById } from '../rule-sets/index'
 import { changeVehicle, type VehicleChanges } from '../vehicles/index'
 import { changeInspection } from './inspection-change'
@@ -52,12 +52,12 @@ export async function finishInspection(changes: VehicleChanges, actor: User, veh
   await changeInspection(changes, actor, vehicleId, 'open', async ({ tx, vehicle, inspection, now: at, set, record }) => {
     const items = await itemsOf(tx, inspection.id)
     const issues: Issue[] = []
-    if (!inspection.safetyAcknowledgedAt) issues.push({ path: 'safety', message: NOT_ACKNOWLEDGED })
+    if (!inspection.safetyAcknowledgedAt) issues.push(fieldIssue('safety', 'inspections.readCautionsFirst', NOT_ACKNOWLEDGED))
     if (!items.some((i) => i.status !== 'not_checked')) {
-      issues.push({ path: 'items', message: 'No findings yet: mark at least one item OK, worn or broken.' })
+      issues.push(fieldIssue('items', 'inspections.noFindingsYet', 'No findings yet: mark at least one item OK, worn or broken.'))
     }
     for (const [field, question] of [['rolls', 'Does it roll?'], ['steers', 'Does it steer?'], ['brakes', 'Does it brake?']] as const) {
-      if (vehicle[field] === null) issues.push({ path: field, message: `Answer “${question}” for the pickup.` })
+      if (vehicle[field] === null) issues.push(fieldIssue(field, 'inspections.answerForPickup', `Answer “${question}” for the pickup.`, { what: field }))
     }
     if (issues.length > 0) {
       throw unprocessable(`The inspection cannot be finished yet. ${issues.map((i) => i.message).join(' ')}`, { issues })

@@ -4,7 +4,7 @@ import { inspections } from '@db/schema'
 import { pickupBadge } from '@shared/domain/inspection'
 import type { rollAbilitySchema } from '@shared/schemas/inspections'
 import type { User } from '@shared/schemas/users'
-import { badRequest, unprocessable } from '../errors'
+import { badRequest, fieldIssue, unprocessable } from '../errors'
 import type { VehicleChanges } from '../vehicles/index'
 import { changeInspection } from './inspection-change'
 import { NOT_ACKNOWLEDGED } from './inspections.service'
@@ -18,7 +18,7 @@ type Marks = z.output<typeof rollAbilitySchema>
  */
 export async function markRollAbility(changes: VehicleChanges, actor: User, vehicleId: string, marks: Marks): Promise<void> {
   await changeInspection(changes, actor, vehicleId, 'any', async ({ tx, vehicle, inspection, set, record }) => {
-    if (!inspection.safetyAcknowledgedAt) throw unprocessable(NOT_ACKNOWLEDGED, { issues: [{ path: 'safety', message: NOT_ACKNOWLEDGED }] })
+    if (!inspection.safetyAcknowledgedAt) throw unprocessable(NOT_ACKNOWLEDGED, { issues: [fieldIssue('safety', 'inspections.readCautionsFirst', NOT_ACKNOWLEDGED)] })
     const wheelRefitted = marks.wheelRefitted ?? inspection.wheelRefitted
     const lugTorqueFtLbf = wheelRefitted ? (marks.lugTorqueFtLbf ?? inspection.lugTorqueFtLbf) : null
     if (wheelRefitted && lugTorqueFtLbf === null) {

@@ -6,7 +6,7 @@ import type { ReturnedInput, SendNotice } from '@shared/schemas/notices'
 import type { User } from '@shared/schemas/users'
 import { addClockEvent } from '../clock-events/index'
 import { pastDay } from '../contacts/index'
-import { badRequest, conflict, notFound, summaryOf, type Issue, said } from '../errors'
+import { badRequest, conflict, fieldIssue, notFound, summaryOf, type Issue, said } from '../errors'
 import { queueMessage } from '../outbox/index'
 import { changeVehicle } from '../vehicles/index'
 import { LETTER_WORDS } from './letter-words'
@@ -28,9 +28,9 @@ export async function sendNotice(deps: NoticeDeps, actor: User, vehicleId: strin
     if (!contact || contact.removedAt) throw conflict('This recipient was removed from the contacts; make the notice again for whoever replaces them.', said('recipientRemoved'))
     const issues: Issue[] = []
     if (input.certifiedMail && !postalAddress(contact)) {
-      issues.push({ path: 'certifiedMail', message: `${contact.name} has no postal address on record: add it before sending by certified mail.` })
+      issues.push(fieldIssue('certifiedMail', 'notices.noPostalAddress', `${contact.name} has no postal address on record: add it before sending by certified mail.`, { name: contact.name }))
     }
-    if (input.email && !contact.email) issues.push({ path: 'email', message: `${contact.name} has no e-mail address on record: add it before sending by e-mail.` })
+    if (input.email && !contact.email) issues.push(fieldIssue('email', 'notices.noEmailAddress', `${contact.name} has no e-mail address on record: add it before sending by e-mail.`, { name: contact.name }))
     if (issues.length > 0) throw badRequest(summaryOf(issues), issues)
     if (input.certifiedMail) {
       const mailedAt = pastDay(input.mailedOn!, yard.timeZone, 'mailedOn', 'The mailing day')

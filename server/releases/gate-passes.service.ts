@@ -59,10 +59,10 @@ const when = (d: Date, timeZone: string) => new Intl.DateTimeFormat('en-GB', { d
 
 /** 404 for a pass that is not this company's (forged, mistyped); 410 for one that was used, replaced or has expired. */
 function refusal(pass: PassRow | undefined, timeZone: string, now: Date): AppError | null {
-  if (!pass) return new AppError(404, 'This pass is not one this yard issued: it may be forged or mistyped. Check the code, or ask the office.', { reason: 'unknown' })
-  if (pass.usedAt) return new AppError(410, `This pass was already used: the vehicle was recorded out on ${when(pass.usedAt, timeZone)}. A pass opens the gate once.`, { reason: 'used' })
-  if (pass.withdrawnAt) return new AppError(410, 'This pass was replaced by a newer one. Ask the office for the latest pass.', { reason: 'withdrawn' })
-  if (pass.expiresAt.getTime() <= now.getTime()) return new AppError(410, `This pass expired on ${when(pass.expiresAt, timeZone)}. The office issues a new one.`, { reason: 'expired' })
+  if (!pass) return new AppError(404, 'This pass is not one this yard issued: it may be forged or mistyped. Check the code, or ask the office.', said('passUnknown', undefined, { reason: 'unknown' }))
+  if (pass.usedAt) return new AppError(410, `This pass was already used: the vehicle was recorded out on ${when(pass.usedAt, timeZone)}. A pass opens the gate once.`, said('passUsed', { at: pass.usedAt.toISOString(), timeZone }, { reason: 'used' }))
+  if (pass.withdrawnAt) return new AppError(410, 'This pass was replaced by a newer one. Ask the office for the latest pass.', said('passWithdrawn', undefined, { reason: 'withdrawn' }))
+  if (pass.expiresAt.getTime() <= now.getTime()) return new AppError(410, `This pass expired on ${when(pass.expiresAt, timeZone)}. The office issues a new one.`, said('passExpired', { at: pass.expiresAt.toISOString(), timeZone }, { reason: 'expired' }))
   return null
 }
 

@@ -7,7 +7,7 @@ import type { z } from 'zod'
 import type { handoverInputSchema } from '@shared/schemas/releases'
 import type { Executor } from '@db/client'
 import { judgeMove, moveFacts } from '../board/index'
-import { badRequest, conflict, unprocessable, said } from '../errors'
+import { badRequest, conflict, fieldIssue, type Issue, unprocessable, said } from '../errors'
 import { prepareUploads, putFiles, recordFiles, type FileStore, type Incoming } from '../files/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges, type VehicleWork } from '../vehicles/index'
 import { currentPass, inventoryOf, propertyAtRelease, releaseOf, releaseRecord, type ReleaseRow } from './releases.queries'
@@ -119,17 +119,21 @@ export async function recordHandover(changes: VehicleChanges, actor: User, vehic
     needClaimant(release)
     const inventory = await inventoryOf(w.tx, vehicleId)
     const known = new Set(inventory.map((i) => i.id))
-    const issues: { path: string; message: string }[] = []
+    const issues: Issue[] = []
     const seen = new Set<string>()
     input.property.forEach((p, i) => {
-      if (!known.has(p.itemId)) issues.push({ path: `property.${i}.itemId`, message: 'This item is not in this vehicle’s intake inventory.' })
-      else if (seen.has(p.itemId)) issues.push({ path: `property.${i}.itemId`, message: 'This item is checked off twice.' })
+      if (!known.has(p.itemId)) issues.push(fieldIssue(`property.${i}.itemId`, 'releases.notInInventory', 'This item is not in this vehicle’s intake inventory.'))
+      else if (seen.has(p.itemId)) issues.push(fieldIssue(`property.${i}.itemId`, 'releases.checkedTwice', 'This item is checked off twice.'))
       seen.add(p.itemId)
     })
     const missing = inventory.filter((i) => !seen.has(i.id))
-    if (missing.length > 0) issues.push({ path: 'property', message: `Check off every item of the intake inventory: ${missing.map((m) => m.item).join(', ')} still to do.` })
+    if (missing.length > 0) {
+      const items = missing.map((m) => m.item).join(', ')
+      issues.push(fieldIssue('property', 'releases.checkOffEvery', `Check off every item of the intake inventory: ${items} still to do.`, { items }))
+    }
     if (input.odometer !== null && w.vehicle.odometer !== null && input.odometer < w.vehicle.odometer) {
-      issues.push({ path: 'odometer', message: `The odometer reads less than at intake (${w.vehicle.odometer.toLocaleString('en-US')}). Read it again.` })
+      const intake = w.vehicle.odometer.toLocaleString('en-US')
+      issues.push(fieldIssue('odometer', 'releases.odometerBelowIntake', `The odometer reads less than at intake (${intake}). Read it again.`, { intake }))
     }
     if (issues.length > 0) throw badRequest(issues.length === 1 ? issues[0]!.message : `${issues.length} things to fix. First: ${issues[0]!.message}`, issues)
     await w.tx.delete(releaseProperty).where(eq(releaseProperty.releaseId, release.id))
@@ -148,14 +152,18 @@ export async function recordHandover(changes: VehicleChanges, actor: User, vehic
   })
 }
 
-/** What signing needs first: the claimant with their ID and its photo, and the handover. */
-function unsignable(release: ReleaseRow | undefined): string[] {
-  const missing: string[] = []
-  if (!release?.claimantKind) missing.push('who is collecting and their ID')
-  if (!release?.idPhotoFileId) missing.push('a photo of the ID')
-  if (!release?.handoverRecordedAt) missing.push('the odometer and the property handed back')
+/** What signing needs first: the claimant with their ID and its photo, and the handover (by the release page's step codes). */
+function unsignable(release: ReleaseRow | undefined): { step: string; words: string }[] {
+  const missing: { step: string; words: string }[] = []
+  if (!release?.claimantKind) missing.push({ step: 'claimant', words: 'who is collecting and their ID' })
+  if (!release?.idPhotoFileId) missing.push({ step: 'id-photo', words: 'a photo of the ID' })
+  if (!release?.handoverRecordedAt) missing.push({ step: 'handover', words: 'the odometer and the property handed back' })
   return missing
 }
+
+/** The steps still to do before signing; `steps` are their codes, which the client words as the release page does. */
+const recordFirst = (missing: { step: string; words: string }[]) =>
+  unprocessable(`Record ${missing.map((m) => m.words).join(', ')} before the release is signed.`, said('recordBeforeSigning', { steps: missing.map((m) => m.step).join(',') }))
 
 /**
  * The claimant's signature from the pad: an empty one is refused; the image is stored as a file (the
@@ -166,7 +174,7 @@ export async function signRelease(changes: VehicleChanges, store: FileStore, act
   const { vehicle } = await vehicleForUser(changes.db, actor.id, vehicleId)
   const before = await releaseOf(changes.db, vehicleId)
   const missing = unsignable(before)
-  if (vehicle.state === 'release' && !before?.signedAt && missing.length > 0) throw unprocessable(`Record ${missing.join(', ')} before the release is signed.`)
+  if (vehicle.state === 'release' && !before?.signedAt && missing.length > 0) throw recordFirst(missing)
   const prepared = await prepareUploads([{ buffer: png, originalname: 'signature.png' }], 'document', 'image', 'Signature')
   const { stored, discard } = await putFiles(store, vehicleId, prepared)
   try {
@@ -174,7 +182,7 @@ export async function signRelease(changes: VehicleChanges, store: FileStore, act
       const release = await releaseOf(w.tx, vehicleId)
       mustBeOpen(w, release, 'sign the release')
       const still = unsignable(release)
-      if (still.length > 0) throw unprocessable(`Record ${still.join(', ')} before the release is signed.`)
+      if (still.length > 0) throw recordFirst(still)
       await recordFiles(w, stored)
       await w.tx
         .update(releases)
@@ -199,13 +207,13 @@ export async function releasePage(db: Executor, user: User, vehicleId: string, n
   const said = (reasons: Reason[]) => (reasons.length ? reasons.map((r) => r.message).join(' ') : null)
   const holds = noActiveHold(facts, ctx)
   const balance = balanceSettled(facts, ctx)
-  const done: Record<(typeof STEP_ORDER)[number], [boolean, string | null]> = {
-    hold: [holds.length === 0, said(holds)],
-    balance: [balance.length === 0, said(balance)],
-    claimant: [Boolean(release?.claimantKind), null],
-    'id-photo': [Boolean(release?.idPhotoFileId), null],
-    handover: [Boolean(release?.handoverRecordedAt), null],
-    signature: [Boolean(release?.signedAt), null],
+  const done: Record<(typeof STEP_ORDER)[number], [boolean, Reason[]]> = {
+    hold: [holds.length === 0, holds],
+    balance: [balance.length === 0, balance],
+    claimant: [Boolean(release?.claimantKind), []],
+    'id-photo': [Boolean(release?.idPhotoFileId), []],
+    handover: [Boolean(release?.handoverRecordedAt), []],
+    signature: [Boolean(release?.signedAt), []],
   }
   const disposition = release?.claimantKind ? dispositionFor(release.claimantKind) : null
   const verdict = disposition && vehicle.state === 'release' ? await judgeMove(db, vehicle, yard, user, { to: 'closed', disposition, reason: null }, now) : null
@@ -217,7 +225,7 @@ export async function releasePage(db: Executor, user: User, vehicleId: string, n
     today: dayIn(yard.timeZone, now),
     release: release ? await releaseRecord(db, release) : null,
     property: await propertyAtRelease(db, vehicleId, release?.id ?? null),
-    steps: STEP_ORDER.map((code) => ({ code, done: done[code][0], message: done[code][1] })),
+    steps: STEP_ORDER.map((code) => ({ code, done: done[code][0], message: said(done[code][1]), reasons: done[code][1].map((r) => ({ message: r.message, key: r.key, params: r.params })) })),
     disposition,
     gateReasons:
       vehicle.state !== 'release'

@@ -3,7 +3,7 @@ import { type AnonymousCsrf, newCsrfToken } from '../middleware/index'
 import type { Database } from '@db/client'
 import { signInSchema } from '@shared/schemas/session'
 import { setLocaleSchema } from '@shared/schemas/users'
-import { AppError } from '../errors'
+import { AppError, said } from '../errors'
 import { type BoardNotifier, sessionKey } from '../live/index'
 import type { KnownDevices } from './known-devices'
 import { setOwnLocale } from '../users/index'
@@ -24,8 +24,11 @@ function promisify(fn: (cb: (err?: unknown) => void) => void): Promise<void> {
 
 function tooMany(waitMs: number): AppError {
   const seconds = Math.ceil(waitMs / 1000)
-  const wait = seconds < 120 ? `${seconds} second${seconds === 1 ? '' : 's'}` : `${Math.ceil(seconds / 60)} minutes`
-  return new AppError(429, `Too many failed sign-ins from here. Wait ${wait} and try again.`)
+  if (seconds < 120) {
+    return new AppError(429, `Too many failed sign-ins from here. Wait ${seconds} second${seconds === 1 ? '' : 's'} and try again.`, seconds === 1 ? said('signInWaitSecond') : said('signInWaitSeconds', { n: seconds }))
+  }
+  const minutes = Math.ceil(seconds / 60)
+  return new AppError(429, `Too many failed sign-ins from here. Wait ${minutes} minutes and try again.`, said('signInWaitMinutes', { n: minutes }))
 }
 
 export function sessionRouter(db: Database, { anonymous, devices, throttle, boards }: SessionRouterDeps): Router {

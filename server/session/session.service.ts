@@ -3,13 +3,13 @@ import type { Database } from '@db/client'
 import { users } from '@db/schema'
 import type { SignIn } from '@shared/schemas/session'
 import type { User } from '@shared/schemas/users'
-import { AppError } from '../errors'
+import { AppError, said } from '../errors'
 import { findUsersByEmail, verifyPassword } from '../users/index'
 
 // One message for an unknown e-mail, a wrong password and a deactivated account: no account discovery.
 const REFUSED = 'That e-mail and password do not match an active account.'
 
-export const signInRefused = () => new AppError(401, REFUSED)
+export const signInRefused = () => new AppError(401, REFUSED, said('signInRefused'))
 
 /** Who signed in, and the password hash their password was checked against. */
 export interface Verified {

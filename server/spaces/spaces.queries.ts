@@ -3,7 +3,7 @@ import type { Executor } from '@db/client'
 import { vehicles, yardSpaces } from '@db/schema'
 import { spaceLabel, type Space } from '@shared/schemas/spaces'
 import { spaceFit } from '@shared/domain/vehicle'
-import { badRequest, conflict, unprocessable } from '../errors'
+import { badRequest, conflict, fieldIssue, unprocessable } from '../errors'
 
 export async function spacesOfYard(db: Executor, yardId: string): Promise<Space[]> {
   const rows = await db
@@ -29,11 +29,11 @@ export async function spacesOfYard(db: Executor, yardId: string): Promise<Space[
  */
 export async function freeSpace(db: Executor, yardId: string, spaceId: string, path: string, forVehicleId?: string, vehicleClass?: string) {
   const [space] = await db.select().from(yardSpaces).where(and(eq(yardSpaces.id, spaceId), eq(yardSpaces.yardId, yardId)))
-  if (!space) throw badRequest('That space is not in this yard.', [{ path, message: 'That space is not in this yard.' }])
+  if (!space) throw badRequest('That space is not in this yard.', [fieldIssue(path, 'spaces.notInYard', 'That space is not in this yard.')])
   const label = spaceLabel(space)
   if (space.retiredAt) {
     const message = `Space ${label} is retired. Choose another space.`
-    throw conflict(message, { issues: [{ path, message }] })
+    throw conflict(message, { issues: [fieldIssue(path, 'spaces.retired', message, { label })] })
   }
   const fit = vehicleClass === undefined ? null : spaceFit(vehicleClass, space.size)
   if (fit && !fit.fits) {
@@ -50,7 +50,9 @@ export async function freeSpace(db: Executor, yardId: string, spaceId: string, p
 
 export function spaceTaken(label: string | null, path: string, stockNumber?: string) {
   const message = `${label ? `Space ${label}` : 'That space'} already holds ${stockNumber ?? 'another vehicle'}. Choose another space.`
-  return conflict(message, { issues: [{ path, message }] })
+  // The database's own refusal (a race) may know neither the label nor the vehicle: four ways to say it.
+  const code = label ? (stockNumber ? 'spaces.takenBy' : 'spaces.taken') : stockNumber ? 'spaces.thatTakenBy' : 'spaces.thatTaken'
+  return conflict(message, { issues: [fieldIssue(path, code, message, { ...(label ? { label } : {}), ...(stockNumber ? { stock: stockNumber } : {}) })] })
 }
 
 /** True when the error (or one it wraps) is the database refusing a second vehicle in one space. */

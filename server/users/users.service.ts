@@ -3,7 +3,7 @@ import type { Locale } from '@shared/messages/locales'
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import { userYards, yards } from '@db/schema'
 import type { CreateUser, UpdateUser, User } from '@shared/schemas/users'
-import { conflict, notFound, unprocessable, said } from '../errors'
+import { conflict, fieldIssue, notFound, unprocessable, said } from '../errors'
 import type { BoardNotifier } from '../live/index'
 import { endSessionsOf, localeInSessions, renameInSessions } from '../session/index'
 import { recordSettingsChange } from '../settings-audit/index'
@@ -20,7 +20,11 @@ export async function listUsers(db: Database, actor: User) {
 
 // Only the manager's own company is looked at: whether another company uses the address is not
 // theirs to learn, and an account there does not stand in the way (sign-in tells them apart by password).
-const alreadyOnStaff = (email: string) => conflict(`${email} is already on your staff list. Find them there, or use another address.`, said('alreadyOnStaff', { email }))
+// The refusal is about the e-mail field: its issue puts the same words beside it.
+const alreadyOnStaff = (email: string) => {
+  const message = `${email} is already on your staff list. Find them there, or use another address.`
+  return conflict(message, said('alreadyOnStaff', { email }, { issues: [fieldIssue('email', 'users.alreadyOnStaff', message, { email })] }))
+}
 
 export async function createUser(db: Database, actor: User, input: CreateUser) {
   const me = await q.findUser(db, actor.id)

@@ -6,7 +6,7 @@ import { towRatesSchema } from '@shared/schemas/tows'
 import type { User } from '@shared/schemas/users'
 import type { EditYard, SpaceBlock, YardSettings } from '@shared/schemas/yard-settings'
 import type { NewYard } from '@shared/schemas/yard-settings'
-import { conflict, notFound } from '../errors'
+import { conflict, fieldIssue, notFound } from '../errors'
 import { changedValues, recordSettingsChange } from '../settings-audit/index'
 import { createYard, yardsOfUser } from '../yards/index'
 
@@ -56,7 +56,7 @@ async function myYard(db: Executor, actor: User, yardId: string, lock = false) {
 
 function codeTaken(code: string) {
   const message = `The stock-number prefix ${code} is already used by a yard: stock numbers must not repeat.`
-  return conflict(message, { issues: [{ path: 'code', message }] })
+  return conflict(message, { issues: [fieldIssue('code', 'yardSettings.prefixTaken', message, { code })] })
 }
 
 /** Rows firstRow… × numbers 1…perRow; a space already there is refused naming the block. */
@@ -64,7 +64,7 @@ export async function insertSpaces(db: Executor, yardId: string, block: SpaceBlo
   const first = block.firstRow.charCodeAt(0)
   if (first + block.rows - 1 > 90) {
     const message = `From row ${block.firstRow}, ${block.rows} rows go past Z.`
-    throw conflict(message, { issues: [{ path, message }] })
+    throw conflict(message, { issues: [fieldIssue(path, 'yardSettings.rowsPastZ', message, { row: block.firstRow, rows: block.rows })] })
   }
   const wanted = Array.from({ length: block.rows }, (_, r) => String.fromCharCode(first + r)).flatMap((row) =>
     Array.from({ length: block.perRow }, (_, n) => ({ yardId, row, number: n + 1, size: block.size })),
@@ -73,7 +73,7 @@ export async function insertSpaces(db: Executor, yardId: string, block: SpaceBlo
   const clash = wanted.find((w) => existing.some((e) => e.row === w.row && e.number === w.number))
   if (clash) {
     const message = `Space ${spaceLabel(clash)} already exists. Start at another row.`
-    throw conflict(message, { issues: [{ path: 'firstRow', message }] })
+    throw conflict(message, { issues: [fieldIssue('firstRow', 'yardSettings.spaceExists', message, { label: spaceLabel(clash) })] })
   }
   await db.insert(yardSpaces).values(wanted)
   return wanted.length
@@ -126,11 +126,11 @@ export async function retireSpace(db: Database, actor: User, yardId: string, spa
     const [space] = await tx.select().from(yardSpaces).where(and(eq(yardSpaces.id, spaceId), eq(yardSpaces.yardId, yard.id))).for('update')
     if (!space) throw notFound('That space')
     const label = spaceLabel(space)
-    if (space.retiredAt) throw conflict(`Space ${label} is already retired.`, { issues: [{ path: 'spaceId', message: `Space ${label} is already retired.` }] })
+    if (space.retiredAt) throw conflict(`Space ${label} is already retired.`, { issues: [fieldIssue('spaceId', 'yardSettings.alreadyRetired', `Space ${label} is already retired.`, { label })] })
     const [holder] = await tx.select({ stockNumber: vehicles.stockNumber }).from(vehicles).where(eq(vehicles.spaceId, spaceId))
     if (holder) {
       const message = `Space ${label} holds ${holder.stockNumber}: move the vehicle out before retiring the space.`
-      throw conflict(message, { issues: [{ path: 'spaceId', message }] })
+      throw conflict(message, { issues: [fieldIssue('spaceId', 'yardSettings.spaceHolds', message, { label, stock: holder.stockNumber })] })
     }
     await tx.update(yardSpaces).set({ retiredAt: new Date() }).where(eq(yardSpaces.id, spaceId))
     await recordSettingsChange(tx, { companyId: yard.companyId, actorId: actor.id, area: 'yard', action: 'space-retired', subjectId: yard.id, subjectLabel: yard.name, before: { space: label, retired: false }, after: { space: label, retired: true } })

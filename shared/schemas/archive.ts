@@ -2,16 +2,17 @@ import { z } from 'zod'
 import { pagingShape } from './fields'
 import { DISPOSITIONS } from '../domain/lifecycle/columns'
 import { vehicleIdentityShape } from './board'
+import { msg } from './field-messages'
 
 export const archiveQuerySchema = z.object({
   q: z
-    .string({ error: 'Type a stock number, plate, VIN, make, model or owner.' })
+    .string({ error: msg('archive.typeStockNumberPlate', 'Type a stock number, plate, VIN, make, model or owner.') })
     .trim()
-    .max(60, 'Keep the search under 60 characters.')
+    .max(60, msg('archive.keepSearchUnder60', 'Keep the search under 60 characters.'))
     .optional()
     .transform((v) => v || null),
   disposition: z
-    .enum(DISPOSITIONS, { error: 'Choose one of the ways a vehicle leaves the yard.' })
+    .enum(DISPOSITIONS, { error: msg('archive.chooseOneWaysVehicle', 'Choose one of the ways a vehicle leaves the yard.') })
     .optional()
     .transform((v) => v ?? null),
   ...pagingShape,

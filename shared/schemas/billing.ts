@@ -2,40 +2,41 @@ import { z } from 'zod'
 import { ADJUSTMENT_KINDS, ADJUSTMENT_STATUSES, COUNTER_PAYMENT_METHODS, PAYMENT_METHODS } from '../domain/billing/payments'
 import { LOCALES } from '../messages/locales'
 import { alongsideFieldIssues, optionalText, requiredText } from './fields'
+import { type FieldWhat, msg, whatWords } from './field-messages'
 
 /** A whole number of cents above zero, at most $1,000,000.00: more is a typing slip. */
-const positiveCents = (what: string) =>
+const positiveCents = (what: FieldWhat, { words, Words } = whatWords(what)) =>
   z
-    .number({ error: `Enter ${what}.` })
-    .int(`Enter ${what} to the cent.`)
-    .positive(`${what[0]!.toUpperCase()}${what.slice(1)} must be more than zero.`)
-    .max(100_000_000, `${what[0]!.toUpperCase()}${what.slice(1)} cannot be above $1,000,000.00.`)
+    .number({ error: msg('common.enterWhat', `Enter ${words}.`, { what }) })
+    .int(msg('billing.enterToTheCent', `Enter ${words} to the cent.`, { what }))
+    .positive(msg('billing.moreThanZero', `${Words} must be more than zero.`, { what }))
+    .max(100_000_000, msg('billing.aboveMillion', `${Words} cannot be above $1,000,000.00.`, { what }))
 
 /** Made by the client once per payment it means to take; a retry or a second tap sends the same one. */
-const idempotencyKey = z.uuid({ error: 'The request has no valid idempotency key: reload the page and try again.' })
+const idempotencyKey = z.uuid({ error: msg('common.requestHasNoValid', 'The request has no valid idempotency key: reload the page and try again.') })
 
 export const paymentInputSchema = z
   .object({
     idempotencyKey,
-    method: z.enum(COUNTER_PAYMENT_METHODS, { error: 'Choose cash, check or card.' }),
-    amountCents: positiveCents('the amount'),
+    method: z.enum(COUNTER_PAYMENT_METHODS, { error: msg('billing.chooseCashCheckCard', 'Choose cash, check or card.') }),
+    amountCents: positiveCents('amount'),
     /** Cash: what the customer handed over (the amount itself when left out). */
-    tenderedCents: z.number({ error: 'Enter the cash handed over.' }).int('Enter the cash handed over to the cent.').max(100_000_000).nullish().transform((v) => v ?? null),
+    tenderedCents: z.number({ error: msg('billing.enterCashHandedOver', 'Enter the cash handed over.') }).int(msg('billing.enterCashToCent', 'Enter the cash handed over to the cent.')).max(100_000_000).nullish().transform((v) => v ?? null),
     checkNumber: optionalText(30),
     terminalReference: optionalText(60),
     /** Where to e-mail the receipt; none when left empty. */
     receiptEmail: z
-      .preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.email({ error: 'Enter an e-mail address such as name@example.com, or leave it empty.' }).max(254).nullish())
+      .preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.email({ error: msg('common.enterMailAddressSuch', 'Enter an e-mail address such as name@example.com, or leave it empty.') }).max(254).nullish())
       .transform((v) => v ?? null),
     receiptLanguage: z.enum(LOCALES).default('en'),
   })
   .superRefine((p, ctx) => {
     if (p.method === 'cash' && typeof p.tenderedCents === 'number' && typeof p.amountCents === 'number' && p.tenderedCents < p.amountCents) {
-      ctx.addIssue({ code: 'custom', path: ['tenderedCents'], message: 'The cash handed over is less than the amount paid.' })
+      ctx.addIssue({ code: 'custom', path: ['tenderedCents'], message: msg('billing.cashHandedOverLess', 'The cash handed over is less than the amount paid.') })
     }
-    if (p.method === 'check' && !p.checkNumber) ctx.addIssue({ code: 'custom', path: ['checkNumber'], message: 'Enter the check number.' })
+    if (p.method === 'check' && !p.checkNumber) ctx.addIssue({ code: 'custom', path: ['checkNumber'], message: msg('billing.enterCheckNumber', 'Enter the check number.') })
     if (p.method === 'card' && !p.terminalReference) {
-      ctx.addIssue({ code: 'custom', path: ['terminalReference'], message: "Enter the terminal's reference for this card payment (on its slip)." })
+      ctx.addIssue({ code: 'custom', path: ['terminalReference'], message: msg('billing.enterTerminalReferenceFor', "Enter the terminal's reference for this card payment (on its slip).") })
     }
   }, alongsideFieldIssues)
 export type PaymentInput = z.input<typeof paymentInputSchema>
@@ -43,9 +44,9 @@ export type Payment = z.output<typeof paymentInputSchema>
 
 export const refundInputSchema = z.object({
   idempotencyKey,
-  method: z.enum(COUNTER_PAYMENT_METHODS, { error: 'Choose how the money goes back: cash, check or card.' }),
-  amountCents: positiveCents('the refund'),
-  reason: requiredText(500, 'Say why the money is given back.'),
+  method: z.enum(COUNTER_PAYMENT_METHODS, { error: msg('billing.chooseHowMoneyGoes', 'Choose how the money goes back: cash, check or card.') }),
+  amountCents: positiveCents('refund'),
+  reason: requiredText(500, msg('common.sayWhyMoneyGiven', 'Say why the money is given back.')),
   checkNumber: optionalText(30),
   terminalReference: optionalText(60),
 })
@@ -53,17 +54,17 @@ export type RefundInput = z.input<typeof refundInputSchema>
 export type Refund = z.output<typeof refundInputSchema>
 
 export const adjustmentInputSchema = z.object({
-  kind: z.enum(ADJUSTMENT_KINDS, { error: 'Choose a waiver or a discount.' }),
-  amountCents: positiveCents('the amount'),
-  reason: requiredText(500, 'Say why the charge is waived or discounted.'),
+  kind: z.enum(ADJUSTMENT_KINDS, { error: msg('billing.chooseWaiverDiscount', 'Choose a waiver or a discount.') }),
+  amountCents: positiveCents('amount'),
+  reason: requiredText(500, msg('billing.sayWhyChargeWaived', 'Say why the charge is waived or discounted.')),
 })
 export type AdjustmentInput = z.input<typeof adjustmentInputSchema>
 export type Adjustment = z.output<typeof adjustmentInputSchema>
 
-export const declineInputSchema = z.object({ reason: requiredText(500, 'Say why the request is declined.') })
+export const declineInputSchema = z.object({ reason: requiredText(500, msg('billing.sayWhyRequestDeclined', 'Say why the request is declined.')) })
 
 export const invoiceQuerySchema = z.object({
-  asOf: z.iso.datetime({ offset: true, error: 'Enter the "as of" date as a date and time.' }).optional(),
+  asOf: z.iso.datetime({ offset: true, error: msg('billing.enterAsDateAs', 'Enter the "as of" date as a date and time.') }).optional(),
 })
 
 export const invoiceLineSchema = z.object({
@@ -157,12 +158,12 @@ export type PaymentAnswer = z.infer<typeof paymentAnswerSchema>
 export const adjustmentAnswerSchema = z.object({ adjustment: adjustmentRecordSchema, invoice: invoiceSchema })
 
 /** A yard day, YYYY-MM-DD on the yard's calendar. */
-export const businessDateSchema = z.iso.date({ error: 'Enter the day as YYYY-MM-DD.' })
+export const businessDateSchema = z.iso.date({ error: msg('billing.enterDayAsYyyy', 'Enter the day as YYYY-MM-DD.') })
 
 export const closeoutInputSchema = z.object({
   businessDate: businessDateSchema,
-  openingFloatCents: z.number({ error: 'Enter the float the drawer opened with.' }).int('Enter the float to the cent.').min(0, 'The float cannot be below zero.').max(100_000_000),
-  countedCents: z.number({ error: 'Enter the cash counted in the drawer.' }).int('Enter the count to the cent.').min(0, 'The count cannot be below zero.').max(100_000_000),
+  openingFloatCents: z.number({ error: msg('billing.enterFloatDrawerOpened', 'Enter the float the drawer opened with.') }).int(msg('billing.enterFloatCent', 'Enter the float to the cent.')).min(0, msg('billing.floatCannotBelowZero', 'The float cannot be below zero.')).max(100_000_000),
+  countedCents: z.number({ error: msg('billing.enterCashCountedDrawer', 'Enter the cash counted in the drawer.') }).int(msg('billing.enterCountCent', 'Enter the count to the cent.')).min(0, msg('billing.countCannotBelowZero', 'The count cannot be below zero.')).max(100_000_000),
   note: optionalText(500),
 })
 export type CloseoutInput = z.input<typeof closeoutInputSchema>

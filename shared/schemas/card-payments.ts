@@ -1,12 +1,13 @@
 import { z } from 'zod'
 import { LOCALES } from '../messages/locales'
 import { requiredText } from './fields'
+import { msg } from './field-messages'
 
 /** Made by the client once per attempt to pay by card; a retry or a second tap sends the same one. */
-const idempotencyKey = z.uuid({ error: 'The request has no valid idempotency key: reload the page and try again.' })
+const idempotencyKey = z.uuid({ error: msg('common.requestHasNoValid', 'The request has no valid idempotency key: reload the page and try again.') })
 
 const receiptEmail = z
-  .preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.email({ error: 'Enter an e-mail address such as name@example.com, or leave it empty.' }).max(254).nullish())
+  .preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.email({ error: msg('common.enterMailAddressSuch', 'Enter an e-mail address such as name@example.com, or leave it empty.') }).max(254).nullish())
   .transform((v) => v ?? null)
 
 /** The payment service's own floor for one card payment in dollars. */
@@ -17,10 +18,10 @@ export const cardCheckoutInputSchema = z.object({
   idempotencyKey,
   /** Left out: everything that is due. */
   amountCents: z
-    .number({ error: 'Enter the amount.' })
-    .int('Enter the amount to the cent.')
-    .min(CARD_MINIMUM_CENTS, 'A card payment must be at least $0.50.')
-    .max(100_000_000, 'The amount cannot be above $1,000,000.00.')
+    .number({ error: msg('cardPayments.enterAmount', 'Enter the amount.') })
+    .int(msg('cardPayments.enterAmountCent', 'Enter the amount to the cent.'))
+    .min(CARD_MINIMUM_CENTS, msg('cardPayments.cardPaymentMustAt', 'A card payment must be at least $0.50.'))
+    .max(100_000_000, msg('cardPayments.amountCannotAbove1', 'The amount cannot be above $1,000,000.00.'))
     .nullish()
     .transform((v) => v ?? null),
   receiptEmail,
@@ -51,8 +52,8 @@ export const cardCheckoutSchema = z.object({
 export type CardCheckout = z.infer<typeof cardCheckoutSchema>
 
 export const cardCheckoutParamsSchema = z.object({
-  vehicleId: z.uuid({ error: 'That is not a vehicle id.' }),
-  checkoutId: z.uuid({ error: 'That is not a card payment id.' }),
+  vehicleId: z.uuid({ error: msg('common.thatNotVehicleId', 'That is not a vehicle id.') }),
+  checkoutId: z.uuid({ error: msg('cardPayments.thatNotCardPayment', 'That is not a card payment id.') }),
 })
 
 /**
@@ -61,13 +62,13 @@ export const cardCheckoutParamsSchema = z.object({
  */
 export const cardRefundInputSchema = z.object({
   idempotencyKey,
-  paymentId: z.uuid({ error: 'Choose the card payment to refund.' }),
+  paymentId: z.uuid({ error: msg('cardPayments.chooseCardPaymentRefund', 'Choose the card payment to refund.') }),
   amountCents: z
-    .number({ error: 'Enter the amount to refund.' })
-    .int('Enter the amount to the cent.')
-    .positive('The refund must be more than $0.00.')
-    .max(100_000_000, 'The amount cannot be above $1,000,000.00.'),
-  reason: requiredText(500, 'Say why the money is given back.'),
+    .number({ error: msg('cardPayments.enterAmountRefund', 'Enter the amount to refund.') })
+    .int(msg('cardPayments.enterAmountCent', 'Enter the amount to the cent.'))
+    .positive(msg('cardPayments.refundMustMoreThan', 'The refund must be more than $0.00.'))
+    .max(100_000_000, msg('cardPayments.amountCannotAbove1', 'The amount cannot be above $1,000,000.00.')),
+  reason: requiredText(500, msg('common.sayWhyMoneyGiven', 'Say why the money is given back.')),
 })
 export type CardRefundInput = z.input<typeof cardRefundInputSchema>
 export type CardRefund = z.output<typeof cardRefundInputSchema>

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { alongsideFieldIssues, optionalText, requiredText } from './fields'
+import { msg } from './field-messages'
 
 /** Who may have to be told about a vehicle: the registered owner, each legal owner or lienholder, the insurer, anyone else with an interest. */
 export const CONTACT_ROLES = ['registered_owner', 'lienholder', 'insurer', 'interested_party'] as const
@@ -21,7 +22,7 @@ const stateCode = z
   .string()
   .trim()
   .toUpperCase()
-  .regex(/^[A-Z]{2}$/, 'Enter the two-letter state code, e.g. CA.')
+  .regex(/^[A-Z]{2}$/, msg('contacts.enterTwoLetterState', 'Enter the two-letter state code, e.g. CA.'))
   .nullish()
   .or(z.literal('').transform(() => null))
   .transform((v) => v ?? null)
@@ -29,7 +30,7 @@ const stateCode = z
 const zip = z
   .string()
   .trim()
-  .regex(/^\d{5}(-\d{4})?$/, 'Enter a 5-digit ZIP code (or ZIP+4).')
+  .regex(/^\d{5}(-\d{4})?$/, msg('contacts.enter5DigitZip', 'Enter a 5-digit ZIP code (or ZIP+4).'))
   .nullish()
   .or(z.literal('').transform(() => null))
   .transform((v) => v ?? null)
@@ -37,28 +38,28 @@ const zip = z
 const email = z
   .string()
   .trim()
-  .max(254, 'Keep this under 254 characters.')
-  .pipe(z.email({ error: 'That is not an e-mail address.' }))
+  .max(254, msg('contacts.keepThisUnder254', 'Keep this under 254 characters.'))
+  .pipe(z.email({ error: msg('common.thatNotMailAddress', 'That is not an e-mail address.') }))
   .nullish()
   .or(z.literal('').transform(() => null))
   .transform((v) => v ?? null)
 
-const phone = optionalText(40).refine((v) => v === null || /^[0-9+().\-\s]{7,40}$/.test(v), 'Enter a phone number with digits, e.g. (559) 555-0142.')
+const phone = optionalText(40).refine((v) => v === null || /^[0-9+().\-\s]{7,40}$/.test(v), msg('contacts.enterPhoneNumberWith', 'Enter a phone number with digits, e.g. (559) 555-0142.'))
 
 export const contactInputSchema = z
   .object({
-    role: z.enum(CONTACT_ROLES, { error: 'Choose who this is: owner, lienholder, insurer or other.' }),
-    name: requiredText(200, 'Enter the name.'),
+    role: z.enum(CONTACT_ROLES, { error: msg('contacts.chooseWhoThisOwner', 'Choose who this is: owner, lienholder, insurer or other.') }),
+    name: requiredText(200, msg('contacts.enterName', 'Enter the name.')),
     street: optionalText(200),
     city: optionalText(100),
     state: stateCode,
     zip,
     phone,
     email,
-    language: z.enum(CONTACT_LANGUAGES, { error: 'Choose English or Spanish.' }).default('en'),
-    source: z.enum(CONTACT_SOURCES, { error: 'Choose where the record came from.' }),
+    language: z.enum(CONTACT_LANGUAGES, { error: msg('common.chooseEnglishSpanish', 'Choose English or Spanish.') }).default('en'),
+    source: z.enum(CONTACT_SOURCES, { error: msg('contacts.chooseWhereRecordCame', 'Choose where the record came from.') }),
     /** The day of the state records request the record came from. */
-    sourceDate: isoDaySchema('Enter the date of the records request.').nullish().or(z.literal('').transform(() => null)).transform((v) => v ?? null),
+    sourceDate: isoDaySchema(msg('contacts.enterDateRecordsRequest', 'Enter the date of the records request.')).nullish().or(z.literal('').transform(() => null)).transform((v) => v ?? null),
     sourceNote: optionalText(300),
   })
   .superRefine((c, ctx) => {
@@ -67,13 +68,13 @@ export const contactInputSchema = z
     const given = parts.filter(([, v]) => v)
     if (given.length > 0 && given.length < parts.length) {
       for (const [path, v] of parts) {
-        if (!v) ctx.addIssue({ code: 'custom', path: [path], message: 'Complete the postal address: street, city, state and ZIP.' })
+        if (!v) ctx.addIssue({ code: 'custom', path: [path], message: msg('contacts.completePostalAddressStreet', 'Complete the postal address: street, city, state and ZIP.') })
       }
     }
     if (c.source === 'records_request' && !c.sourceDate) {
-      ctx.addIssue({ code: 'custom', path: ['sourceDate'], message: 'Enter the date of the records request.' })
+      ctx.addIssue({ code: 'custom', path: ['sourceDate'], message: msg('contacts.enterDateRecordsRequest', 'Enter the date of the records request.') })
     }
-    if (c.source === 'other' && !c.sourceNote) ctx.addIssue({ code: 'custom', path: ['sourceNote'], message: 'Say where the record came from.' })
+    if (c.source === 'other' && !c.sourceNote) ctx.addIssue({ code: 'custom', path: ['sourceNote'], message: msg('contacts.sayWhereRecordCame', 'Say where the record came from.') })
   }, alongsideFieldIssues)
 export type ContactInput = z.input<typeof contactInputSchema>
 export type Contact = z.output<typeof contactInputSchema>
@@ -104,8 +105,8 @@ export function postalAddress(c: Pick<ContactRecord, 'street' | 'city' | 'state'
 }
 
 export const contactParamsSchema = z.object({
-  vehicleId: z.uuid({ error: 'That is not a vehicle id.' }),
-  contactId: z.uuid({ error: 'That is not a contact id.' }),
+  vehicleId: z.uuid({ error: msg('common.thatNotVehicleId', 'That is not a vehicle id.') }),
+  contactId: z.uuid({ error: msg('common.thatNotContactId', 'That is not a contact id.') }),
 })
 
 /** The outcome of a state records request: the records named someone, or there was no record. */
@@ -119,15 +120,15 @@ export type RecordsOutcome = (typeof RECORDS_OUTCOMES)[number]
 export const recordsRequestInputSchema = z
   .object({
     agency: optionalText(120),
-    sentOn: isoDaySchema('Enter the day the request was sent.'),
-    answeredOn: isoDaySchema('Enter the day the answer came.').nullish().or(z.literal('').transform(() => null)).transform((v) => v ?? null),
-    outcome: z.enum(RECORDS_OUTCOMES, { error: 'Choose whether a record was found.' }).nullish().transform((v) => v ?? null),
+    sentOn: isoDaySchema(msg('contacts.enterDayRequestWas', 'Enter the day the request was sent.')),
+    answeredOn: isoDaySchema(msg('contacts.enterDayAnswerCame', 'Enter the day the answer came.')).nullish().or(z.literal('').transform(() => null)).transform((v) => v ?? null),
+    outcome: z.enum(RECORDS_OUTCOMES, { error: msg('contacts.chooseWhetherRecordWas', 'Choose whether a record was found.') }).nullish().transform((v) => v ?? null),
   })
   .superRefine((r, ctx) => {
-    if (r.answeredOn && !r.outcome) ctx.addIssue({ code: 'custom', path: ['outcome'], message: 'Choose whether a record was found.' })
-    if (r.outcome && !r.answeredOn) ctx.addIssue({ code: 'custom', path: ['answeredOn'], message: 'Enter the day the answer came.' })
+    if (r.answeredOn && !r.outcome) ctx.addIssue({ code: 'custom', path: ['outcome'], message: msg('contacts.chooseWhetherRecordWas', 'Choose whether a record was found.') })
+    if (r.outcome && !r.answeredOn) ctx.addIssue({ code: 'custom', path: ['answeredOn'], message: msg('contacts.enterDayAnswerCame', 'Enter the day the answer came.') })
     if (typeof r.answeredOn === 'string' && typeof r.sentOn === 'string' && r.answeredOn < r.sentOn) {
-      ctx.addIssue({ code: 'custom', path: ['answeredOn'], message: 'The answer cannot come before the request was sent.' })
+      ctx.addIssue({ code: 'custom', path: ['answeredOn'], message: msg('contacts.answerCannotComeBefore', 'The answer cannot come before the request was sent.') })
     }
   }, alongsideFieldIssues)
 export type RecordsRequestInput = z.input<typeof recordsRequestInputSchema>
@@ -135,8 +136,8 @@ export type RecordsRequest = z.output<typeof recordsRequestInputSchema>
 
 /** Answering a request already recorded. */
 export const recordsAnswerSchema = z.object({
-  answeredOn: isoDaySchema('Enter the day the answer came.'),
-  outcome: z.enum(RECORDS_OUTCOMES, { error: 'Choose whether a record was found.' }),
+  answeredOn: isoDaySchema(msg('contacts.enterDayAnswerCame', 'Enter the day the answer came.')),
+  outcome: z.enum(RECORDS_OUTCOMES, { error: msg('contacts.chooseWhetherRecordWas', 'Choose whether a record was found.') }),
 })
 export type RecordsAnswer = z.infer<typeof recordsAnswerSchema>
 
@@ -151,8 +152,8 @@ export const recordsRequestRecordSchema = z.object({
 export type RecordsRequestRecord = z.infer<typeof recordsRequestRecordSchema>
 
 export const recordsParamsSchema = z.object({
-  vehicleId: z.uuid({ error: 'That is not a vehicle id.' }),
-  requestId: z.uuid({ error: 'That is not a records request id.' }),
+  vehicleId: z.uuid({ error: msg('common.thatNotVehicleId', 'That is not a vehicle id.') }),
+  requestId: z.uuid({ error: msg('contacts.thatNotRecordsRequest', 'That is not a records request id.') }),
 })
 
 /** The rule set's deadline to request the owner records, as the "Who to tell" section shows it. */

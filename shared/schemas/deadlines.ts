@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { msg } from './field-messages'
 
 /** What a listed deadline is: telling the police of a tow, a step of the rule set's timeline, or the lien sale. */
 export const DEADLINE_KINDS = ['police', 'notice', 'lien-sale'] as const
@@ -41,7 +42,7 @@ export type DeadlineList = z.infer<typeof deadlineListSchema>
 /** Filters of the Deadlines page: the kinds to list (all when none is given). */
 export const deadlineQuerySchema = z.object({
   kind: z
-    .union([z.enum(DEADLINE_KINDS), z.array(z.enum(DEADLINE_KINDS))], { error: `Choose kinds among ${DEADLINE_KINDS.join(', ')}.` })
+    .union([z.enum(DEADLINE_KINDS), z.array(z.enum(DEADLINE_KINDS))], { error: msg('deadlines.chooseKinds', `Choose kinds among ${DEADLINE_KINDS.join(', ')}.`, { kinds: DEADLINE_KINDS.join(', ') }) })
     .optional()
     .transform((k) => (k === undefined ? [...DEADLINE_KINDS] : Array.isArray(k) ? k : [k])),
 })

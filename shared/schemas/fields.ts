@@ -1,10 +1,11 @@
 import { z } from 'zod'
+import { type FieldWhat, msg, whatWords } from './field-messages'
 
 // Building blocks for the forms' schemas, so every field says the same thing the same way.
 
-const tooLong = (max: number) => `Keep this under ${max} characters.`
+const tooLong = (max: number) => msg('common.tooLong', `Keep this under ${max} characters.`, { max })
 
-export const BROKEN_TEXT = 'Contains a broken character (a lone UTF-16 surrogate) that cannot be stored. Retype the text and try again.'
+export const BROKEN_TEXT = msg('common.containsBrokenCharacterLone', 'Contains a broken character (a lone UTF-16 surrogate) that cannot be stored. Retype the text and try again.')
 
 /**
  * Any string that is stored: a lone UTF-16 surrogate ("\ud800" in JSON) is no character at all —
@@ -29,17 +30,19 @@ export function requiredText(max: number, missing: string) {
 }
 
 /** An instant with its offset: a bare local time would be read in the server's own zone. */
-export const instantSchema = z.iso.datetime({ offset: true, error: 'Enter a date and time.' })
+export const instantSchema = z.iso.datetime({ offset: true, error: msg('common.enterDateTime', 'Enter a date and time.') })
 
 export const optionalInstant = instantSchema.nullish().transform((v) => v ?? null)
 
 /** A whole number field that may be left empty. */
-export function optionalInt(min: number, max: number, what: string) {
+export function optionalInt(min: number, max: number, what: FieldWhat) {
+  const { words, Words } = whatWords(what)
+  const most = max.toLocaleString('en-US')
   return z
-    .number({ error: `Enter ${what} as a number.` })
-    .int(`Enter ${what} as a whole number.`)
-    .min(min, `${what[0]!.toUpperCase()}${what.slice(1)} cannot be below ${min}.`)
-    .max(max, `${what[0]!.toUpperCase()}${what.slice(1)} cannot be above ${max.toLocaleString('en-US')}.`)
+    .number({ error: msg('common.enterAsNumber', `Enter ${words} as a number.`, { what }) })
+    .int(msg('common.enterAsWholeNumber', `Enter ${words} as a whole number.`, { what }))
+    .min(min, msg('common.cannotBeBelow', `${Words} cannot be below ${min}.`, { what, min }))
+    .max(max, msg('common.cannotBeAbove', `${Words} cannot be above ${most}.`, { what, max: most }))
     .nullish()
     .transform((v) => v ?? null)
 }
@@ -58,10 +61,10 @@ export const PAGE_SIZES = [25, 50, 100] as const
 
 /** `page` and `pageSize` of a paged list's query string (the archive, the outbox). */
 export const pagingShape = {
-  page: z.coerce.number({ error: 'The page is a number.' }).int('The page is a whole number.').min(1, 'Pages start at 1.').max(100_000).default(1),
+  page: z.coerce.number({ error: msg('common.pageNumber', 'The page is a number.') }).int(msg('common.pageWholeNumber', 'The page is a whole number.')).min(1, msg('common.pagesStartAt1', 'Pages start at 1.')).max(100_000).default(1),
   pageSize: z.coerce
-    .number({ error: 'The page size is a number.' })
-    .int('The page size is a whole number.')
-    .refine((n) => (PAGE_SIZES as readonly number[]).includes(n), `Show ${PAGE_SIZES.join(', ')} a page.`)
+    .number({ error: msg('common.pageSizeNumber', 'The page size is a number.') })
+    .int(msg('common.pageSizeWholeNumber', 'The page size is a whole number.'))
+    .refine((n) => (PAGE_SIZES as readonly number[]).includes(n), msg('common.pageSizes', `Show ${PAGE_SIZES.join(', ')} a page.`, { sizes: PAGE_SIZES.join(', ') }))
     .default(PAGE_SIZES[0]),
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { text } from './fields'
+import { msg } from './field-messages'
 
 // Limits both sides check: the client before sending, the server (multer) while receiving.
 export const MAX_FILE_BYTES = 20 * 1024 * 1024
@@ -24,8 +25,8 @@ export const ACCEPTED_TYPES: Record<FileKind, readonly string[]> = {
 }
 
 export const uploadFieldsSchema = z.object({
-  kind: z.enum(FILE_KINDS, { error: 'Choose photo, ID or document.' }).default('photo'),
-  label: text().trim().max(120, 'Keep the caption under 120 characters.').nullish().transform((v) => v || null),
+  kind: z.enum(FILE_KINDS, { error: msg('files.choosePhotoIdDocument', 'Choose photo, ID or document.') }).default('photo'),
+  label: text().trim().max(120, msg('files.keepCaptionUnder120', 'Keep the caption under 120 characters.')).nullish().transform((v) => v || null),
 })
 
 export const fileRecordSchema = z.object({

@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { text } from './fields'
 import { createUserSchema, passwordSchema } from './users'
 import { spaceBlockSchema, yardFieldsSchema } from './yard-settings'
+import { msg } from './field-messages'
 
 /**
  * POST /api/first-run: a fresh install's first manager sets up the company, its first yard and its
@@ -9,7 +10,7 @@ import { spaceBlockSchema, yardFieldsSchema } from './yard-settings'
  * adding a person on the Staff page. Flat, so each refusal names the form's own field.
  */
 export const firstRunSchema = z.object({
-  companyName: text().trim().min(1, 'Enter the company name.').max(120, 'Keep the company name under 120 characters.'),
+  companyName: text().trim().min(1, msg('firstRun.enterCompanyName', 'Enter the company name.')).max(120, msg('firstRun.keepCompanyNameUnder', 'Keep the company name under 120 characters.')),
   yardName: yardFieldsSchema.shape.name,
   code: yardFieldsSchema.shape.code,
   address: yardFieldsSchema.shape.address,

@@ -1,15 +1,16 @@
 import { z } from 'zod'
 import { BOARD_COLUMNS } from '../domain/lifecycle/columns'
+import { msg } from './field-messages'
 
 /** The manager's yard at a glance (issue 12): the plan of spaces and the figures behind the charts. */
 
 export const glanceQuerySchema = z.object({
   /** How many weeks of the yard's calendar the revenue chart and the release figures cover, this week included. */
   weeks: z.coerce
-    .number({ error: 'Give the weeks as a whole number from 4 to 52.' })
-    .int({ error: 'Give the weeks as a whole number from 4 to 52.' })
-    .min(4, { error: 'Give the weeks as a whole number from 4 to 52.' })
-    .max(52, { error: 'Give the weeks as a whole number from 4 to 52.' })
+    .number({ error: msg('glance.giveWeeksAsWhole', 'Give the weeks as a whole number from 4 to 52.') })
+    .int({ error: msg('glance.giveWeeksAsWhole', 'Give the weeks as a whole number from 4 to 52.') })
+    .min(4, { error: msg('glance.giveWeeksAsWhole', 'Give the weeks as a whole number from 4 to 52.') })
+    .max(52, { error: msg('glance.giveWeeksAsWhole', 'Give the weeks as a whole number from 4 to 52.') })
     .default(12),
 })
 export type GlanceQuery = z.infer<typeof glanceQuerySchema>

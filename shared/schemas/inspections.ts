@@ -6,76 +6,77 @@ import { hoursToHundredths, LIMITS } from '../domain/inspection/inspection-estim
 import { formatCents } from '../domain/billing/money'
 import { optionalText, requiredText } from './fields'
 import { fileRecordSchema } from './files'
+import { type FieldWhat, msg, whatWords } from './field-messages'
 
 const dollars = (cents: number) => formatCents(cents).replace(/\.00$/, '')
 
 // ---- requests ----
 
-export const itemCodeSchema = z.enum(ITEM_CODES as [string, ...string[]], { error: 'That is not an item on the checklist.' })
+export const itemCodeSchema = z.enum(ITEM_CODES as [string, ...string[]], { error: msg('inspections.thatNotItemChecklist', 'That is not an item on the checklist.') })
 
 export const itemFindingSchema = z.object({
-  status: z.enum(FINDING_STATUSES, { error: 'Choose OK, worn, broken or not checked.' }),
+  status: z.enum(FINDING_STATUSES, { error: msg('inspections.chooseOkWornBroken', 'Choose OK, worn, broken or not checked.') }),
   note: optionalText(500),
 })
 export type ItemFinding = z.input<typeof itemFindingSchema>
 
-const priceCents = (what: string, max: number) =>
+const priceCents = (what: FieldWhat, max: number, { words, Words } = whatWords(what)) =>
   z
-    .number({ error: `Enter the ${what}.` })
-    .int(`Enter the ${what} in whole cents.`)
-    .min(0, `The ${what} cannot be negative.`)
-    .max(max, `The ${what} cannot be more than ${dollars(max)}.`)
+    .number({ error: msg('common.enterWhat', `Enter ${words}.`, { what }) })
+    .int(msg('common.enterInWholeCents', `Enter ${words} in whole cents.`, { what }))
+    .min(0, msg('common.cannotBeNegative', `${Words} cannot be negative.`, { what }))
+    .max(max, msg('inspections.cannotBeMoreThan', `${Words} cannot be more than ${dollars(max)}.`, { what, max: dollars(max) }))
 
 export const estimateLineSchema = z.object({
   itemCode: itemCodeSchema.nullish().transform((v) => v ?? null),
-  part: requiredText(120, 'Say what the part or job is.'),
+  part: requiredText(120, msg('inspections.sayWhatPartJob', 'Say what the part or job is.')),
   quantity: z
-    .number({ error: 'Enter how many.' })
-    .int('Enter how many as a whole number.')
-    .min(1, 'The quantity is at least 1.')
-    .max(LIMITS.maxQuantity, `The quantity cannot be more than ${LIMITS.maxQuantity}.`),
-  unitPriceCents: priceCents('part price', LIMITS.maxUnitPriceCents),
+    .number({ error: msg('common.enterHowMany', 'Enter how many.') })
+    .int(msg('inspections.enterHowManyAs', 'Enter how many as a whole number.'))
+    .min(1, msg('inspections.quantityAtLeast1', 'The quantity is at least 1.'))
+    .max(LIMITS.maxQuantity, msg('inspections.quantityAtMost', `The quantity cannot be more than ${LIMITS.maxQuantity}.`, { max: LIMITS.maxQuantity })),
+  unitPriceCents: priceCents('partPrice', LIMITS.maxUnitPriceCents),
   labourHours: z
-    .number({ error: 'Enter the labour hours (0 if none).' })
-    .min(0, 'Labour hours cannot be negative.')
-    .max(LIMITS.maxLabourHours, `Labour hours cannot be more than ${LIMITS.maxLabourHours} on one line.`)
-    .refine((h) => hoursToHundredths(h) !== undefined, 'Give labour hours to at most two decimals, such as 1.25.'),
+    .number({ error: msg('inspections.enterLabourHours0', 'Enter the labour hours (0 if none).') })
+    .min(0, msg('inspections.labourHoursCannotNegative', 'Labour hours cannot be negative.'))
+    .max(LIMITS.maxLabourHours, msg('inspections.labourHoursAtMost', `Labour hours cannot be more than ${LIMITS.maxLabourHours} on one line.`, { max: LIMITS.maxLabourHours }))
+    .refine((h) => hoursToHundredths(h) !== undefined, msg('inspections.giveLabourHoursAt', 'Give labour hours to at most two decimals, such as 1.25.')),
 })
 export type EstimateLineInput = z.input<typeof estimateLineSchema>
 
-const source = (what: string) => requiredText(200, `Say where the ${what} came from.`)
+const source = (what: FieldWhat) => requiredText(200, msg('inspections.sayWhereFrom', `Say where ${whatWords(what).words} came from.`, { what }))
 
 export const valuesSchema = z
   .object({
-    actualCashValueCents: priceCents("vehicle's value", LIMITS.maxValueCents).min(1, "The vehicle's value must be more than $0."),
+    actualCashValueCents: priceCents('vehicleValue', LIMITS.maxValueCents).min(1, msg('inspections.vehicleValueMustMore', "The vehicle's value must be more than $0.")),
     actualCashValueSource: source('value'),
-    salvageValueCents: priceCents('salvage value', LIMITS.maxValueCents),
-    salvageValueSource: source('salvage value'),
+    salvageValueCents: priceCents('salvageValue', LIMITS.maxValueCents),
+    salvageValueSource: source('salvageValue'),
   })
   .refine((v) => v.salvageValueCents <= v.actualCashValueCents, {
-    message: "The salvage value cannot be more than the vehicle's value.",
+    message: msg('inspections.salvageValueCannotMore', "The salvage value cannot be more than the vehicle's value."),
     path: ['salvageValueCents'],
   })
 export type ValuesInput = z.input<typeof valuesSchema>
 
-const yesNo = (question: string) => z.boolean({ error: `Answer: ${question}` }).optional()
+const yesNo = (what: FieldWhat) => z.boolean({ error: msg('inspections.answer', `Answer: ${whatWords(what).words}`, { what }) }).optional()
 
 /** Any of the marks, on their own: each tap on the phone saves one. */
 export const rollAbilitySchema = z
   .object({
-    rolls: yesNo('does it roll?'),
-    steers: yesNo('does it steer?'),
-    brakes: yesNo('does it brake?'),
-    keys: yesNo('are the keys here?'),
-    wheelRefitted: yesNo('was a wheel refitted to make it roll?'),
+    rolls: yesNo('rolls'),
+    steers: yesNo('steers'),
+    brakes: yesNo('brakes'),
+    keys: yesNo('keys'),
+    wheelRefitted: yesNo('wheelRefitted'),
     lugTorqueFtLbf: z
-      .number({ error: 'Enter the lug-nut torque in ft·lbf.' })
-      .int('Enter the lug-nut torque in whole ft·lbf.')
-      .min(LIMITS.minLugTorqueFtLbf, `A lug-nut torque below ${LIMITS.minLugTorqueFtLbf} ft·lbf is not a real figure; check the maker's specification.`)
-      .max(LIMITS.maxLugTorqueFtLbf, `A lug-nut torque above ${LIMITS.maxLugTorqueFtLbf} ft·lbf is not a real figure; check the maker's specification.`)
+      .number({ error: msg('inspections.enterLugNutTorque', 'Enter the lug-nut torque in ft·lbf.') })
+      .int(msg('inspections.enterTorqueWhole', 'Enter the lug-nut torque in whole ft·lbf.'))
+      .min(LIMITS.minLugTorqueFtLbf, msg('inspections.torqueBelow', `A lug-nut torque below ${LIMITS.minLugTorqueFtLbf} ft·lbf is not a real figure; check the maker's specification.`, { min: LIMITS.minLugTorqueFtLbf }))
+      .max(LIMITS.maxLugTorqueFtLbf, msg('inspections.torqueAbove', `A lug-nut torque above ${LIMITS.maxLugTorqueFtLbf} ft·lbf is not a real figure; check the maker's specification.`, { max: LIMITS.maxLugTorqueFtLbf }))
       .nullish(),
   })
-  .refine((v) => Object.values(v).some((x) => x !== undefined), { message: 'Nothing to save.', path: ['(body)'] })
+  .refine((v) => Object.values(v).some((x) => x !== undefined), { message: msg('inspections.nothingSave', 'Nothing to save.'), path: ['(body)'] })
 export type RollAbilityInput = z.input<typeof rollAbilitySchema>
 
 // ---- answers ----

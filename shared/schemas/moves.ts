@@ -2,19 +2,20 @@ import { z } from 'zod'
 import { DISPOSITIONS, VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { boardCardSchema } from './board'
 import { text } from './fields'
+import { msg } from './field-messages'
 
 export const moveRequestSchema = z.object({
-  to: z.enum(VEHICLE_STATES, { error: 'Choose where the vehicle goes.' }),
+  to: z.enum(VEHICLE_STATES, { error: msg('moves.chooseWhereVehicleGoes', 'Choose where the vehicle goes.') }),
   version: z
-    .number({ error: 'Send the version of the card you saw; reload the board if it is missing.' })
-    .int('The version is a whole number.')
-    .positive('The version is a positive number.'),
-  reason: text({ error: 'The reason is text.' })
+    .number({ error: msg('moves.sendVersionCardYou', 'Send the version of the card you saw; reload the board if it is missing.') })
+    .int(msg('moves.versionWholeNumber', 'The version is a whole number.'))
+    .positive(msg('moves.versionPositiveNumber', 'The version is a positive number.')),
+  reason: text({ error: msg('moves.reasonText', 'The reason is text.') })
     .trim()
-    .max(500, 'Keep the reason under 500 characters.')
+    .max(500, msg('moves.keepReasonUnder500', 'Keep the reason under 500 characters.'))
     .nullish()
     .transform((v) => v || null),
-  disposition: z.enum(DISPOSITIONS, { error: 'Choose how the vehicle leaves the yard.' }).nullish().transform((v) => v ?? null),
+  disposition: z.enum(DISPOSITIONS, { error: msg('moves.chooseHowVehicleLeaves', 'Choose how the vehicle leaves the yard.') }).nullish().transform((v) => v ?? null),
 })
 export type MoveRequest = z.input<typeof moveRequestSchema>
 

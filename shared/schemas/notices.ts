@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { CONTACT_LANGUAGES, CONTACT_ROLES, isoDaySchema } from './contacts'
 import { alongsideFieldIssues, optionalText } from './fields'
+import { msg } from './field-messages'
 
 /**
  * The letters a rule set's timeline asks the yard to mail, each by the clock event its mailing
@@ -69,8 +70,8 @@ export type NoticesPage = z.infer<typeof noticesPageSchema>
 
 /** Make the letters of one kind: one per recipient (the owner and every lienholder unless some are named). */
 export const generateNoticesSchema = z.object({
-  kind: z.enum(NOTICE_KINDS, { error: 'Choose which notice to make.' }),
-  contactIds: z.array(z.uuid({ error: 'That is not a contact id.' })).max(20).optional(),
+  kind: z.enum(NOTICE_KINDS, { error: msg('notices.chooseWhichNoticeMake', 'Choose which notice to make.') }),
+  contactIds: z.array(z.uuid({ error: msg('common.thatNotContactId', 'That is not a contact id.') })).max(20).optional(),
 })
 export type GenerateNotices = z.input<typeof generateNoticesSchema>
 
@@ -83,30 +84,30 @@ export const sendNoticeSchema = z
     certifiedMail: z.boolean().default(false),
     email: z.boolean().default(false),
     trackingNumber: optionalText(40),
-    mailedOn: isoDaySchema('Enter the day it was mailed.').nullish().or(z.literal('').transform(() => null)).transform((v) => v ?? null),
+    mailedOn: isoDaySchema(msg('notices.enterDayWasMailed', 'Enter the day it was mailed.')).nullish().or(z.literal('').transform(() => null)).transform((v) => v ?? null),
   })
   .superRefine((s, ctx) => {
-    if (!s.certifiedMail && !s.email) ctx.addIssue({ code: 'custom', path: ['certifiedMail'], message: 'Choose certified mail, e-mail or both.' })
+    if (!s.certifiedMail && !s.email) ctx.addIssue({ code: 'custom', path: ['certifiedMail'], message: msg('notices.chooseCertifiedMailMail', 'Choose certified mail, e-mail or both.') })
     if (s.certifiedMail) {
-      if (!s.trackingNumber) ctx.addIssue({ code: 'custom', path: ['trackingNumber'], message: 'Enter the certified-mail tracking number.' })
-      else if (!/^[A-Z0-9 -]{10,40}$/i.test(s.trackingNumber)) ctx.addIssue({ code: 'custom', path: ['trackingNumber'], message: 'A tracking number has 10 or more letters and digits.' })
-      if (!s.mailedOn) ctx.addIssue({ code: 'custom', path: ['mailedOn'], message: 'Enter the day it was mailed.' })
+      if (!s.trackingNumber) ctx.addIssue({ code: 'custom', path: ['trackingNumber'], message: msg('notices.enterCertifiedMailTracking', 'Enter the certified-mail tracking number.') })
+      else if (!/^[A-Z0-9 -]{10,40}$/i.test(s.trackingNumber)) ctx.addIssue({ code: 'custom', path: ['trackingNumber'], message: msg('notices.trackingNumberHas10', 'A tracking number has 10 or more letters and digits.') })
+      if (!s.mailedOn) ctx.addIssue({ code: 'custom', path: ['mailedOn'], message: msg('notices.enterDayWasMailed', 'Enter the day it was mailed.') })
     }
   }, alongsideFieldIssues)
 export type SendNoticeInput = z.input<typeof sendNoticeSchema>
 export type SendNotice = z.output<typeof sendNoticeSchema>
 
 export const returnedSchema = z.object({
-  returnedOn: isoDaySchema('Enter the day the letter came back.'),
+  returnedOn: isoDaySchema(msg('notices.enterDayLetterCame', 'Enter the day the letter came back.')),
   note: optionalText(300),
 })
 export type ReturnedInput = z.input<typeof returnedSchema>
 
 export const noticeParamsSchema = z.object({
-  vehicleId: z.uuid({ error: 'That is not a vehicle id.' }),
-  noticeId: z.uuid({ error: 'That is not a notice id.' }),
+  vehicleId: z.uuid({ error: msg('common.thatNotVehicleId', 'That is not a vehicle id.') }),
+  noticeId: z.uuid({ error: msg('notices.thatNotNoticeId', 'That is not a notice id.') }),
 })
-export const sendingParamsSchema = noticeParamsSchema.extend({ sendingId: z.uuid({ error: 'That is not a sending id.' }) })
+export const sendingParamsSchema = noticeParamsSchema.extend({ sendingId: z.uuid({ error: msg('notices.thatNotSendingId', 'That is not a sending id.') }) })
 
 /** "All notices due today": what happened for each vehicle and each letter. */
 export const bulkResultSchema = z.object({

@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { FINDING_STATUSES } from '../domain/inspection/inspection-checklist'
 import { VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { optionalText, requiredText, text } from './fields'
+import { msg } from './field-messages'
 
 // The owner's page (no account): the link the office creates, what the page shows, the owner's choice.
 
@@ -30,12 +31,12 @@ export const formatCode = (code: string) => `${code.slice(0, 5)}-${code.slice(5)
 
 /** The page's key in its address: the link's token (43 characters) or a short code. */
 export const ownerKeyParamsSchema = z.object({ key: z.string().min(1).max(64) })
-export const ownerFileParamsSchema = ownerKeyParamsSchema.extend({ fileId: z.uuid({ error: 'That is not a file id.' }) })
+export const ownerFileParamsSchema = ownerKeyParamsSchema.extend({ fileId: z.uuid({ error: msg('owner.thatNotFileId', 'That is not a file id.') }) })
 
 export const codeInputSchema = z.object({
-  code: text({ error: 'Type the code from your letter.' })
+  code: text({ error: msg('owner.typeCodeFromYour', 'Type the code from your letter.') })
     .transform(normalizeCode)
-    .refine(isCode, `The code has ${CODE_LENGTH} letters and digits, like ABCDE-23456.`),
+    .refine(isCode, msg('owner.codeHas', `The code has ${CODE_LENGTH} letters and digits, like ABCDE-23456.`, { n: CODE_LENGTH })),
 })
 export type CodeInput = z.input<typeof codeInputSchema>
 
@@ -85,19 +86,19 @@ export type OwnerLinkCreated = z.infer<typeof ownerLinkCreatedSchema>
 
 export const ownerDecisionInputSchema = z
   .object({
-    choice: z.enum(OWNER_CHOICES, { error: 'Choose what should happen to the vehicle.' }),
+    choice: z.enum(OWNER_CHOICES, { error: msg('owner.chooseWhatShouldHappen', 'Choose what should happen to the vehicle.') }),
     signOverTo: z.enum(SIGN_OVER_TO).nullish().transform((v) => v ?? null),
-    fullName: requiredText(120, 'Type your full name.'),
+    fullName: requiredText(120, msg('owner.typeYourFullName', 'Type your full name.')),
     phone: optionalText(40),
     note: optionalText(500),
   })
   .superRefine((d, ctx) => {
-    if (d.choice === 'sign_over' && !d.signOverTo) ctx.addIssue({ code: 'custom', path: ['signOverTo'], message: 'Say whom you sign it over to.' })
-    if (d.choice === 'call' && !d.phone) ctx.addIssue({ code: 'custom', path: ['phone'], message: 'Give a number to call you on.' })
+    if (d.choice === 'sign_over' && !d.signOverTo) ctx.addIssue({ code: 'custom', path: ['signOverTo'], message: msg('owner.sayWhomYouSign', 'Say whom you sign it over to.') })
+    if (d.choice === 'call' && !d.phone) ctx.addIssue({ code: 'custom', path: ['phone'], message: msg('owner.giveNumberCallYou', 'Give a number to call you on.') })
   })
 export type OwnerDecisionInput = z.input<typeof ownerDecisionInputSchema>
 
-const isoDay = z.iso.date({ error: 'Choose a date.' })
+const isoDay = z.iso.date({ error: msg('owner.chooseDate', 'Choose a date.') })
 export const ownerQuoteQuerySchema = z.object({ date: isoDay })
 
 /** What the stay costs if the vehicle is collected on a date (any time that day). */
@@ -205,11 +206,11 @@ export type OwnerPage = z.infer<typeof ownerPageSchema>
 // ---- "Is my vehicle here?" ----
 
 export const lookupInputSchema = z.object({
-  plate: requiredText(12, 'Type the plate.').transform((p) => p.toUpperCase().replace(/[\s-]/g, '')),
-  vinTail: text({ error: 'Type the last characters of the VIN.' })
+  plate: requiredText(12, msg('owner.typePlate', 'Type the plate.')).transform((p) => p.toUpperCase().replace(/[\s-]/g, '')),
+  vinTail: text({ error: msg('owner.typeLastCharactersVin', 'Type the last characters of the VIN.') })
     .trim()
     .toUpperCase()
-    .regex(/^[A-HJ-NPR-Z0-9]{4,6}$/, 'Type the last 4 to 6 characters of the VIN (no I, O or Q).'),
+    .regex(/^[A-HJ-NPR-Z0-9]{4,6}$/, msg('owner.typeLast46', 'Type the last 4 to 6 characters of the VIN (no I, O or Q).')),
 })
 export type LookupInput = z.input<typeof lookupInputSchema>
 

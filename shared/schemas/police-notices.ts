@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { alongsideFieldIssues, instantSchema, optionalText, requiredText } from './fields'
 import { sourceSchema } from './rule-sets'
+import { msg } from './field-messages'
 
 /** A notification may be typed a little ahead of the server's clock; beyond that it is a typing mistake. */
 const FUTURE_SLACK_MS = 10 * 60_000
@@ -8,14 +9,14 @@ const FUTURE_SLACK_MS = 10 * 60_000
 /** What the dispatcher records once the police have been told of a tow. */
 export const policeNoticeInputSchema = z
   .object({
-    agency: requiredText(120, 'Name the police agency you told.'),
+    agency: requiredText(120, msg('policeNotices.namePoliceAgencyYou', 'Name the police agency you told.')),
     person: optionalText(120),
     notifiedAt: instantSchema,
     reportNumber: optionalText(60),
   })
   .superRefine((n, ctx) => {
     if (Date.parse(n.notifiedAt) > Date.now() + FUTURE_SLACK_MS) {
-      ctx.addIssue({ code: 'custom', path: ['notifiedAt'], message: 'When the police were told cannot be in the future.' })
+      ctx.addIssue({ code: 'custom', path: ['notifiedAt'], message: msg('policeNotices.whenPoliceWereTold', 'When the police were told cannot be in the future.') })
     }
   }, alongsideFieldIssues)
 export type PoliceNoticeInput = z.input<typeof policeNoticeInputSchema>

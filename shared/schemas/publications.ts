@@ -1,16 +1,17 @@
 import { z } from 'zod'
 import { NOTICE_PLAN_STATUSES } from './notices'
 import { requiredText, text } from './fields'
+import { msg } from './field-messages'
 
 const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/
 
 /** The office records a newspaper publication: the paper and each day it ran (first day first). */
 export const publicationInputSchema = z.object({
-  newspaper: requiredText(160, 'Enter the newspaper the notice ran in.'),
+  newspaper: requiredText(160, msg('publications.enterNewspaperNoticeRan', 'Enter the newspaper the notice ran in.')),
   days: z
-    .array(text({ error: 'Enter the day it was published.' }).regex(ISO_DAY, 'Enter the day it was published.'), { error: 'Enter the days it was published.' })
-    .min(1, 'Enter the day it was published.')
-    .max(8, 'Enter at most 8 days.'),
+    .array(text({ error: msg('publications.enterDayWasPublished', 'Enter the day it was published.') }).regex(ISO_DAY, msg('publications.enterDayWasPublished', 'Enter the day it was published.')), { error: msg('publications.enterDaysWasPublished', 'Enter the days it was published.') })
+    .min(1, msg('publications.enterDayWasPublished', 'Enter the day it was published.'))
+    .max(8, msg('publications.enterAtMost8', 'Enter at most 8 days.')),
 })
 export type PublicationInput = z.input<typeof publicationInputSchema>
 
@@ -42,7 +43,7 @@ export type PublicationsPage = z.infer<typeof publicationsPageSchema>
 
 /** The office sets the lien sale's day (the yard's calendar day); the server refuses a day earlier than the law allows. */
 export const saleDateInputSchema = z.object({
-  day: text({ error: 'Enter the sale date.' }).regex(ISO_DAY, 'Enter the sale date.'),
+  day: text({ error: msg('publications.enterSaleDate', 'Enter the sale date.') }).regex(ISO_DAY, msg('publications.enterSaleDate', 'Enter the sale date.')),
 })
 export type SaleDateInput = z.input<typeof saleDateInputSchema>
 

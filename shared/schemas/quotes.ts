@@ -1,10 +1,11 @@
 import { z } from 'zod'
 import { clockEventKindSchema } from './rule-sets'
+import { msg } from './field-messages'
 
 /** An instant with its offset: a bare local time would be read in the server's zone. */
 export const instantSchema = z.iso.datetime({ offset: true })
 
-const code = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'use lower-case words joined by dashes')
+const code = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, msg('ruleSets.codeWords', 'use lower-case words joined by dashes'))
 
 export const feeEventSchema = z.object({ fee: code, at: instantSchema })
 
@@ -20,7 +21,7 @@ export const storageQuoteRequestSchema = z.object({
   stay: staySchema,
   asOf: instantSchema,
   /** The yard's zone when it differs from the rule set's default. */
-  timeZone: z.string().min(1).max(64, 'A time zone name is at most 64 characters, like America/Los_Angeles.').optional(),
+  timeZone: z.string().min(1).max(64, msg('quotes.timeZoneNameAt', 'A time zone name is at most 64 characters, like America/Los_Angeles.')).optional(),
 })
 
 export const clockVehicleSchema = z.object({
@@ -35,7 +36,7 @@ export const legalClocksRequestSchema = z.object({
   vehicle: clockVehicleSchema,
   events: z.array(clockEventSchema).max(500),
   asOf: instantSchema,
-  timeZone: z.string().min(1).max(64, 'A time zone name is at most 64 characters, like America/Los_Angeles.').optional(),
+  timeZone: z.string().min(1).max(64, msg('quotes.timeZoneNameAt', 'A time zone name is at most 64 characters, like America/Los_Angeles.')).optional(),
 })
 
 export type Stay = z.infer<typeof staySchema>

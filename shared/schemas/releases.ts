@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { DISPOSITIONS } from '../domain/lifecycle/columns'
 import { alongsideFieldIssues, optionalText, requiredText, text } from './fields'
+import { msg } from './field-messages'
 
 /** Who comes to the counter to collect a vehicle (issue 11, "Release"). */
 export const CLAIMANT_KINDS = ['registered_owner', 'owner_agent', 'tow_operator', 'salvage_buyer', 'holding_agency'] as const
@@ -28,49 +29,49 @@ export function dayIn(timeZone: string, at = new Date()): string {
 
 export const claimantInputSchema = z
   .object({
-    kind: z.enum(CLAIMANT_KINDS, { error: 'Choose who is collecting the vehicle.' }),
-    name: requiredText(120, 'Enter the full name of the person collecting, as on their ID.'),
+    kind: z.enum(CLAIMANT_KINDS, { error: msg('releases.chooseWhoCollectingVehicle', 'Choose who is collecting the vehicle.') }),
+    name: requiredText(120, msg('releases.enterFullNamePerson', 'Enter the full name of the person collecting, as on their ID.')),
     /** For an agent, operator, buyer or agency: whom they act for or represent. */
     actingFor: optionalText(160),
-    idType: z.enum(ID_TYPES, { error: 'Choose the kind of ID shown.' }),
-    idNumber: requiredText(40, 'Enter the ID number.'),
-    idIssuer: requiredText(80, 'Enter who issued the ID (a state, a country, an agency).'),
-    idExpiry: text({ error: 'Enter the date the ID expires.' }).regex(ISO_DAY, 'Enter the date the ID expires.'),
-    authorityKind: z.enum(AUTHORITY_KINDS, { error: 'Choose the proof of ownership or authority shown.' }),
-    authorityReference: requiredText(120, 'Enter the proof’s number or a short description (title number, letter date and signer).'),
+    idType: z.enum(ID_TYPES, { error: msg('releases.chooseKindIdShown', 'Choose the kind of ID shown.') }),
+    idNumber: requiredText(40, msg('releases.enterIdNumber', 'Enter the ID number.')),
+    idIssuer: requiredText(80, msg('releases.enterWhoIssuedId', 'Enter who issued the ID (a state, a country, an agency).')),
+    idExpiry: text({ error: msg('releases.enterDateIdExpires', 'Enter the date the ID expires.') }).regex(ISO_DAY, msg('releases.enterDateIdExpires', 'Enter the date the ID expires.')),
+    authorityKind: z.enum(AUTHORITY_KINDS, { error: msg('releases.chooseProofOwnershipAuthority', 'Choose the proof of ownership or authority shown.') }),
+    authorityReference: requiredText(120, msg('releases.enterProofNumberShort', 'Enter the proof’s number or a short description (title number, letter date and signer).')),
   })
   .superRefine((c, ctx) => {
     if (c.kind && c.kind !== 'registered_owner' && !c.actingFor) {
-      ctx.addIssue({ code: 'custom', path: ['actingFor'], message: 'Name whom they collect for: the owner, the company or the agency.' })
+      ctx.addIssue({ code: 'custom', path: ['actingFor'], message: msg('releases.nameWhomTheyCollect', 'Name whom they collect for: the owner, the company or the agency.') })
     }
     if (c.kind === 'owner_agent' && c.authorityKind && c.authorityKind !== 'written_authorisation') {
-      ctx.addIssue({ code: 'custom', path: ['authorityKind'], message: "An agent needs the owner's written authorisation." })
+      ctx.addIssue({ code: 'custom', path: ['authorityKind'], message: msg('releases.agentNeedsOwnerWritten', "An agent needs the owner's written authorisation.") })
     }
     if (c.kind === 'holding_agency' && c.authorityKind && c.authorityKind !== 'agency_release') {
-      ctx.addIssue({ code: 'custom', path: ['authorityKind'], message: "The holding agency's release is the proof for an agency." })
+      ctx.addIssue({ code: 'custom', path: ['authorityKind'], message: msg('releases.holdingAgencyReleaseProof', "The holding agency's release is the proof for an agency.") })
     }
   }, alongsideFieldIssues)
 export type ClaimantInput = z.input<typeof claimantInputSchema>
 export type Claimant = z.output<typeof claimantInputSchema>
 
 export const propertyReturnSchema = z.object({
-  itemId: z.uuid({ error: 'That is not an item of the inventory.' }),
-  returned: z.boolean({ error: 'Say whether this item was handed back.' }),
+  itemId: z.uuid({ error: msg('releases.thatNotItemInventory', 'That is not an item of the inventory.') }),
+  returned: z.boolean({ error: msg('releases.sayWhetherThisItem', 'Say whether this item was handed back.') }),
   note: optionalText(200),
 })
 
 export const handoverInputSchema = z.object({
   odometer: z
-    .number({ error: 'Enter the odometer reading, or mark it unreadable.' })
-    .int('Enter the odometer as a whole number.')
-    .min(0, 'The odometer cannot be below 0.')
-    .max(2_000_000, 'The odometer cannot be above 2,000,000.')
+    .number({ error: msg('releases.enterOdometerReadingMark', 'Enter the odometer reading, or mark it unreadable.') })
+    .int(msg('releases.enterOdometerAsWhole', 'Enter the odometer as a whole number.'))
+    .min(0, msg('releases.odometerCannotBelow0', 'The odometer cannot be below 0.'))
+    .max(2_000_000, msg('releases.odometerCannotAbove2', 'The odometer cannot be above 2,000,000.'))
     .nullable(),
   odometerUnreadable: z.boolean().default(false),
   property: z.array(propertyReturnSchema).max(200),
 }).superRefine((h, ctx) => {
   if (h.odometer === null && !h.odometerUnreadable) {
-    ctx.addIssue({ code: 'custom', path: ['odometer'], message: 'Enter the odometer reading, or mark it unreadable.' })
+    ctx.addIssue({ code: 'custom', path: ['odometer'], message: msg('releases.enterOdometerReadingMark', 'Enter the odometer reading, or mark it unreadable.') })
   }
 }, alongsideFieldIssues)
 export type HandoverInput = z.input<typeof handoverInputSchema>
@@ -80,16 +81,16 @@ export const SIGNATURE_PREFIX = 'data:image/png;base64,'
 export const MAX_SIGNATURE_CHARS = 700_000
 
 export const signatureInputSchema = z.object({
-  signerName: requiredText(120, 'Enter the name of the person signing.'),
-  image: text({ error: 'Sign in the box first.' })
-    .max(MAX_SIGNATURE_CHARS, 'The signature image is too large.')
-    .refine((v) => v.startsWith(SIGNATURE_PREFIX) && v.length > SIGNATURE_PREFIX.length, 'Sign in the box first.'),
+  signerName: requiredText(120, msg('releases.enterNamePersonSigning', 'Enter the name of the person signing.')),
+  image: text({ error: msg('releases.signBoxFirst', 'Sign in the box first.') })
+    .max(MAX_SIGNATURE_CHARS, msg('releases.signatureImageTooLarge', 'The signature image is too large.'))
+    .refine((v) => v.startsWith(SIGNATURE_PREFIX) && v.length > SIGNATURE_PREFIX.length, msg('releases.signBoxFirst', 'Sign in the box first.')),
 })
 export type SignatureInput = z.infer<typeof signatureInputSchema>
 
 /** What a gate types or a scanner reads: the pass's token, its link, or its short code. */
 export const gatePassKeySchema = z.object({
-  pass: requiredText(300, 'Scan the pass or type its code.'),
+  pass: requiredText(300, msg('releases.scanPassTypeIts', 'Scan the pass or type its code.')),
 })
 export type GatePassKey = z.infer<typeof gatePassKeySchema>
 
@@ -127,6 +128,8 @@ export const releaseStepSchema = z.object({
   code: z.enum(['hold', 'balance', 'claimant', 'id-photo', 'handover', 'signature']),
   done: z.boolean(),
   message: z.string().nullable(),
+  /** Why a step is not done, each with its words' key under `refusals.reasons` (the message is their English). */
+  reasons: z.array(z.object({ message: z.string(), key: z.string().optional(), params: z.record(z.string(), z.union([z.string(), z.number()])).optional() })).default([]),
 })
 
 export const releasePageSchema = z.object({

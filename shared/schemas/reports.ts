@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { BOARD_COLUMNS } from '../domain/lifecycle/columns'
 import { lienSaleEligibleSchema } from './charges'
+import { msg } from './field-messages'
 
 const vehicleShape = {
   vehicleId: z.uuid(),
@@ -43,21 +44,21 @@ const totalsSchema = z.object({
 
 const intParam = (name: string, min: number, max: number, fallback: number) =>
   z.coerce
-    .number({ error: `${name} must be a whole number.` })
-    .int({ error: `${name} must be a whole number.` })
-    .min(min, { error: `${name} must be at least ${min}.` })
-    .max(max, { error: `${name} must be at most ${max}.` })
+    .number({ error: msg('reports.wholeNumber', `${name} must be a whole number.`, { name }) })
+    .int({ error: msg('reports.wholeNumber', `${name} must be a whole number.`, { name }) })
+    .min(min, { error: msg('reports.atLeast', `${name} must be at least ${min}.`, { name, min }) })
+    .max(max, { error: msg('reports.atMost', `${name} must be at most ${max}.`, { name, max }) })
     .default(fallback)
 
 /** Filters, sorting and paging of the receivables, shared by the page and its CSV (which ignores paging). */
 export const receivablesQuerySchema = z.object({
   page: intParam('page', 1, 100_000, 1),
   pageSize: intParam('pageSize', 1, 200, 50),
-  sort: z.enum(RECEIVABLE_SORTS, { error: `Sort by one of ${RECEIVABLE_SORTS.join(', ')}.` }).default('dueCents'),
-  order: z.enum(['asc', 'desc'], { error: 'Order is asc or desc.' }).default('desc'),
+  sort: z.enum(RECEIVABLE_SORTS, { error: msg('reports.sortBy', `Sort by one of ${RECEIVABLE_SORTS.join(', ')}.`, { sorts: RECEIVABLE_SORTS.join(', ') }) }).default('dueCents'),
+  order: z.enum(['asc', 'desc'], { error: msg('reports.orderAscDesc', 'Order is asc or desc.') }).default('desc'),
   /** Stock number, plate or vehicle, any part of it, any case. */
-  q: z.string().trim().max(100, { error: 'Search for at most 100 characters.' }).optional(),
-  column: z.enum(BOARD_COLUMNS, { error: `Choose a column among ${BOARD_COLUMNS.join(', ')}.` }).optional(),
+  q: z.string().trim().max(100, { error: msg('reports.searchForAtMost', 'Search for at most 100 characters.') }).optional(),
+  column: z.enum(BOARD_COLUMNS, { error: msg('reports.chooseColumn', `Choose a column among ${BOARD_COLUMNS.join(', ')}.`, { columns: BOARD_COLUMNS.join(', ') }) }).optional(),
   /** Only vehicles on the lot at least this many storage days. */
   minDays: intParam('minDays', 0, 100_000, 0),
 })
@@ -93,7 +94,7 @@ export type AgedRow = z.infer<typeof agedRowSchema>
 
 /** Which vehicles the aged list shows (over 30, 60 or 90 days) and which page of them. */
 export const agedQuerySchema = z.object({
-  over: z.coerce.number().pipe(z.union([z.literal(30), z.literal(60), z.literal(90)], { error: 'Over is 30, 60 or 90 days.' })).default(30),
+  over: z.coerce.number().pipe(z.union([z.literal(30), z.literal(60), z.literal(90)], { error: msg('reports.over306090', 'Over is 30, 60 or 90 days.') })).default(30),
   page: intParam('page', 1, 100_000, 1),
   pageSize: intParam('pageSize', 1, 200, 50),
 })
@@ -118,8 +119,8 @@ export type Aged = z.infer<typeof agedSchema>
 
 export const dailyQuerySchema = z.object({
   /** A day of the yard's calendar; today when not given. */
-  date: z.iso.date({ error: 'Give the day as YYYY-MM-DD.' }).optional(),
-  lang: z.enum(['en', 'es'], { error: 'The language is en or es.' }).default('en'),
+  date: z.iso.date({ error: msg('reports.giveDayAsYyyy', 'Give the day as YYYY-MM-DD.') }).optional(),
+  lang: z.enum(['en', 'es'], { error: msg('reports.languageEnEs', 'The language is en or es.') }).default('en'),
 })
 
 const movedSchema = z.object({ vehicleId: z.uuid(), stockNumber: z.string(), vehicle: z.string(), plate: z.string().nullable(), at: z.string() })
@@ -157,10 +158,10 @@ export const SALVAGE_DISPOSITIONS = ['title_transferred', 'lien_sale', 'scrapped
 export const salvageQuerySchema = z.object({
   /** A calendar month of the yard, YYYY-MM; the month before this one when not given (the report is for the prior month). */
   month: z
-    .string({ error: 'Give the month as YYYY-MM.' })
-    .regex(/^\d{4}-(0[1-9]|1[0-2])$/, { error: 'Give the month as YYYY-MM.' })
+    .string({ error: msg('reports.giveMonthAsYyyy', 'Give the month as YYYY-MM.') })
+    .regex(/^\d{4}-(0[1-9]|1[0-2])$/, { error: msg('reports.giveMonthAsYyyy', 'Give the month as YYYY-MM.') })
     .optional(),
-  lang: z.enum(['en', 'es'], { error: 'The language is en or es.' }).default('en'),
+  lang: z.enum(['en', 'es'], { error: msg('reports.languageEnEs', 'The language is en or es.') }).default('en'),
 })
 
 export const salvageRowSchema = z.object({

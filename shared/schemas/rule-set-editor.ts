@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { alongsideFieldIssues, optionalText, requiredText } from './fields'
 import { ruleSetSchema, type RuleSetInput } from './rule-sets'
+import { msg } from './field-messages'
 
 /** Events that happen at the arrival itself: nothing can be due before them. */
 const ARRIVAL_EVENTS = new Set(['stored', 'lien-arose'])
@@ -22,7 +23,7 @@ export const ruleSetEditSchema = ruleSetSchema.superRefine((parsed, ctx) => {
         ctx.addIssue({
           code: 'custom',
           path: ['storage', 'cap', 'maxStorageCents'],
-          message: `The storage cap is below one day's rate for ${dearest.label}: raise the cap or lower the rate.`,
+          message: msg('ruleSetEditor.capBelowRate', `The storage cap is below one day's rate for ${dearest.label}: raise the cap or lower the rate.`, { vehicleClass: dearest.label }),
         })
       }
     }
@@ -30,10 +31,10 @@ export const ruleSetEditSchema = ruleSetSchema.superRefine((parsed, ctx) => {
     steps.forEach((step, i) => {
       if (!step) return
       if (step.direction === 'before' && ARRIVAL_EVENTS.has(step.from) && typeof step.days === 'number' && step.days > 0) {
-        ctx.addIssue({ code: 'custom', path: ['timeline', i, 'direction'], message: 'This date would fall before the vehicle arrived: count it after its start.' })
+        ctx.addIssue({ code: 'custom', path: ['timeline', i, 'direction'], message: msg('ruleSetEditor.thisDateWouldFall', 'This date would fall before the vehicle arrived: count it after its start.') })
       }
       if (step.from === step.doneBy) {
-        ctx.addIssue({ code: 'custom', path: ['timeline', i, 'doneBy'], message: 'A step cannot be done by the same event it starts from.' })
+        ctx.addIssue({ code: 'custom', path: ['timeline', i, 'doneBy'], message: msg('ruleSetEditor.stepCannotDoneBy', 'A step cannot be done by the same event it starts from.') })
       }
     })
 }, alongsideFieldIssues)
@@ -64,28 +65,28 @@ export const ruleSetDetailSchema = z.object({
 export type RuleSetDetail = z.infer<typeof ruleSetDetailSchema>
 
 export const copyRuleSetSchema = z.object({
-  name: requiredText(120, 'Give the copy a name.'),
+  name: requiredText(120, msg('ruleSetEditor.giveCopyName', 'Give the copy a name.')),
 })
 export type CopyRuleSet = z.infer<typeof copyRuleSetSchema>
 
 export const saveRuleSetSchema = z.object({
   /** The version the manager started from: another one saved meanwhile is a conflict. */
-  version: z.number({ error: 'Reload the rule set and try again.' }).int().positive(),
+  version: z.number({ error: msg('ruleSetEditor.reloadRuleSetTry', 'Reload the rule set and try again.') }).int().positive(),
   ruleSet: ruleSetEditSchema,
   reason: optionalText(500),
 })
 export type SaveRuleSet = z.input<typeof saveRuleSetSchema>
 
 export const chooseRuleSetSchema = z.object({
-  ruleSetId: z.string({ error: 'Choose a rule set.' }).min(1, 'Choose a rule set.').max(80),
+  ruleSetId: z.string({ error: msg('ruleSetEditor.chooseRuleSet', 'Choose a rule set.') }).min(1, msg('ruleSetEditor.chooseRuleSet', 'Choose a rule set.')).max(80),
   reason: optionalText(500),
 })
 export type ChooseRuleSet = z.input<typeof chooseRuleSetSchema>
 
 /** Moves one vehicle to the latest version of its yard's rule set. */
 export const moveToLatestVersionSchema = z.object({
-  version: z.number({ error: 'Reload the vehicle and try again.' }).int().positive(),
-  reason: requiredText(500, 'Say why this vehicle moves to the new version.'),
+  version: z.number({ error: msg('common.reloadVehicleTryAgain', 'Reload the vehicle and try again.') }).int().positive(),
+  reason: requiredText(500, msg('ruleSetEditor.sayWhyThisVehicle', 'Say why this vehicle moves to the new version.')),
 })
 export type MoveToLatestVersion = z.input<typeof moveToLatestVersionSchema>
 

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { isTimeZone } from '../domain/time/local-time'
 import { TOW_REASONS } from '../domain/tow/tow-reasons'
+import { msg } from './field-messages'
 
 /**
  * A local rule set: how a jurisdiction (or a yard's own ordinance) bills storage and runs its
@@ -21,8 +22,8 @@ export const sourceSchema = z.object({
   note: z.string().min(1).optional(),
 })
 
-const code = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'use lower-case words joined by dashes')
-const cents = z.number({ error: 'Enter an amount.' }).int('Enter the amount in whole cents.').nonnegative('An amount cannot be negative.')
+const code = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, msg('ruleSets.codeWords', 'use lower-case words joined by dashes'))
+const cents = z.number({ error: msg('ruleSets.enterAmount', 'Enter an amount.') }).int(msg('ruleSets.enterAmountWholeCents', 'Enter the amount in whole cents.')).nonnegative(msg('ruleSets.amountCannotNegative', 'An amount cannot be negative.'))
 const hours = z.number().positive().max(24 * 7)
 /** A value nobody publishes statewide: the UI shows "set your rate" until the manager does. */
 const placeholder = z.boolean().default(false)
@@ -60,7 +61,7 @@ export const storageRulesSchema = z.object({
   oneDayIfReleasedWithin: z.object({ hours, source: sourceSchema }).optional(),
   cap: z
     .object({ maxDays: z.number().int().positive().optional(), maxStorageCents: cents.optional(), source: sourceSchema })
-    .refine((cap) => cap.maxDays !== undefined || cap.maxStorageCents !== undefined, 'a cap needs maxDays or maxStorageCents')
+    .refine((cap) => cap.maxDays !== undefined || cap.maxStorageCents !== undefined, msg('ruleSets.capNeeds', 'a cap needs maxDays or maxStorageCents'))
     .optional(),
   taxable: z.boolean(),
 })
@@ -70,7 +71,7 @@ export const taxSchema = z.object({
     .number()
     .min(0)
     .max(30)
-    .refine((p) => Math.abs(p * 10_000 - Math.round(p * 10_000)) < 1e-6, 'at most four decimals'),
+    .refine((p) => Math.abs(p * 10_000 - Math.round(p * 10_000)) < 1e-6, msg('ruleSets.fourDecimals', 'at most four decimals')),
   placeholder,
   source: sourceSchema,
 })
@@ -96,7 +97,7 @@ export const clockEventKindSchema = z.enum([
 
 const range = z
   .object({ over: z.number().int().nonnegative().optional(), atMost: z.number().int().nonnegative().optional() })
-  .refine((r) => r.over !== undefined || r.atMost !== undefined, 'give over, atMost or both')
+  .refine((r) => r.over !== undefined || r.atMost !== undefined, msg('ruleSets.overOrAtMost', 'give over, atMost or both'))
 
 export const timelineStepSchema = z.object({
   code,
@@ -173,7 +174,7 @@ export const ruleSetSchema = z
     sample: z.boolean(),
     /** Shown wherever the rule set is: requirements vary, and the sample is not legal advice. */
     caution: z.string().min(1),
-    timeZone: z.string().refine(isTimeZone, 'an IANA time zone such as America/Los_Angeles'),
+    timeZone: z.string().refine(isTimeZone, msg('ruleSets.ianaTimeZone', 'an IANA time zone such as America/Los_Angeles')),
     holidayCalendar: calendarKeySchema,
     businessDays: businessDaysSchema.optional(),
     mailDeadlines: mailDeadlinesSchema.optional(),
@@ -189,8 +190,8 @@ export const ruleSetSchema = z
     totalLoss: totalLossSchema,
     notes: z.array(z.string().min(1)).default([]),
   })
-  .refine((r) => unique(r.vehicleClasses, (c) => c.code), { message: 'vehicle class codes must differ', path: ['vehicleClasses'] })
-  .refine((r) => unique(r.fees, (f) => f.code), { message: 'fee codes must differ', path: ['fees'] })
+  .refine((r) => unique(r.vehicleClasses, (c) => c.code), { message: msg('ruleSets.classCodesDiffer', 'vehicle class codes must differ'), path: ['vehicleClasses'] })
+  .refine((r) => unique(r.fees, (f) => f.code), { message: msg('ruleSets.feeCodesDiffer', 'fee codes must differ'), path: ['fees'] })
 
 export type Confidence = z.infer<typeof confidenceSchema>
 export type Source = z.infer<typeof sourceSchema>

@@ -1,8 +1,9 @@
 import { z } from 'zod'
 import { VEHICLE_STATES } from '../domain/lifecycle/columns'
+import { msg } from './field-messages'
 
 export const searchQuerySchema = z.object({
-  q: z.string({ error: 'Type a stock number, plate, VIN or owner name.' }).trim().min(2, 'Type at least 2 characters.').max(60),
+  q: z.string({ error: msg('search.typeStockNumberPlate', 'Type a stock number, plate, VIN or owner name.') }).trim().min(2, msg('search.typeAtLeast2', 'Type at least 2 characters.')).max(60),
 })
 
 export const searchHitSchema = z.object({

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { msg } from './field-messages'
 
 export const spaceSchema = z.object({
   id: z.uuid(),
@@ -18,7 +19,7 @@ export const spacesSchema = z.object({ spaces: z.array(spaceSchema) })
 export const assignSpaceSchema = z.object({
   version: z.number().int().positive(),
   /** null takes the vehicle out of its space (say, moved to the wash bay for a day). */
-  spaceId: z.uuid({ error: 'Choose a space from the list.' }).nullable(),
+  spaceId: z.uuid({ error: msg('common.chooseSpaceFromList', 'Choose a space from the list.') }).nullable(),
 })
 export type AssignSpace = z.infer<typeof assignSpaceSchema>
 

@@ -5,14 +5,15 @@ import { optionalText, text } from './fields'
 import { holdInputSchema } from './holds'
 import { towRatesSchema, towSchema } from './tows'
 import { conditionSchema, vehicleSchema } from './vehicles'
+import { msg } from './field-messages'
 
 /** Everything the dispatcher records when a vehicle comes through the gate; photos travel beside it. */
 export const towInSchema = z.object({
   tow: towSchema,
   vehicle: vehicleSchema,
-  holds: z.array(holdInputSchema).max(10, 'At most 10 holds.').default([]),
+  holds: z.array(holdInputSchema).max(10, msg('towIn.atMost10Holds', 'At most 10 holds.')).default([]),
   condition: conditionSchema,
-  spaceId: z.uuid({ error: 'Choose a space from the list.' }).nullish().transform((v) => v ?? null),
+  spaceId: z.uuid({ error: msg('common.chooseSpaceFromList', 'Choose a space from the list.') }).nullish().transform((v) => v ?? null),
   /** Why this is logged although a vehicle with the same VIN or plate is still in the yard (a 409 asks). */
   duplicateReason: optionalText(300),
 })
@@ -56,7 +57,7 @@ export type IntakeOptions = z.infer<typeof intakeOptionsSchema>
 /** A correction names the version it was made against and why; only the fields that differ are recorded. */
 export const correctVehicleSchema = z.object({
   version: z.number().int().positive(),
-  reason: text({ error: 'Say why the record is corrected.' }).trim().min(3, 'Say why the record is corrected.').max(500),
+  reason: text({ error: msg('towIn.sayWhyRecordCorrected', 'Say why the record is corrected.') }).trim().min(3, msg('towIn.sayWhyRecordCorrected', 'Say why the record is corrected.')).max(500),
   vehicle: vehicleSchema.optional(),
   tow: towSchema.optional(),
   conditionNotes: text().trim().max(2000).nullish().transform((v) => v || null).optional(),

@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { ID_TYPES } from './releases'
 import { alongsideFieldIssues, optionalText, requiredText, text } from './fields'
 import { lienSaleGateSchema } from './charges'
+import { msg } from './field-messages'
 
 /**
  * A title transfer (issue 11): the owner signs the vehicle over to the yard or a salvage buyer
@@ -20,33 +21,33 @@ export const MAX_PRICE_CENTS = 10_000_000_000
 
 export const transferInputSchema = z
   .object({
-    kind: z.enum(TRANSFER_KINDS, { error: 'Choose a sign-over or a lien sale.' }),
-    sellerName: requiredText(120, 'Enter the seller: the owner signing it over, or the yard selling under its lien.'),
-    buyerKind: z.enum(BUYER_KINDS, { error: 'Choose who buys it.' }),
-    buyerName: requiredText(120, 'Enter the buyer.'),
-    buyerAddress: requiredText(240, "Enter the buyer's address."),
-    buyerIdType: z.enum(ID_TYPES, { error: 'Choose the kind of ID the buyer showed.' }).nullish().transform((v) => v ?? null),
+    kind: z.enum(TRANSFER_KINDS, { error: msg('transfers.chooseSignOverLien', 'Choose a sign-over or a lien sale.') }),
+    sellerName: requiredText(120, msg('transfers.enterSellerOwnerSigning', 'Enter the seller: the owner signing it over, or the yard selling under its lien.')),
+    buyerKind: z.enum(BUYER_KINDS, { error: msg('transfers.chooseWhoBuys', 'Choose who buys it.') }),
+    buyerName: requiredText(120, msg('transfers.enterBuyer', 'Enter the buyer.')),
+    buyerAddress: requiredText(240, msg('transfers.enterBuyerAddress', "Enter the buyer's address.")),
+    buyerIdType: z.enum(ID_TYPES, { error: msg('transfers.chooseKindIdBuyer', 'Choose the kind of ID the buyer showed.') }).nullish().transform((v) => v ?? null),
     buyerIdNumber: optionalText(40),
     priceCents: z
-      .number({ error: 'Enter the price.' })
-      .int('Enter the price in whole cents.')
-      .min(0, 'The price cannot be negative.')
-      .max(MAX_PRICE_CENTS, 'The price is too large.'),
-    date: text({ error: 'Enter the date of the sale.' }).regex(ISO_DAY, 'Enter the date of the sale.'),
-    odometer: z.number({ error: 'Enter the odometer as a number.' }).int('Enter the odometer in whole miles.').min(0, 'The odometer cannot be negative.').max(2_000_000, 'The odometer reading is too large.').nullish().transform((v) => v ?? null),
+      .number({ error: msg('transfers.enterPrice', 'Enter the price.') })
+      .int(msg('transfers.enterPriceWholeCents', 'Enter the price in whole cents.'))
+      .min(0, msg('transfers.priceCannotNegative', 'The price cannot be negative.'))
+      .max(MAX_PRICE_CENTS, msg('transfers.priceTooLarge', 'The price is too large.')),
+    date: text({ error: msg('transfers.enterDateSale', 'Enter the date of the sale.') }).regex(ISO_DAY, msg('transfers.enterDateSale', 'Enter the date of the sale.')),
+    odometer: z.number({ error: msg('transfers.enterOdometerAsNumber', 'Enter the odometer as a number.') }).int(msg('transfers.enterOdometerWholeMiles', 'Enter the odometer in whole miles.')).min(0, msg('transfers.odometerCannotNegative', 'The odometer cannot be negative.')).max(2_000_000, msg('transfers.odometerReadingTooLarge', 'The odometer reading is too large.')).nullish().transform((v) => v ?? null),
     odometerUnreadable: z.boolean().default(false),
     /** The GVWR in pounds when known (49 CFR 580.17(a)(1)); unknown is treated as not exempt by weight. */
-    gvwrLb: z.number({ error: 'Enter the GVWR in pounds.' }).int('Enter the GVWR in whole pounds.').min(1, 'Enter the GVWR in pounds.').max(200_000, 'The GVWR is too large.').nullish().transform((v) => v ?? null),
+    gvwrLb: z.number({ error: msg('transfers.enterGvwrPounds', 'Enter the GVWR in pounds.') }).int(msg('transfers.enterGvwrWholePounds', 'Enter the GVWR in whole pounds.')).min(1, msg('transfers.enterGvwrPounds', 'Enter the GVWR in pounds.')).max(200_000, msg('transfers.gvwrTooLarge', 'The GVWR is too large.')).nullish().transform((v) => v ?? null),
     selfPropelled: z.boolean().default(true),
   })
   .superRefine((v, ctx) => {
     if (v.kind === 'signed_over' && v.buyerKind === 'other') {
-      ctx.addIssue({ code: 'custom', path: ['buyerKind'], message: 'A vehicle is signed over to the yard or a salvage buyer; a sale to anyone else is a lien sale.' })
+      ctx.addIssue({ code: 'custom', path: ['buyerKind'], message: msg('transfers.vehicleSignedOverYard', 'A vehicle is signed over to the yard or a salvage buyer; a sale to anyone else is a lien sale.') })
     }
     // Anyone but the yard itself shows an ID: the buyer's name and ID go on the bill of sale.
     if (v.buyerKind !== 'yard' && v.buyerKind !== undefined) {
-      if (!v.buyerIdType) ctx.addIssue({ code: 'custom', path: ['buyerIdType'], message: 'Choose the kind of ID the buyer showed.' })
-      if (!v.buyerIdNumber) ctx.addIssue({ code: 'custom', path: ['buyerIdNumber'], message: "Enter the buyer's ID number." })
+      if (!v.buyerIdType) ctx.addIssue({ code: 'custom', path: ['buyerIdType'], message: msg('transfers.chooseKindIdBuyer', 'Choose the kind of ID the buyer showed.') })
+      if (!v.buyerIdNumber) ctx.addIssue({ code: 'custom', path: ['buyerIdNumber'], message: msg('transfers.enterBuyerIdNumber', "Enter the buyer's ID number.") })
     }
   }, alongsideFieldIssues)
 export type TransferInput = z.input<typeof transferInputSchema>

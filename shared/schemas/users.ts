@@ -3,21 +3,22 @@ import { normalizePassword, passwordProblem } from '../domain/passwords'
 import { ROLES } from '../domain/access/roles'
 import { LOCALES } from '../messages/locales'
 import { text } from './fields'
+import { msg } from './field-messages'
 
-export const roleSchema = z.enum(ROLES, { error: 'Choose a role: manager, dispatcher, technician or office.' })
+export const roleSchema = z.enum(ROLES, { error: msg('users.chooseRoleManagerDispatcher', 'Choose a role: manager, dispatcher, technician or office.') })
 
-const email = z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address.' })).pipe(z.string().max(200))
+const email = z.string().trim().toLowerCase().pipe(z.email({ error: msg('users.enterValidMailAddress', 'Enter a valid e-mail address.') })).pipe(z.string().max(200))
 // NIST SP 800-63B, OWASP ASVS 5.0 V6.2: length, no composition rules, nothing guessed first; kept in
 // one normal form. The server also refuses the most common passwords (server/users/common-passwords.ts).
-export const passwordSchema = text({ error: 'Enter a password.' })
-  .min(1, 'Enter a password.')
+export const passwordSchema = text({ error: msg('users.enterPassword', 'Enter a password.') })
+  .min(1, msg('users.enterPassword', 'Enter a password.'))
   .transform(normalizePassword)
   .superRefine((password, ctx) => {
     const problem = passwordProblem(password)
     if (problem) ctx.addIssue({ code: 'custom', message: problem })
   })
 
-export const localeSchema = z.enum(LOCALES, { error: 'Choose English or Spanish.' })
+export const localeSchema = z.enum(LOCALES, { error: msg('common.chooseEnglishSpanish', 'Choose English or Spanish.') })
 
 export const userSchema = z.object({
   id: z.uuid(),
@@ -41,7 +42,7 @@ export type UserRow = z.infer<typeof userRowSchema>
 
 export const createUserSchema = z.object({
   email,
-  name: text().trim().min(1, 'Enter a name.').max(120, 'Keep the name under 120 characters.'),
+  name: text().trim().min(1, msg('users.enterName', 'Enter a name.')).max(120, msg('users.keepNameUnder120', 'Keep the name under 120 characters.')),
   role: roleSchema,
   password: passwordSchema,
 })
@@ -53,7 +54,7 @@ export const updateUserSchema = z
     role: roleSchema.optional(),
     active: z.boolean().optional(),
   })
-  .refine((v) => Object.keys(v).length > 0, 'Nothing to change.')
+  .refine((v) => Object.keys(v).length > 0, msg('users.nothingChange', 'Nothing to change.'))
 export type UpdateUser = z.infer<typeof updateUserSchema>
 
 export const resetPasswordSchema = z.object({ password: passwordSchema })
@@ -65,10 +66,10 @@ export type SetLocale = z.infer<typeof setLocaleSchema>
 /** PUT /api/users/:id/yards: every yard of the company, or the yards chosen (at least one). */
 export const staffYardsSchema = z
   .object({
-    allYards: z.boolean({ error: 'Choose all yards or the yards this person works in.' }),
-    yardIds: z.array(z.uuid({ error: 'Choose one of your yards.' })).max(200).default([]),
+    allYards: z.boolean({ error: msg('users.chooseAllYardsYards', 'Choose all yards or the yards this person works in.') }),
+    yardIds: z.array(z.uuid({ error: msg('common.chooseOneYourYards', 'Choose one of your yards.') })).max(200).default([]),
   })
   .superRefine((v, ctx) => {
-    if (!v.allYards && v.yardIds.length === 0) ctx.addIssue({ code: 'custom', path: ['yardIds'], message: 'Choose at least one yard, or all yards.' })
+    if (!v.allYards && v.yardIds.length === 0) ctx.addIssue({ code: 'custom', path: ['yardIds'], message: msg('users.chooseAtLeastOne', 'Choose at least one yard, or all yards.') })
   })
 export type StaffYards = z.input<typeof staffYardsSchema>

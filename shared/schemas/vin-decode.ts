@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { normalizeVin, vin as readVin } from '../domain/vehicle/vin'
+import { msg } from './field-messages'
 
 /** Where decoded values come from, said beside them wherever they are shown. */
 export const VPIC_SOURCE = 'NHTSA vPIC'
@@ -11,10 +12,10 @@ export const VPIC_SOURCE = 'NHTSA vPIC'
  */
 export const vinDecodeParamsSchema = z.object({
   vin: z
-    .string({ error: 'Enter the VIN to decode.' })
-    .max(40, 'A VIN has 17 characters.')
+    .string({ error: msg('vinDecode.enterVinDecode', 'Enter the VIN to decode.') })
+    .max(40, msg('common.vinHas17Characters', 'A VIN has 17 characters.'))
     .transform(normalizeVin)
-    .pipe(z.string().regex(/^[A-HJ-NPR-Z0-9]{17}$/, 'Only a 17-character VIN can be decoded: letters and digits, never I, O or Q.'))
+    .pipe(z.string().regex(/^[A-HJ-NPR-Z0-9]{17}$/, msg('vinDecode.only17CharacterVin', 'Only a 17-character VIN can be decoded: letters and digits, never I, O or Q.')))
     .superRefine((v, ctx) => {
       const problem = readVin(v).problems.find((p) => p.code === 'check-digit')
       if (problem) ctx.addIssue({ code: 'custom', message: problem.message })

@@ -3,23 +3,28 @@ import { SPACE_SIZES } from '../domain/vehicle/space-fit'
 import { isTimeZone } from '../domain/time/local-time'
 import { text } from './fields'
 import { towRatesSchema } from './tows'
+import { type FieldWhat, msg, whatWords } from './field-messages'
 
-const cents = (what: string) => z.number({ error: `Enter ${what} in cents.` }).int(`Enter ${what} in whole cents.`).nonnegative(`${what} cannot be negative.`)
+const cents = (what: FieldWhat, { words } = whatWords(what)) =>
+  z
+    .number({ error: msg('yardSettings.enterInCents', `Enter ${words} in cents.`, { what }) })
+    .int(msg('common.enterInWholeCents', `Enter ${words} in whole cents.`, { what }))
+    .nonnegative(msg('yardSettings.cannotBeNegative', `${words} cannot be negative.`, { what }))
 
 /** What a manager sets for a yard in Settings → Yards (the stock-number prefix is `code`). */
 export const yardFieldsSchema = z.object({
-  name: text().trim().min(1, 'Give the yard a name.').max(120),
+  name: text().trim().min(1, msg('yardSettings.giveYardName', 'Give the yard a name.')).max(120),
   code: z
     .string()
     .trim()
     .toUpperCase()
-    .regex(/^[A-Z]{2,4}$/, 'Use 2 to 4 letters: they start every stock number (e.g. TC-2026-00041).'),
-  address: text().trim().min(1, 'Enter the yard address.').max(300),
+    .regex(/^[A-Z]{2,4}$/, msg('yardSettings.use24Letters', 'Use 2 to 4 letters: they start every stock number (e.g. TC-2026-00041).')),
+  address: text().trim().min(1, msg('yardSettings.enterYardAddress', 'Enter the yard address.')).max(300),
   phone: text().trim().max(40).nullish(),
-  lat: z.number({ error: 'Place the yard on the map.' }).min(-90).max(90),
-  lng: z.number({ error: 'Place the yard on the map.' }).min(-180).max(180),
-  timeZone: z.string().refine(isTimeZone, 'Use an IANA time zone such as America/Chicago.'),
-  labourRateCents: cents('the labour rate'),
+  lat: z.number({ error: msg('yardSettings.placeYardMap', 'Place the yard on the map.') }).min(-90).max(90),
+  lng: z.number({ error: msg('yardSettings.placeYardMap', 'Place the yard on the map.') }).min(-180).max(180),
+  timeZone: z.string().refine(isTimeZone, msg('yardSettings.useIanaTimeZone', 'Use an IANA time zone such as America/Chicago.')),
+  labourRateCents: cents('labourRate'),
   towRates: towRatesSchema.strict(),
 })
 export type YardFields = z.infer<typeof yardFieldsSchema>
@@ -30,10 +35,10 @@ export const spaceBlockSchema = z.object({
     .string()
     .trim()
     .toUpperCase()
-    .regex(/^[A-Z]$/, 'Start the rows at a letter, A to Z.')
+    .regex(/^[A-Z]$/, msg('yardSettings.startRowsAtLetter', 'Start the rows at a letter, A to Z.'))
     .default('A'),
-  rows: z.number({ error: 'Enter how many rows.' }).int().min(1, 'At least one row.').max(26, 'At most 26 rows (A to Z).'),
-  perRow: z.number({ error: 'Enter how many spaces a row has.' }).int().min(1, 'At least one space a row.').max(200, 'At most 200 spaces a row.'),
+  rows: z.number({ error: msg('yardSettings.enterHowManyRows', 'Enter how many rows.') }).int().min(1, msg('yardSettings.atLeastOneRow', 'At least one row.')).max(26, msg('yardSettings.atMost26Rows', 'At most 26 rows (A to Z).')),
+  perRow: z.number({ error: msg('yardSettings.enterHowManySpaces', 'Enter how many spaces a row has.') }).int().min(1, msg('yardSettings.atLeastOneSpace', 'At least one space a row.')).max(200, msg('yardSettings.atMost200Spaces', 'At most 200 spaces a row.')),
   size: z.enum(SPACE_SIZES).default('standard'),
 })
 export type SpaceBlock = z.infer<typeof spaceBlockSchema>
@@ -44,7 +49,7 @@ export const newYardSchema = yardFieldsSchema.extend({
 })
 export type NewYard = z.infer<typeof newYardSchema>
 
-export const editYardSchema = yardFieldsSchema.partial().refine((v) => Object.keys(v).length > 0, 'Change at least one value.')
+export const editYardSchema = yardFieldsSchema.partial().refine((v) => Object.keys(v).length > 0, msg('yardSettings.changeAtLeastOne', 'Change at least one value.'))
 export type EditYard = z.infer<typeof editYardSchema>
 
 export const yardSettingsSpaceSchema = z.object({

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { text } from './fields'
 import { yardFieldsSchema } from './yard-settings'
+import { msg } from './field-messages'
 
 /** A yard as the first-run CLI sets it up: Settings → Yards' own fields, the position typed as text, and a sample rule set. */
 export const yardSetupSchema = yardFieldsSchema.pick({ name: true, code: true, address: true, timeZone: true }).extend({
@@ -25,5 +26,5 @@ export const myYardsSchema = z.object({
 export type MyYards = z.infer<typeof myYardsSchema>
 
 /** PUT /api/yards/current: work in another of one's yards (remembered per person). */
-export const chooseYardSchema = z.object({ yardId: z.uuid({ error: 'Choose one of your yards.' }) })
+export const chooseYardSchema = z.object({ yardId: z.uuid({ error: msg('common.chooseOneYourYards', 'Choose one of your yards.') }) })
 export type ChooseYard = z.infer<typeof chooseYardSchema>

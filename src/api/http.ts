@@ -1,9 +1,14 @@
 import type { z } from 'zod'
+import type { FieldParams } from '@shared/schemas/field-messages'
+import { fieldText } from '@/composables/field-words'
 import { refusalText } from '@/composables/refusal-words'
 
+/** A refused field: `message` is in the reader's language once received (its `code` under `fields`, else the server's English). */
 export interface FieldIssue {
   path: string
   message: string
+  code?: string
+  params?: FieldParams
 }
 
 /** A refused or failed request, with the server's own message and per-field issues. */
@@ -63,8 +68,17 @@ async function send(method: Method, url: string, body?: unknown): Promise<Respon
   if (!res.ok) {
     const data = (await res.json().catch(() => ({}))) as { error?: string; code?: string; params?: Record<string, string | number>; issues?: FieldIssue[] }
     // A refusal's code (refusals.<code> in shared/messages) gives its words in the reader's language; the English is the fallback.
-    const message = refusalText(data.code, data.params, data.error ?? `The server answered ${res.status}.`)
-    throw new ApiError(res.status, message, data.issues ?? [], data as Record<string, unknown>)
+    // So does each field issue's code (fields.<code>); a refusal that is only its issues reads as they do.
+    // An issue that only repeats the refusal's sentence (a payment's amount) reads as the refusal does.
+    const refusal = refusalText(data.code, data.params, data.error ?? `The server answered ${res.status}.`)
+    const issues = (data.issues ?? []).map((i) => ({ ...i, message: !i.code && data.code && i.message === data.error ? refusal : fieldText(i) }))
+    const message = !data.code && issues.some((i) => i.code) ? issuesText(issues) : refusal
+    throw new ApiError(res.status, message, issues, data as Record<string, unknown>)
   }
   return res
+}
+
+/** Several refused fields in a sentence, as the server's English summary says them. */
+function issuesText(issues: FieldIssue[]): string {
+  return issues.length === 1 ? issues[0]!.message : refusalText('fixFields', { n: issues.length, first: issues[0]!.message }, issues[0]!.message)
 }

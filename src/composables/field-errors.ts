@@ -1,6 +1,7 @@
 import { reactive, watch, type WatchStopHandle } from 'vue'
 import type { z } from 'zod'
 import { ApiError } from '@/api/http'
+import { fieldText } from './field-words'
 
 /** The value at a dotted path of an issue ("tow.reason", "lines.0.hours"). */
 function valueAt(draft: unknown, path: string): string {
@@ -11,7 +12,8 @@ function valueAt(draft: unknown, path: string): string {
 
 /**
  * Per-field messages from the shared zod schema (checked before sending) or from the server's 400
- * answer (`issues[].path`), so the message shows beside the field either way. Once a form follows
+ * answer (`issues[].path`), so the message shows beside the field either way, in the reader's
+ * language (`fieldText`; the server's are rendered as they arrive, in src/api/http.ts). Once a form follows
  * its draft (`follow`), a message goes as soon as its field is right: the schema's at once, the
  * server's when the field is changed (only the server can say it is right).
  */
@@ -29,7 +31,8 @@ export function useFieldErrors() {
 
   function fromZod(error: z.ZodError) {
     clear()
-    for (const issue of error.issues) errors[issue.path.join('.')] ??= issue.message
+    // Only the message: a zod issue's own `code` (too_small, custom…) is not one of the catalog's.
+    for (const issue of error.issues) errors[issue.path.join('.')] ??= fieldText({ message: issue.message })
   }
 
   /** Returns true when the error was about fields and is now shown beside them. */
@@ -38,7 +41,8 @@ export function useFieldErrors() {
     if (!(error instanceof ApiError) || error.issues.length === 0) return false
     const draft = followed?.source()
     for (const issue of error.issues) {
-      errors[issue.path] ??= issue.message
+      // Rendered again: its words may have loaded since the answer came (the sign-in page loads them late).
+      errors[issue.path] ??= fieldText(issue)
       if (followed) refused.set(issue.path, valueAt(draft, issue.path))
     }
     return true

@@ -1,6 +1,6 @@
 import { i18n } from '@/i18n'
 import { money } from '@/composables/money'
-import { calendarDate } from '@/composables/yard-time'
+import { calendarDate, yardFormat } from '@/composables/yard-time'
 
 // A refusal in the reader's language. The server and the shared lifecycle send a code (a key under
 // `refusals` in shared/messages) and its parameters beside their English sentence; the sentence is the
@@ -13,6 +13,7 @@ function words(name: string, value: string | number): string | number {
   if (typeof value === 'number') return name.endsWith('Cents') ? money(value) : value
   if ((name === 'column' || name === 'from' || name === 'to' || name === 'state') && te(`lifecycle.columns.${value}`)) return t(`lifecycle.columns.${value}`)
   if (name === 'hold' && te(`lifecycle.holds.${value}`)) return t(`lifecycle.holds.${value}`)
+  if (name === 'steps') return value.split(',').map((s) => (te(`releases.steps.${s}`) ? t(`releases.steps.${s}`) : s)).join(', ')
   if (name === 'roles') return value.split(',').map((r) => (te(`access.roles.${r}`) ? t(`access.roles.${r}`) : r)).join(', ')
   if (name === 'date' && /^\d{4}-\d{2}-\d{2}$/.test(value)) return calendarDate(value)
   return value
@@ -22,6 +23,8 @@ function words(name: string, value: string | number): string | number {
 export function refusalText(key: string | undefined, params: Params | undefined, fallback: string): string {
   if (!key || !te(`refusals.${key}`)) return fallback
   const shown = Object.fromEntries(Object.entries(params ?? {}).map(([k, v]) => [k, words(k, v)]))
+  // An instant (`at`) reads on the clock of the yard it names (`timeZone`).
+  if (typeof params?.at === 'string' && typeof params.timeZone === 'string') shown.at = yardFormat(params.timeZone).dateTime(params.at)
   return t(`refusals.${key}`, shown)
 }
 

@@ -106,6 +106,8 @@ describe('the gate pass', () => {
     const res = await s.post('/api/gate/record-out', { pass: link })
     expect(res.status).toBe(410)
     expect(res.body).toMatchObject({ reason: 'expired', error: expect.stringMatching(/^This pass expired on .*\. The office issues a new one\.$/) })
+    // The instant and the yard's zone, for the reader's language and clock (refusals.passExpired).
+    expect(res.body).toMatchObject({ code: 'passExpired', params: { at: past.toISOString(), timeZone: expect.any(String) } })
     expect(await vehicleRow(app.db, vehicle.id)).toMatchObject({ state: 'release' })
   })
 
@@ -137,6 +139,7 @@ describe('the gate pass', () => {
     const res = await s.post('/api/gate/check', { pass: link })
     expect(res.status).toBe(410)
     expect(res.body.reason).toBe('withdrawn')
+    expect(res.body.code).toBe('passWithdrawn')
   })
 
   it('judges the guards again at the gate: a hold set after the pass was issued keeps the vehicle in, and the pass unused', async () => {

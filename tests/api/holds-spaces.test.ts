@@ -39,7 +39,7 @@ describe('holds', () => {
   it('lifting a hold twice is a conflict; lifting needs a reason', async () => {
     const holdId = (await d.post(`/api/vehicles/${id}/holds`, { kind: 'lien', note: 'Mechanic lien claimed' })).body.holds[0].id
     expect((await d.post(`/api/vehicles/${id}/holds/${holdId}/lift`, { reason: '' })).body.issues).toEqual([
-      { path: 'reason', message: 'Say why the hold is lifted, e.g. the release letter and who signed it.' },
+      { path: 'reason', message: 'Say why the hold is lifted, e.g. the release letter and who signed it.', code: 'holds.sayWhyHoldLifted' },
     ])
     await d.post(`/api/vehicles/${id}/holds/${holdId}/lift`, { reason: 'Paid off' }).expect(200)
     expect((await d.post(`/api/vehicles/${id}/holds/${holdId}/lift`, { reason: 'Again' })).status).toBe(409)
@@ -56,7 +56,7 @@ describe('holds', () => {
     const before = await counts(app.db)
     const res = await d.post(`/api/vehicles/${id}/holds`, { kind: 'dispute', note: 'Owner disputes the tow', until: '2000-01-01T00:00:00Z' })
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'until', message: 'This date has passed: a hold that has already ended need not be set.' }])
+    expect(res.body.issues).toEqual([{ path: 'until', message: 'This date has passed: a hold that has already ended need not be set.', code: 'holds.thisDateHasPassed' }])
     expect(await counts(app.db)).toEqual(before)
   })
 

@@ -39,7 +39,7 @@ describe('text with a lone surrogate is refused as a 400 naming the field, and n
     const before = await counts(app.db)
     const res = await send()
     expect(res.status, JSON.stringify(res.body)).toBe(400)
-    expect(res.body.issues).toEqual([{ path, message: expect.stringMatching(BROKEN) }])
+    expect(res.body.issues).toEqual([{ path, message: expect.stringMatching(BROKEN), code: 'common.containsBrokenCharacterLone' }])
     expect(await counts(app.db)).toEqual(before)
   })
 
@@ -47,7 +47,7 @@ describe('text with a lone surrogate is refused as a 400 naming the field, and n
     const m = await signedIn(app.app, staff.manager)
     const res = await m.patch(`/api/users/${staff.office.id}`, { name: LOW })
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'name', message: expect.stringMatching(BROKEN) }])
+    expect(res.body.issues).toEqual([{ path: 'name', message: expect.stringMatching(BROKEN), code: 'common.containsBrokenCharacterLone' }])
     const [row] = await app.db.select().from(t.users).where(eq(t.users.id, staff.office.id))
     expect(row!.name).toBe('Test office')
   })
@@ -65,7 +65,7 @@ describe('text with a lone surrogate is refused as a 400 naming the field, and n
     const s = await browserSession(app.app)
     const res = await s.signIn(staff.office.email, '\ud800\ud800\ud800')
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'password', message: expect.stringMatching(BROKEN) }])
+    expect(res.body.issues).toEqual([{ path: 'password', message: expect.stringMatching(BROKEN), code: 'common.containsBrokenCharacterLone' }])
   })
 
   it('a paired surrogate (an emoji) is a real character and is kept as typed', async () => {

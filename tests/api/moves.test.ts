@@ -188,7 +188,7 @@ describe('POST /api/vehicles/:vehicleId/moves', () => {
     const s = await signedIn(t_.app, staff.manager)
     const res = await s.post(move('not-a-uuid'), { to: 'teardown', version: 1 })
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'vehicleId', message: 'That is not a vehicle id.' }])
+    expect(res.body.issues).toEqual([{ path: 'vehicleId', message: 'That is not a vehicle id.', code: 'common.thatNotVehicleId' }])
   })
 
   it('move_anotherCompanysVehicle_answers404AndLeavesItAlone', async () => {

@@ -142,8 +142,8 @@ describe('bad input at the counter: refused with the field named, nothing writte
     const res = await s.put(`${base(vehicle.id)}/handover`, { odometer: 1_200, property: [{ itemId: items[0]!.id, returned: true }] })
     expect(res.status).toBe(400)
     expect(res.body.issues).toEqual([
-      { path: 'property', message: 'Check off every item of the intake inventory: Toolbox still to do.' },
-      { path: 'odometer', message: 'The odometer reads less than at intake (88,000). Read it again.' },
+      { path: 'property', message: 'Check off every item of the intake inventory: Toolbox still to do.', code: 'releases.checkOffEvery', params: { items: 'Toolbox' } },
+      { path: 'odometer', message: 'The odometer reads less than at intake (88,000). Read it again.', code: 'releases.odometerBelowIntake', params: { intake: '88,000' } },
     ])
     expect((await releaseRow(vehicle.id))!.handoverRecordedAt).toBeNull()
     expect(await app.db.select().from(t.releaseProperty)).not.toContainEqual(expect.objectContaining({ itemId: items[0]!.id }))

@@ -81,7 +81,7 @@ describe('the lien sale date (Cal. Civ. Code § 3071, valued over $4,000)', () =
     expect(res.body).toMatchObject({ code: 'saleTooEarly', params: { date: earliest } })
     expect(res.body.issues).toEqual([{ path: 'day', message: expect.stringContaining(earliest) }])
     expect(await saleEvents(v.id)).toEqual([])
-    expect((await s.put(base(v.id), { day: 'soon' })).body.issues).toContainEqual({ path: 'day', message: 'Enter the sale date.' })
+    expect((await s.put(base(v.id), { day: 'soon' })).body.issues).toContainEqual({ path: 'day', message: 'Enter the sale date.', code: 'publications.enterSaleDate' })
     const ok = await s.put(base(v.id), { day: earliest })
     expect(ok.status).toBe(200)
     expect(ok.body.scheduled).toBe(earliest)

@@ -57,6 +57,6 @@ describe('search from the top bar', () => {
   it('a one-letter search is refused with the reason', async () => {
     const res = await d.agent.get('/api/vehicles/search').query({ q: 'a' })
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'q', message: 'Type at least 2 characters.' }])
+    expect(res.body.issues).toEqual([{ path: 'q', message: 'Type at least 2 characters.', code: 'search.typeAtLeast2' }])
   })
 })

@@ -43,6 +43,8 @@ describe('session API', () => {
     expect(unknown.status).toBe(401)
     expect(wrong.status).toBe(401)
     expect(unknown.body.error).toBe(wrong.body.error)
+    // One code too, for the reader's language: it tells no more than the sentence does.
+    expect([unknown.body.code, wrong.body.code]).toEqual(['signInRefused', 'signInRefused'])
   })
 
   it('POST /api/session refuses a deactivated account with the same message', async () => {
@@ -79,7 +81,7 @@ describe('session API', () => {
     const s = await browserSession(t.app)
     const res = await s.post('/api/session', { email: 'a@b.example' })
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'password', message: 'Enter your password.' }])
+    expect(res.body.issues).toEqual([{ path: 'password', message: 'Enter your password.', code: 'session.enterYourPassword' }])
   })
 
   it('DELETE /api/session signs out and removes the session row', async () => {
@@ -183,6 +185,8 @@ describe('sign-in rate limits', () => {
       const res = await s.signIn(staff.manager.email, staff.manager.password)
       expect(res.status).toBe(429)
       expect(res.body.error).toMatch(/Too many failed sign-ins/)
+      const wait = Number(/Wait (\d+)/.exec(res.body.error)![1])
+      expect(res.body).toMatchObject(/minutes/.test(res.body.error) ? { code: 'signInWaitMinutes', params: { n: wait } } : wait === 1 ? { code: 'signInWaitSecond' } : { code: 'signInWaitSeconds', params: { n: wait } })
     } finally {
       await limited.close()
     }

@@ -78,7 +78,7 @@ describe('space classes', () => {
     const id = (await towIn('standard').expect(201)).body.id
     const res = await put(id, 1, space.retired)
     expect(res.status).toBe(409)
-    expect(res.body.issues).toEqual([{ path: 'spaceId', message: 'Space C-2 is retired. Choose another space.' }])
+    expect(res.body.issues).toEqual([{ path: 'spaceId', message: 'Space C-2 is retired. Choose another space.', code: 'spaces.retired', params: { label: 'C-2' } }])
     const list = (await d.get('/api/spaces').expect(200)).body.spaces as { label: string; size: string; retired: boolean }[]
     expect(list.find((s) => s.label === 'C-2')).toMatchObject({ retired: true })
     expect(list.find((s) => s.label === 'M-1')).toMatchObject({ size: 'motorcycle', retired: false })

@@ -90,7 +90,7 @@ describe('logging a tow-in', () => {
     const second = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (anotherVehicle(b), (b.spaceId = space!.id))))
     expect(second.status).toBe(409)
     expect(second.body.error).toBe(`Space A-3 already holds ${first.body.stockNumber}. Choose another space.`)
-    expect(second.body.issues).toEqual([{ path: 'spaceId', message: second.body.error }])
+    expect(second.body.issues).toEqual([{ path: 'spaceId', message: second.body.error, code: 'spaces.takenBy', params: { label: 'A-3', stock: first.body.stockNumber } }])
     expect(await counts(app.db)).toEqual(before)
   })
 

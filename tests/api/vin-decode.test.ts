@@ -36,7 +36,7 @@ describe('GET /api/vin-decode/:vin', () => {
     ['a mistyped character (check digit 4, expected X)', '1G4AH59H45G128341', 'The check digit (9th character) is 4 but the other characters give X'],
   ])('decode_%s_isRefusedNamingTheVinField', async (_why, vin, message) => {
     const res = await dispatcher.get(`/api/vin-decode/${encodeURIComponent(vin)}`).expect(400)
-    expect(res.body.issues).toEqual([{ path: 'vin', message: expect.stringContaining(message) }])
+    expect(res.body.issues).toEqual([expect.objectContaining({ path: 'vin', message: expect.stringContaining(message) })])
     expect(res.body.error).toContain(message)
   })
 

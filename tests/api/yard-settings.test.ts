@@ -79,7 +79,7 @@ describe('Settings → Yards', () => {
     expect(ok.status, JSON.stringify(ok.body)).toBe(201)
     const again = await send('post', `/api/settings/yards/${staff.yard.id}/spaces`, { firstRow: 'M', rows: 1, perRow: 4, size: 'standard' })
     expect(again.status).toBe(409)
-    expect(again.body.issues).toEqual([{ path: 'firstRow', message: 'Space M-1 already exists. Start at another row.' }])
+    expect(again.body.issues).toEqual([{ path: 'firstRow', message: 'Space M-1 already exists. Start at another row.', code: 'yardSettings.spaceExists', params: { label: 'M-1' } }])
     expect((await audit())[0]).toMatchObject({ action: 'spaces-added', after: { rows: 'M–M', numbers: '1–2', size: 'motorcycle', spaces: 2 } })
   })
 
@@ -89,7 +89,7 @@ describe('Settings → Yards', () => {
     const v = await makeVehicle(app.db, staff.yard.id, { spaceId: held!.id })
     const refused = await send('post', `/api/settings/yards/${staff.yard.id}/spaces/${held!.id}/retire`, {})
     expect(refused.status).toBe(409)
-    expect(refused.body.issues).toEqual([{ path: 'spaceId', message: `Space M-1 holds ${v.stockNumber}: move the vehicle out before retiring the space.` }])
+    expect(refused.body.issues).toEqual([{ path: 'spaceId', message: `Space M-1 holds ${v.stockNumber}: move the vehicle out before retiring the space.`, code: 'yardSettings.spaceHolds', params: { label: 'M-1', stock: v.stockNumber } }])
     expect((await app.db.select().from(t.yardSpaces).where(eq(t.yardSpaces.id, held!.id)))[0]!.retiredAt).toBeNull()
     await send('post', `/api/settings/yards/${staff.yard.id}/spaces/${empty!.id}/retire`, {}).expect(200)
     expect((await audit())[0]).toMatchObject({ action: 'space-retired', after: { space: 'M-2', retired: true } })

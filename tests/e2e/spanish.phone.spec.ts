@@ -66,3 +66,28 @@ test('en un teléfono en español: el selector de idioma cambia la pantalla al m
   await page.getByRole('group', { name: 'Language' }).getByRole('button', { name: 'Español' }).tap()
   await expect(page.getByRole('button', { name: 'Entrar' })).toBeVisible()
 })
+
+test('en un teléfono en español: un campo rechazado dice por qué en español, lo revise el navegador o el servidor', async ({ page }) => {
+  await page.goto('/sign-in?next=/users')
+  await page.getByLabel('Correo electrónico').fill(DEMO.manager)
+  await page.getByLabel('Contraseña', { exact: true }).fill(DEMO.password)
+  await page.getByRole('button', { name: 'Entrar' }).click()
+  await expect(page).toHaveURL(/\/users$/)
+  await page.getByRole('button', { name: 'Agregar a alguien del personal' }).tap()
+  const dialog = page.getByRole('dialog', { name: 'Agregar a alguien del personal' })
+  const emailField = dialog.locator('.el-form-item', { has: page.locator('input[name="email"]') })
+  await dialog.locator('input[name="name"]').fill('Marta Quiroga')
+  await dialog.locator('input[name="password"]').fill('gravel-lantern-harbor')
+
+  // The shared schema's own check, made in the browser before anything is sent.
+  await dialog.locator('input[name="email"]').fill('marta en el patio')
+  await dialog.getByRole('button', { name: 'Agregar' }).tap()
+  await expect(emailField.locator('.el-form-item__error')).toHaveText('Escriba un correo electrónico válido.')
+
+  // Only the server knows the address is already on the list: its 409 names the field, in Spanish.
+  await dialog.locator('input[name="email"]').fill(DEMO.dispatcher)
+  const answered = page.waitForResponse((r) => r.url().endsWith('/api/users') && r.request().method() === 'POST')
+  await dialog.getByRole('button', { name: 'Agregar' }).tap()
+  expect((await answered).status()).toBe(409)
+  await expect(emailField.locator('.el-form-item__error')).toHaveText(`${DEMO.dispatcher} ya está en su lista de personal. Búsquelo ahí o use otra dirección.`)
+})

@@ -1,0 +1,68 @@
+import { readFileSync } from 'node:fs'
+import { join } from 'node:path'
+import { eq } from 'drizzle-orm'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import * as t from '@db/schema'
+import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { makeStaff } from '../helpers/factories'
+import { anotherVehicle, counts, DEMO_RATES, sampleRuleSet, towInBody } from '../helpers/tow-in'
+
+// A refused field carries its code and parameters beside its English message (issue 14), so the client
+// says it in the reader's language (shared/messages/<locale>/fields.json); the English stays as it was.
+let app: TestApp
+beforeAll(async () => {
+  app = await makeTestApp()
+})
+afterAll(() => app.close())
+
+const catalog = (locale: string) => JSON.parse(readFileSync(join(import.meta.dirname, `../../shared/messages/${locale}/fields.json`), 'utf8')).fields as Record<string, Record<string, string>>
+const spoken = (code: string) => ['en', 'es'].every((l) => typeof catalog(l)[code.split('.')[0]!]?.[code.split('.')[1]!] === 'string')
+
+describe('field codes in a 400 answer', () => {
+  it('a schema check answers its English message with its code', async () => {
+    const staff = await makeStaff(app.db)
+    const m = await signedIn(app.app, staff.manager)
+    const res = await m.post('/api/users', { email: 'not an address', name: 'New clerk', role: 'office', password: 'gravel-lantern-harbor' })
+    expect(res.status).toBe(400)
+    expect(res.body.issues).toEqual([{ path: 'email', message: 'Enter a valid e-mail address.', code: 'users.enterValidMailAddress' }])
+    expect(res.body.error).toBe('Enter a valid e-mail address.')
+    expect(spoken(res.body.issues[0].code)).toBe(true)
+  })
+
+  it('a message with a parameter answers the parameter too, and the same English as before', async () => {
+    const staff = await makeStaff(app.db)
+    const d = await signedIn(app.app, staff.dispatcher)
+    const before = await counts(app.db)
+    const res = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (b.vehicle.odometer = 3_000_001)))
+    expect(res.status).toBe(400)
+    expect(res.body.issues).toEqual([
+      { path: 'vehicle.odometer', message: 'The odometer reading cannot be above 3,000,000.', code: 'common.cannotBeAbove', params: { what: 'odometer', max: '3,000,000' } },
+    ])
+    expect(spoken(res.body.issues[0].code)).toBe(true)
+    expect(await counts(app.db)).toEqual(before)
+  })
+
+  it('zod’s own message (no schema wrote it) has no code', async () => {
+    const staff = await makeStaff(app.db)
+    const m = await signedIn(app.app, staff.manager)
+    const res = await m.post('/api/users', { email: 'new@example.test', name: 42, role: 'office', password: 'gravel-lantern-harbor' })
+    expect(res.status).toBe(400)
+    expect(res.body.issues).toEqual([{ path: 'name', message: expect.stringMatching(/expected string/i) }])
+  })
+
+  it('a field only the server can judge (a space already taken) answers a code with the space and the vehicle', async () => {
+    const staff = await makeStaff(app.db)
+    await app.db.update(t.yards).set({ towRates: DEMO_RATES, ruleSetId: await sampleRuleSet(app.db) }).where(eq(t.yards.id, staff.yard.id))
+    const [space] = await app.db.insert(t.yardSpaces).values({ yardId: staff.yard.id, row: 'D', number: 7 }).returning()
+    const d = await signedIn(app.app, staff.dispatcher)
+    const first = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (b.spaceId = space!.id))).expect(201)
+    const before = await counts(app.db)
+    const second = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (anotherVehicle(b), (b.spaceId = space!.id))))
+    expect(second.status).toBe(409)
+    expect(second.body.issues).toEqual([
+      { path: 'spaceId', message: `Space D-7 already holds ${first.body.stockNumber}. Choose another space.`, code: 'spaces.takenBy', params: { label: 'D-7', stock: first.body.stockNumber } },
+    ])
+    expect(spoken(second.body.issues[0].code)).toBe(true)
+    expect(await counts(app.db)).toEqual(before)
+  })
+})

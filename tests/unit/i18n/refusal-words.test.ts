@@ -1,0 +1,30 @@
+import { beforeAll, describe, expect, it } from 'vitest'
+import { refusalText } from '@/composables/refusal-words'
+import { i18n, loadMessages } from '@/i18n'
+
+// The server's last English answers now carry codes (issue 14): the release's steps still to record, and
+// a gate pass's instant, which reads on the clock of the yard that issued it, not the browser's.
+describe('refusal parameters that become words', () => {
+  beforeAll(() => Promise.all([loadMessages('en'), loadMessages('es')]), 60_000)
+
+  it('names the release steps still to record, in Spanish', () => {
+    i18n.global.locale.value = 'es'
+    expect(refusalText('recordBeforeSigning', { steps: 'id-photo,handover' }, 'English')).toBe(
+      'Registre esto antes de firmar la entrega: Foto de la identificación, Odómetro y pertenencias entregadas.',
+    )
+  })
+
+  it('shows when a pass expired on its yard’s clock (18:30 UTC is 10:30 in Los Angeles in December)', () => {
+    i18n.global.locale.value = 'es'
+    const text = refusalText('passExpired', { at: '2026-12-03T18:30:00.000Z', timeZone: 'America/Los_Angeles' }, 'English')
+    expect(text).toMatch(/^Este pase venció el .*10:30.*\. La oficina emite uno nuevo\.$/)
+    expect(text).not.toContain('18:30')
+  })
+
+  it('says the sign-in wait in the reader’s language', () => {
+    i18n.global.locale.value = 'es'
+    expect(refusalText('signInWaitSeconds', { n: 40 }, 'English')).toBe('Demasiados intentos fallidos desde aquí. Espere 40 segundos e intente otra vez.')
+    i18n.global.locale.value = 'en'
+    expect(refusalText('signInWaitMinutes', { n: 4 }, 'English')).toBe('Too many failed sign-ins from here. Wait 4 minutes and try again.')
+  })
+})
