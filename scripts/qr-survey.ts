@@ -87,7 +87,10 @@ for (let i = 0; i < n; i++) {
     }
   }
   for (const r of ['app', 'old'] as const) if (readers[r] && !read[r]) unread[r].push(i)
-  if ((i + 1) % 10 === 0) console.error(`${i + 1}/${n}`)
+  if ((i + 1) % 10 === 0) {
+    const so = (r: 'app' | 'old') => (readers[r] ? ` ${r}: misses ${JSON.stringify(Object.fromEntries([...misses[r]].map(([d, l]) => [d, l.length])))}, unread ${unread[r].length}` : '')
+    console.error(`${i + 1}/${n}${so('app')}${so('old')}`)
+  }
 }
 await rm(dir, { recursive: true, force: true })
 const report = (r: 'app' | 'old') => ({
