@@ -106,6 +106,8 @@ export function createApp(deps: AppDeps): Express {
       contentSecurityPolicy: {
         directives: {
           'default-src': ["'self'"],
+          // The barcode scanner's reader is WebAssembly (served from 'self'): compiling it needs this, no eval.
+          'script-src': ["'self'", "'wasm-unsafe-eval'"],
           'img-src': ["'self'", 'data:', 'blob:', ...cspSources(map.tileUrl)],
           'connect-src': ["'self'", ...cspSources(map.geocoderUrl)],
           'font-src': ["'self'", 'data:'],

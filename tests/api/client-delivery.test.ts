@@ -11,6 +11,8 @@ import { makeTestApp, type TestApp } from '../helpers/app'
 const SCRIPT = `export const greeting = ${JSON.stringify('tow-in to release '.repeat(200))}\n`
 const INDEX = '<!doctype html><html><head><title>Holdfast</title></head><body><div id="app"></div></body></html>\n'
 const IMAGE = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])
+// The barcode scanner's reader: a WebAssembly module's header and a few bytes, with its .br (the build's).
+const WASM = Buffer.concat([Buffer.from([0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00]), Buffer.alloc(2048)])
 const br = brotliCompressSync(SCRIPT)
 const gz = gzipSync(SCRIPT)
 const IMMUTABLE = 'public, max-age=31536000, immutable'
@@ -26,6 +28,8 @@ beforeAll(async () => {
   writeFileSync(path.join(clientDir, 'assets', 'index-Ab12Cd34.js.br'), br)
   writeFileSync(path.join(clientDir, 'assets', 'index-Ab12Cd34.js.gz'), gz)
   writeFileSync(path.join(clientDir, 'assets', 'marker-Ef56Gh78.png'), IMAGE)
+  writeFileSync(path.join(clientDir, 'assets', 'zxing_reader-Ij90Kl12.wasm'), WASM)
+  writeFileSync(path.join(clientDir, 'assets', 'zxing_reader-Ij90Kl12.wasm.br'), brotliCompressSync(WASM))
   app = await makeTestApp({ clientDir })
 })
 afterAll(async () => {
@@ -76,6 +80,17 @@ describe('the built client goes out precompressed', () => {
     expect(res.headers['content-encoding']).toBeUndefined()
     expect(res.headers['content-type']).toBe('image/png')
     expect(res.headers['cache-control']).toBe(IMMUTABLE)
+  })
+
+  it('the scanner\'s WebAssembly goes out as application/wasm (Brotli, cached for good), and the page may compile it but not eval', async () => {
+    const res = await request(app.app).get('/assets/zxing_reader-Ij90Kl12.wasm').set('accept-encoding', 'br').buffer(true).expect(200)
+    // WebAssembly.instantiateStreaming refuses any other type.
+    expect(res.headers['content-type']).toBe('application/wasm')
+    expect(res.headers['content-encoding']).toBe('br')
+    expect(res.headers['cache-control']).toBe(IMMUTABLE)
+    const page = await request(app.app).get('/gate').expect(200)
+    const scriptSrc = /script-src ([^;]*)/.exec(page.headers['content-security-policy'] ?? '')?.[1]
+    expect(scriptSrc?.split(' ').sort()).toEqual(["'self'", "'wasm-unsafe-eval'"])
   })
 
   it('a client-side route gets index.html, not cached, without a compressed twin leaking through', async () => {

@@ -48,7 +48,7 @@ describe('the stock label / key tag', () => {
     expect(text).toContain(`Scan, or search ${v.stockNumber}`)
     expect(text).toContain('at yard.test.example')
 
-    // Rendered to test-results/pdf/key-tag.png as it is read: a few resolutions, as ZXing misses some symbols at one.
+    // Rendered to test-results/pdf/key-tag.png as it is read, once, by the app scanner's reader.
     expect(await readQrOfPdf(pdf, 'key-tag')).toBe(`https://yard.test.example/vehicles/${v.id}`)
   })
 

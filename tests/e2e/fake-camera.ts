@@ -27,8 +27,7 @@ export function writeDataMatrixVideo(file: string, text: string, width = 640, he
 
 /**
  * A Y4M video of one QR code on white (a gate pass held to the phone), for the same fake camera. The
- * frames show it at a few sizes, as a hand moves: ZXing 0.21 misses a few percent of valid symbols at
- * any one scale, and a camera that showed the one frame for ever would never read those.
+ * frames show it at a few sizes, as a hand moves.
  */
 export function writeQrVideo(file: string, text: string, width = 640, height = 480, modulePixels: number[] = [8, 7, 9, 6]) {
   // The qrcode package the printed pass uses, error correction M; the white round it is the quiet zone.

@@ -60,43 +60,41 @@ export async function renderFirstPage(pdf: Uint8Array, name: string, dpi = 96): 
 }
 
 /**
- * Reads the QR code on a rendered page (a PNG) with ZXing, the library the app's scanner uses: as rendered
- * and cut to black and white, each with its local (hybrid) binarizer and its global one, trying harder.
+ * Reads the QR code on a rendered page (a PNG) with the reader the app's scanner uses: ZXing's C++ library
+ * as WebAssembly (zxing-wasm, which barcode-detector wraps in the browser), with the options
+ * barcode-detector gives it. The .wasm is read from node_modules, never fetched.
  */
 export async function readQr(png: string): Promise<string> {
   const { default: sharp } = await import('sharp')
-  const { BinaryBitmap, DecodeHintType, GlobalHistogramBinarizer, HybridBinarizer, QRCodeReader, RGBLuminanceSource } = await import('@zxing/library')
-  const hints = new Map([[DecodeHintType.TRY_HARDER, true]])
-  let last: unknown
-  // As rendered (grey edges), then cut to black and white at mid-grey.
-  for (const image of [sharp(png).greyscale(), sharp(png).greyscale().threshold(128)]) {
-    const { data, info } = await image.raw().toBuffer({ resolveWithObject: true })
-    const luminance = new RGBLuminanceSource(new Uint8ClampedArray(data), info.width, info.height)
-    for (const binarizer of [new HybridBinarizer(luminance), new GlobalHistogramBinarizer(luminance)]) {
-      try {
-        return new QRCodeReader().decode(new BinaryBitmap(binarizer), hints).getText()
-      } catch (err) {
-        last = err
-      }
-    }
-  }
-  throw last
+  const { data, info } = await sharp(png).ensureAlpha().raw().toBuffer({ resolveWithObject: true })
+  const text = await readQrPixels(new Uint8ClampedArray(data.buffer, data.byteOffset, data.length), info.width, info.height)
+  if (text === null) throw new Error(`no QR code read in ${png}`)
+  return text
+}
+
+/** The same reader on RGBA pixels: the text of the first valid QR code, or null. */
+export async function readQrPixels(rgba: Uint8ClampedArray, width: number, height: number): Promise<string | null> {
+  const [found] = await (await qrReader())({ data: rgba, width, height, colorSpace: 'srgb' } as ImageData, { formats: ['QRCode'] })
+  return found?.isValid ? found.text : null
+}
+
+let reader: Promise<typeof import('zxing-wasm/reader').readBarcodes> | undefined
+function qrReader() {
+  reader ??= (async () => {
+    const { prepareZXingModule, readBarcodes } = await import('zxing-wasm/reader')
+    const { createRequire } = await import('node:module')
+    const { readFile } = await import('node:fs/promises')
+    const wasm = await readFile(createRequire(import.meta.url).resolve('zxing-wasm/reader/zxing_reader.wasm'))
+    await prepareZXingModule({ overrides: { wasmBinary: wasm.buffer.slice(wasm.byteOffset, wasm.byteOffset + wasm.length) as ArrayBuffer }, fireImmediately: true })
+    return readBarcodes
+  })()
+  return reader
 }
 
 /**
- * The QR code on page 1, rendered at several resolutions until ZXing reads it: @zxing/library 0.21 fails
- * on a few percent of valid symbols at any one scale (measured here with symbols straight from the
- * qrcode package; a gate pass's random token failed now and then at all of 96, 150, 200 and 300 dpi),
- * and a different scale or binarizer usually gets past it.
+ * The QR code on page 1 of a PDF, rendered at `dpi` (150 unless told) and read once: no second try at
+ * another size (tests/unit/documents/qr-symbols.test.ts reads symbols at every size the tests use).
  */
-export async function readQrOfPdf(pdf: Uint8Array, name: string): Promise<string> {
-  let last: unknown
-  for (const dpi of [96, 120, 150, 180, 200, 240, 300, 360]) {
-    try {
-      return await readQr(await renderFirstPage(pdf, name, dpi))
-    } catch (err) {
-      last = err
-    }
-  }
-  throw last
+export async function readQrOfPdf(pdf: Uint8Array, name: string, dpi = 150): Promise<string> {
+  return readQr(await renderFirstPage(pdf, name, dpi))
 }
