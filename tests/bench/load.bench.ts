@@ -6,6 +6,7 @@ import path from 'node:path'
 import { pathToFileURL } from 'node:url'
 import { bundleServer } from '../soak/crash-rounds'
 import { anotherVehicle, towInBody } from '../helpers/tow-in'
+import { HttpClient, summary } from './http-client'
 import { writeResult, type BenchResult } from './results'
 
 // Issue 13, "Load": 50 simulated staff for 60 s on a mixed workload (board reads, tow-ins, moves, quotes,
@@ -20,38 +21,10 @@ const COUNTER_STAFF = 10
 // Between two actions a person reads the screen: 0.5–2 s (an assumption, not a measured figure).
 const think = () => new Promise((r) => setTimeout(r, 500 + Math.random() * 1500))
 
-class Staff {
-  cookie = ''
-  csrf = ''
-  userId = ''
-  async call(method: string, url: string, body?: unknown) {
-    const res = await fetch(base + url, {
-      method,
-      headers: { cookie: this.cookie, 'content-type': 'application/json', 'x-csrf-token': this.csrf },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    })
-    const set = res.headers.getSetCookie().map((c) => c.split(';')[0]!)
-    if (set.length) this.cookie = [...new Map([...this.cookie.split('; ').filter(Boolean), ...set].map((c) => [c.split('=')[0], c])).values()].join('; ')
-    const text = await res.text()
-    return { status: res.status, body: text.startsWith('{') ? (JSON.parse(text) as Record<string, unknown>) : {} }
-  }
-  async signIn(who = MANAGER) {
-    this.csrf = String((await this.call('GET', '/api/session')).body.csrfToken)
-    const res = await this.call('POST', '/api/session', who)
-    if (res.status !== 200) throw new Error(`sign-in ${res.status}`)
-    this.csrf = String(res.body.csrfToken)
-    this.userId = String((res.body.user as { id: string }).id)
-    return this
-  }
-}
+/** A person at a desk of the demo yard, signed in (the yard's manager unless said otherwise). */
+const staff = (who = MANAGER) => new HttpClient(base).signIn(who)
 
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor(sorted.length * p))] ?? NaN
-const summary = (times: number[]) => {
-  const s = [...times].sort((a, b) => a - b)
-  return { count: s.length, p50Ms: Math.round(percentile(s, 0.5)), p95Ms: Math.round(percentile(s, 0.95)), maxMs: Math.round(s.at(-1) ?? NaN) }
-}
-
-async function boardOneAtATime(s: Staff, seconds: number) {
+async function boardOneAtATime(s: HttpClient, seconds: number) {
   const times: number[] = []
   const until = performance.now() + seconds * 1000
   while (performance.now() < until) {
@@ -65,7 +38,7 @@ async function boardOneAtATime(s: Staff, seconds: number) {
 type Record_ = (op: string, ms: number, ok: boolean, detail?: string) => void
 const towed: string[] = []
 
-function timer(s: Staff, record: Record_) {
+function timer(s: HttpClient, record: Record_) {
   return async (op: string, method: string, url: string, body?: unknown) => {
     const t = performance.now()
     const res = await s.call(method, url, body).catch((err: Error) => ({ status: 0, body: { error: `${err.message} ${String((err.cause as { code?: string } | undefined)?.code ?? "")}` } as Record<string, unknown> }))
@@ -76,7 +49,7 @@ function timer(s: Staff, record: Record_) {
 }
 
 /** A dispatcher's loop: the board, a tow-in, its move to teardown, a storage quote. */
-async function desk(s: Staff, until: number, record: Record_) {
+async function desk(s: HttpClient, until: number, record: Record_) {
   const timed = timer(s, record)
   while (performance.now() < until) {
     await timed('board', 'GET', '/api/board')
@@ -91,7 +64,7 @@ async function desk(s: Staff, until: number, record: Record_) {
 }
 
 /** A counter clerk's loop: the board, then a small cash payment on a vehicle towed in during the run. */
-async function counter(s: Staff, until: number, record: Record_) {
+async function counter(s: HttpClient, until: number, record: Record_) {
   const timed = timer(s, record)
   while (performance.now() < until) {
     await timed('board', 'GET', '/api/board')
@@ -116,15 +89,15 @@ export async function run(): Promise<BenchResult> {
       if (i > 1200) throw new Error('the server did not start')
       await new Promise((r) => setTimeout(r, 100))
     }
-    const staff: Staff[] = []
-    for (let i = 0; i < GOALS.staff; i++) staff.push(await new Staff().signIn(i < COUNTER_STAFF ? OFFICE : MANAGER))
-    const reader = staff.at(-1)!
+    const people: HttpClient[] = []
+    for (let i = 0; i < GOALS.staff; i++) people.push(await staff(i < COUNTER_STAFF ? OFFICE : MANAGER))
+    const reader = people.at(-1)!
     const boardBefore = await boardOneAtATime(reader, 8)
 
     // 500 live board streams, five to a session (the cap), each drained as events arrive.
     let streamsOpen = 0
-    const streamSessions: Staff[] = []
-    for (let i = 0; i < GOALS.streams / 5; i++) streamSessions.push(await new Staff().signIn())
+    const streamSessions: HttpClient[] = []
+    for (let i = 0; i < GOALS.streams / 5; i++) streamSessions.push(await staff())
     await Promise.all(
       Array.from({ length: GOALS.streams }, async (_, i) => {
         const abort = new AbortController()
@@ -147,7 +120,7 @@ export async function run(): Promise<BenchResult> {
     const firstErrors: string[] = []
     const until = performance.now() + GOALS.seconds * 1000
     await Promise.all(
-      staff.map((s, i) =>
+      people.map((s, i) =>
         (i < COUNTER_STAFF ? counter : desk)(s, until, (op, ms, ok, detail) => {
           times.set(op, [...(times.get(op) ?? []), ms])
           all.push(ms)

@@ -9,6 +9,7 @@ import pg from 'pg'
 import { bundleServer } from '../soak/crash-rounds'
 import { anotherVehicle, towInBody } from '../helpers/tow-in'
 import { databaseUrl, startThrowawayPostgres } from '../helpers/postgres'
+import { HttpClient, percentile } from './http-client'
 import { writeResult, type BenchResult } from './results'
 
 // Issue 15, the figures: the demo yard on PostgreSQL beside the embedded PGlite in the same run (the board read
@@ -31,39 +32,12 @@ const PG_PORT = Number(process.env.HOLDFAST_BENCH_PG_PORT ?? 54_335)
 const DEMO_MANAGER = { email: 'delia@tamsincreek.example', password: 'quarry-spur-demo' }
 const benchStaff = (i: number) => ({ email: `bench-${i}@tamsincreek.example`, password: 'gravel-lantern-bench-staff-42' })
 
-class Client {
-  cookie = ''
-  csrf = ''
-  userId = ''
-  constructor(private readonly base: string) {}
-  async call(method: string, url: string, body?: unknown) {
-    const res = await fetch(this.base + url, {
-      method,
-      headers: { cookie: this.cookie, 'content-type': 'application/json', 'x-csrf-token': this.csrf },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    })
-    const set = res.headers.getSetCookie().map((c) => c.split(';')[0]!)
-    if (set.length) this.cookie = [...new Map([...this.cookie.split('; ').filter(Boolean), ...set].map((c) => [c.split('=')[0], c])).values()].join('; ')
-    const text = await res.text()
-    return { status: res.status, body: text.startsWith('{') ? (JSON.parse(text) as Record<string, unknown>) : {}, what: `${method} ${url.replace(/[0-9a-f-]{36}/g, ':id')}` }
-  }
-  async signIn(who: { email: string; password: string }) {
-    this.csrf = String((await this.call('GET', '/api/session')).body.csrfToken)
-    const res = await this.call('POST', '/api/session', who)
-    if (res.status !== 200) throw new Error(`sign-in ${res.status}`)
-    this.csrf = String(res.body.csrfToken)
-    this.userId = String((res.body.user as { id: string }).id)
-    return this
-  }
-}
-
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor(sorted.length * p))] ?? NaN
 
 /** `connections` clients, each calling `step` back to back for SECONDS: requests a second, p95 and errors. */
 type Answer = { status: number; what?: string; body?: unknown }
 
-async function closedLoop(base: string, step: (c: Client) => Promise<Answer[]>, seconds = SECONDS) {
-  const clients = await Promise.all(Array.from({ length: CONNECTIONS }, (_, i) => new Client(base).signIn(benchStaff(i))))
+async function closedLoop(base: string, step: (c: HttpClient) => Promise<Answer[]>, seconds = SECONDS) {
+  const clients = await Promise.all(Array.from({ length: CONNECTIONS }, (_, i) => new HttpClient(base).signIn(benchStaff(i))))
   const times: number[] = []
   let errors = 0
   const refused = new Map<string, string>()
@@ -89,9 +63,9 @@ async function closedLoop(base: string, step: (c: Client) => Promise<Answer[]>, 
   return { requests: times.length, requestsPerSecond: Math.round(times.length / seconds), p50Ms: Math.round(percentile(times, 0.5)), p95Ms: Math.round(percentile(times, 0.95)), errors, refused: Object.fromEntries(refused) }
 }
 
-const boardRead = async (c: Client) => [await c.call('GET', '/api/board')]
+const boardRead = async (c: HttpClient) => [await c.call('GET', '/api/board')]
 /** A desk's work without pauses: the board, a tow-in, its move to teardown, a cash payment, the vehicle's record. */
-async function mixed(c: Client) {
+async function mixed(c: HttpClient) {
   const out = [await c.call('GET', '/api/board')]
   const towed = await c.call('POST', '/api/vehicles', towInBody(c.userId, anotherVehicle))
   out.push(towed)
@@ -141,7 +115,7 @@ async function healthy(port: number) {
 
 /** A new database with the demo yard gets the bench's staff (already there: 409, fine). */
 async function addBenchStaff(port: number) {
-  const manager = await new Client(`http://127.0.0.1:${port}`).signIn(DEMO_MANAGER)
+  const manager = await new HttpClient(`http://127.0.0.1:${port}`).signIn(DEMO_MANAGER)
   for (let i = 0; i < CONNECTIONS; i++) {
     const res = await manager.call('POST', '/api/users', { ...benchStaff(i), name: `Bench Manager ${i}`, role: 'manager' })
     if (res.status !== 201 && res.status !== 409) throw new Error(`adding bench staff: ${res.status} ${JSON.stringify(res.body)}`)

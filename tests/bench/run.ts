@@ -15,6 +15,7 @@ const benches: Record<string, () => Promise<{ met: boolean }>> = {
   load: async () => (await import('./load.bench')).run(),
   receivables: async () => (await import('./receivables.bench')).run(),
   pg: async () => (await import('./pg.bench')).run(),
+  counter: async () => (await import('./counter.bench')).run(),
 }
 const only = process.argv.slice(2)
 let allMet = true

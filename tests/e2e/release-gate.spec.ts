@@ -9,7 +9,7 @@ import sharp from 'sharp'
 import { readQrOfPdf } from '../helpers/pdf'
 import { startServer, waitForHealth, type ServerProcess } from '../helpers/server-process'
 import { towInBody } from '../helpers/tow-in'
-import { chromiumLaunch } from './chromium'
+import { drawSignature, fakeCameraLaunch, scanAndRecordOut } from './counter'
 import { writeQrVideo } from './fake-camera'
 import { watchConsole } from './helpers'
 
@@ -28,14 +28,7 @@ let base = ''
 // The gate phone's fake camera shows this file; the test writes the pass's QR into it once the pass
 // exists (Chromium reads it when the camera starts). Until then it shows a QR that is no pass.
 const video = path.resolve('test-results', 'gate-pass.y4m')
-mkdirSync(path.dirname(video), { recursive: true })
-writeQrVideo(video, 'no pass yet')
-test.use({
-  launchOptions: {
-    ...chromiumLaunch,
-    args: [...chromiumLaunch.args, '--use-fake-device-for-media-stream', '--use-fake-ui-for-media-stream', `--use-file-for-fake-video-capture=${video}`],
-  },
-})
+test.use({ launchOptions: fakeCameraLaunch(video) })
 
 function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -143,11 +136,7 @@ test('a walk-in owner: ID with a photo, signature on the canvas, release PDF, ga
   // The owner signs on the counter tablet: strokes drawn on the signature_pad canvas.
   await section.getByTestId('release-sign').click()
   const sign = counter.getByRole('dialog', { name: 'Sign the release' })
-  const pad = await sign.getByTestId('signature-pad').boundingBox()
-  await counter.mouse.move(pad!.x + 30, pad!.y + pad!.height * 0.7)
-  await counter.mouse.down()
-  for (const [fx, fy] of [[0.2, 0.2], [0.35, 0.75], [0.5, 0.25], [0.65, 0.8], [0.85, 0.35]] as const) await counter.mouse.move(pad!.x + pad!.width * fx, pad!.y + pad!.height * fy, { steps: 8 })
-  await counter.mouse.up()
+  await drawSignature(counter, sign.getByTestId('signature-pad'))
   await sign.getByRole('button', { name: 'Save the signature' }).click()
   await expect(section.getByTestId('release-step-signature')).toContainText('Signed by Marisol Vantongeren')
 
@@ -173,14 +162,7 @@ test('a walk-in owner: ID with a photo, signature on the canvas, release PDF, ga
   problems.push(...watchConsole(gate))
   await signIn(gate)
   await gate.goto(`${base}/gate`)
-  await gate.getByTestId('gate-scan').tap()
-  const shown = gate.getByTestId('gate-vehicle')
-  await expect(shown).toContainText(stockNumber)
-  await expect(shown).toContainText('Marisol Vantongeren')
-  await expect(shown.getByRole('img', { name: 'Photo of the vehicle' })).toBeVisible()
-  await gate.screenshot({ path: 'test-results/release-gate-phone.png', fullPage: true })
-  await gate.getByTestId('gate-record-out').click()
-  await expect(gate.getByTestId('gate-done')).toContainText(`${stockNumber} is out: closed as Returned to owner`)
+  await scanAndRecordOut(gate, { stockNumber, claimant: 'Marisol Vantongeren', closedAs: 'Returned to owner' }, 'test-results/release-gate-phone.png')
 
   // The board in the first tab hears of it and drops the card, with no reload.
   await expect(board.getByText(stockNumber)).toHaveCount(0)

@@ -5,6 +5,7 @@ import path from 'node:path'
 import { build } from 'esbuild'
 import fc from 'fast-check'
 import { openDatabase } from '@db/client'
+import { HttpClient } from '../bench/http-client'
 import { makeStaff } from '../helpers/factories'
 import { anotherVehicle, sampleRuleSet, towInBody } from '../helpers/tow-in'
 
@@ -60,32 +61,6 @@ export async function bundleServer(): Promise<string> {
   return path.join(outdir, 'index.js')
 }
 
-class Client {
-  private cookies = new Map<string, string>()
-  csrf = ''
-  constructor(readonly base: string) {}
-  async call(method: string, url: string, body?: unknown) {
-    const res = await fetch(this.base + url, {
-      method,
-      headers: { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '), 'content-type': 'application/json', 'x-csrf-token': this.csrf },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    })
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(';')
-      const at = pair!.indexOf('=')
-      this.cookies.set(pair!.slice(0, at), pair!.slice(at + 1))
-    }
-    const text = await res.text()
-    return { status: res.status, body: text ? (JSON.parse(text) as Record<string, unknown>) : {} }
-  }
-  async signIn(email: string, password: string) {
-    this.csrf = String((await this.call('GET', '/api/session')).body.csrfToken)
-    const res = await this.call('POST', '/api/session', { email, password })
-    if (res.status !== 200) throw new Error(`sign-in: ${res.status} ${JSON.stringify(res.body)}`)
-    this.csrf = String(res.body.csrfToken)
-  }
-}
-
 export async function crashRounds(rounds: number, seed: number, port: number): Promise<CrashReport> {
   const dir = mkdtempSync(path.join(tmpdir(), 'holdfast-crash-'))
   const dataDir = path.join(dir, 'data')
@@ -124,8 +99,7 @@ export async function crashRounds(rounds: number, seed: number, port: number): P
     child = start()
     await healthy(killedAt)
     for (let round = 0; round <= rounds; round++) {
-      const client = new Client(base)
-      await client.signIn(staff.dispatcher.email, staff.dispatcher.password)
+      const client = await new HttpClient(base).signIn({ email: staff.dispatcher.email, password: staff.dispatcher.password })
       // What was acknowledged before the kill is all there, and each history verifies.
       for (const id of acknowledged.slice(-40)) {
         const check = await client.call('GET', `/api/vehicles/${id}/history/verify`)
@@ -157,8 +131,7 @@ export async function crashRounds(rounds: number, seed: number, port: number): P
       loads.push(loadavg()[0]!)
     }
     // At the end, every vehicle ever acknowledged, not only the last rounds'.
-    const client = new Client(base)
-    await client.signIn(staff.dispatcher.email, staff.dispatcher.password)
+    const client = await new HttpClient(base).signIn({ email: staff.dispatcher.email, password: staff.dispatcher.password })
     for (const id of acknowledged) {
       const res = await client.call('GET', `/api/vehicles/${id}/history/verify`)
       if (res.status === 404 && !lost.includes(id)) lost.push(id)
