@@ -1,3 +1,4 @@
+import { stepWords } from '@shared/messages/rule-words'
 import type { Database } from '@db/client'
 import { legalClocks } from '@shared/domain/clocks'
 import { dayFromIsoDate, isoDate, localDay, startOfLocalDay } from '@shared/domain/time'
@@ -83,6 +84,7 @@ export async function ownerPage(db: Database, vehicleId: string, key: string, ma
     release: await ownerRelease(db, v.id, v.state),
     deadlines: billRuleSet ? deadlinesOf(v, billRuleSet, yard, now) : [],
     caution: billRuleSet?.caution ?? null,
+    ...(billRuleSet?.es?.caution ? { es: { caution: billRuleSet.es.caution } } : {}),
     decision: decision ? { choice: decision.choice, signOverTo: decision.signOverTo, fullName: decision.fullName, phone: decision.phone, note: decision.note, at: decision.at } : null,
     expiresAt: expiresAt.toISOString(),
   }
@@ -137,5 +139,6 @@ function deadlinesOf(v: VehicleRow, ruleSet: RuleSet, yard: YardRow, now: Date):
     dueDate: d.dueDate ?? null,
     explanation: d.explanation,
     citation: d.source.citation,
+    ...(stepWords(d) ? { es: stepWords(d) } : {}),
   }))
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { alongsideFieldIssues, optionalText, requiredText } from './fields'
+import { spanishWordsSchema } from './rule-sets'
 
 /** Who may have to be told about a vehicle: the registered owner, each legal owner or lienholder, the insurer, anyone else with an interest. */
 export const CONTACT_ROLES = ['registered_owner', 'lienholder', 'insurer', 'interested_party'] as const
@@ -162,6 +163,7 @@ export const recordsDeadlineSchema = z.object({
   dueDate: z.string().nullable(),
   doneAt: z.string().nullable(),
   citation: z.string(),
+  es: spanishWordsSchema.optional(),
 })
 export type RecordsDeadline = z.infer<typeof recordsDeadlineSchema>
 

@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { FINDING_STATUSES } from '../domain/inspection/inspection-checklist'
 import { VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { optionalText, requiredText, text } from './fields'
+import { spanishWordsSchema } from './rule-sets'
 
 // The owner's page (no account): the link the office creates, what the page shows, the owner's choice.
 
@@ -122,6 +123,8 @@ export const ownerDeadlineSchema = z.object({
   dueDate: z.string().nullable(),
   explanation: z.string(),
   citation: z.string(),
+  /** Its words in Spanish, where the rule set has them (shared/messages/rule-words.ts picks the reader's). */
+  es: spanishWordsSchema.optional(),
 })
 export type OwnerDeadline = z.infer<typeof ownerDeadlineSchema>
 
@@ -197,6 +200,8 @@ export const ownerPageSchema = z.object({
   release: ownerReleaseSchema.nullable().default(null),
   deadlines: z.array(ownerDeadlineSchema),
   caution: z.string().nullable(),
+  /** The rule set's caution in Spanish, where it has one. */
+  es: z.object({ caution: z.string().optional() }).optional(),
   decision: ownerDecisionRecordSchema.omit({ ip: true, id: true }).nullable(),
   expiresAt: z.string(),
 })

@@ -40,7 +40,7 @@ describe('the sample rule sets in Spanish', () => {
   })
 
   it('aStepWithoutSpanish_readInSpanish_showsItsEnglish', () => {
-    const step = { label: 'Notify the registered owner' }
+    const step: { label: string; es?: { label?: string } } = { label: 'Notify the registered owner' }
     expect(ruleWord(step, 'label', 'es')).toBe('Notify the registered owner')
   })
 
