@@ -4,6 +4,7 @@ import { hasHistory, type HistoryKey } from '@db/history'
 import { adoptDemoTemplate, demoSignIns, loadDemoIfEmpty, usableDemoTemplate, type DemoLoaded } from './demo/index'
 import { createApp } from './app'
 import { openFileStore } from './files/index'
+import { addSampleWords } from './rule-sets/index'
 import { Drain } from './health/index'
 import { memoryBus, postgresBus } from './live/index'
 import { loadConfig } from './config'
@@ -43,6 +44,9 @@ const opened = performance.now()
 await handle.migrate()
 const migrated = performance.now()
 const { db } = handle
+// Rule sets stored before the samples spoke Spanish get the samples' words (only words: server/rule-sets/sample-words.ts).
+const worded = await addSampleWords(db, config.ruleSetsFolder)
+if (worded > 0) log.info({ versions: worded }, "Added the sample rule sets' Spanish words to rule sets stored before them.")
 let historyKey: HistoryKey
 const files = await openFileStore(config)
 let adopted: DemoLoaded | null = null

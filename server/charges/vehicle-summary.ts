@@ -1,3 +1,4 @@
+import { stepWords } from '@shared/messages/rule-words'
 import { dayFromIsoDate, type HolidayCalendar, localDay } from '@shared/domain/time'
 import {
   type ClockCalendars,
@@ -84,7 +85,7 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
 
 /** Open gate: eligible for lien sale or disposal since its date, by the rule that set it. */
 export function eligibleSince(gate: LienSaleGate): LienSaleEligible | null {
-  return gate.open && gate.date && gate.step && gate.citation ? { since: gate.date, step: gate.step, citation: gate.citation } : null
+  return gate.open && gate.date && gate.step && gate.citation ? { since: gate.date, step: gate.step, citation: gate.citation, ...(gate.es ? { es: gate.es } : {}) } : null
 }
 
 function rank(d: Deadline): number {
@@ -102,5 +103,6 @@ function toNext(d: Deadline, today: number): NextDeadline {
     daysLeft: dayFromIsoDate(d.dueDate!) - today,
     explanation: d.explanation,
     citation: d.source.citation,
+    ...(stepWords(d) ? { es: stepWords(d) } : {}),
   }
 }

@@ -2,6 +2,7 @@ import { Router } from 'express'
 import type { Database } from '@db/client'
 import { type ContactsPage, contactInputSchema, contactParamsSchema, recordsAnswerSchema, recordsParamsSchema, recordsRequestInputSchema } from '@shared/schemas/contacts'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
+import { stepWords } from '@shared/messages/rule-words'
 import { vehicleClocks } from '../clock-events/index'
 import { vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { contactsOf, recordsRequestsOf } from './contacts.queries'
@@ -16,7 +17,7 @@ export async function contactsPage(db: Database, userId: string, vehicleId: stri
     contacts: await contactsOf(db, vehicleId),
     recordsRequests: await recordsRequestsOf(db, vehicleId),
     recordsDeadline: step
-      ? { label: step.label, status: step.status, dueDate: step.dueDate ?? null, doneAt: step.doneBy.at ?? null, citation: step.source.citation }
+      ? { label: step.label, status: step.status, dueDate: step.dueDate ?? null, doneAt: step.doneBy.at ?? null, citation: step.source.citation, ...(stepWords(step) ? { es: stepWords(step) } : {}) }
       : null,
   }
 }

@@ -30,6 +30,7 @@ export function entriesOf(v: ActiveVehicle, c: VehicleClocks, today: string, tim
       status: dueMs < nowMs ? 'overdue' : 'due',
       explanation: p.explanation,
       citation: p.source.citation,
+      ...withWords(p.es?.label, p.source.es?.citation),
     })
   }
   for (const d of c.clocks.deadlines.filter(isOpen)) {
@@ -43,6 +44,7 @@ export function entriesOf(v: ActiveVehicle, c: VehicleClocks, today: string, tim
       status: d.status === 'missed' ? 'overdue' : 'due',
       explanation: d.explanation,
       citation: d.source.citation,
+      ...withWords(d.es?.label, d.source.es?.citation),
       doneBy: d.doneBy.event,
     })
   }
@@ -59,9 +61,15 @@ export function entriesOf(v: ActiveVehicle, c: VehicleClocks, today: string, tim
       ...(gate.open ? { since: gate.date } : {}),
       explanation: gate.open ? `Eligible for lien sale or disposal since ${gate.date}.` : `Not before ${gate.date}.`,
       citation: gate.citation,
+      ...withWords(gate.es?.step, gate.es?.citation),
     })
   }
   return out
+}
+
+/** The Spanish label and citation beside the English, only where the rule set has them. */
+function withWords(label: string | undefined, citation: string | undefined): Pick<DeadlineEntry, 'es'> {
+  return label || citation ? { es: { ...(label ? { label } : {}), ...(citation ? { citation } : {}) } } : {}
 }
 
 /** Overdue first (oldest first), then by day; within a day, by the minute it falls due, then by stock number. */

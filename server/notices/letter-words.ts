@@ -26,7 +26,8 @@ const ES_AS: Record<ContactRole, string> = {
 
 /**
  * The words of a notice letter, in the recipient's language. Holdfast's own wording; the rule's
- * label and citation stay as the rule set writes them (a statute is cited as enacted).
+ * label and citation are the rule set's own, in the recipient's language where it has them
+ * (`ruleWords`), the statute's section as enacted.
  */
 export const LETTER_WORDS = {
   en: {

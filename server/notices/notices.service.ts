@@ -1,3 +1,4 @@
+import { ruleWord, ruleWords } from '@shared/messages/rule-words'
 import { createHash } from 'node:crypto'
 import type { Database } from '@db/client'
 import { notices } from '@db/schema'
@@ -71,7 +72,8 @@ export async function generateNotices(
         vehicle,
         ...figures,
         dueDate: plan.dueDate,
-        rule: { label: plan.label, citation: plan.citation, ruleSetName: facts.ruleSet.name, ruleSetCaution: facts.ruleSet.caution },
+        // The rule's words in the recipient's language; the statute's section stays as the statute writes it.
+        rule: { ...ruleWords({ label: plan.label, citation: plan.citation, es: plan.es }, c.language), ruleSetName: facts.ruleSet.name, ruleSetCaution: ruleWord(facts.ruleSet, 'caution', c.language) },
         owner: { url: `${base}/o/${token}`, site, code: formatCode(code) },
       })
       const data = Buffer.from(pdf)

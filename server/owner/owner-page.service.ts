@@ -1,3 +1,4 @@
+import { stepWords } from '@shared/messages/rule-words'
 import type { Database } from '@db/client'
 import { dayFromIsoDate, isoDate, localDay, startOfLocalDay } from '@shared/domain/time'
 import type { OwnerDeadline, OwnerPage, OwnerQuote } from '@shared/schemas/owner'
@@ -81,6 +82,7 @@ export async function ownerPage(db: Database, vehicleId: string, key: string, ma
     release: await ownerRelease(db, v.id, v.state),
     deadlines: await deadlinesOf(db, v, yard, now),
     caution: billRuleSet?.caution ?? null,
+    ...(billRuleSet?.es?.caution ? { es: { caution: billRuleSet.es.caution } } : {}),
     decision: decision ? { choice: decision.choice, signOverTo: decision.signOverTo, fullName: decision.fullName, phone: decision.phone, note: decision.note, at: decision.at } : null,
     expiresAt: expiresAt.toISOString(),
   }
@@ -139,5 +141,6 @@ async function deadlinesOf(db: Database, v: VehicleRow, yard: YardRow, now: Date
     dueDate: d.dueDate ?? null,
     explanation: d.explanation,
     citation: d.source.citation,
+    ...(stepWords(d) ? { es: stepWords(d) } : {}),
   }))
 }

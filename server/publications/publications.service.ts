@@ -1,3 +1,4 @@
+import { ruleWord } from '@shared/messages/rule-words'
 import { and, asc, eq } from 'drizzle-orm'
 import type { Executor } from '@db/client'
 import { publications } from '@db/schema'
@@ -82,5 +83,5 @@ export async function publicationNoticeText(db: Executor, user: User, vehicleId:
   // No publication asked (yet, or any more: a value just recorded can take a vehicle out of it): no text.
   if (!plan) return { stockNumber: vehicle.stockNumber, text: '' }
   // Clocks that cannot run yet (no value recorded) leave the sale's day blank in the text, to fill in later.
-  return { stockNumber: vehicle.stockNumber, text: publicationText({ yard, vehicle, saleNotBefore: clocks ? nextStepDate(clocks) : null, citation: plan.citation }, language) }
+  return { stockNumber: vehicle.stockNumber, text: publicationText({ yard, vehicle, saleNotBefore: clocks ? nextStepDate(clocks) : null, citation: ruleWord(plan, 'citation', language) }, language) }
 }

@@ -34,9 +34,9 @@ export async function todayOf(db: Database, user: { id: string; role: Role }, as
     cards.map((c) => [c.id, { vehicleId: c.id, stockNumber: c.stockNumber, vehicle: [c.year, c.make, c.model].filter(Boolean).join(' '), plate: c.plate }]),
   )
   const items: TodayItem[] = []
-  const add = (kind: TodayKind, vehicleId: string, day: string | null, detail: string | null = null, when = whenOf(day), noticeKind: TodayItem['noticeKind'] = null) => {
+  const add = (kind: TodayKind, vehicleId: string, day: string | null, detail: string | null = null, when = whenOf(day), noticeKind: TodayItem['noticeKind'] = null, es?: string) => {
     const w = who.get(vehicleId)
-    if (w && when && wanted.has(kind)) items.push({ kind, when, ...w, day, detail, noticeKind })
+    if (w && when && wanted.has(kind)) items.push({ kind, when, ...w, day, detail, noticeKind, ...(es ? { es: { detail: es } } : {}) })
   }
 
   const noticeWork = wanted.has('notice') || wanted.has('records-request') || wanted.has('deadline')
@@ -48,10 +48,11 @@ export async function todayOf(db: Database, user: { id: string; role: Role }, as
   const clockWork = noticeWork || wanted.has('police-notice') || wanted.has('lien-sale')
   const entries: DeadlineEntry[] = clockWork ? (await yardDeadlines(db, yard, DEADLINE_KINDS, asOf)).entries : []
   for (const e of entries) {
-    if (e.kind === 'police') add('police-notice', e.vehicleId, e.day, e.label, e.status === 'overdue' ? 'overdue' : whenOf(e.day))
-    else if (e.kind === 'lien-sale') add('lien-sale', e.vehicleId, e.since ?? e.day, e.label, e.status === 'eligible' ? 'now' : whenOf(e.day))
-    else if (e.doneBy === 'owner-records-requested') add('records-request', e.vehicleId, e.day, e.label)
-    else if (!letterEvents.has(`${e.vehicleId}:${e.doneBy}`)) add('deadline', e.vehicleId, e.day, e.label)
+    const es = e.es?.label
+    if (e.kind === 'police') add('police-notice', e.vehicleId, e.day, e.label, e.status === 'overdue' ? 'overdue' : whenOf(e.day), null, es)
+    else if (e.kind === 'lien-sale') add('lien-sale', e.vehicleId, e.since ?? e.day, e.label, e.status === 'eligible' ? 'now' : whenOf(e.day), null, es)
+    else if (e.doneBy === 'owner-records-requested') add('records-request', e.vehicleId, e.day, e.label, whenOf(e.day), null, es)
+    else if (!letterEvents.has(`${e.vehicleId}:${e.doneBy}`)) add('deadline', e.vehicleId, e.day, e.label, whenOf(e.day), null, es)
   }
 
   for (const c of cards) {

@@ -1,5 +1,6 @@
 import type { Executor } from '@db/client'
 import type { yards } from '@db/schema'
+import type { VehicleClass } from '@shared/schemas/rule-sets'
 import { towRatesSchema } from '@shared/schemas/tows'
 import { badRequest } from '../errors'
 import { latestVersionOf, versionsById } from '../rule-sets/index'
@@ -7,7 +8,10 @@ import { latestVersionOf, versionsById } from '../rule-sets/index'
 type Yard = typeof yards.$inferSelect
 
 /** Without a rule set a yard still logs vehicles, under one class, and bills nothing until one is chosen. */
-const NO_RULE_SET_CLASSES = [{ code: 'standard', label: 'Standard' }]
+const NO_RULE_SET_CLASSES: ClassOption[] = [{ code: 'standard', label: 'Standard' }]
+
+type ClassOption = { code: string; label: string; es?: { label?: string } }
+const classOption = (c: VehicleClass): ClassOption => ({ code: c.code, label: c.label, ...(c.es?.label ? { es: { label: c.es.label } } : {}) })
 
 /** The yard's current rule set: what a tow-in is billed under from now on. */
 export async function intakeRules(db: Executor, yard: Yard) {
@@ -17,7 +21,7 @@ export async function intakeRules(db: Executor, yard: Yard) {
     version: current?.version ?? null,
     ruleSet: current ? { name: current.ruleSet.name, caution: current.ruleSet.caution } : null,
     policeNotice: current?.ruleSet.policeNotice ?? null,
-    classes: current ? current.ruleSet.vehicleClasses.map((c) => ({ code: c.code, label: c.label })) : NO_RULE_SET_CLASSES,
+    classes: current ? current.ruleSet.vehicleClasses.map(classOption) : NO_RULE_SET_CLASSES,
   }
 }
 
@@ -25,7 +29,7 @@ export async function intakeRules(db: Executor, yard: Yard) {
 export async function classesOfVersion(db: Executor, versionId: string | null) {
   if (!versionId) return NO_RULE_SET_CLASSES
   const found = (await versionsById(db, [versionId])).get(versionId)
-  return found ? found.vehicleClasses.map((c) => ({ code: c.code, label: c.label })) : NO_RULE_SET_CLASSES
+  return found ? found.vehicleClasses.map(classOption) : NO_RULE_SET_CLASSES
 }
 
 export function assertKnownClass(classes: { code: string; label: string }[], code: string, path = 'vehicle.vehicleClass') {

@@ -34,6 +34,7 @@ export async function vehiclePage(db: Database, userId: string, vehicleId: strin
       body: v.body,
       vehicleClass: v.vehicleClass,
       vehicleClassLabel: classes.find((c) => c.code === v.vehicleClass)?.label ?? v.vehicleClass,
+      ...classWords(classes.find((c) => c.code === v.vehicleClass)?.es?.label),
       odometer: v.odometer,
       odometerUnreadable: v.odometerUnreadable,
       keys: v.keys,
@@ -59,4 +60,9 @@ export async function vehiclePage(db: Database, userId: string, vehicleId: strin
     summary: summaries.get(v.id) ?? null,
     billProblem: problems.get(v.id) ?? null,
   }
+}
+
+/** The class's Spanish label beside the English, where the rule set has it. */
+function classWords(label: string | undefined) {
+  return label ? { es: { vehicleClassLabel: label } } : {}
 }

@@ -71,6 +71,8 @@ export const invoiceLineSchema = z.object({
   kind: z.enum(['tow', 'storage', 'fee']),
   code: z.string(),
   label: z.string(),
+  /** A fee's name in Spanish, where the rule set has it. */
+  es: z.object({ label: z.string().optional() }).optional(),
   quantity: z.number(),
   unitCents: z.number(),
   amountCents: z.number(),

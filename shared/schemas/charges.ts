@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { policeNoticeClockSchema } from './police-notices'
+import { spanishWordsSchema } from './rule-sets'
 
 /** The next legal date that matters for a vehicle, as a card or page shows it. */
 export const nextDeadlineSchema = z.object({
@@ -13,6 +14,8 @@ export const nextDeadlineSchema = z.object({
   daysLeft: z.number(),
   explanation: z.string(),
   citation: z.string(),
+  /** Its words in Spanish, where the rule set has them (shared/messages/rule-words.ts picks the reader's). */
+  es: spanishWordsSchema.optional(),
 })
 export type NextDeadline = z.infer<typeof nextDeadlineSchema>
 
@@ -25,13 +28,19 @@ export const lienSaleGateSchema = z.object({
   /** The step that sets the date, and its citation, once there is a date. */
   step: z.string().optional(),
   citation: z.string().optional(),
+  es: z.object({ step: z.string().optional(), citation: z.string().optional() }).optional(),
 })
 
 /**
  * Eligible for lien sale or disposal: the gate is open and nobody has claimed the vehicle (its owner
  * has not chosen to collect it or have it repaired). The date and the rule that set it.
  */
-export const lienSaleEligibleSchema = z.object({ since: z.string(), step: z.string(), citation: z.string() })
+export const lienSaleEligibleSchema = z.object({
+  since: z.string(),
+  step: z.string(),
+  citation: z.string(),
+  es: z.object({ step: z.string().optional(), citation: z.string().optional() }).optional(),
+})
 export type LienSaleEligible = z.infer<typeof lienSaleEligibleSchema>
 
 /**

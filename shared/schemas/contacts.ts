@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { alongsideFieldIssues, optionalText, requiredText } from './fields'
 import { msg } from './field-messages'
+import { spanishWordsSchema } from './rule-sets'
 
 /** Who may have to be told about a vehicle: the registered owner, each legal owner or lienholder, the insurer, anyone else with an interest. */
 export const CONTACT_ROLES = ['registered_owner', 'lienholder', 'insurer', 'interested_party'] as const
@@ -163,6 +164,7 @@ export const recordsDeadlineSchema = z.object({
   dueDate: z.string().nullable(),
   doneAt: z.string().nullable(),
   citation: z.string(),
+  es: spanishWordsSchema.optional(),
 })
 export type RecordsDeadline = z.infer<typeof recordsDeadlineSchema>
 

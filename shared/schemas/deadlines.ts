@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { msg } from './field-messages'
+import { spanishWordsSchema } from './rule-sets'
 
 /** What a listed deadline is: telling the police of a tow, a step of the rule set's timeline, or the lien sale. */
 export const DEADLINE_KINDS = ['police', 'notice', 'lien-sale'] as const
@@ -26,6 +27,8 @@ export const deadlineEntrySchema = z.object({
   since: z.string().optional(),
   explanation: z.string(),
   citation: z.string(),
+  /** Its words in Spanish, where the rule set has them (shared/messages/rule-words.ts picks the reader's). */
+  es: spanishWordsSchema.optional(),
   /** A timeline step: the recorded event that meets it (e.g. owner-records-requested), for the Today page. */
   doneBy: z.string().optional(),
 })

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { spanishWordsSchema } from './rule-sets'
 import { CONTACT_LANGUAGES, CONTACT_ROLES, isoDaySchema } from './contacts'
 import { alongsideFieldIssues, optionalText } from './fields'
 import { msg } from './field-messages'
@@ -30,6 +31,8 @@ export const plannedNoticeSchema = z.object({
   mailedAt: z.string().nullable(),
   label: z.string(),
   citation: z.string(),
+  /** Its label and citation in Spanish, where the rule set has them. */
+  es: spanishWordsSchema.optional(),
 })
 export type PlannedNotice = z.infer<typeof plannedNoticeSchema>
 

@@ -3,6 +3,7 @@ import { FINDING_STATUSES } from '../domain/inspection/inspection-checklist'
 import { VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { optionalText, requiredText, text } from './fields'
 import { msg } from './field-messages'
+import { spanishWordsSchema } from './rule-sets'
 
 // The owner's page (no account): the link the office creates, what the page shows, the owner's choice.
 
@@ -123,6 +124,8 @@ export const ownerDeadlineSchema = z.object({
   dueDate: z.string().nullable(),
   explanation: z.string(),
   citation: z.string(),
+  /** Its words in Spanish, where the rule set has them (shared/messages/rule-words.ts picks the reader's). */
+  es: spanishWordsSchema.optional(),
 })
 export type OwnerDeadline = z.infer<typeof ownerDeadlineSchema>
 
@@ -198,6 +201,8 @@ export const ownerPageSchema = z.object({
   release: ownerReleaseSchema.nullable().default(null),
   deadlines: z.array(ownerDeadlineSchema),
   caution: z.string().nullable(),
+  /** The rule set's caution in Spanish, where it has one. */
+  es: z.object({ caution: z.string().optional() }).optional(),
   decision: ownerDecisionRecordSchema.omit({ ip: true, id: true }).nullable(),
   expiresAt: z.string(),
 })

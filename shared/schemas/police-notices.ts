@@ -31,6 +31,7 @@ export const policeNotificationSchema = z.object({
 /** The police-notification clock as the card, the vehicle page and the Deadlines page show it. */
 export const policeNoticeClockSchema = z.object({
   label: z.string(),
+  es: z.object({ label: z.string().optional() }).optional(),
   status: z.enum(['open', 'overdue', 'met', 'late']),
   hours: z.number(),
   start: z.enum(['called', 'hooked', 'arrived']),

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { spanishWordsSchema } from './rule-sets'
 import { NOTICE_PLAN_STATUSES } from './notices'
 import { requiredText, text } from './fields'
 import { msg } from './field-messages'
@@ -23,6 +24,8 @@ export const plannedPublicationSchema = z.object({
   publishedAt: z.string().nullable(),
   label: z.string(),
   citation: z.string(),
+  /** Its label and citation in Spanish, where the rule set has them. */
+  es: spanishWordsSchema.optional(),
 })
 
 export const publicationRecordSchema = z.object({

@@ -16,10 +16,24 @@ import { msg } from './field-messages'
  */
 export const confidenceSchema = z.enum(['V', 'S', 'M', 'C', 'none'])
 
+/**
+ * Spanish words beside the English (issue 14). Optional everywhere: a rule set without them shows its
+ * English, and an editor's empty box means "none". `shared/messages/rule-words.ts` picks the reader's.
+ */
+const spanishText = z
+  .string()
+  .trim()
+  .max(2000)
+  .optional()
+  .transform((s) => (s ? s : undefined))
+const spanishLabel = z.object({ label: spanishText }).optional()
+
 export const sourceSchema = z.object({
   citation: z.string().min(1),
   confidence: confidenceSchema,
   note: z.string().min(1).optional(),
+  /** The citation and note in Spanish: the statute's own name and section stay as the statute writes them. */
+  es: z.object({ citation: spanishText, note: spanishText }).optional(),
 })
 
 const code = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, msg('ruleSets.codeWords', 'use lower-case words joined by dashes'))
@@ -31,6 +45,7 @@ const placeholder = z.boolean().default(false)
 export const vehicleClassSchema = z.object({
   code,
   label: z.string().min(1),
+  es: spanishLabel,
   dailyRateCents: cents,
   placeholder,
   source: sourceSchema,
@@ -39,6 +54,7 @@ export const vehicleClassSchema = z.object({
 export const feeSchema = z.object({
   code,
   label: z.string().min(1),
+  es: spanishLabel,
   amountCents: cents,
   taxable: z.boolean(),
   /** once-per-stay fees (impound) are charged from arrival; per-event fees each time one is recorded. */
@@ -102,6 +118,7 @@ const range = z
 export const timelineStepSchema = z.object({
   code,
   label: z.string().min(1),
+  es: spanishLabel,
   /** deadline: `doneBy` must happen on or before the due date; earliest: not before it. */
   kind: z.enum(['deadline', 'earliest']),
   from: clockEventKindSchema,
@@ -150,6 +167,7 @@ export const mailDeadlinesSchema = z.object({
  */
 export const policeNoticeSchema = z.object({
   label: z.string().min(1),
+  es: spanishLabel,
   hours: z.number().positive().max(72),
   from: z.enum(['tow-requested', 'tow-completed']),
   towReasons: z.array(z.enum(TOW_REASONS)).min(1),
@@ -174,6 +192,8 @@ export const ruleSetSchema = z
     sample: z.boolean(),
     /** Shown wherever the rule set is: requirements vary, and the sample is not legal advice. */
     caution: z.string().min(1),
+    /** The caution in Spanish. */
+    es: z.object({ caution: spanishText }).optional(),
     timeZone: z.string().refine(isTimeZone, msg('ruleSets.ianaTimeZone', 'an IANA time zone such as America/Los_Angeles')),
     holidayCalendar: calendarKeySchema,
     businessDays: businessDaysSchema.optional(),
@@ -192,6 +212,10 @@ export const ruleSetSchema = z
   })
   .refine((r) => unique(r.vehicleClasses, (c) => c.code), { message: msg('ruleSets.classCodesDiffer', 'vehicle class codes must differ'), path: ['vehicleClasses'] })
   .refine((r) => unique(r.fees, (f) => f.code), { message: msg('ruleSets.feeCodesDiffer', 'fee codes must differ'), path: ['fees'] })
+
+/** A rule set's words as a response carries them beside the English: the Spanish label and citation. */
+export const spanishWordsSchema = z.object({ label: z.string().optional(), citation: z.string().optional() })
+export type SpanishWords = z.infer<typeof spanishWordsSchema>
 
 export type Confidence = z.infer<typeof confidenceSchema>
 export type Source = z.infer<typeof sourceSchema>

@@ -57,6 +57,8 @@ export const todayItemSchema = z.object({
   day: z.string().nullable(),
   /** What exactly: the notice's kind, the hold's kind, the rule's label. */
   detail: z.string().nullable(),
+  /** The detail in Spanish, where it is a rule's label the rule set has in Spanish. */
+  es: z.object({ detail: z.string().optional() }).optional(),
   noticeKind: z.enum(NOTICE_KINDS).nullable(),
 })
 export type TodayItem = z.infer<typeof todayItemSchema>

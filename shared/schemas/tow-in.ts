@@ -49,7 +49,7 @@ export const intakeOptionsSchema = z.object({
   ruleSet: z.object({ name: z.string(), caution: z.string() }).nullable(),
   /** The rule set's duty to tell the police of some tows, shown as soon as such a reason is chosen. */
   policeNotice: policeNoticeSchema.nullish(),
-  vehicleClasses: z.array(z.object({ code: z.string(), label: z.string() })),
+  vehicleClasses: z.array(z.object({ code: z.string(), label: z.string(), es: z.object({ label: z.string().optional() }).optional() })),
   staff: z.array(z.object({ id: z.uuid(), name: z.string(), role: z.string() })),
 })
 export type IntakeOptions = z.infer<typeof intakeOptionsSchema>

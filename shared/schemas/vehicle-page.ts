@@ -30,6 +30,8 @@ export const vehicleRecordSchema = z.object({
   body: text,
   vehicleClass: z.string(),
   vehicleClassLabel: z.string(),
+  /** The class's label in Spanish, where the rule set has it. */
+  es: z.object({ vehicleClassLabel: z.string().optional() }).optional(),
   odometer: z.number().nullable(),
   odometerUnreadable: z.boolean(),
   keys: z.enum(KEYS),

@@ -52,7 +52,13 @@ describe('lien-sale eligibility on the vehicle page', () => {
     const s = await signedIn(t_.app, staff.office)
     const summary = (await s.get(`/api/vehicles/${old.id}`).expect(200)).body.summary
     expect(summary.lienSale.open).toBe(true)
-    expect(summary.eligible).toEqual({ since: summary.lienSale.date, step: 'Earliest lien sale', citation: expect.stringContaining('713.78') })
+    expect(summary.eligible).toEqual({
+      since: summary.lienSale.date,
+      step: 'Earliest lien sale',
+      citation: expect.stringContaining('713.78'),
+      // The sample's Spanish beside it (server/rule-sets/samples/florida.json).
+      es: { step: 'Primer día para la venta por gravamen', citation: expect.stringContaining('Fla. Stat. § 713.78') },
+    })
   })
 
   it('eligibility_beforeTheDate_isNotEligible', async () => {

@@ -1,3 +1,5 @@
+import { readFileSync } from 'node:fs'
+import path from 'node:path'
 import { expect, test } from '@playwright/test'
 import { DEMO, mainNav, watchConsole } from './helpers'
 
@@ -5,6 +7,10 @@ import { DEMO, mainNav, watchConsole } from './helpers'
 // The account's own language is not touched here (tests/api/session.test.ts covers it), so the demo
 // staff still sign in to English in the other specs.
 test.use({ locale: 'es-ES' })
+
+const SPANISH_STEPS = ['california', 'florida', 'ordinance-24h'].flatMap((f) =>
+  (JSON.parse(readFileSync(path.resolve(`server/rule-sets/samples/${f}.json`), 'utf8')) as { timeline: { es?: { label?: string } }[] }).timeline.map((s) => s.es?.label),
+)
 
 async function signInInSpanish(page: import('@playwright/test').Page) {
   await page.goto('/sign-in')
@@ -25,6 +31,10 @@ test('en un teléfono en español: la entrada, el tablero y el registro de un in
   const card = page.locator('[data-column="arrival"] [data-stock]').first()
   await expect(card).toBeVisible()
   await expect(card.getByRole('button', { name: /^Mover .* a…$/ })).toHaveText('Mover a…')
+  // A card's next legal date names its step in the rule set's own Spanish (server/rule-sets/samples/*.json).
+  const step = page.locator('[data-column="arrival"] .board-deadline__what').first()
+  await expect(step).toBeVisible()
+  expect(SPANISH_STEPS).toContain((await step.textContent())?.trim())
   await expect(page.getByRole('button', { name: 'Menú' })).toBeVisible()
   const main = await mainNav(page, 'Principal')
   await expect(main.getByRole('link')).toHaveText(['Hoy', 'Tablero', 'Registrar ingreso'])

@@ -10,6 +10,8 @@ export type BillLine = {
   kind: 'storage' | 'fee'
   code: string
   label: string
+  /** A fee's name in Spanish, where the rule set has it. */
+  es?: { label?: string }
   quantity: number
   unitCents: Cents
   amountCents: Cents
@@ -100,6 +102,7 @@ export function feeLines(
       kind: 'fee',
       code: fee.code,
       label: fee.label,
+      ...(fee.es?.label ? { es: { label: fee.es.label } } : {}),
       quantity,
       unitCents: fee.amountCents,
       amountCents,

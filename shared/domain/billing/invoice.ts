@@ -5,6 +5,7 @@ export interface InvoiceLine {
   kind: 'tow' | 'storage' | 'fee'
   code: string
   label: string
+  es?: { label?: string }
   quantity: number
   unitCents: Cents
   amountCents: Cents
@@ -27,7 +28,7 @@ export function invoiceCharges(bill: StorageBill, towCents: Cents, towLabel = 'T
   const lines: InvoiceLine[] = []
   if (towCents > 0) lines.push({ kind: 'tow', code: 'tow', label: towLabel, quantity: 1, unitCents: towCents, amountCents: towCents, taxCents: 0 })
   for (const l of bill.lines) {
-    lines.push({ kind: l.kind, code: l.code, label: l.label, quantity: l.quantity, unitCents: l.unitCents, amountCents: l.amountCents, taxCents: l.taxCents })
+    lines.push({ kind: l.kind, code: l.code, label: l.label, ...(l.es ? { es: l.es } : {}), quantity: l.quantity, unitCents: l.unitCents, amountCents: l.amountCents, taxCents: l.taxCents })
   }
   const subtotalCents = towCents + bill.subtotalCents
   return { lines, subtotalCents, taxCents: bill.taxCents, totalCents: subtotalCents + bill.taxCents }

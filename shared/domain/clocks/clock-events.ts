@@ -36,6 +36,8 @@ export const mailingEvents: ReadonlySet<ClockEventKind> = new Set([
 export type Deadline = {
   code: string
   label: string
+  /** The step's label in Spanish, where the rule set has it (shared/messages/rule-words.ts picks). */
+  es?: { label?: string }
   kind: TimelineStep['kind']
   status: ClockStatus
   statusReason: string

@@ -155,6 +155,7 @@ function deadline(
   return {
     code: step.code,
     label: step.label,
+    ...(step.es?.label ? { es: { label: step.es.label } } : {}),
     kind: step.kind,
     status,
     statusReason,

@@ -1,3 +1,4 @@
+import { stepWords } from '../../messages/rule-words'
 import type { ClockAlert, Deadline } from './clock-events'
 
 /**
@@ -18,6 +19,8 @@ export interface LienSaleGate {
   /** Once there is a date: the "not before" step that sets it, and that step's citation. */
   step?: string
   citation?: string
+  /** The step and its citation in Spanish, where the rule set has them. */
+  es?: { step?: string; citation?: string }
 }
 
 const shut = (code: LienSaleGateCode, why: string): LienSaleGate => ({ open: false, date: null, why, code })
@@ -46,6 +49,7 @@ export function lienSaleGate(deadlines: readonly Deadline[], alerts: readonly Cl
   const last = notBefore.reduce((a, b) => (b.dueDate! > a.dueDate! || (b.dueDate === a.dueDate && b.doneBy.event === 'lien-sale-held') ? b : a))
   const date = last.dueDate!
   const open = notBefore.every((d) => d.status === 'reached' || d.status === 'met')
-  const rule = { step: last.label, citation: last.source.citation }
+  const es = stepWords(last)
+  const rule = { step: last.label, citation: last.source.citation, ...(es ? { es: { step: es.label, citation: es.citation } } : {}) }
   return open ? { open, date, why: `Open since ${date}.`, code: 'open', ...rule } : { open, date, why: `Not before ${date}.`, code: 'not-before', ...rule }
 }

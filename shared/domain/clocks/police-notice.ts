@@ -25,6 +25,7 @@ export type PoliceNoticeStart = 'called' | 'hooked' | 'arrived'
 
 export interface PoliceNoticeClock {
   label: string
+  es?: { label?: string }
   status: PoliceNoticeStatus
   hours: number
   start: PoliceNoticeStart
@@ -81,6 +82,7 @@ export function policeNoticeClock(
   else status = asOfMs <= dueMs ? 'open' : 'overdue'
   return {
     label: rule.label,
+    ...(rule.es?.label ? { es: { label: rule.es.label } } : {}),
     status,
     hours: rule.hours,
     start,

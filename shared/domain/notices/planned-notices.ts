@@ -1,6 +1,7 @@
 import type { ClockEventKind } from '../../schemas/rule-sets'
 import type { NoticeKind, NoticePlanStatus, PlannedNotice } from '../../schemas/notices'
 import type { Deadline, LegalClocks } from '../clocks/clock-events'
+import { stepWords } from '../../messages/rule-words'
 
 /** The clock event each letter's mailing records: the mailing day starts or meets the clocks. */
 export const NOTICE_EVENTS: Record<NoticeKind, ClockEventKind> = {
@@ -35,6 +36,7 @@ export function plannedNotices(clocks: Pick<LegalClocks, 'deadlines'>, today: st
       mailedAt,
       label: main.label,
       citation: main.source.citation,
+      ...words(main),
     })
   }
   return out
@@ -63,4 +65,10 @@ export function nextStepDate(clocks: Pick<LegalClocks, 'deadlines'>): string | n
     .map((d) => d.dueDate!)
     .sort()
   return dates.at(-1) ?? null
+}
+
+/** A step's Spanish label and citation beside the English, where the rule set has them. */
+export function words(step: Deadline): { es?: { label?: string; citation?: string } } {
+  const es = stepWords(step)
+  return es ? { es } : {}
 }

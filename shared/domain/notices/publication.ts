@@ -1,6 +1,6 @@
 import type { NoticePlanStatus } from '../../schemas/notices'
 import type { LegalClocks } from '../clocks/clock-events'
-import { statusOf } from './planned-notices'
+import { statusOf, words } from './planned-notices'
 
 /** The event a newspaper publication records: its first day in print starts and meets the clocks. */
 export const PUBLICATION_EVENT = 'sale-advertised' as const
@@ -16,6 +16,7 @@ export interface PlannedPublication {
   publishedAt: string | null
   label: string
   citation: string
+  es?: { label?: string; citation?: string }
 }
 
 /**
@@ -32,5 +33,5 @@ export function plannedPublication(clocks: Pick<LegalClocks, 'deadlines'>, today
   const opens = steps.find((d) => d.kind === 'earliest' && d.doneBy.event === event)
   const publishedAt = steps.map((d) => (d.doneBy.event === event ? d.doneBy.at : d.start.at)).find((at) => at !== undefined) ?? null
   const main = due ?? opens ?? steps[0]!
-  return { kind: 'publication', status: statusOf(due, opens, publishedAt, today), dueDate: due?.dueDate ?? null, opensOn: opens?.dueDate ?? null, publishedAt, label: main.label, citation: main.source.citation }
+  return { kind: 'publication', status: statusOf(due, opens, publishedAt, today), dueDate: due?.dueDate ?? null, opensOn: opens?.dueDate ?? null, publishedAt, label: main.label, citation: main.source.citation, ...words(main) }
 }

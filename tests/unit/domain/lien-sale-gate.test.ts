@@ -22,6 +22,8 @@ describe('lienSaleGate', () => {
       code: 'not-before',
       step: 'Earliest lien sale',
       citation: expect.stringContaining('713.78'),
+      // The sample's Spanish beside it (server/rule-sets/samples/florida.json), for a Spanish reader.
+      es: { step: 'Primer día para la venta por gravamen', citation: expect.stringContaining('Fla. Stat. § 713.78: venta después de 35 días') },
     })
   })
 
