@@ -56,7 +56,7 @@ test('part in cash, the rest by card on the hosted page: the bill is paid in ful
   await expect(page.getByTestId('card-return')).toContainText(`Card payment of ${rest} received and recorded.`)
   await expect(bill.getByTestId('billing-due')).toContainText('Paid in full')
   await expect(bill.getByTestId('invoice-due')).toHaveText('$0.00')
-  await expect(bill.getByTestId('payments')).toContainText('Card')
+  await expect(bill.getByTestId('payments')).toContainText(`${rest} Card on the payment page`)
   // The one refusal the test asked for (the over-payment) is the only failed request.
   expect(problems).toEqual(['Failed to load resource: the server responded with a status of 400 (Bad Request)'])
 })
