@@ -1,12 +1,12 @@
 import { spawn, type ChildProcess } from 'node:child_process'
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
-import { cpus, loadavg, tmpdir } from 'node:os'
+import { loadavg, tmpdir } from 'node:os'
 import path from 'node:path'
 import { pathToFileURL } from 'node:url'
 import autocannon from 'autocannon'
 import { seedBigYard } from './board-seed'
 import { boardInBrowser } from './board-browser'
-import { writeResult, type BenchResult } from './results'
+import { machine, stopServer, writeResult, type BenchResult } from './results'
 
 const GOALS = { activeCards: 2000, closedVehicles: 50_000, p95Ms: 50, ratioToBare: 0.4, interactiveMs: 1000, dragPersistedMs: 150 }
 const PORT = 3392
@@ -23,13 +23,6 @@ async function healthy(url: string) {
     await new Promise((r) => setTimeout(r, 100))
   }
   throw new Error(`${url} did not answer`)
-}
-
-async function stop(child: ChildProcess) {
-  // A process ended by a signal has no exit code, only a signal code.
-  if (child.exitCode !== null || child.signalCode !== null) return
-  child.kill('SIGTERM')
-  await new Promise((r) => child.once('exit', r))
 }
 
 async function signIn(email: string, password: string): Promise<string> {
@@ -67,12 +60,10 @@ export async function run(): Promise<BenchResult> {
   const loadBefore = loadavg()[0]!
   const result = await measure()
   // Other work on the machine slows both sides of a ratio alike, but not an absolute time: say how busy it was.
-  const withMachine = { ...result, machine: { cores: cpus().length, loadAverage1m: { before: round2(loadBefore), after: round2(loadavg()[0]!) } } }
+  const withMachine = { ...result, machine: machine(loadBefore) }
   writeResult(withMachine)
   return withMachine
 }
-
-const round2 = (n: number) => Math.round(n * 100) / 100
 
 async function measure(): Promise<BenchResult> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'holdfast-board-bench-'))
@@ -81,7 +72,7 @@ async function measure(): Promise<BenchResult> {
     const env = { HOLDFAST_DATA_DIR: dataDir, PORT: String(PORT), HOLDFAST_DEMO: '1', HOLDFAST_SIGNIN_PER_IP: '1000' }
     const first = start(['dist/server/index.js'], env)
     await healthy(`${base}/api/health`)
-    await stop(first)
+    await stopServer(first)
     const counts = await seedBigYard(dataDir, { active: GOALS.activeCards, closed: GOALS.closedVehicles })
     const server = start(['dist/server/index.js'], env)
     children.push(server)
@@ -108,7 +99,7 @@ async function measure(): Promise<BenchResult> {
     const appRps = rounds.reduce((n, r) => n + r.app.requestsPerSecond, 0) / rounds.length
     const bareRps = rounds.reduce((n, r) => n + r.bare.requestsPerSecond, 0) / rounds.length
     const ratio = Number((appRps / bareRps).toFixed(2))
-    await stop(bare)
+    await stopServer(bare)
 
     const browser = await boardInBrowser(base)
     const met =
@@ -129,7 +120,7 @@ async function measure(): Promise<BenchResult> {
         'The whole board (2,000 cards) comes as one pre-serialised JSON body (gzipped for the browser, about a tenth of the size), fetched while the page\'s code loads, and stays in the query cache; the first frame draws 6 cards a column (what a screen shows) and the browser\'s next idle moment fills each column to 20, with "Show more" below (filters and counts cover all 2,000), so about 100 cards are drawn; live events patch single cards.',
     }
   } finally {
-    for (const c of children) await stop(c)
+    for (const c of children) await stopServer(c)
     rmSync(dataDir, { recursive: true, force: true })
   }
 }

@@ -1,14 +1,14 @@
 import { randomUUID } from 'node:crypto'
 import { spawn, type ChildProcess } from 'node:child_process'
 import { mkdtempSync, rmSync } from 'node:fs'
-import { cpus, loadavg, tmpdir } from 'node:os'
+import { loadavg, tmpdir } from 'node:os'
 import path from 'node:path'
 import { pathToFileURL } from 'node:url'
 import { idPhoto, signaturePng } from '../helpers/release'
 import { anotherVehicle, towInBody } from '../helpers/tow-in'
 import { WALK_IN_GOAL_INTERACTIONS, WALK_IN_INTERACTIONS, walkInTotal } from '../helpers/walk-in'
 import { HttpClient, summary, type Answer } from './http-client'
-import { writeResult, type BenchResult } from './results'
+import { machine, stopServer, writeResult, type BenchResult } from './results'
 
 // Issue 11, "Tests and figures": the counter flow from "find the vehicle" to "gate pass printed" in at most
 // 10 interactions, and a walk-in owner out of the gate "in a few minutes". The same walk-in as
@@ -200,16 +200,12 @@ export async function run(): Promise<BenchResult> {
         baseline: `one GET /api/board of the demo yard by the office clerk, ${board.count} reads interleaved with the walk-ins`,
       },
       errors,
-      machine: { cores: cpus().length, loadAverage1m: { before: Math.round(loadBefore * 100) / 100, after: Math.round(loadavg()[0]! * 100) / 100 } },
+      machine: machine(loadBefore),
     }
     writeResult(result)
     return result
   } finally {
-    if (server && server.exitCode === null && server.signalCode === null) {
-      const gone = new Promise((r) => server!.once('exit', r))
-      server.kill('SIGTERM')
-      await gone
-    }
+    await stopServer(server)
     rmSync(dataDir, { recursive: true, force: true })
   }
 }

@@ -1,6 +1,6 @@
 import { spawn } from 'node:child_process'
 import { mkdtempSync, rmSync } from 'node:fs'
-import { cpus, loadavg, tmpdir } from 'node:os'
+import { loadavg, tmpdir } from 'node:os'
 import path from 'node:path'
 import { sql } from 'drizzle-orm'
 import { openDatabase } from '@db/client'
@@ -8,7 +8,7 @@ import { DEADLINE_KINDS } from '@shared/schemas/deadlines'
 import { summarizeVehicles } from '../../server/charges/index'
 import { activeVehicles, yardDeadlines } from '../../server/deadlines/index'
 import { seedBigYard } from './board-seed'
-import { writeResult, type BenchResult } from './results'
+import { machine, writeResult, type BenchResult } from './results'
 
 // The Deadlines page works out every clock of every vehicle on the board: it must cost no more than
 // the board's own summaries of the same vehicles (the bill and the next date), which the board
@@ -72,7 +72,7 @@ export async function run(): Promise<BenchResult> {
         byKind: Object.fromEntries(DEADLINE_KINDS.map((k) => [k, list.entries.filter((e) => e.kind === k).length])),
         medianMs: { deadlines: deadlinesMs, boardSummaries: boardSummariesMs },
         ratioToBoardSummaries: ratio,
-        machine: { cores: cpus().length, loadAverage1m: { before: Math.round(loadBefore * 100) / 100, after: Math.round(loadavg()[0]! * 100) / 100 } },
+        machine: machine(loadBefore),
       }
       writeResult(result)
       return result

@@ -1,13 +1,13 @@
 import { randomUUID } from 'node:crypto'
 import { spawn, type ChildProcess } from 'node:child_process'
 import { mkdtempSync, rmSync } from 'node:fs'
-import { cpus, loadavg, tmpdir } from 'node:os'
+import { loadavg, tmpdir } from 'node:os'
 import path from 'node:path'
 import { pathToFileURL } from 'node:url'
 import { bundleServer } from '../soak/crash-rounds'
 import { anotherVehicle, towInBody } from '../helpers/tow-in'
 import { HttpClient, summary } from './http-client'
-import { writeResult, type BenchResult } from './results'
+import { machine, stopServer, writeResult, type BenchResult } from './results'
 
 // Issue 13, "Load": 50 simulated staff for 60 s on a mixed workload (board reads, tow-ins, moves, quotes,
 // payments) against one server on the embedded database, while 500 board streams are held open.
@@ -148,17 +148,13 @@ export async function run(): Promise<BenchResult> {
       overall,
       byOperation,
       streams: { open: streamsOpen, boardOneAtATimeBefore: boardBefore, boardOneAtATimeWithStreams: boardWithStreams, p95Ratio: streamRatio },
-      machine: { cores: cpus().length, loadAverage1m: { before: Math.round(loadBefore * 100) / 100, after: Math.round(loadavg()[0]! * 100) / 100 } },
+      machine: machine(loadBefore),
     }
     writeResult(result)
     return result
   } finally {
     for (const a of streams) a.abort()
-    if (server && server.exitCode === null && server.signalCode === null) {
-      const gone = new Promise((r) => server!.once('exit', r))
-      server.kill('SIGTERM')
-      await gone
-    }
+    await stopServer(server)
     rmSync(dataDir, { recursive: true, force: true })
   }
 }
