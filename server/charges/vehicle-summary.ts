@@ -104,5 +104,6 @@ function toNext(d: Deadline, today: number): NextDeadline {
     explanation: d.explanation,
     citation: d.source.citation,
     ...(stepWords(d) ? { es: stepWords(d) } : {}),
+    ...(d.rules ? { rules: d.rules.map((r) => ({ code: r.code, rule: r.rule, citation: r.source.citation, ...(r.calendars ? { calendars: r.calendars } : {}) })) } : {}),
   }
 }

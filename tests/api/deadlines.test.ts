@@ -101,6 +101,21 @@ describe('GET /api/deadlines', () => {
     expect(days).toEqual([...days].sort())
   })
 
+  // Issue 10: a Florida date counted in business days shows the rule it was counted by, beside its citation: a
+  // business day is skipped only when every calendar the rule set names closes it, and a mailing due on a closed
+  // post-office day is due the day before (the sample's `businessDays` and `mailDeadlines`, each with its source).
+  it('nextDeadline_floridaNoticeOfLien_showsTheCountingRulesItFollowed', async () => {
+    const { staff, fresh } = await floridaYard()
+    const s = await signedIn(t_.app, staff.office)
+    const next = (await s.get(`/api/vehicles/${fresh.id}`).expect(200)).body.summary.nextDeadline
+    expect(next).toMatchObject({ code: 'notice-of-lien', status: 'upcoming' })
+    const rules = new Map((next.rules as { code: string; calendars?: string; citation: string }[]).map((r) => [r.code, r]))
+    expect([...rules.keys()].sort()).toEqual(['business-days', 'mailing-day'])
+    expect(rules.get('business-days')!.calendars!.split(', ').sort()).toEqual(['US', 'US-FL'])
+    expect(rules.get('business-days')!.citation).not.toBe('')
+    expect(rules.get('mailing-day')!.citation).not.toBe('')
+  })
+
   it('deadlines_filteredByKind_listsOnlyThatKind', async () => {
     const { staff, towed } = await floridaYard()
     const s = await signedIn(t_.app, staff.manager)

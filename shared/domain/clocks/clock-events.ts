@@ -23,7 +23,14 @@ export type ClockNeed = 'value' | 'model-year'
 export type ClockAlert = { code: 'needs-value' | 'needs-model-year' | 'no-branch'; message: string }
 
 /** A counting rule the rule set states beside its steps (how business days or mailing days count), with its source. */
-export type CountingRule = { rule: string; source: Source }
+export type CountingRule = {
+  /** Which rule, for the screens' words: business days by the named calendars, or a mailing moved to the open day before. */
+  code: 'business-days' | 'mailing-day'
+  rule: string
+  source: Source
+  /** For business days: the calendars whose every closing is skipped ("US, US-FL"). */
+  calendars?: string
+}
 
 /** Events that are a mailing: a deadline to mail moves earlier off a day post offices are closed. */
 export const mailingEvents: ReadonlySet<ClockEventKind> = new Set([

@@ -94,10 +94,10 @@ function countingRules(ruleSet: RuleSet, step: TimelineStep, calendars: ClockCal
     const { businessDays, mailDeadlines } = ruleSet
     if (step.dayKind === 'business' && businessDays) {
       const names = businessDays.calendars.map((c) => (c.state ? `${c.country}-${c.state}` : c.country)).join(', ')
-      rules.push({ rule: `Business days skip Saturdays, Sundays and only the holidays that every one of these calendars closes: ${names}.`, source: businessDays.source })
+      rules.push({ code: 'business-days', calendars: names, rule: `Business days skip Saturdays, Sundays and only the holidays that every one of these calendars closes: ${names}.`, source: businessDays.source })
     }
     if (step.kind === 'deadline' && mailingEvents.has(step.doneBy) && mailDeadlines) {
-      rules.push({ rule: 'A mailing due on a day post offices are closed is due the open day before it, never after.', source: mailDeadlines.source })
+      rules.push({ code: 'mailing-day', rule: 'A mailing due on a day post offices are closed is due the open day before it, never after.', source: mailDeadlines.source })
     }
     if (rules.length === 0) rules = null
     rulesCache.set(step, rules)
