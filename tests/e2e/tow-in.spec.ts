@@ -200,17 +200,19 @@ test('a pin moved after a search puts the new address in the box, and that addre
   await expect(address).toHaveValue('Sunridge Plaza, 300 Harrow Way, Orrin Flats')
   await expect(search).toHaveValue('Sunridge Plaza, 300 Harrow Way, Orrin Flats')
 
-  // The map centres on the searched place (zoom 16, about 1.9 m a pixel at this latitude). 730 Harrow Way,
-  // a named place of the local geocoder stand-in (server/fakes/orrin-flats.ts), is about 340 m west and
-  // 120 m south of Sunridge Plaza: about 177 px left and 64 px down.
+  // The map zooms to 16 on the searched place: 256 * 2^16 px around the world, so 0.0038° of longitude is
+  // 177 px and 0.0011° of latitude (Web Mercator, at 36.42°) 64 px. 730 Harrow Way, a named place of the
+  // local geocoder stand-in (server/fakes/orrin-flats.ts), is that far west and south of Sunridge Plaza.
   const map = page.getByTestId('map')
-  await expect(map.locator('.leaflet-marker-pane [data-testid="map-pin"]')).toBeVisible()
-  const box = (await map.boundingBox())!
+  await expect(map.locator('img.leaflet-tile-loaded[src*="/tiles/16/"]').first()).toBeVisible()
+  await expect(map.locator('.leaflet-zoom-anim')).toHaveCount(0)
+  // The pin's point is its icon's anchor, 15 px in and 40 px down (src/components/map/MapPicker.vue).
+  const pin = (await map.locator('.leaflet-marker-pane .leaflet-marker-icon', { has: page.locator('[data-testid="map-pin"]') }).boundingBox())!
   const looked = page.waitForResponse((r) => r.url().includes('/reverse?'))
-  await page.mouse.click(box.x + box.width / 2 - 177, box.y + box.height / 2 + 64)
+  await page.mouse.click(pin.x + 15 - 177, pin.y + 40 + 64)
   await looked
   await expect(address).toHaveValue(/^730 Harrow Way/)
-  const moved = (await address.inputValue())
+  const moved = await address.inputValue()
   await expect(search).toHaveValue(moved)
 
   await page.getByRole('button', { name: 'Log the vehicle' }).click()
