@@ -1,4 +1,4 @@
-import { checkMove, COLUMN_LABELS, readsBill, type Verdict } from '@shared/domain/lifecycle'
+import { checkMove, COLUMN_LABELS, handsOffHolds, readsBill, type Verdict } from '@shared/domain/lifecycle'
 import type { BoardCard } from '@shared/schemas/board'
 import type { moveRequestSchema } from '@shared/schemas/moves'
 import type { User } from '@shared/schemas/users'
@@ -6,6 +6,7 @@ import type { z } from 'zod'
 import type { Executor } from '@db/client'
 import { AppError, conflict, unprocessable, said } from '../errors'
 import { changeVehicle, spaceOf, type VehicleChanges, type VehicleRow, type VehicleWork, type YardRow } from '../vehicles/index'
+import { activeHolds } from './board.queries'
 import { cardOf } from './board-cards'
 import { moveFacts } from './move-facts'
 
@@ -50,14 +51,38 @@ export async function makeMove({ tx, vehicle, yard, actor, set, record }: Vehicl
  * once, after the commit, for the answer and the boards.
  */
 export async function moveVehicle(changes: VehicleChanges, user: User, vehicleId: string, move: Move, now = new Date()): Promise<BoardCard> {
-  const { card } = await changeVehicle(changes, user, vehicleId, (work) => makeMove(work, move, now), {
-    expectedVersion: move.version,
-    stale: async ({ tx, vehicle, yard }) =>
-      conflict(
-        `Someone else changed ${vehicle.stockNumber} a moment ago; it is now in ${COLUMN_LABELS[vehicle.state]}. The board shows it as it is now — move it again if it still needs moving.`,
-        said('movedElsewhere', { stock: vehicle.stockNumber, column: vehicle.state }, { current: await cardOf(tx, yard, vehicleId, now) }),
-      ),
-    card: async (db, yard) => cardOf(db, yard, vehicleId, now),
-  })
+  const { card } = await changeVehicle(
+    changes,
+    user,
+    vehicleId,
+    async (work) => {
+      if (move.to === 'teardown' && !move.confirmHold) await refuseUnaskedTeardown(work)
+      await makeMove(work, move, now)
+    },
+    {
+      expectedVersion: move.version,
+      stale: async ({ tx, vehicle, yard }) =>
+        conflict(
+          `Someone else changed ${vehicle.stockNumber} a moment ago; it is now in ${COLUMN_LABELS[vehicle.state]}. The board shows it as it is now — move it again if it still needs moving.`,
+          said('movedElsewhere', { stock: vehicle.stockNumber, column: vehicle.state }, { current: await cardOf(tx, yard, vehicleId, now) }),
+        ),
+      card: async (db, yard) => cardOf(db, yard, vehicleId, now),
+    },
+  )
   return card!
+}
+
+/**
+ * Issue 16: a law-enforcement hold usually means the vehicle is evidence — do not take it apart. A move
+ * into Teardown under one (from the board, a phone or any API client) is refused, nothing written, until
+ * it is sent again with `confirmHold: true`, i.e. the person was shown the hold and said go on.
+ */
+async function refuseUnaskedTeardown({ tx, vehicle, yard }: VehicleWork) {
+  const hold = handsOffHolds(await activeHolds(tx, yard.id, [vehicle.id]))[0]
+  if (!hold) return
+  const params = { stock: vehicle.stockNumber, agency: hold.agency ?? '—', caseNumber: hold.caseNumber ?? '—' }
+  throw conflict(
+    `${params.stock} is under a law-enforcement hold (${params.agency}, case ${params.caseNumber}): an evidence hold usually means do not take it apart. Confirm the move to Teardown to go on.`,
+    said('teardownUnderHold', params, { hold: { kind: hold.kind, agency: hold.agency, caseNumber: hold.caseNumber } }),
+  )
 }

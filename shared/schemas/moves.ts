@@ -16,6 +16,9 @@ export const moveRequestSchema = z.object({
     .nullish()
     .transform((v) => v || null),
   disposition: z.enum(DISPOSITIONS, { error: msg('moves.chooseHowVehicleLeaves', 'Choose how the vehicle leaves the yard.') }).nullish().transform((v) => v ?? null),
+  // Issue 16: a move into Teardown under a law-enforcement hold is refused (409) unless the person was
+  // asked and said yes.
+  confirmHold: z.boolean({ error: msg('moves.confirmHoldYesNo', 'Confirming a move under a hold is true or false.') }).optional().transform((v) => v ?? false),
 })
 export type MoveRequest = z.input<typeof moveRequestSchema>
 

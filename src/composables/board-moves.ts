@@ -1,5 +1,5 @@
 import { reactive } from 'vue'
-import { checkMove, type Disposition, factsOfCard, moveOptions, type VehicleState } from '@shared/domain/lifecycle'
+import { checkMove, type Disposition, factsOfCard, handsOffHolds, moveOptions, type VehicleState } from '@shared/domain/lifecycle'
 import type { BoardCard } from '@shared/schemas/board'
 import { moveConflictSchema, moveRefusalSchema } from '@shared/schemas/moves'
 import { useMoveVehicleMutation } from '@/api/board'
@@ -12,6 +12,8 @@ import { useBoardCache } from './board-cache'
 export interface MoveDetails {
   reason?: string | null
   disposition?: Disposition | null
+  /** The person was shown the law-enforcement hold and said go on (a move into Teardown, issue 16). */
+  confirmHold?: boolean
 }
 
 export type MoveOutcome =
@@ -48,7 +50,7 @@ export function useBoardMoves() {
     pending.add(card.id)
     cache.place(card, to === 'closed' ? 'closed' : to)
     try {
-      const updated = await send.mutateAsync({ id: card.id, move: { to, version: card.version, reason: details.reason, disposition: details.disposition } })
+      const updated = await send.mutateAsync({ id: card.id, move: { to, version: card.version, reason: details.reason, disposition: details.disposition, confirmHold: details.confirmHold } })
       cache.put(updated)
       return { ok: true, card: updated, title: done(card, to, details.disposition) }
     } catch (e) {
@@ -65,5 +67,8 @@ export function useBoardMoves() {
     }
   }
 
-  return { move, verdict, options, pending }
+  /** A move into Teardown under a law-enforcement hold asks first (the move dialog shows the hold). */
+  const asksFirst = (card: BoardCard, to: VehicleState) => to === 'teardown' && handsOffHolds(card.holds).length > 0
+
+  return { move, verdict, options, pending, asksFirst }
 }

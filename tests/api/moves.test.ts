@@ -44,6 +44,40 @@ describe('POST /api/vehicles/:vehicleId/moves', () => {
     expect(await historyCount(t_.db, v.id)).toBe(0)
   })
 
+  // Issue 16: an evidence hold usually means "do not touch". A move into Teardown under a law-enforcement
+  // hold is refused until the sender says it was asked (a technician's phone or an API client, not only the board).
+  it('move_intoTeardownUnderALawEnforcementHold_answers409NamingTheHoldUntilConfirmed', async () => {
+    const staff = await makeStaff(t_.db)
+    const v = await makeVehicle(t_.db, staff.yard.id)
+    await setHold(t_.db, v.id, 'law_enforcement', { agency: 'Orrin Flats PD', caseNumber: 'OF-26-20533' })
+    const before = await vehicleRow(t_.db, v.id)
+    const s = await signedIn(t_.app, staff.technician)
+    for (const unasked of [{}, { confirmHold: false }]) {
+      const res = await s.post(move(v.id), { to: 'teardown', version: 1, ...unasked })
+      expect(res.status).toBe(409)
+      expect(res.body).toMatchObject({
+        code: 'teardownUnderHold',
+        params: { stock: v.stockNumber, agency: 'Orrin Flats PD', caseNumber: 'OF-26-20533' },
+        hold: { kind: 'law_enforcement', agency: 'Orrin Flats PD', caseNumber: 'OF-26-20533' },
+      })
+      expect(res.body.error).toContain('Orrin Flats PD, case OF-26-20533')
+      expect(await vehicleRow(t_.db, v.id)).toEqual(before)
+      expect(await historyCount(t_.db, v.id)).toBe(0)
+    }
+    const res = await s.post(move(v.id), { to: 'teardown', version: 1, confirmHold: true })
+    expect(res.status).toBe(200)
+    expect(await vehicleRow(t_.db, v.id)).toMatchObject({ state: 'teardown', version: 2 })
+    expect(await historyCount(t_.db, v.id)).toBe(1)
+  })
+
+  it('move_intoTeardownUnderALienHold_needsNoConfirmation', async () => {
+    const staff = await makeStaff(t_.db)
+    const v = await makeVehicle(t_.db, staff.yard.id)
+    await setHold(t_.db, v.id, 'lien')
+    const s = await signedIn(t_.app, staff.technician)
+    expect((await s.post(move(v.id), { to: 'teardown', version: 1 })).status).toBe(200)
+  })
+
   it('move_roleTheLifecycleRefuses_answers403WithTheReasonAndWritesNothing', async () => {
     const staff = await makeStaff(t_.db)
     const v = await makeVehicle(t_.db, staff.yard.id, { state: 'storage' })
@@ -173,6 +207,7 @@ describe('POST /api/vehicles/:vehicleId/moves', () => {
     { body: { to: 'teardown', version: 0 }, path: 'version' },
     { body: { to: 'closed', version: 1, disposition: 'sold' }, path: 'disposition' },
     { body: { to: 'decision', version: 1, reason: 'x'.repeat(501) }, path: 'reason' },
+    { body: { to: 'teardown', version: 1, confirmHold: 'yes' }, path: 'confirmHold' },
   ])('move_badInput_answers400NamingThe$pathField', async ({ body, path }) => {
     const staff = await makeStaff(t_.db)
     const v = await makeVehicle(t_.db, staff.yard.id)

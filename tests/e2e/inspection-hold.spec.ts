@@ -41,3 +41,47 @@ test('a teardown under a law-enforcement hold shows the hold and asks before sta
   await expect(page.getByTestId('vehicle-state')).toHaveText('Teardown')
   expect(problems).toEqual([])
 })
+
+// Issue 16 item 16, the board's side: a drag, Shift+→ or "Move to…" took a held vehicle from Arrival to
+// Teardown without a word. Every way into Teardown under a law-enforcement hold now asks first, naming the
+// hold and its caution; Cancel leaves it in Arrival and sends nothing.
+test('Shift+→ on a card under a law-enforcement hold asks first; Cancel leaves it in Arrival', async ({ page, browser }) => {
+  test.slow()
+  const problems = watchConsole(page)
+  const desk = await browser.newPage()
+  await signInAs(desk, 'dispatcher')
+  const session = await (await desk.request.get('/api/session')).json()
+  const headers = { 'x-csrf-token': session.csrfToken }
+  const created = await desk.request.post('/api/vehicles', { headers, data: towInBody(session.user.id, anotherVehicle) })
+  expect(created.status()).toBe(201)
+  const { id: vehicleId, stockNumber } = (await created.json()) as { id: string; stockNumber: string }
+  const held = await desk.request.post(`/api/vehicles/${vehicleId}/holds`, { headers, data: { kind: 'law_enforcement', agency: 'Orrin Flats Police Department', caseNumber: 'OF-26-20611' } })
+  expect(held.status()).toBe(201)
+  await desk.close()
+
+  await signInAs(page, 'technician')
+  await page.goto(`/board?q=${stockNumber}`)
+  const card = (column: string) => page.locator(`[data-column="${column}"] [data-stock="${stockNumber}"]`)
+  let posted = 0
+  page.on('request', (r) => r.method() === 'POST' && r.url().endsWith(`/api/vehicles/${vehicleId}/moves`) && posted++)
+
+  await card('arrival').focus()
+  await page.keyboard.press('Shift+ArrowRight')
+  const ask = page.getByRole('dialog', { name: `Move ${stockNumber}` })
+  await expect(ask.getByTestId('move-hold')).toContainText('Under a law-enforcement hold: Orrin Flats Police Department, case OF-26-20611')
+  await expect(ask).toContainText('do not take it apart until the agency says so')
+  await ask.getByRole('button', { name: 'Cancel' }).click()
+  await expect(ask).toBeHidden()
+  await expect(card('arrival')).toBeVisible()
+  expect(posted).toBe(0)
+
+  await card('arrival').focus()
+  await page.keyboard.press('Shift+ArrowRight')
+  const moved = page.waitForResponse((r) => r.url().endsWith(`/api/vehicles/${vehicleId}/moves`) && r.request().method() === 'POST')
+  await page.getByRole('dialog', { name: `Move ${stockNumber}` }).getByRole('button', { name: 'Move to Teardown anyway' }).click()
+  const answer = await moved
+  expect(answer.status()).toBe(200)
+  expect(answer.request().postDataJSON()).toMatchObject({ to: 'teardown', confirmHold: true })
+  await expect(card('teardown')).toBeVisible()
+  expect(problems).toEqual([])
+})

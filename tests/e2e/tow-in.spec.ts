@@ -187,3 +187,37 @@ test('logging a VIN that is still in the yard asks why, and logs it with the rea
   await expect(page).toHaveURL(/\/vehicles\/[0-9a-f-]{36}$/)
   await expect(page.getByTestId('stock-number')).not.toHaveText(first)
 })
+
+// Issue 16 item 4: after a search, a pin moved on the map left the box showing the searched place while
+// the record got the address at the pin. The box, the pin and the saved record agree.
+test('a pin moved after a search puts the new address in the box, and that address is saved', async ({ page }) => {
+  await openForm(page)
+  await fillTheMinimum(page)
+  const search = page.getByLabel('Search for the address or a place')
+  const address = page.getByLabel('Pickup address as you would tell the driver')
+  await search.fill('Sunridge')
+  await page.getByRole('option', { name: /Sunridge Plaza, 300 Harrow Way/ }).click()
+  await expect(address).toHaveValue('Sunridge Plaza, 300 Harrow Way, Orrin Flats')
+  await expect(search).toHaveValue('Sunridge Plaza, 300 Harrow Way, Orrin Flats')
+
+  // The map zooms to 16 on the searched place: 256 * 2^16 px around the world, so 0.0038° of longitude is
+  // 177 px and 0.0011° of latitude (Web Mercator, at 36.42°) 64 px. 730 Harrow Way, a named place of the
+  // local geocoder stand-in (server/fakes/orrin-flats.ts), is that far west and south of Sunridge Plaza.
+  const map = page.getByTestId('map')
+  await expect(map.locator('img.leaflet-tile-loaded[src*="/tiles/16/"]').first()).toBeVisible()
+  await expect(map.locator('.leaflet-zoom-anim')).toHaveCount(0)
+  // The pin's point is its icon's anchor, 15 px in and 40 px down (src/components/map/MapPicker.vue).
+  const pin = (await map.locator('.leaflet-marker-pane .leaflet-marker-icon', { has: page.locator('[data-testid="map-pin"]') }).boundingBox())!
+  const looked = page.waitForResponse((r) => r.url().includes('/reverse?'))
+  await page.mouse.click(pin.x + 15 - 177, pin.y + 40 + 64)
+  await looked
+  await expect(address).toHaveValue(/^730 Harrow Way/)
+  const moved = await address.inputValue()
+  await expect(search).toHaveValue(moved)
+
+  await page.getByRole('button', { name: 'Log the vehicle' }).click()
+  await expect(page).toHaveURL(/\/vehicles\/[0-9a-f-]{36}$/)
+  const id = page.url().split('/').at(-1)!
+  const vehicle = await (await page.request.get(`/api/vehicles/${id}`)).json()
+  expect(vehicle.tow.pickupAddress).toBe(moved)
+})
