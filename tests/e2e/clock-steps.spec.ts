@@ -31,7 +31,7 @@ test('the office records the state notice from the vehicle page and the step it 
   await expect(section).toContainText('§ 3071')
   await expect(section).toContainText('Requirements vary by state and locality; check with your local code and counsel.')
 
-  await step.getByRole('button', { name: 'Record' }).click()
+  await step.getByRole('button', { name: 'Record the day' }).click()
   const dialog = page.getByRole('dialog', { name: "Record: The state's notice mailed to the owners" })
   // The yard's today (its zone, not the browser's): the vehicle arrived today, so no other day is allowed.
   const yardToday = new Intl.DateTimeFormat('en-CA', { timeZone: vehicle.yard.timeZone }).format(new Date())
