@@ -146,6 +146,9 @@ export const ACCESS: Record<string, Rule> = {
   // The lien sale's day (issue 10): never earlier than the law allows.
   'GET /api/vehicles/:vehicleId/sale-date': 'owner.write',
   'PUT /api/vehicles/:vehicleId/sale-date': 'owner.write',
+  // The lien-sale steps only the office can witness: the application, the state's notice, the posting.
+  'GET /api/vehicles/:vehicleId/clock-events': 'owner.write',
+  'POST /api/vehicles/:vehicleId/clock-events': 'owner.write',
   // The gate's phone: a pass (in the body, never the path) reaches one vehicle's record-out, once.
   'POST /api/gate/check': 'release.write',
   'POST /api/gate/record-out': 'release.write',

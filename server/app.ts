@@ -31,6 +31,7 @@ import { quotesRouter } from './quotes/index'
 import { gateRouter, releasesRouter } from './releases/index'
 import { transfersRouter } from './transfers/index'
 import { publicationsRouter, saleDateRouter } from './publications/index'
+import { clockStepsRouter } from './clock-steps/index'
 import { ruleSetsRouter } from './rule-sets/index'
 import { todayRouter } from './today/index'
 import { reportsRouter } from './reports/index'
@@ -178,6 +179,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/vehicles/:vehicleId/transfer', transfersRouter({ changes, files }))
   app.use('/api/vehicles/:vehicleId/publications', publicationsRouter({ changes, files }))
   app.use('/api/vehicles/:vehicleId/sale-date', saleDateRouter({ changes }))
+  app.use('/api/vehicles/:vehicleId/clock-events', clockStepsRouter({ changes }))
   app.use('/api/gate', gateRouter(changes))
   app.use('/api/vehicles', vehiclesRouter(changes, files))
   app.use('/api/files', filesRouter(db, files))

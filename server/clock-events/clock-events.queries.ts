@@ -25,7 +25,7 @@ export interface NewClockEvent {
   vehicleId: string
   kind: ClockEventKind
   at: Date
-  source: 'records-request' | 'notice-sending' | 'publication' | 'sale-date'
+  source: 'records-request' | 'notice-sending' | 'publication' | 'sale-date' | 'office-step'
   sourceId: string | null
   recordedById: string | null
 }

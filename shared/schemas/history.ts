@@ -51,6 +51,7 @@ export const HISTORY_KINDS = [
   'publication_recorded',
   'publication_proof_added',
   'sale_date_set',
+  'clock_step_recorded',
 ] as const
 export type HistoryKind = (typeof HISTORY_KINDS)[number]
 
@@ -125,4 +126,5 @@ export const HISTORY_LABELS: Record<HistoryKind, string> = {
   publication_recorded: 'Newspaper publication recorded',
   publication_proof_added: 'Proof of publication added',
   sale_date_set: 'Lien sale date set',
+  clock_step_recorded: 'Lien-sale step recorded',
 }

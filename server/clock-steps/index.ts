@@ -1,0 +1,2 @@
+export { clockStepsRouter } from './clock-steps.routes'
+export { clockStepsPage, recordClockStep } from './clock-steps.service'
