@@ -78,8 +78,9 @@ export function cardRefundsRouter({ changes, cards }: CardPaymentDeps): Router {
   const router = Router({ mergeParams: true })
   router.post('/', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
-    const answer = await refundCard(changes, cards, req.user!, vehicleId, cardRefundInputSchema.parse(req.body))
-    res.status(answer.replayed ? 200 : 201).json(answer)
+    const { status, answer } = await refundCard(changes, cards, req.user!, vehicleId, cardRefundInputSchema.parse(req.body))
+    // 200 a refund this key already made, 201 a new one, 202 one the service has taken but not finished.
+    res.status('replayed' in answer && answer.replayed ? 200 : status).json(answer)
   })
   return router
 }

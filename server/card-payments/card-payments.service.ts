@@ -8,6 +8,7 @@ import type { CardCheckout, CardCheckoutRequest } from '@shared/schemas/card-pay
 import type { User } from '@shared/schemas/users'
 import { invoiceOf, OWNER_ONLINE, paymentRecord, queueReceipt, type ReceiptMail } from '../billing/index'
 import { AppError, said } from '../errors'
+import { receiveRefundEvent } from './card-refund-records'
 import { changeVehicle, changeVehicleAsOwner, vehicleById, vehicleForUser, type OwnerWork, type VehicleChanges } from '../vehicles/index'
 
 /**
@@ -186,6 +187,11 @@ export async function receiveWebhook(changes: VehicleChanges, cards: CardPayment
   const note = (tx: Executor, outcome: string, sessionId: string | null) =>
     tx.insert(cardWebhookEvents).values({ eventId: event.id, type: event.type, sessionId, outcome }).onConflictDoNothing()
 
+  if (event.type === 'refund.updated' || event.type === 'refund.failed') {
+    const outcome = await receiveRefundEvent(changes, event.data.object, staffOf)
+    await note(db, outcome, null)
+    return { status: 200, body: { received: true, outcome } }
+  }
   if (event.type !== 'checkout.session.completed' && event.type !== 'checkout.session.async_payment_succeeded' && event.type !== 'checkout.session.expired') {
     await note(db, 'ignored', null)
     return { status: 200, body: { received: true, outcome: 'ignored' } }

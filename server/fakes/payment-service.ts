@@ -11,7 +11,9 @@ import Stripe from 'stripe'
  * - `POST /v1/checkout/sessions` (form-encoded, as the SDK sends; `Idempotency-Key` honoured),
  *   `GET /v1/checkout/sessions/:id`, `POST /v1/checkout/sessions/:id/expire`;
  * - `POST /v1/refunds` (`payment_intent`, `amount`; `Idempotency-Key` honoured): never more than is left
- *   unrefunded on that payment, answered `succeeded` at once;
+ *   unrefunded on that payment, answered `succeeded` at once — or, after `holdRefunds(true)`, `pending`
+ *   until a test calls `settleRefund`, which sends a signed `refund.updated` webhook, as the real
+ *   service does when a bank takes its time; `GET /v1/refunds/:id`;
  * - its own hosted checkout page, `/pay/:id`: a test card number, Pay and Cancel, which sends the
  *   app a signed `checkout.session.completed` webhook and goes back to the session's success URL.
  *
@@ -28,7 +30,24 @@ export interface FakePaymentService {
   deliverTo(deliver: WebhookDelivery): void
   /** Sends the webhooks still waiting for an answer of 2xx (a webhook the app refused is kept, as the real service retries). */
   redeliver(): Promise<void>
+  /** From now on, refunds answer `pending` and wait for `settleRefund` (true), or succeed at once (false). */
+  holdRefunds(on: boolean): void
+  /** A pending refund ends: `succeeded`, or `failed` (its amount can be refunded again); the app hears `refund.updated`. */
+  settleRefund(id: string, outcome: 'succeeded' | 'failed'): Promise<void>
   close(): Promise<void>
+}
+
+interface FakeRefund {
+  id: string
+  object: 'refund'
+  amount: number
+  currency: string
+  payment_intent: string
+  status: 'pending' | 'succeeded' | 'failed'
+  failure_reason?: string
+  reason: string | null
+  metadata: Record<string, string>
+  created: number
 }
 
 /** Posts one event's body with its `Stripe-Signature` header; answers the HTTP status the app gave. */
@@ -76,6 +95,8 @@ export async function startFakePaymentService(options: { host?: string; port?: n
   const pending: string[] = []
   // What each paid payment took and how much of it has been given back.
   const intents = new Map<string, { amount: number; currency: string; refunded: number }>()
+  const refunds = new Map<string, FakeRefund>()
+  let refundsWait = false
   let deliver: WebhookDelivery | undefined
   let base = ''
 
@@ -127,6 +148,11 @@ export async function startFakePaymentService(options: { host?: string; port?: n
     if (key) idempotent.set(`refund:${key}`, { hash, ...answer })
     res.status(answer.status).json(answer.body)
   })
+  api.get('/refunds/:id', (req, res) => {
+    const r = refunds.get(req.params.id!)
+    if (!r) return apiError(res, 404, `No such refund: '${req.params.id}'`, 'id')
+    res.json(r)
+  })
   app.use('/v1', api)
 
   function createRefund(body: Record<string, unknown>): { status: number; body: unknown } {
@@ -140,18 +166,20 @@ export async function startFakePaymentService(options: { host?: string; port?: n
     if (left <= 0) return fail(`Charge for payment_intent ${pi} has already been refunded.`)
     if (amount > left) return fail(`Refund amount ($${(amount / 100).toFixed(2)}) is greater than unrefunded amount on charge ($${(left / 100).toFixed(2)})`, 'amount')
     intent.refunded += amount
-    const refund = {
+    const refund: FakeRefund = {
       id: newId('re'),
       object: 'refund',
       amount,
       currency: intent.currency,
       payment_intent: pi,
-      status: 'succeeded',
+      status: refundsWait ? 'pending' : 'succeeded',
       reason: typeof body.reason === 'string' ? body.reason : null,
       metadata: (body.metadata ?? {}) as Record<string, string>,
       created: Math.floor(now() / 1000),
     }
-    return { status: 200, body: refund }
+    refunds.set(refund.id, refund)
+    // The answer as it was at the time (a replay of the same key answers it again, as the real service does).
+    return { status: 200, body: { ...refund } }
   }
 
   function createSession(body: Record<string, unknown>): { status: number; body: unknown } {
@@ -213,7 +241,7 @@ export async function startFakePaymentService(options: { host?: string; port?: n
     return s
   }
 
-  async function send(type: string, s: FakeSession) {
+  async function send(type: string, s: FakeSession | FakeRefund) {
     const event = { id: newId('evt'), object: 'event', api_version: '2025-11-17.clover', created: Math.floor(now() / 1000), livemode: false, type, data: { object: s } }
     pending.push(JSON.stringify(event))
     await flush()
@@ -267,6 +295,19 @@ export async function startFakePaymentService(options: { host?: string; port?: n
       deliver = d
     },
     redeliver: flush,
+    holdRefunds(on) {
+      refundsWait = on
+    },
+    async settleRefund(id, outcome) {
+      const r = refunds.get(id)
+      if (!r || r.status !== 'pending') throw new Error(`No pending refund ${id}`)
+      r.status = outcome
+      if (outcome === 'failed') {
+        r.failure_reason = 'lost_or_stolen_card'
+        intents.get(r.payment_intent)!.refunded -= r.amount
+      }
+      await send('refund.updated', { ...r })
+    },
     close: () =>
       new Promise<void>((resolve) => {
         server.close(() => resolve())

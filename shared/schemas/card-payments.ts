@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { LOCALES } from '../messages/locales'
+import { paymentAnswerSchema, invoiceSchema } from './billing'
 import { requiredText } from './fields'
 import { msg } from './field-messages'
 
@@ -72,3 +73,14 @@ export const cardRefundInputSchema = z.object({
 })
 export type CardRefundInput = z.input<typeof cardRefundInputSchema>
 export type CardRefund = z.output<typeof cardRefundInputSchema>
+
+/**
+ * The service took the refund but has not finished it (a bank can take days): nothing is on the bill yet;
+ * the vehicle's history says it was sent, and the service's `refund.updated` webhook records it when it ends.
+ */
+export const pendingRefundAnswerSchema = z.object({
+  pending: z.object({ providerReference: z.string(), amountCents: z.number().int() }),
+  invoice: invoiceSchema,
+})
+export const cardRefundAnswerSchema = z.union([paymentAnswerSchema, pendingRefundAnswerSchema])
+export type CardRefundAnswer = z.infer<typeof cardRefundAnswerSchema>

@@ -4,13 +4,13 @@ import { z } from 'zod'
 import {
   cardCheckoutInputSchema,
   cardCheckoutSchema,
+  cardRefundAnswerSchema,
   cardRefundInputSchema,
   ownerCardCheckoutInputSchema,
   type CardRefundInput,
   type CardCheckoutInput,
   type OwnerCardCheckoutInput,
 } from '@shared/schemas/card-payments'
-import { paymentAnswerSchema } from '@shared/schemas/billing'
 import { ownerPageSchema } from '@shared/schemas/owner'
 import { signatureInputSchema, type SignatureInput } from '@shared/schemas/releases'
 import { billingKeys } from './billing'
@@ -101,7 +101,7 @@ export function useOwnerReleaseSignatureMutation(key: MaybeRefOrGetter<string>) 
 
 /** A manager gives back (all or part of) a card payment made on the hosted page, through the payment service. */
 export const refundCardPayment = (vehicleId: string, input: CardRefundInput) =>
-  request('POST', `/api/vehicles/${vehicleId}/card-refunds`, paymentAnswerSchema, cardRefundInputSchema.parse(input))
+  request('POST', `/api/vehicles/${vehicleId}/card-refunds`, cardRefundAnswerSchema, cardRefundInputSchema.parse(input))
 
 export function useCardRefundMutation() {
   return useMutation({

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import * as t from '@db/schema'
 import { historyOf } from '@db/history'
 import { cardPaymentsClient } from '../../server/card-payments/index'
-import { startFakePaymentService, type FakePaymentService } from '../../server/fakes/index'
+import { signWebhook, startFakePaymentService, type FakePaymentService } from '../../server/fakes/index'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { billedVehicle, key } from '../helpers/billing'
 import { historyCount, vehicleRow } from '../helpers/board'
@@ -130,5 +130,66 @@ describe('card refund through the payment service', () => {
     const res = await office.post(refunds(v.id), { idempotencyKey: key(), paymentId: payment.id, amountCents: 500, reason: 'Why' })
     expect(res.status).toBe(403)
     expect(await refundRows(v.id)).toHaveLength(0)
+  })
+})
+
+// A refund the service takes as pending (a bank can take days; the service's refunds can answer
+// `pending` and later send `refund.updated`): nothing on the bill until it succeeds, and then once.
+describe('card refund the service finishes later', () => {
+  beforeAll(() => fake.holdRefunds(true))
+  afterAll(() => fake.holdRefunds(false))
+  const kinds = async (vehicleId: string, kind: string) => (await historyOf(app.db, vehicleId)).filter((e) => e.kind === kind)
+
+  it('refund_pendingThenSucceeded_notedAsSentThenRecordedOnceByTheWebhook', async () => {
+    const { v, manager, payment, staff } = await paidByCard(6_000)
+    const body = { idempotencyKey: key(), paymentId: payment.id, amountCents: 2_000, reason: 'Tow charged twice' }
+    const sent = await manager.post(refunds(v.id), body)
+    expect(sent.status).toBe(202)
+    expect(sent.body.pending).toMatchObject({ amountCents: 2_000 })
+    expect(sent.body.invoice).toMatchObject({ refundedCents: 0 })
+    expect(await refundRows(v.id)).toHaveLength(0)
+    // A retry while it is still pending: answered the same, noted once.
+    expect((await manager.post(refunds(v.id), body)).status).toBe(202)
+    const noted = await kinds(v.id, 'refund_pending')
+    expect(noted).toHaveLength(1)
+    expect(noted[0]).toMatchObject({ reason: 'Tow charged twice', after: { amountCents: 2_000, providerReference: sent.body.pending.providerReference } })
+
+    await fake.settleRefund(sent.body.pending.providerReference, 'succeeded')
+    const rows = await refundRows(v.id)
+    expect(rows).toMatchObject([{ amountCents: 2_000, reason: 'Tow charged twice', providerReference: sent.body.pending.providerReference, refundOfPaymentId: payment.id, takenById: staff.manager.id }])
+    const given = await kinds(v.id, 'payment_refunded')
+    expect(given).toHaveLength(1)
+    expect(given[0]!.actorLabel).toBe(staff.manager.name)
+    // The manager's retry after it ended answers the refund the webhook recorded.
+    const after = await manager.post(refunds(v.id), body).expect(200)
+    expect(after.body).toMatchObject({ replayed: true, payment: { id: rows[0]!.id }, invoice: { refundedCents: 2_000 } })
+    // The service telling it again, as a new event, records nothing more.
+    const reference = sent.body.pending.providerReference
+    const refund = await (await fetch(`http://${fake.host}:${fake.port}/v1/refunds/${reference}`, { headers: { authorization: `Bearer ${fake.secretKey}` } })).json()
+    const payload = JSON.stringify({ id: `evt_again_${reference}`, object: 'event', type: 'refund.updated', created: 1, livemode: false, data: { object: refund } })
+    const again = await request(app.app).post('/api/card-payments/webhook').set('content-type', 'application/json').set('stripe-signature', signWebhook(payload, fake.webhookSecret)).send(payload)
+    expect(again.body).toMatchObject({ received: true, outcome: 'replayed' })
+    expect(await refundRows(v.id)).toHaveLength(1)
+    expect(await kinds(v.id, 'payment_refunded')).toHaveLength(1)
+  })
+
+  it('refund_pendingThenFailed_noteOfFailureNothingOnTheBillAndTheAmountCanBeGivenAgain', async () => {
+    const { v, manager, payment } = await paidByCard(3_000)
+    const sent = await manager.post(refunds(v.id), { idempotencyKey: key(), paymentId: payment.id, amountCents: 3_000, reason: 'Owner overpaid' }).expect(202)
+    await fake.settleRefund(sent.body.pending.providerReference, 'failed')
+    expect(await refundRows(v.id)).toHaveLength(0)
+    const failed = await kinds(v.id, 'refund_failed')
+    expect(failed).toHaveLength(1)
+    expect(failed[0]!.after).toMatchObject({ amountCents: 3_000, status: 'failed', providerReference: sent.body.pending.providerReference })
+    const invoice = (await manager.get(`/api/vehicles/${v.id}/invoice`).expect(200)).body.invoice
+    expect(invoice).toMatchObject({ paidCents: 3_000, refundedCents: 0 })
+    // The whole amount is there to give back again, and this time the service finishes it at once.
+    fake.holdRefunds(false)
+    try {
+      await manager.post(refunds(v.id), { idempotencyKey: key(), paymentId: payment.id, amountCents: 3_000, reason: 'Owner overpaid, again' }).expect(201)
+    } finally {
+      fake.holdRefunds(true)
+    }
+    expect(await refundRows(v.id)).toHaveLength(1)
   })
 })
