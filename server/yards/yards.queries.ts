@@ -1,4 +1,4 @@
-import { and, asc, eq, sql, type SQL } from 'drizzle-orm'
+import { asc, sql, type SQL } from 'drizzle-orm'
 import type { Executor } from '@db/client'
 import { users, yards } from '@db/schema'
 
@@ -23,12 +23,13 @@ export function yardsOfUser(db: Executor, userId: string) {
  * otherwise the first of their yards. Every list (board, reports, today, archive…) reads this one.
  */
 export async function yardOfUser(db: Executor, userId: string) {
-  const [chosen] = await db
-    .select({ yard: yards })
+  // One query on every request that reads a list: the chosen yard sorts first (a yard that is no longer
+  // theirs is not among the rows at all), then the oldest; `= null` when nothing is chosen sorts last.
+  const [first] = await db
+    .select()
     .from(yards)
-    .innerJoin(users, eq(users.currentYardId, yards.id))
-    .where(and(eq(users.id, userId), yardOfStaff(userId)))
-  if (chosen) return chosen.yard
-  const [first] = await yardsOfUser(db, userId).limit(1)
+    .where(yardOfStaff(userId))
+    .orderBy(sql`${yards.id} = (select ${users.currentYardId} from ${users} where ${users.id} = ${userId}) desc nulls last`, asc(yards.createdAt), asc(yards.code))
+    .limit(1)
   return first
 }
