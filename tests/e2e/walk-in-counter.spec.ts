@@ -64,7 +64,6 @@ test('a walk-in owner paying cash: found by plate, released on one screen in ten
   await expect(screen.getByTestId('counter-everything')).toContainText('Child seat')
   await counter.screenshot({ path: 'test-results/walk-in-counter-1-open.png' })
 
-  // Releasing before the balance is taken is refused on the screen, nothing sent.
   tally.at('cash')
   const money = screen.getByTestId('counter-money')
   await expect(money).toContainText('Balance due')
@@ -129,4 +128,39 @@ test('a walk-in owner paying cash: found by plate, released on one screen in ten
   expect(problems).toEqual([])
   await desk.close()
   await phone.close()
+})
+
+test('releasing with pieces missing names each one beside its field and sends nothing', async ({ page, request }) => {
+  const csrf = ((await (await request.get('/api/session')).json()) as { csrfToken: string }).csrfToken
+  const dispatcher = await request.post('/api/session', { data: { email: DEMO.dispatcher, password: DEMO.password }, headers: { 'x-csrf-token': csrf } })
+  const session = (await dispatcher.json()) as { csrfToken: string; user: { id: string } }
+  const created = await request.post('/api/vehicles', { headers: { 'x-csrf-token': session.csrfToken }, multipart: { data: JSON.stringify(towInBody(session.user.id, anotherVehicle)) } })
+  expect(created.status(), await created.text()).toBe(201)
+  const { id, stockNumber } = (await created.json()) as { id: string; stockNumber: string }
+  const problems = watchConsole(page)
+  await signInAs(page, 'office', `/vehicles/${id}`)
+  await page.getByTestId('counter-open').click()
+  const screen = page.getByRole('dialog', { name: `Release at the counter — ${stockNumber}` })
+  await expect(screen.getByTestId('counter-signature-pad')).toHaveAttribute('data-ready', 'true')
+  const sent: string[] = []
+  page.on('request', (r) => {
+    if (r.method() !== 'GET' && /\/release\b|\/payments/.test(r.url())) sent.push(`${r.method()} ${r.url()}`)
+  })
+  await screen.getByTestId('counter-name').fill('')
+  await screen.getByTestId('counter-release').click()
+  await expect(screen.getByTestId('counter-message')).toHaveText('Take the balance first: the gate pass needs it paid or waived.')
+  const field = (label: string) => screen.locator('.el-form-item').filter({ has: page.getByText(label, { exact: true }) })
+  await expect(field('Full name, as on the ID')).toContainText('Enter the full name of the person collecting, as on their ID.')
+  await expect(field('ID number')).toContainText('Enter the ID number.')
+  await expect(field('Expires')).toContainText('Enter the date the ID expires.')
+  await expect(field('Odometer at release')).toContainText('Enter the odometer reading, or mark it unreadable.')
+  await expect(field('Photo of the ID')).toContainText('Add the ID photo')
+  await expect(screen).toContainText('The signature box is empty: sign in the box first.')
+  expect(sent).toEqual([])
+  // Nothing was written: the vehicle is in Release with no claimant, and no gate pass.
+  const release = await (await page.request.get(`/api/vehicles/${id}/release`)).json()
+  expect(release.state).toBe('release')
+  expect(release.release).toBeNull()
+  expect(release.gatePass).toBeNull()
+  expect(problems).toEqual([])
 })
