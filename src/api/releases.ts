@@ -46,7 +46,8 @@ export type ReleaseStep =
   | { step: 'handover'; input: HandoverInput }
   | { step: 'signature'; input: SignatureInput }
 
-function send(vehicleId: string, s: ReleaseStep): Promise<ReleasePage> {
+/** One step at the counter, through the same route as the Release section's dialogs (the counter's one-screen release sends them in turn). */
+export function sendReleaseStep(vehicleId: string, s: ReleaseStep): Promise<ReleasePage> {
   switch (s.step) {
     case 'claimant':
       return request('PUT', `${base(vehicleId)}/claimant`, releasePageSchema, claimantInputSchema.parse(s.input))
@@ -64,7 +65,7 @@ function send(vehicleId: string, s: ReleaseStep): Promise<ReleasePage> {
 /** Every step at the counter answers the whole release section, which replaces the cached one. */
 export function useReleaseStepMutation(vehicleId: MaybeRefOrGetter<string>) {
   return useMutation({
-    mutationFn: (s: ReleaseStep) => send(toValue(vehicleId), s),
+    mutationFn: (s: ReleaseStep) => sendReleaseStep(toValue(vehicleId), s),
     onSuccess: (page, _s, _context, { client }) => {
       client.setQueryData(releaseKeys.detail(toValue(vehicleId)), page)
       vehicleChanged(client, toValue(vehicleId))
@@ -72,10 +73,12 @@ export function useReleaseStepMutation(vehicleId: MaybeRefOrGetter<string>) {
   })
 }
 
+export const issueGatePass = (vehicleId: string, lang: string) => request('POST', `${base(vehicleId)}/gate-pass?lang=${lang}`, gatePassIssuedSchema)
+
 /** A gate pass: its PDF and code are in this answer only (the server keeps hashes), so the caller opens it at once. */
 export function useIssueGatePassMutation(vehicleId: MaybeRefOrGetter<string>) {
   return useMutation({
-    mutationFn: (lang: string) => request('POST', `${base(toValue(vehicleId))}/gate-pass?lang=${lang}`, gatePassIssuedSchema),
+    mutationFn: (lang: string) => issueGatePass(toValue(vehicleId), lang),
     onSuccess: (_issued, _lang, _context, { client }) => {
       void client.invalidateQueries({ queryKey: releaseKeys.detail(toValue(vehicleId)) })
       vehicleChanged(client, toValue(vehicleId))
