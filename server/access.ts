@@ -22,6 +22,9 @@ export const ACCESS: Record<string, Rule> = {
   // A fresh install's first manager (no company yet): the routes refuse (409) once any company exists.
   'GET /api/first-run': 'public',
   'POST /api/first-run': 'public',
+  'GET /api/first-run/choices': 'public',
+  'GET /api/first-run/geocoder/search': 'public',
+  'GET /api/first-run/geocoder/reverse': 'public',
 
   'GET /api/users': 'admin',
   'POST /api/users': 'admin',

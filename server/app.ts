@@ -147,7 +147,7 @@ export function createApp(deps: AppDeps): Express {
     '/api/session',
     sessionRouter(db, { anonymous, devices: knownDevices(deps.sessionSecret, deps.https ?? false, limits.now), throttle: signInThrottle(db, limits, log), boards: hub }),
   )
-  app.use('/api/first-run', firstRunRouter(db))
+  app.use('/api/first-run', firstRunRouter(db, map))
   app.use('/api/users', usersRouter(db, hub))
   app.use('/api/yards', yardsRouter(db))
   app.use('/api/board', boardRouter(db, hub, deps.boardStream))

@@ -22,11 +22,18 @@ export function fakesRouter(): Router {
     res.setHeader('Cache-Control', 'public, max-age=86400')
     res.type('png').send(await tile(zoom, x, y))
   })
-  router.get('/geocoder/search', (req, res) => {
+  router.use('/geocoder', geocoderRouter())
+  return router
+}
+
+/** The geocoder stand-in alone (`/search`, `/reverse`): the first-run page reaches it before anyone has signed in. */
+export function geocoderRouter(): Router {
+  const router = Router()
+  router.get('/search', (req, res) => {
     const { q, limit } = searchQuery.parse(req.query)
     res.json(search(q, limit))
   })
-  router.get('/geocoder/reverse', (req, res) => {
+  router.get('/reverse', (req, res) => {
     const { lat, lon } = reverseQuery.parse(req.query)
     res.json(reverse([lat, lon]) ?? { error: 'Unable to geocode' })
   })

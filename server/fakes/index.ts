@@ -1,3 +1,4 @@
-export { fakesRouter } from './fakes.routes'
+export { fakesRouter, geocoderRouter } from './fakes.routes'
+export { TOWN_CENTRE } from './orrin-flats'
 export { startLocalSmtp, type LocalSmtp, type ReceivedMail } from './local-smtp'
 export { signWebhook, startFakePaymentService, type FakePaymentService, type WebhookDelivery } from './payment-service'

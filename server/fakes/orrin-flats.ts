@@ -14,6 +14,8 @@ export interface Street {
 }
 
 export const TOWN = 'Orrin Flats'
+/** Where a map of the town opens when no yard is placed yet (the first run). */
+export const TOWN_CENTRE = { lat: 36.4127, lng: -119.3521 }
 
 export const STREETS: Street[] = [
   { name: 'Quarry Spur Rd', aliases: ['quarry spur road', 'quarry spur'], points: [[36.4185, -119.364], [36.4127, -119.3521], [36.4075, -119.344], [36.406, -119.3418]], numbers: [0, 2400] },

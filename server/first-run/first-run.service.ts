@@ -19,6 +19,11 @@ export async function firstRunNeeded(db: Executor): Promise<boolean> {
   return row!.n === 0
 }
 
+/** Refuses (409) once a company exists: what the first run offers is of use only before that. */
+export async function stillNeeded(db: Executor): Promise<void> {
+  if (!(await firstRunNeeded(db))) throw alreadySetUp()
+}
+
 /**
  * The company, its first manager, first yard and spaces, with the yard's settings-audit row: all or
  * nothing, through the same services as `user:create` and Settings → Yards. Two first runs at once

@@ -2,6 +2,7 @@ import { readdirSync, readFileSync } from 'node:fs'
 import path from 'node:path'
 import type { Executor } from '@db/client'
 import { ruleSets, ruleSetVersions } from '@db/schema'
+import { sampleChoiceSchema, type SampleChoice } from '@shared/schemas/first-run'
 
 /**
  * Where the shipped sample rule sets are read from unless the server's config (HOLDFAST_RULE_SETS)
@@ -34,4 +35,26 @@ export async function loadSampleRuleSets(db: Executor, dir: string = SAMPLE_RULE
     versions.set(slug, version!.id)
   }
   return versions
+}
+
+/**
+ * The shipped samples a new yard may start from, read from their files (the first run comes before any
+ * is loaded into the database), in file-name order: the first is the one offered when nothing fits better.
+ */
+export function sampleChoices(dir: string = SAMPLE_RULE_SETS_DIR): SampleChoice[] {
+  return readdirSync(dir)
+    .filter((f) => f.endsWith('.json'))
+    .sort()
+    .map((file) => {
+      const body = JSON.parse(readFileSync(path.join(dir, file), 'utf8')) as Record<string, unknown>
+      const es = (body.es ?? {}) as Record<string, unknown>
+      return sampleChoiceSchema.parse({
+        id: String(body.id ?? path.basename(file, '.json')),
+        name: body.name,
+        jurisdiction: body.jurisdiction,
+        timeZone: body.timeZone,
+        caution: body.caution,
+        cautionEs: typeof es.caution === 'string' ? es.caution : null,
+      })
+    })
 }

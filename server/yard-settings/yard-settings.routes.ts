@@ -1,7 +1,7 @@
 import { Router } from 'express'
 import type { Database } from '@db/client'
-import { editYardSchema, newYardSchema, spaceBlockSchema, spaceParamsSchema, yardParamsSchema } from '@shared/schemas/yard-settings'
-import { addSpaces, addYard, editYard, retireSpace, yardsForSettings } from './yard-settings.service'
+import { editYardSchema, newYardWith, spaceBlockSchema, spaceParamsSchema, yardParamsSchema } from '@shared/schemas/yard-settings'
+import { addSpaces, addYard, editYard, retireSpace, ruleSetIdsFor, yardsForSettings } from './yard-settings.service'
 
 /** /api/settings/yards: the manager's yards — details, rates, spaces (every change audited). */
 export function yardSettingsRouter(db: Database, ruleSetsFolder?: string): Router {
@@ -10,7 +10,8 @@ export function yardSettingsRouter(db: Database, ruleSetsFolder?: string): Route
     res.json({ yards: await yardsForSettings(db, req.user!) })
   })
   router.post('/', async (req, res) => {
-    const id = await addYard(db, req.user!, newYardSchema.parse(req.body), ruleSetsFolder)
+    const input = newYardWith(await ruleSetIdsFor(db, req.user!, ruleSetsFolder)).parse(req.body)
+    const id = await addYard(db, req.user!, input, ruleSetsFolder)
     res.status(201).json({ id })
   })
   router.patch('/:yardId', async (req, res) => {

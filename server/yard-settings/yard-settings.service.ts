@@ -8,6 +8,8 @@ import type { EditYard, SpaceBlock, YardSettings } from '@shared/schemas/yard-se
 import type { NewYard } from '@shared/schemas/yard-settings'
 import { conflict, fieldIssue, notFound } from '../errors'
 import { changedValues, recordSettingsChange } from '../settings-audit/index'
+import { latestRuleSets, sampleChoices } from '../rule-sets/index'
+import { companyOf } from '../users/index'
 import { createYard, yardsOfUser } from '../yards/index'
 
 type YardRow = typeof yards.$inferSelect
@@ -77,6 +79,12 @@ export async function insertSpaces(db: Executor, yardId: string, block: SpaceBlo
   }
   await db.insert(yardSpaces).values(wanted)
   return wanted.length
+}
+
+/** What a new yard may start from: the shipped samples and the company's own rule sets (by id). */
+export async function ruleSetIdsFor(db: Executor, actor: User, ruleSetsFolder?: string): Promise<string[]> {
+  const own = await latestRuleSets(db, await companyOf(db, actor.id))
+  return [...new Set([...sampleChoices(ruleSetsFolder).map((s) => s.id), ...own.map((r) => r.slug)])]
 }
 
 export async function addYard(db: Database, actor: User, input: NewYard, ruleSetsFolder?: string) {

@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { text } from './fields'
 import { createUserSchema, passwordSchema } from './users'
-import { spaceBlockSchema, yardFieldsSchema } from './yard-settings'
+import { ruleSetChoice, spaceBlockSchema, yardFieldsSchema } from './yard-settings'
 import { msg } from './field-messages'
 
 /**
@@ -25,5 +25,35 @@ export const firstRunSchema = z.object({
   password: passwordSchema,
 })
 export type FirstRun = z.input<typeof firstRunSchema>
+
+/** The first run as sent, with the sample rule sets this install ships: any other id is refused naming `ruleSet`. */
+export const firstRunWith = (sampleIds: readonly string[]) => firstRunSchema.extend({ ruleSet: ruleSetChoice(sampleIds) })
+
+/** A shipped sample a first yard may start from, with its own caution (and the caution's Spanish). */
+export const sampleChoiceSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  jurisdiction: z.string(),
+  timeZone: z.string(),
+  caution: z.string(),
+  cautionEs: z.string().nullable(),
+})
+export type SampleChoice = z.infer<typeof sampleChoiceSchema>
+
+/**
+ * GET /api/first-run/choices: the samples to start from, and where the first-run map gets its tiles and
+ * addresses and where it opens (no yard exists yet to centre it on).
+ */
+export const firstRunChoicesSchema = z.object({
+  ruleSets: z.array(sampleChoiceSchema),
+  map: z.object({
+    tileUrl: z.string(),
+    tileAttribution: z.string(),
+    maxZoom: z.number(),
+    geocoderUrl: z.string(),
+    start: z.object({ lat: z.number(), lng: z.number(), zoom: z.number() }),
+  }),
+})
+export type FirstRunChoices = z.infer<typeof firstRunChoicesSchema>
 
 export { firstRunStateSchema, type FirstRunState } from './first-run-state'

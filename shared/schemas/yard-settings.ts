@@ -49,6 +49,20 @@ export const newYardSchema = yardFieldsSchema.extend({
 })
 export type NewYard = z.infer<typeof newYardSchema>
 
+/**
+ * The rule set a new yard starts from, among the ids offered (the shipped samples, and in Settings the
+ * company's own too): the page and the server judge the choice with the same list, so an id nobody
+ * offered is a 400 naming `ruleSet` before anything is written.
+ */
+export const ruleSetChoice = (ids: readonly string[]) =>
+  z
+    .string({ error: msg('yardSettings.chooseRuleSet', 'Choose the rule set the yard starts from.') })
+    .refine((id) => ids.includes(id), msg('yardSettings.unknownRuleSet', 'Choose one of the rule sets listed.'))
+    .default('california-sample')
+
+/** Adding a yard in Settings, with the rule sets this company may start it from. */
+export const newYardWith = (ruleSetIds: readonly string[]) => newYardSchema.extend({ ruleSet: ruleSetChoice(ruleSetIds) })
+
 export const editYardSchema = yardFieldsSchema.partial().refine((v) => Object.keys(v).length > 0, msg('yardSettings.changeAtLeastOne', 'Change at least one value.'))
 export type EditYard = z.infer<typeof editYardSchema>
 

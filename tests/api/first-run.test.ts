@@ -45,11 +45,40 @@ describe('first run', () => {
     expect(await app.db.$count(t.users)).toBe(0)
   })
 
+  it('firstRun_choices_offerEveryShippedSample_withItsJurisdictionAndCaution_andAMapBeforeSignIn', async () => {
+    const s = await browserSession(app.app)
+    const { ruleSets, map } = (await s.get('/api/first-run/choices').expect(200)).body
+    // The samples as shipped in server/rule-sets/samples, in file order (the first is the fallback default).
+    expect(ruleSets.map((r: { id: string }) => r.id)).toEqual(['california-sample', 'florida-sample', 'ordinance-24h-template'])
+    expect(ruleSets[1]).toMatchObject({ name: 'Florida (sample)', jurisdiction: 'State of Florida, USA', timeZone: 'America/New_York' })
+    for (const r of ruleSets) {
+      expect(r.caution).toMatch(/^Sample — verify with your local code\./)
+      expect(r.cautionEs).toMatch(/verifique/i)
+    }
+    // The built-in geocoder is staff-only; the first run reaches it through its own public door.
+    expect(map).toMatchObject({ tileUrl: '/api/fakes/tiles/{z}/{x}/{y}.png', geocoderUrl: '/api/first-run/geocoder' })
+    const found = (await s.get('/api/first-run/geocoder/search?q=45%20Cinder&format=json').expect(200)).body
+    expect(found[0]).toMatchObject({ display_name: '45 Cinder Ln, Orrin Flats', lat: '36.410900', lon: '-119.345500' })
+    await s.get('/api/fakes/geocoder/search?q=45%20Cinder').expect(401)
+  })
+
+  it('firstRun_unknownRuleSet_isRefusedNamingRuleSet_andWritesNothing', async () => {
+    const s = await browserSession(app.app)
+    for (const ruleSet of ['nevada-sample', '']) {
+      const res = await s.post('/api/first-run', firstRun({ ruleSet })).expect(400)
+      expect(res.body.issues).toEqual([expect.objectContaining({ path: 'ruleSet', code: 'yardSettings.unknownRuleSet', message: 'Choose one of the rule sets listed.' })])
+    }
+    expect(await companiesNow()).toBe(0)
+    expect(await app.db.$count(t.users)).toBe(0)
+    expect(await app.db.$count(t.yards)).toBe(0)
+    expect(await app.db.$count(t.ruleSets)).toBe(0)
+  })
+
   it('firstRun_twoAtOnce_makeExactlyOneCompany_theOtherIs409', async () => {
     const [a, b] = await Promise.all([browserSession(app.app), browserSession(app.app)])
     const answers = await Promise.all([
-      a.post('/api/first-run', firstRun()),
-      b.post('/api/first-run', firstRun({ companyName: 'Other Towing', code: 'OT', email: 'other@other.example' })),
+      a.post('/api/first-run', firstRun({ ruleSet: 'florida-sample' })),
+      b.post('/api/first-run', firstRun({ companyName: 'Other Towing', code: 'OT', email: 'other@other.example', ruleSet: 'florida-sample' })),
     ])
     expect(answers.map((r) => r.status).sort()).toEqual([201, 409])
     const refused = answers.find((r) => r.status === 409)!
@@ -69,9 +98,16 @@ describe('first run', () => {
     const [audit] = await app.db.select().from(t.settingsChanges).where(eq(t.settingsChanges.subjectId, yard!.id))
     expect(audit).toMatchObject({ area: 'yard', action: 'yard-added', actorId: user!.id })
 
+    // The yard starts from the sample chosen.
+    const [set] = await app.db.select().from(t.ruleSets).where(eq(t.ruleSets.id, yard!.ruleSetId!))
+    expect(set!.slug).toBe('florida-sample')
+
     const s = await browserSession(app.app)
     expect((await s.get('/api/first-run').expect(200)).body).toEqual({ needed: false })
     await s.post('/api/first-run', firstRun({ companyName: 'Late Towing', code: 'LT', email: 'late@late.example' })).expect(409)
+    // What only the first run offers closes with it.
+    await s.get('/api/first-run/choices').expect(409)
+    await s.get('/api/first-run/geocoder/search?q=Cinder').expect(409)
     expect(await companiesNow()).toBe(1)
 
     const signIn = await s.signIn(user!.email, 'gravel-pit-owl-93')

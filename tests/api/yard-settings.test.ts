@@ -42,6 +42,33 @@ describe('Settings → Yards', () => {
     expect((await m.get('/api/yards/mine').expect(200)).body.yards.map((y: { id: string }) => y.id)).toContain(made.id)
   })
 
+  it('a new yard starts from the rule set chosen: a sample or the company’s own copy', async () => {
+    const copy = await send('post', '/api/settings/rule-sets/florida-sample/copy', { name: 'Our Florida' })
+    expect(copy.status, JSON.stringify(copy.body)).toBe(201)
+    for (const [ruleSet, yardCode] of [['ordinance-24h-template', 'QRA'], [copy.body.id, 'QRB']] as const) {
+      const res = await send('post', '/api/settings/yards', { ...newYard(), code: yardCode, ruleSet })
+      expect(res.status, JSON.stringify(res.body)).toBe(201)
+      const [row] = await app.db.select({ slug: t.ruleSets.slug }).from(t.yards).innerJoin(t.ruleSets, eq(t.ruleSets.id, t.yards.ruleSetId)).where(eq(t.yards.id, res.body.id))
+      expect(row!.slug).toBe(ruleSet)
+    }
+  })
+
+  it('a rule set not offered — unknown, or another company’s own — is refused naming ruleSet, and nothing is written', async () => {
+    const other = await makeStaff(app.db)
+    const o = await signedIn(app.app, other.manager)
+    const copy = await o.agent.post('/api/settings/rule-sets/california-sample/copy').set('x-csrf-token', o.csrf).send({ name: 'Their rates' })
+    expect(copy.status, JSON.stringify(copy.body)).toBe(201)
+    const yardsBefore = await app.db.$count(t.yards)
+    const auditBefore = (await audit()).length
+    for (const ruleSet of ['nevada-sample', copy.body.id]) {
+      const res = await send('post', '/api/settings/yards', { ...newYard(), code: 'QRC', ruleSet })
+      expect(res.status).toBe(400)
+      expect(res.body.issues).toEqual([expect.objectContaining({ path: 'ruleSet', code: 'yardSettings.unknownRuleSet' })])
+    }
+    expect(await app.db.$count(t.yards)).toBe(yardsBefore)
+    expect((await audit()).length).toBe(auditBefore)
+  })
+
   it('an edit saves only what changed and audits before and after', async () => {
     const res = await send('patch', `/api/settings/yards/${staff.yard.id}`, { labourRateCents: 12_000, towRates: { hookUpCents: 17_500, perMileCents: 600, afterHoursCents: 5_000 } })
     expect(res.status, JSON.stringify(res.body)).toBe(200)

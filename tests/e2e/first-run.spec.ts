@@ -56,9 +56,21 @@ test('the first manager sets up the company and its first yard, and lands signed
   await page.getByLabel('Name', { exact: true }).fill('Quarry Road lot')
   // The stock-number prefix follows the yard's initials.
   await expect(page.getByLabel('Stock-number prefix')).toHaveValue('QRL')
-  await page.getByLabel('Address').fill('1 Quarry Road, Sample Town')
-  await page.getByLabel('Latitude').fill('36.41')
-  await page.getByLabel('Longitude').fill('-119.35')
+  // The yard is placed by its address: the search fills the address and the position, and the pin shows it.
+  await page.getByLabel("Find the yard's address").fill('45 Cinder')
+  await page.getByRole('option', { name: '45 Cinder Ln, Orrin Flats' }).click()
+  await expect(page.getByLabel('Address', { exact: true })).toHaveValue('45 Cinder Ln, Orrin Flats')
+  await expect(page.getByLabel('Latitude')).toHaveValue('36.41090')
+  await expect(page.getByLabel('Longitude')).toHaveValue('-119.34550')
+  await expect(page.getByTestId('map').locator('.leaflet-marker-pane [data-testid="map-pin"]')).toBeVisible()
+  // The rule set: the shipped samples, each with its caution; the manager picks Florida's.
+  // The yard's address names no state (the demo town's geocoder): the first sample is offered.
+  const ruleSet = page.getByRole('combobox', { name: 'Rule set the yard starts from' })
+  await expect(page.locator('.el-select__wrapper', { has: ruleSet })).toContainText('California (sample)')
+  await page.locator('.el-select__wrapper', { has: ruleSet }).click()
+  await page.getByRole('option', { name: /Florida \(sample\)/ }).click()
+  await expect(page.getByTestId('rule-set-where')).toContainText('State of Florida, USA')
+  await expect(page.getByTestId('rule-set-caution')).toContainText('Sample — verify with your local code.')
   await page.getByLabel('Rows').fill('2')
   await page.getByLabel('Spaces in each row').fill('5')
   await page.getByLabel('Your name').fill('Rosa Quarry')
@@ -73,6 +85,9 @@ test('the first manager sets up the company and its first yard, and lands signed
   await expect(page).toHaveURL(/\/board$/)
   await expect(page.getByRole('heading', { name: 'Quarry Road lot', level: 1 })).toBeVisible()
   await expect(page.getByTestId('who')).toContainText('Rosa Quarry')
+  // Saved where the search placed it, under the sample chosen.
+  const yards = (await (await page.request.get(`${base}/api/settings/yards`)).json()).yards
+  expect(yards).toEqual([expect.objectContaining({ name: 'Quarry Road lot', address: '45 Cinder Ln, Orrin Flats', lat: 36.4109, lng: -119.3455, ruleSetName: 'Florida (sample)' })])
 
   // Set up once: the first-run page now sends everyone to sign-in, and the route refuses.
   expect((await page.request.get(`${base}/api/first-run`)).ok()).toBe(true)
