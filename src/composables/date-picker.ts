@@ -1,9 +1,16 @@
-// The date-and-time pickers' plumbing. Showing a date or time is yard-time.ts's, on the yard's clock;
-// a picker (Element Plus, dayjs) works on the browser's clock, so times are typed through
-// BaseYardDateTime, which hands it the yard's wall clock.
+import { computed } from 'vue'
+import { i18n } from '@/i18n'
+import { pickerFormat } from '@/composables/yard-time'
 
-/** What a picker shows (dayjs tokens): the date-time look of the rest of the app (yard-time.ts). */
-export const PICKER_DISPLAY_FORMAT = 'ddd, D MMM YYYY, HH:mm'
+// The pickers' plumbing. Showing a date or time is yard-time.ts's, on the yard's clock; a picker
+// (Element Plus, dayjs) works on the browser's clock, so a day is typed through BaseYardDate and a
+// date and time through BaseYardDateTime, which hands it the yard's wall clock. Both show the looks
+// the screens show (pickerFormat), in the reader's language.
+
+/** What a picker of this kind shows and reads (dayjs tokens), following the chosen language. */
+export function usePickerFormat(look: 'date' | 'dateTime' | 'month') {
+  return computed(() => pickerFormat(look, i18n.global.locale.value))
+}
 
 /**
  * Lets a picker's panel slide up over its own field to stay on screen: on a phone there is room for the

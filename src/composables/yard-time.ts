@@ -6,14 +6,34 @@ import { INTL_TAGS, type Locale } from '@/i18n/locales'
 import { useSessionStore } from '@/stores/session'
 
 // The one look of each on every screen, always on the yard's clock, in the reader's language:
-// "1 Dec 2026", "Tue, 1 Dec 2026, 14:05", "14:05" ("1 dic 2026", "mar, 1 de dic de 2026, 14:05").
-// A 24-hour clock in both, as the date-time pickers show it (PICKER_DISPLAY_FORMAT).
+// "1 Dec 2026", "1 Dec 2026, 14:05 PST", "14:05 PST" ("1 dic 2026", "1 dic 2026, 14:05 PST").
+// A 24-hour clock in both; a time carries the yard's zone (issue 16 item 15: a time read in another zone
+// was taken for the reader's own). The pickers type the same looks (pickerFormat), without the zone,
+// which the date-time field names beside itself. No weekday: dayjs cannot read one back from a typed
+// field, and a field that shows one look and reads another is what issue 16 item 8 was about.
 const LOOKS = {
   date: { day: 'numeric', month: 'short', year: 'numeric' },
-  dateTime: { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' },
+  dateTime: { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' },
   time: { hour: '2-digit', minute: '2-digit', hourCycle: 'h23' },
+  month: { month: 'long', year: 'numeric' },
 } as const satisfies Record<string, Intl.DateTimeFormatOptions>
 type Look = keyof typeof LOOKS
+const ZONED: ReadonlySet<Look> = new Set(['dateTime', 'time'])
+
+// The zone's short name as a US yard reads it in either language ("PST", "PDT"; CLDR's en-US and es-US
+// both say so). A zone with no such name in CLDR reads as its offset ("GMT+1").
+const ZONE_TAGS: Record<Locale, string> = { en: 'en-US', es: 'es-US' }
+const zoneShort = new Map<string, Intl.DateTimeFormat>()
+/** The yard's zone as it stood at `at` ("PST" in December, "PDT" in July, for Los Angeles). */
+export function zoneAbbreviation(timeZone: string, at: Instant, locale: Locale = chosen()): string {
+  const key = `${timeZone} ${locale}`
+  let f = zoneShort.get(key)
+  if (!f) {
+    f = new Intl.DateTimeFormat(ZONE_TAGS[locale], { timeZone, timeZoneName: 'short' })
+    zoneShort.set(key, f)
+  }
+  return f.formatToParts(new Date(at)).find((p) => p.type === 'timeZoneName')?.value ?? timeZone
+}
 
 const made = new Map<string, Intl.DateTimeFormat>()
 function formatter(look: Look, timeZone: string, locale: Locale): Intl.DateTimeFormat {
@@ -34,8 +54,11 @@ const chosen = (): Locale => i18n.global.locale.value
 
 /** The three looks on one zone's clock, in the given language, else the one chosen; nothing recorded shows as "—". */
 export function yardFormat(timeZone: string, locale?: Locale) {
-  const as = (look: Look) => (at: Instant | null | undefined) =>
-    at == null || at === '' ? '—' : formatter(look, timeZone, locale ?? chosen()).format(new Date(at))
+  const as = (look: Look) => (at: Instant | null | undefined) => {
+    if (at == null || at === '') return '—'
+    const shown = formatter(look, timeZone, locale ?? chosen()).format(new Date(at))
+    return ZONED.has(look) ? `${shown} ${zoneAbbreviation(timeZone, at, locale ?? chosen())}` : shown
+  }
   return { date: as('date'), dateTime: as('dateTime'), time: as('time') }
 }
 
@@ -43,6 +66,28 @@ export function yardFormat(timeZone: string, locale?: Locale) {
 export function calendarDate(day: string, locale: Locale = chosen()): string {
   const [y, m, d] = day.split('-').map(Number) as [number, number, number]
   return formatter('date', 'UTC', locale).format(new Date(Date.UTC(y, m - 1, d)))
+}
+
+// dayjs's tokens for each part Intl names; a literal is bracketed so dayjs neither formats nor parses it.
+const TOKENS: Partial<Record<Intl.DateTimeFormatPartTypes, (o: Intl.DateTimeFormatOptions) => string>> = {
+  day: (o) => (o.day === '2-digit' ? 'DD' : 'D'),
+  month: (o) => (o.month === 'long' ? 'MMMM' : 'MMM'),
+  year: () => 'YYYY',
+  hour: () => 'HH',
+  minute: () => 'mm',
+}
+
+/**
+ * What a picker (Element Plus, dayjs) shows and reads, in dayjs's tokens: the same look as the screens
+ * show, in the reader's language, taken from Intl's own order of the parts ("D MMM YYYY, HH:mm";
+ * "MMMM YYYY" in English, "MMMM [de] YYYY" in Spanish).
+ */
+export function pickerFormat(look: 'date' | 'dateTime' | 'month', locale: Locale = chosen()): string {
+  const options = LOOKS[look]
+  return formatter(look, 'UTC', locale)
+    .formatToParts(new Date(Date.UTC(2026, 11, 1, 14, 5)))
+    .map((p) => TOKENS[p.type]?.(options) ?? (p.type === 'literal' ? `[${p.value}]` : ''))
+    .join('')
 }
 
 /**

@@ -63,7 +63,7 @@ test.describe('in a browser seventeen hours ahead of the yard', () => {
     const arrived = page.getByLabel('Arrived at the gate')
     // The default arrival is the yard's now, not Tokyo's (a day ahead most of the time).
     const yardNow = (offsetMs: number) =>
-      new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })
+      new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })
         .format(new Date(Date.now() + offsetMs))
     const before = yardNow(0)
     const shown = await arrived.inputValue()
@@ -72,20 +72,32 @@ test.describe('in a browser seventeen hours ahead of the yard', () => {
 
     await fillTheMinimum(page)
     // Yesterday at 09:15 on the yard's calendar, typed as the picker shows dates.
-    const yesterday = new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', weekday: 'short', day: 'numeric', month: 'short', year: 'numeric' })
+    const yesterday = new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', day: 'numeric', month: 'short', year: 'numeric' })
       .format(new Date(Date.now() - 86_400_000))
-    const called = page.getByLabel('Called', { exact: true })
-    await called.click()
-    await called.fill(`${yesterday}, 09:15`)
-    await called.press('Enter')
-    await expect(called).toHaveValue(`${yesterday}, 09:15`)
+    for (const [label, time] of [['Called', '09:15'], ['Arrived at the gate', '10:40']]) {
+      const field = page.getByLabel(label!, { exact: true })
+      await field.click()
+      await field.fill(`${yesterday}, ${time}`)
+      await field.press('Enter')
+      await expect(field).toHaveValue(`${yesterday}, ${time}`)
+    }
     const created = page.waitForResponse((r) => r.url().endsWith('/api/vehicles') && r.request().method() === 'POST')
     await page.getByRole('button', { name: 'Log the vehicle' }).click()
     const { id } = (await (await created).json()) as { id: string }
-    const record = (await (await page.request.get(`/api/vehicles/${id}`)).json()) as { tow: { calledAt: string } }
-    // The saved instant, read on the yard's clock by the browser's own Intl (the oracle), is what was typed.
-    const saved = new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })
-      .format(new Date(record.tow.calledAt))
-    expect(saved).toBe(`${yesterday}, 09:15`)
+    const record = (await (await page.request.get(`/api/vehicles/${id}`)).json()) as { tow: { calledAt: string; arrivedAt: string } }
+    // The saved instants, read on the yard's clock by the browser's own Intl (the oracle), are what was typed.
+    const onTheYardClock = (iso: string) =>
+      new Intl.DateTimeFormat('en-GB', { timeZone: 'America/Los_Angeles', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' })
+        .format(new Date(iso))
+    expect(onTheYardClock(record.tow.calledAt)).toBe(`${yesterday}, 09:15`)
+    expect(onTheYardClock(record.tow.arrivedAt)).toBe(`${yesterday}, 10:40`)
+    // The vehicle page shows the same yard times, each labelled with the yard's zone: Pacific Standard
+    // Time in winter, Pacific Daylight Time from the second Sunday of March to the first Sunday of November.
+    await expect(page).toHaveURL(new RegExp(`/vehicles/${id}$`))
+    const zone = new Intl.DateTimeFormat('en-US', { timeZone: 'America/Los_Angeles', timeZoneName: 'short' })
+      .formatToParts(new Date(record.tow.arrivedAt)).find((p) => p.type === 'timeZoneName')!.value
+    expect(zone).toMatch(/^P[SD]T$/)
+    await expect(page.getByText(`${yesterday}, 09:15 ${zone}`, { exact: true })).toBeVisible()
+    await expect(page.getByText(`${yesterday}, 10:40 ${zone}`, { exact: true })).toBeVisible()
   })
 })

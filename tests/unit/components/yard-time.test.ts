@@ -11,7 +11,7 @@ import { useSessionStore } from '../../../src/stores/session'
 // The browser (here the test process) is on the other side of the world from the yard. Offsets from
 // the IANA time zone database: Pacific/Auckland is UTC+13 in December (NZDT); America/Los_Angeles is
 // UTC−8 in December (PST; US daylight time ended on Sunday 1 Nov 2026) and UTC−7 in July (PDT).
-// Weekdays checked against Python's datetime.date(…).strftime('%a').
+// The zone's label is CLDR's short US name (en-US / es-US): PST in winter, PDT in summer, EST for New York in winter.
 const BROWSER_ZONE = 'Pacific/Auckland'
 const YARD_ZONE = 'America/Los_Angeles'
 const EVENING_AT_THE_YARD = '2026-12-01T22:05:00Z' // 14:05 Tue 1 Dec at the yard; 11:05 Wed 2 Dec in Auckland
@@ -47,10 +47,10 @@ describe('yard time', () => {
     expect(new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit' }).format(new Date(EVENING_AT_THE_YARD))).toBe('11:05')
 
     const yard = yardFormat(YARD_ZONE)
-    expect(yard.dateTime(EVENING_AT_THE_YARD)).toBe('Tue, 1 Dec 2026, 14:05')
-    expect(yard.time(EVENING_AT_THE_YARD)).toBe('14:05')
+    expect(yard.dateTime(EVENING_AT_THE_YARD)).toBe('1 Dec 2026, 14:05 PST')
+    expect(yard.time(EVENING_AT_THE_YARD)).toBe('14:05 PST')
     expect(yard.date(NIGHT_AT_THE_YARD)).toBe('30 Nov 2026')
-    expect(yard.dateTime('2026-07-04T18:30:00Z')).toBe('Sat, 4 Jul 2026, 11:30')
+    expect(yard.dateTime('2026-07-04T18:30:00Z')).toBe('4 Jul 2026, 11:30 PDT')
   })
 
   it('yardFormat_nothingRecorded_showsADash', () => {
@@ -68,8 +68,8 @@ describe('yard time', () => {
     client.setQueryData(yardKeys.current('u1'), { id: '5b0c1f7e-8a51-4f4e-9c1e-2f8a3b7d6e01', name: 'Tamsin Creek', code: 'TC', timeZone: YARD_ZONE })
     const w = show(NIGHT_AT_THE_YARD, client)
     expect(w.get('.date').text()).toBe('30 Nov 2026')
-    expect(w.get('.date-time').text()).toBe('Mon, 30 Nov 2026, 19:00')
-    expect(w.get('.time').text()).toBe('19:00')
+    expect(w.get('.date-time').text()).toBe('30 Nov 2026, 19:00 PST')
+    expect(w.get('.time').text()).toBe('19:00 PST')
   })
 
   it('useYardTime_yardNotLoadedYet_showsNothingRatherThanTheBrowsersClock', () => {
@@ -84,7 +84,7 @@ describe('yard time', () => {
     vi.stubGlobal('fetch', fetch)
     const w = show(EVENING_AT_THE_YARD, new QueryClient(), () => 'America/New_York')
     // New York in December: UTC−5 (EST).
-    expect(w.get('.date-time').text()).toBe('Tue, 1 Dec 2026, 17:05')
+    expect(w.get('.date-time').text()).toBe('1 Dec 2026, 17:05 EST')
     expect(fetch).not.toHaveBeenCalled()
   })
 })
