@@ -83,7 +83,7 @@ export async function noteFailedRefund(changes: VehicleChanges, actor: User, veh
     record({
       kind: 'refund_failed',
       reason: asked.reason,
-      after: { paymentId: asked.paymentId, method: 'card', amountCents: refund.amount, providerReference: refund.id, status: refund.status, failureReason: refund.failure_reason ?? null },
+      after: { paymentId: asked.paymentId, method: 'card', amountCents: refund.amount, providerReference: refund.id, failureReason: refund.failure_reason ?? (refund.status === 'canceled' ? 'canceled' : 'unknown') },
     })
     return true
   })

@@ -180,7 +180,7 @@ describe('card refund the service finishes later', () => {
     expect(await refundRows(v.id)).toHaveLength(0)
     const failed = await kinds(v.id, 'refund_failed')
     expect(failed).toHaveLength(1)
-    expect(failed[0]!.after).toMatchObject({ amountCents: 3_000, status: 'failed', providerReference: sent.body.pending.providerReference })
+    expect(failed[0]!.after).toMatchObject({ amountCents: 3_000, failureReason: 'lost_or_stolen_card', providerReference: sent.body.pending.providerReference })
     const invoice = (await manager.get(`/api/vehicles/${v.id}/invoice`).expect(200)).body.invoice
     expect(invoice).toMatchObject({ paidCents: 3_000, refundedCents: 0 })
     // The whole amount is there to give back again, and this time the service finishes it at once.

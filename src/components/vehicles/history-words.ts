@@ -43,6 +43,7 @@ const CODED_VALUES: Record<string, string> = {
   choice: 'owner.office.choice',
   event: 'publications.steps.events',
   recommendation: 'inspections.advice',
+  failureReason: 'historyWords.refundFailures',
 }
 
 // A calendar day as the server counted it on the yard's clock ("2026-11-30"): in the one date look.

@@ -43,6 +43,8 @@ const SAMPLES: Record<HistoryKind, Pick<HistoryEvent, 'before' | 'after'> & Part
   owner_decided: { before: { choice: 'call' }, after: { choice: 'sign_over', signOverTo: 'salvage_buyer', fullName: 'Rosa Delgado', phone: '555-0142', note: null, ip: '203.0.113.7', linkId: ID } },
   payment_taken: { before: null, after: { paymentId: ID, method: 'card', online: true, amountCents: 42500, providerReference: 'pi_demo_0042', dueBeforeCents: 42500, dueAfterCents: 0 } },
   payment_refunded: { reason: 'Charged twice', before: null, after: { paymentId: ID, method: 'check', amountCents: 42500, checkNumber: '1042', refundOfPaymentId: ID } },
+  refund_pending: { reason: 'Tow charged twice', before: null, after: { paymentId: ID, method: 'card', amountCents: 2000, providerReference: 're_3Qx8fake0001' } },
+  refund_failed: { reason: 'Tow charged twice', before: null, after: { paymentId: ID, method: 'card', amountCents: 2000, providerReference: 're_3Qx8fake0001', failureReason: 'lost_or_stolen_card' } },
   charges_adjusted: { reason: 'Owner was in hospital', before: null, after: { adjustmentId: ID, kind: 'waiver', amountCents: 9000, requestedBy: 'Omar Reyes' } },
   adjustment_requested: { reason: 'Owner was in hospital', before: null, after: { adjustmentId: ID, kind: 'discount', amountCents: 9000 } },
   adjustment_declined: { reason: 'No proof given', before: { adjustmentId: ID, kind: 'discount', amountCents: 9000 }, after: null },
