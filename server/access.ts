@@ -54,6 +54,9 @@ export const ACCESS: Record<string, Rule> = {
   'GET /api/settings/rule-sets/:id/older-vehicles': 'admin',
   'PUT /api/settings/yard-rule-set': 'admin',
   'GET /api/settings/audit': 'admin',
+  // The rule-set editor's calendar choices and its preview's holidays for a draft's calendars.
+  'GET /api/settings/holiday-calendars': 'admin',
+  'GET /api/settings/holidays': 'admin',
   // Settings → Yards (issue 12): the manager's yards, their rates and spaces.
   'GET /api/settings/yards': 'admin',
   'POST /api/settings/yards': 'admin',

@@ -33,6 +33,7 @@ import { transfersRouter } from './transfers/index'
 import { publicationsRouter, saleDateRouter } from './publications/index'
 import { clockStepsRouter } from './clock-steps/index'
 import { ruleSetsRouter } from './rule-sets/index'
+import { holidaysRouter } from './holidays/index'
 import { todayRouter } from './today/index'
 import { reportsRouter } from './reports/index'
 import { glanceRouter } from './glance/index'
@@ -159,6 +160,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/quotes', quotesRouter(db))
   app.use('/api/settings/audit', settingsAuditRouter(db))
   app.use('/api/settings/yards', yardSettingsRouter(db))
+  app.use('/api/settings', holidaysRouter())
   app.use('/api/settings', settingsRouter(db))
   app.use('/api/vehicles/:vehicleId/rule-set-version', vehicleRuleSetRouter(changes))
   app.use('/api/vehicles/:vehicleId/owner-links', ownerLinksRouter(changes, deps.ownerLinkDays ?? 30))

@@ -1,1 +1,3 @@
 export { holidayCalendar, ruleSetCalendars } from './holiday-calendar'
+export { holidaysRouter } from './holidays.routes'
+export { isKnownCalendar, knownCalendars } from './known-calendars'

@@ -10,6 +10,7 @@ import { conflict, forbidden, notFound, unprocessable, said } from '../errors'
 import { latestRuleSets, type RuleSetVersion } from '../rule-sets/index'
 import { changedValues, itemNames, recordSettingsChange } from '../settings-audit/index'
 import { companyOf } from '../users/index'
+import { assertKnownCalendars } from './rule-set-calendars'
 import { yardOfUser } from '../yards/index'
 
 /** The rule sets a manager sees in Settings: the samples and the company's own, marked editable and in use. */
@@ -66,6 +67,7 @@ export async function copyRuleSet(db: Database, actor: User, slug: string, input
 export async function saveRuleSet(db: Database, actor: User, slug: string, input: SaveRuleSet): Promise<RuleSetDetail> {
   const companyId = await companyOf(db, actor.id)
   const ruleSet = ruleSetEditSchema.parse({ ...input.ruleSet, id: slug })
+  assertKnownCalendars(ruleSet)
   return db.transaction(async (tx) => {
     const [set] = await tx
       .select({ id: ruleSets.id, companyId: ruleSets.companyId })

@@ -1,10 +1,14 @@
 import { z } from 'zod'
 import { alongsideFieldIssues, optionalText, requiredText } from './fields'
-import { ruleSetSchema, type RuleSetInput } from './rule-sets'
+import { ruleSetSchema, type ClockEventKind, type RuleSetInput } from './rule-sets'
 import { msg } from './field-messages'
 
-/** Events that happen at the arrival itself: nothing can be due before them. */
-const ARRIVAL_EVENTS = new Set(['stored', 'lien-arose'])
+/** Events that happen at the arrival itself: nothing can be due before them, and only they are recorded by it. */
+export const ARRIVAL_EVENT_KINDS = ['stored', 'lien-arose'] as const satisfies readonly ClockEventKind[]
+const ARRIVAL_EVENTS = new Set<string>(ARRIVAL_EVENT_KINDS)
+/** The sale ends the timeline: no other event comes after it. */
+const LAST_EVENT = 'lien-sale-held'
+const BANDS = ['valueCents', 'ageYears'] as const
 
 /**
  * A rule set as a manager saves it: every check of `ruleSetSchema`, plus the ones that catch a
@@ -35,8 +39,23 @@ export const ruleSetEditSchema = ruleSetSchema.superRefine((parsed, ctx) => {
       }
       if (step.from === step.doneBy) {
         ctx.addIssue({ code: 'custom', path: ['timeline', i, 'doneBy'], message: msg('ruleSetEditor.stepCannotDoneBy', 'A step cannot be done by the same event it starts from.') })
+      } else if (ARRIVAL_EVENTS.has(step.doneBy) && !ARRIVAL_EVENTS.has(step.from)) {
+        // Met by the arrival, which came before the step's own start: the date could never be met or missed.
+        ctx.addIssue({ code: 'custom', path: ['timeline', i, 'doneBy'], message: msg('ruleSetEditor.metBeforeStart', 'The arrival meets this step before it even starts: choose the event that meets it.') })
+      } else if (step.direction === 'before' && step.doneBy === LAST_EVENT && typeof step.days === 'number' && step.days > 0) {
+        ctx.addIssue({ code: 'custom', path: ['timeline', i, 'direction'], message: msg('ruleSetEditor.saleIsLast', 'The sale comes after every other event: it cannot be due before this step\'s start. Count it after its start.') })
+      }
+      for (const band of BANDS) {
+        const range = step.when?.[band]
+        if (range && typeof range.over === 'number' && typeof range.atMost === 'number' && range.atMost <= range.over) {
+          ctx.addIssue({ code: 'custom', path: ['timeline', i, 'when', band, 'atMost'], message: msg('ruleSetEditor.emptyBand', 'No vehicle falls in this band: the upper end must be above the lower one.') })
+        }
       }
     })
+    const arrival = draft.arrivalEvents?.kinds
+    if (Array.isArray(arrival) && arrival.some((k) => !ARRIVAL_EVENTS.has(k))) {
+      ctx.addIssue({ code: 'custom', path: ['arrivalEvents', 'kinds'], message: msg('ruleSetEditor.arrivalOnly', 'The arrival can record only the storage and the lien that arises with it.') })
+    }
 }, alongsideFieldIssues)
 
 export const ruleSetSummarySchema = z.object({

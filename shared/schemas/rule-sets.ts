@@ -38,7 +38,8 @@ export const sourceSchema = z.object({
 
 const code = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, msg('ruleSets.codeWords', 'use lower-case words joined by dashes'))
 const cents = z.number({ error: msg('ruleSets.enterAmount', 'Enter an amount.') }).int(msg('ruleSets.enterAmountWholeCents', 'Enter the amount in whole cents.')).nonnegative(msg('ruleSets.amountCannotNegative', 'An amount cannot be negative.'))
-const hours = z.number().positive().max(24 * 7)
+const HOURS = msg('ruleSets.hoursRange', 'Give the hours as more than 0 and at most 168 (a week).')
+const hours = z.number({ error: HOURS }).positive(HOURS).max(24 * 7, HOURS)
 /** A value nobody publishes statewide: the UI shows "set your rate" until the manager does. */
 const placeholder = z.boolean().default(false)
 
@@ -84,9 +85,9 @@ export const storageRulesSchema = z.object({
 
 export const taxSchema = z.object({
   ratePercent: z
-    .number()
-    .min(0)
-    .max(30)
+    .number({ error: msg('ruleSets.taxRateRange', 'A tax rate is from 0 to 30 percent.') })
+    .min(0, msg('ruleSets.taxRateRange', 'A tax rate is from 0 to 30 percent.'))
+    .max(30, msg('ruleSets.taxRateRange', 'A tax rate is from 0 to 30 percent.'))
     .refine((p) => Math.abs(p * 10_000 - Math.round(p * 10_000)) < 1e-6, msg('ruleSets.fourDecimals', 'at most four decimals')),
   placeholder,
   source: sourceSchema,
@@ -111,8 +112,9 @@ export const clockEventKindSchema = z.enum([
   'lien-sale-held',
 ])
 
+const bandEnd = z.number().int(msg('ruleSets.bandWhole', 'Give a whole number, 0 or more.')).nonnegative(msg('ruleSets.bandWhole', 'Give a whole number, 0 or more.'))
 const range = z
-  .object({ over: z.number().int().nonnegative().optional(), atMost: z.number().int().nonnegative().optional() })
+  .object({ over: bandEnd.optional(), atMost: bandEnd.optional() })
   .refine((r) => r.over !== undefined || r.atMost !== undefined, msg('ruleSets.overOrAtMost', 'give over, atMost or both'))
 
 export const timelineStepSchema = z.object({
@@ -123,7 +125,11 @@ export const timelineStepSchema = z.object({
   kind: z.enum(['deadline', 'earliest']),
   from: clockEventKindSchema,
   direction: z.enum(['after', 'before']),
-  days: z.number().int().nonnegative().max(3660),
+  days: z
+    .number({ error: msg('ruleSets.daysRange', 'Give the days as a whole number from 0 to 3660.') })
+    .int(msg('ruleSets.daysRange', 'Give the days as a whole number from 0 to 3660.'))
+    .nonnegative(msg('ruleSets.daysRange', 'Give the days as a whole number from 0 to 3660.'))
+    .max(3660, msg('ruleSets.daysRange', 'Give the days as a whole number from 0 to 3660.')),
   dayKind: z.enum(['calendar', 'business']),
   doneBy: clockEventKindSchema,
   /** Branches: the step applies only to vehicles in this value (cents) or age (years) band. */
@@ -142,7 +148,7 @@ export const calendarKeySchema = z.object({ country: z.string().length(2), state
  */
 export const businessDaysSchema = z.object({
   skip: z.literal('closed-by-every-calendar'),
-  calendars: z.array(calendarKeySchema).min(1),
+  calendars: z.array(calendarKeySchema).min(1, msg('ruleSets.chooseCalendar', 'Choose at least one calendar.')),
   source: sourceSchema,
 })
 
@@ -155,7 +161,7 @@ export const mailDeadlinesSchema = z.object({
   /** Post offices close on this calendar's public holidays… */
   postOfficeCalendar: calendarKeySchema,
   /** …and on these weekdays (0 = Sunday … 6 = Saturday). */
-  closedWeekdays: z.array(z.number().int().min(0).max(6)).max(6),
+  closedWeekdays: z.array(z.number().int().min(0).max(6)).max(6, msg('ruleSets.oneWeekdayOpen', 'Leave at least one weekday open.')),
   source: sourceSchema,
 })
 
@@ -168,15 +174,25 @@ export const mailDeadlinesSchema = z.object({
 export const policeNoticeSchema = z.object({
   label: z.string().min(1),
   es: spanishLabel,
-  hours: z.number().positive().max(72),
+  hours: z
+    .number({ error: msg('ruleSets.policeHours', 'Give the hours as more than 0 and at most 72.') })
+    .positive(msg('ruleSets.policeHours', 'Give the hours as more than 0 and at most 72.'))
+    .max(72, msg('ruleSets.policeHours', 'Give the hours as more than 0 and at most 72.')),
   from: z.enum(['tow-requested', 'tow-completed']),
-  towReasons: z.array(z.enum(TOW_REASONS)).min(1),
+  towReasons: z.array(z.enum(TOW_REASONS)).min(1, msg('ruleSets.chooseTowReason', 'Choose at least one kind of tow.')),
   placeholder,
   source: sourceSchema,
 })
 
 export const totalLossSchema = z.discriminatedUnion('rule', [
-  z.object({ rule: z.literal('percent-of-value'), percent: z.number().positive().max(100), source: sourceSchema }),
+  z.object({
+    rule: z.literal('percent-of-value'),
+    percent: z
+      .number({ error: msg('ruleSets.percentRange', 'Give a share above 0 and at most 100 percent.') })
+      .positive(msg('ruleSets.percentRange', 'Give a share above 0 and at most 100 percent.'))
+      .max(100, msg('ruleSets.percentRange', 'Give a share above 0 and at most 100 percent.')),
+    source: sourceSchema,
+  }),
   z.object({ rule: z.literal('total-loss-formula'), source: sourceSchema }),
 ])
 

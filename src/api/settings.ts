@@ -10,6 +10,7 @@ import {
   type MoveToLatestVersion,
   type SaveRuleSet,
 } from '@shared/schemas/rule-set-editor'
+import { holidayCalendarListSchema, holidayListSchema } from '@shared/schemas/holidays'
 import { settingsAuditPageSchema, type SettingsAuditQuery } from '@shared/schemas/settings-audit'
 import { request } from './http'
 import { vehicleChanged } from './vehicles'
@@ -19,11 +20,11 @@ export const settingsKeys = {
   ruleSets: () => [...settingsKeys.all, 'rule-sets'] as const,
   ruleSet: (id: string) => [...settingsKeys.ruleSets(), id] as const,
   olderVehicles: (id: string) => [...settingsKeys.ruleSets(), id, 'older-vehicles'] as const,
-  holidays: (id: string, from: number, to: number) => [...settingsKeys.ruleSets(), id, 'holidays', from, to] as const,
+  // Outside `all`: a saved setting never changes which holidays a calendar closes.
+  holidayCalendars: () => ['holiday-calendars'] as const,
+  draftHolidays: (calendars: string, from: number, to: number) => ['holidays', calendars, from, to] as const,
   audit: (query: SettingsAuditQuery) => [...settingsKeys.all, 'audit', query] as const,
 }
-
-const holidaysSchema = z.object({ holidays: z.array(z.object({ date: z.string(), name: z.string() })) })
 
 export const fetchRuleSets = () => request('GET', '/api/settings/rule-sets', ruleSetListSchema).then((r) => r.ruleSets)
 export const fetchRuleSet = (id: string) => request('GET', `/api/settings/rule-sets/${encodeURIComponent(id)}`, ruleSetDetailSchema)
@@ -33,9 +34,11 @@ export const chooseYardRuleSet = (input: ChooseRuleSet) => request('PUT', '/api/
 export const fetchOlderVehicles = (id: string) => request('GET', `/api/settings/rule-sets/${encodeURIComponent(id)}/older-vehicles`, olderVersionVehiclesSchema)
 export const moveToLatestVersion = (vehicleId: string, input: MoveToLatestVersion) =>
   request('POST', `/api/vehicles/${vehicleId}/rule-set-version`, z.object({ version: z.number() }), input)
-/** The holidays a business-day count skips under a rule set: the preview counts with the server's own list. */
-export const fetchHolidays = (id: string, from: number, to: number) =>
-  request('GET', `/api/rule-sets/${encodeURIComponent(id)}/holidays?from=${from}&to=${to}`, holidaysSchema).then((r) => r.holidays)
+/** The calendars the server's holiday source knows (the editor's choices). */
+export const fetchHolidayCalendars = () => request('GET', '/api/settings/holiday-calendars', holidayCalendarListSchema).then((r) => r.calendars)
+/** The holidays closed by every calendar listed ("US/CA,US"): the preview of a draft before it is saved. */
+export const fetchDraftHolidays = (calendars: string, from: number, to: number) =>
+  request('GET', `/api/settings/holidays?calendars=${encodeURIComponent(calendars)}&from=${from}&to=${to}`, holidayListSchema).then((r) => r.holidays)
 export const fetchSettingsAudit = (query: SettingsAuditQuery) =>
   request('GET', `/api/settings/audit?page=${query.page ?? 1}&pageSize=${query.pageSize ?? 25}`, settingsAuditPageSchema)
 
@@ -49,10 +52,13 @@ export function useOlderVehiclesQuery(id: MaybeRefOrGetter<string>, enabled: May
   return useQuery({ queryKey: computed(() => settingsKeys.olderVehicles(toValue(id))), queryFn: () => fetchOlderVehicles(toValue(id)), enabled: computed(() => toValue(enabled)) })
 }
 
-export function useHolidaysQuery(id: MaybeRefOrGetter<string>, from: MaybeRefOrGetter<number>, to: MaybeRefOrGetter<number>) {
+export const useHolidayCalendarsQuery = () => useQuery({ queryKey: settingsKeys.holidayCalendars(), queryFn: fetchHolidayCalendars, staleTime: Infinity })
+
+export function useDraftHolidaysQuery(calendars: MaybeRefOrGetter<string>, from: MaybeRefOrGetter<number>, to: MaybeRefOrGetter<number>) {
   return useQuery({
-    queryKey: computed(() => settingsKeys.holidays(toValue(id), toValue(from), toValue(to))),
-    queryFn: () => fetchHolidays(toValue(id), toValue(from), toValue(to)),
+    queryKey: computed(() => settingsKeys.draftHolidays(toValue(calendars), toValue(from), toValue(to))),
+    queryFn: () => fetchDraftHolidays(toValue(calendars), toValue(from), toValue(to)),
+    enabled: computed(() => toValue(calendars) !== ''),
     staleTime: Infinity,
     placeholderData: keepPreviousData,
   })

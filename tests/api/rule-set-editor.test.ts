@@ -109,6 +109,20 @@ describe('refusals name the field and write nothing', () => {
     ['a cap below a day\'s rate', (r: RuleSetInput) => (r.storage.cap = { maxStorageCents: 100, source: { citation: 'test', confidence: 'none' as const } }), 'ruleSet.storage.cap.maxStorageCents'],
     ['a deadline counted back from the arrival', (r: RuleSetInput) => Object.assign(r.timeline[0]!, { from: 'stored', direction: 'before', days: 5 }), 'ruleSet.timeline.0.direction'],
     ['a tax rate over 30 percent', (r: RuleSetInput) => (r.tax.ratePercent = 200), 'ruleSet.tax.ratePercent'],
+    ['a negative tax rate', (r: RuleSetInput) => (r.tax.ratePercent = -1), 'ruleSet.tax.ratePercent'],
+    ['a step met by the arrival before it starts', (r: RuleSetInput) => Object.assign(r.timeline[0]!, { from: 'owner-notice-mailed', direction: 'after', doneBy: 'stored' }), 'ruleSet.timeline.0.doneBy'],
+    ['a step due before its start, met by the sale', (r: RuleSetInput) => Object.assign(r.timeline[0]!, { from: 'owner-notice-mailed', direction: 'before', days: 10, doneBy: 'lien-sale-held' }), 'ruleSet.timeline.0.direction'],
+    ['a value band no vehicle falls in', (r: RuleSetInput) => (r.timeline[0]!.when = { valueCents: { over: 400_000, atMost: 100_000 } }), 'ruleSet.timeline.0.when.valueCents.atMost'],
+    ['an age band no vehicle falls in', (r: RuleSetInput) => (r.timeline[0]!.when = { ageYears: { over: 10, atMost: 10 } }), 'ruleSet.timeline.0.when.ageYears.atMost'],
+    ['a negative day count', (r: RuleSetInput) => (r.timeline[0]!.days = -3), 'ruleSet.timeline.0.days'],
+    ['a police clock of no hours', (r: RuleSetInput) => (r.policeNotice!.hours = 0), 'ruleSet.policeNotice.hours'],
+    ['a police clock for no kind of tow', (r: RuleSetInput) => (r.policeNotice!.towReasons = []), 'ruleSet.policeNotice.towReasons'],
+    ['a total-loss share over 100 percent', (r: RuleSetInput) => (r.totalLoss = { rule: 'percent-of-value', percent: 120, source: { citation: 'test', confidence: 'none' as const } }), 'ruleSet.totalLoss.percent'],
+    ['business days under no calendar', (r: RuleSetInput) => (r.businessDays = { skip: 'closed-by-every-calendar', calendars: [], source: { citation: 'test', confidence: 'none' as const } }), 'ruleSet.businessDays.calendars'],
+    ['post offices closed every weekday', (r: RuleSetInput) => (r.mailDeadlines!.closedWeekdays = [0, 1, 2, 3, 4, 5, 6]), 'ruleSet.mailDeadlines.closedWeekdays'],
+    ['an arrival that records a sale', (r: RuleSetInput) => (r.arrivalEvents = { kinds: ['stored', 'lien-sale-held'], source: { citation: 'test', confidence: 'none' as const } }), 'ruleSet.arrivalEvents.kinds'],
+    ['a holiday calendar nobody knows', (r: RuleSetInput) => (r.holidayCalendar = { country: 'US', state: 'ZZ' }), 'ruleSet.holidayCalendar'],
+    ['a business-day calendar nobody knows', (r: RuleSetInput) => (r.businessDays = { skip: 'closed-by-every-calendar', calendars: [{ country: 'US' }, { country: 'QQ' }], source: { citation: 'test', confidence: 'none' as const } }), 'ruleSet.businessDays.calendars'],
   ])('save_with%s_is400NamingTheField', async (_what, spoil, path) => {
     const m = await signedIn(app.app, staff.manager)
     const copy = await copyOfCalifornia(m)
@@ -119,6 +133,9 @@ describe('refusals name the field and write nothing', () => {
     const res = await m.put(`/api/settings/rule-sets/${copy.id}`, { version: 1, ruleSet })
     expect(res.status).toBe(400)
     expect(res.body.issues.map((i: { path: string }) => i.path)).toContain(path)
+    // Each refusal has its words in both catalogs, by code.
+    const issue = res.body.issues.find((i: { path: string }) => i.path === path)
+    expect(issue.code, JSON.stringify(issue)).toMatch(/^(ruleSets|ruleSetEditor)\./)
     expect(await app.db.select().from(t.ruleSetVersions)).toHaveLength(versions)
     expect(await app.db.select().from(t.settingsChanges)).toHaveLength(audit)
   })
@@ -192,5 +209,63 @@ describe('who may change settings', () => {
     await o.get(`/api/settings/rule-sets/${copy.id}`).expect(404)
     await o.put(`/api/settings/rule-sets/${copy.id}`, { version: 1, ruleSet: withRate(copy, 1) }).expect(404)
     await o.put('/api/settings/yard-rule-set', { ruleSetId: copy.id }).expect(422)
+  })
+})
+
+describe('the calendars the editor offers', () => {
+  it('holidayCalendars_forAManager_listsCountriesAndStatesTheHolidaySourceKnows', async () => {
+    const m = await signedIn(app.app, staff.manager)
+    const { calendars } = (await m.get('/api/settings/holiday-calendars').expect(200)).body
+    expect(calendars).toContainEqual({ country: 'US', countryName: 'United States of America' })
+    expect(calendars).toContainEqual({ country: 'US', state: 'CA', countryName: 'United States of America', stateName: 'California' })
+  })
+
+  // 5 U.S.C. § 6103(a): Columbus Day, the second Monday in October (13 October 2025), is a federal holiday;
+  // California's calendar (Cal. Gov. Code § 6700) has no Columbus Day, so a day both close excludes it.
+  it('draftHolidays_ofSeveralCalendars_areOnlyTheDaysEveryOneCloses', async () => {
+    const m = await signedIn(app.app, staff.manager)
+    const federal = (await m.get('/api/settings/holidays?calendars=US&from=2025&to=2025').expect(200)).body.holidays as { date: string }[]
+    const both = (await m.get(`/api/settings/holidays?calendars=${encodeURIComponent('US/CA,US')}&from=2025&to=2025`).expect(200)).body.holidays as { date: string }[]
+    expect(federal.map((h) => h.date)).toContain('2025-10-13')
+    expect(both.map((h) => h.date)).not.toContain('2025-10-13')
+    // Independence Day (5 U.S.C. § 6103(a)) is closed under both.
+    expect(both.map((h) => h.date)).toContain('2025-07-04')
+  })
+
+  it('draftHolidays_withBadCalendarsOrYears_is400NamingTheField', async () => {
+    const m = await signedIn(app.app, staff.manager)
+    const bad = await m.get('/api/settings/holidays?calendars=united&from=2025&to=2025')
+    expect(bad.status).toBe(400)
+    expect(bad.body.issues.map((i: { path: string }) => i.path)).toContain('calendars.0')
+    const years = await m.get('/api/settings/holidays?calendars=US&from=2025&to=2040')
+    expect(years.status).toBe(400)
+    expect(years.body.issues.map((i: { path: string }) => i.path)).toContain('to')
+  })
+
+  it.each(['dispatcher', 'office'] as const)('calendars_for%s_are403', async (role) => {
+    const s = await signedIn(app.app, staff[role])
+    await s.get('/api/settings/holiday-calendars').expect(403)
+    await s.get('/api/settings/holidays?calendars=US&from=2025&to=2025').expect(403)
+  })
+})
+
+describe('the new values are saved', () => {
+  it('save_ofABranchTheCalendarsThePoliceClockAndTheTotalLoss_keepsEachValue', async () => {
+    const m = await signedIn(app.app, staff.manager)
+    const copy = await copyOfCalifornia(m)
+    const ruleSet = structuredClone(copy.ruleSet) as unknown as RuleSetInput
+    ruleSet.timeline[0]!.when = { valueCents: { over: 250_000 } }
+    ruleSet.businessDays = { skip: 'closed-by-every-calendar', calendars: [{ country: 'US', state: 'CA' }, { country: 'US' }], source: { citation: 'Yard counsel memo (invented demo)', confidence: 'none' } }
+    ruleSet.policeNotice = { ...ruleSet.policeNotice!, hours: 2, from: 'tow-completed' }
+    ruleSet.totalLoss = { rule: 'percent-of-value', percent: 70, source: { citation: 'Yard policy (common trade practice)', confidence: 'none' } }
+    ruleSet.es = { caution: 'Ejemplo — verifique con su código local.' }
+    const res = await m.put(`/api/settings/rule-sets/${copy.id}`, { version: 1, ruleSet })
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+    const saved = (await m.get(`/api/settings/rule-sets/${copy.id}`).expect(200)).body.ruleSet
+    expect(saved.timeline[0].when).toEqual({ valueCents: { over: 250_000 } })
+    expect(saved.businessDays.calendars).toEqual([{ country: 'US', state: 'CA' }, { country: 'US' }])
+    expect(saved.policeNotice).toMatchObject({ hours: 2, from: 'tow-completed' })
+    expect(saved.totalLoss).toMatchObject({ rule: 'percent-of-value', percent: 70 })
+    expect(saved.es).toEqual({ caution: 'Ejemplo — verifique con su código local.' })
   })
 })
