@@ -102,6 +102,7 @@ function toNext(d: Deadline, today: number): NextDeadline {
     dueAt: d.dueAt ?? null,
     daysLeft: dayFromIsoDate(d.dueDate!) - today,
     explanation: d.explanation,
+    explained: d.explained,
     citation: d.source.citation,
     ...(stepWords(d) ? { es: stepWords(d) } : {}),
     ...(d.rules ? { rules: d.rules.map((r) => ({ code: r.code, rule: r.rule, citation: r.source.citation, ...(r.calendars ? { calendars: r.calendars } : {}) })) } : {}),

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { clockExplanationSchema } from './clock-explanations'
 import { policeNoticeClockSchema } from './police-notices'
 import { spanishWordsSchema } from './rule-sets'
 
@@ -14,6 +15,8 @@ export const nextDeadlineSchema = z.object({
   daysLeft: z.number(),
   explanation: z.string(),
   citation: z.string(),
+  /** The explanation as data, worded in the reader's language (`explanation` is the English). */
+  explained: clockExplanationSchema.optional(),
   /** Its words in Spanish, where the rule set has them (shared/messages/rule-words.ts picks the reader's). */
   es: spanishWordsSchema.optional(),
   /** The rule set's own counting rules this date followed (business days, a mailing on a closed post-office day), each cited. */
