@@ -80,6 +80,7 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
     // The tow's clock runs on the real clock, from the tow: as of now, not as of the arrival.
     policeNotice: input.closedAt ? null : policeNoticeClock(ruleSet.policeNotice, input.tow ?? null, input.policeNotification ?? null, asOf.toISOString()),
     warnings: bill.warnings,
+    sampleWarnings: bill.sampleWarnings,
   }
 }
 
