@@ -142,6 +142,8 @@ export const recommendationSchema = z.object({
   recommendation: z.enum(['repair', 'salvage']),
   rule: z.enum(['percent-of-value', 'total-loss-formula']),
   numbers: z.object({ estimateCents: z.number(), actualCashValueCents: z.number(), salvageValueCents: z.number(), thresholdCents: z.number() }),
+  /** The share of the value that makes a total loss (percent-of-value); the screen words the explanation from the numbers. */
+  percent: z.number().optional(),
   explanation: z.array(z.string()),
   source: z.object({ citation: z.string(), confidence: z.string(), note: z.string().optional() }),
 })
