@@ -80,6 +80,7 @@ export function summarizeVehicle(input: SummaryInput, ruleSet: RuleSet, holidays
     // The tow's clock runs on the real clock, from the tow: as of now, not as of the arrival.
     policeNotice: input.closedAt ? null : policeNoticeClock(ruleSet.policeNotice, input.tow ?? null, input.policeNotification ?? null, asOf.toISOString()),
     warnings: bill.warnings,
+    sampleWarnings: bill.sampleWarnings,
   }
 }
 
@@ -102,6 +103,7 @@ function toNext(d: Deadline, today: number): NextDeadline {
     dueAt: d.dueAt ?? null,
     daysLeft: dayFromIsoDate(d.dueDate!) - today,
     explanation: d.explanation,
+    explained: d.explained,
     citation: d.source.citation,
     ...(stepWords(d) ? { es: stepWords(d) } : {}),
     ...(d.rules ? { rules: d.rules.map((r) => ({ code: r.code, rule: r.rule, citation: r.source.citation, ...(r.calendars ? { calendars: r.calendars } : {}) })) } : {}),

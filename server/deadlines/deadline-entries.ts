@@ -29,6 +29,7 @@ export function entriesOf(v: ActiveVehicle, c: VehicleClocks, today: string, tim
       dueAt: p.dueAt,
       status: dueMs < nowMs ? 'overdue' : 'due',
       explanation: p.explanation,
+      explained: { code: 'police', hours: p.hours, start: p.start, startAt: p.startAt, dueAt: p.dueAt },
       citation: p.source.citation,
       ...withWords(p.es?.label, p.source.es?.citation),
     })
@@ -43,6 +44,7 @@ export function entriesOf(v: ActiveVehicle, c: VehicleClocks, today: string, tim
       dueAt: d.dueAt ?? null,
       status: d.status === 'missed' ? 'overdue' : 'due',
       explanation: d.explanation,
+      explained: d.explained,
       citation: d.source.citation,
       ...withWords(d.es?.label, d.source.es?.citation),
       doneBy: d.doneBy.event,
@@ -60,6 +62,7 @@ export function entriesOf(v: ActiveVehicle, c: VehicleClocks, today: string, tim
       status: gate.open ? 'eligible' : 'due',
       ...(gate.open ? { since: gate.date } : {}),
       explanation: gate.open ? `Eligible for lien sale or disposal since ${gate.date}.` : `Not before ${gate.date}.`,
+      explained: { code: gate.open ? 'eligible-since' : 'not-before', date: gate.date },
       citation: gate.citation,
       ...withWords(gate.es?.step, gate.es?.citation),
     })

@@ -1,4 +1,6 @@
-import { pickupNeeds, type PickupEquipment } from '@shared/domain/inspection'
+import { pickupNeeds, type PickupEquipment, type PickupReason } from '@shared/domain/inspection'
+import enInspection from '@shared/messages/en/inspection.json'
+import esInspection from '@shared/messages/es/inspection.json'
 import { letterhead, type YardHeading } from './letterhead'
 import { yardDateTime } from './release-words'
 import { LETTER, Sheet } from './sheet'
@@ -24,6 +26,8 @@ export interface PickupTicketData {
   space: string | null
   printedAt: Date
 }
+
+const REASONS: Record<Language, Record<PickupReason, string>> = { en: enInspection.inspection.pickupReasons, es: esInspection.inspection.pickupReasons }
 
 const WORDS = {
   en: {
@@ -113,8 +117,8 @@ export async function pickupTicket(d: PickupTicketData, language: Language): Pro
     sheet.paragraph(needs.equipment.map((e) => w.equipment[e]).join(' + '), { size: 16, font: 'bold', colour: 'steel' })
     const yn = (b: boolean) => (b ? w.yes : w.no)
     sheet.paragraph(w.marks(yn(v.rolls), yn(v.steers), yn(v.brakes)), { size: 10, colour: 'muted' })
-    // The reasons are the core's own words (English for now: DEVELOPERS.md, "Not yet in the reader's language").
-    for (const reason of needs.reasons) sheet.paragraph(`${w.why}: ${reason}`, { size: 10 })
+    // The reasons by code, in the ticket's language (shared/messages/<locale>/inspection.json).
+    for (const code of needs.reasonCodes) sheet.paragraph(`${w.why}: ${REASONS[language][code]}`, { size: 10 })
   }
   sheet.caution(w.cautions.map((c) => `• ${c}`).join('\n'), w.cautionsTitle)
   sheet.caution()

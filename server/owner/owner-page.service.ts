@@ -140,6 +140,7 @@ async function deadlinesOf(db: Database, v: VehicleRow, yard: YardRow, now: Date
     status: d.status,
     dueDate: d.dueDate ?? null,
     explanation: d.explanation,
+    explained: d.explained,
     citation: d.source.citation,
     ...(stepWords(d) ? { es: stepWords(d) } : {}),
   }))

@@ -1,6 +1,14 @@
 import { z } from 'zod'
+import { clockExplanationSchema } from './clock-explanations'
 import { policeNoticeClockSchema } from './police-notices'
 import { spanishWordsSchema } from './rule-sets'
+
+/** A sample amount not yet set (shared/domain/billing: `SampleWarning`). */
+export const sampleWarningSchema = z.discriminatedUnion('code', [
+  z.object({ code: z.enum(['sample-storage', 'sample-fee']), label: z.string(), es: z.object({ label: z.string().optional() }).optional() }),
+  z.object({ code: z.literal('sample-tax') }),
+])
+export type SampleWarningView = z.infer<typeof sampleWarningSchema>
 
 /** The next legal date that matters for a vehicle, as a card or page shows it. */
 export const nextDeadlineSchema = z.object({
@@ -14,6 +22,8 @@ export const nextDeadlineSchema = z.object({
   daysLeft: z.number(),
   explanation: z.string(),
   citation: z.string(),
+  /** The explanation as data, worded in the reader's language (`explanation` is the English). */
+  explained: clockExplanationSchema.optional(),
   /** Its words in Spanish, where the rule set has them (shared/messages/rule-words.ts picks the reader's). */
   es: spanishWordsSchema.optional(),
   /** The rule set's own counting rules this date followed (business days, a mailing on a closed post-office day), each cited. */
@@ -66,5 +76,7 @@ export const vehicleSummarySchema = z.object({
   /** The police-notification clock of a tow the rule set asks it of; null otherwise. */
   policeNotice: policeNoticeClockSchema.nullish(),
   warnings: z.array(z.string()),
+  /** The warnings as data, worded in the reader's language (`warnings` is the English). */
+  sampleWarnings: z.array(sampleWarningSchema).optional(),
 })
 export type VehicleSummary = z.infer<typeof vehicleSummarySchema>

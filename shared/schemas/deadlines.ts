@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { clockExplanationSchema } from './clock-explanations'
 import { msg } from './field-messages'
 import { spanishWordsSchema } from './rule-sets'
 
@@ -27,6 +28,8 @@ export const deadlineEntrySchema = z.object({
   since: z.string().optional(),
   explanation: z.string(),
   citation: z.string(),
+  /** The explanation as data, worded in the reader's language (`explanation` is the English). */
+  explained: clockExplanationSchema.optional(),
   /** Its words in Spanish, where the rule set has them (shared/messages/rule-words.ts picks the reader's). */
   es: spanishWordsSchema.optional(),
   /** A timeline step: the recorded event that meets it (e.g. owner-records-requested), for the Today page. */

@@ -131,7 +131,10 @@ export type Inspection = z.infer<typeof inspectionSchema>
 export const pickupBadgeSchema = z.object({
   equipment: z.array(z.enum(['wheel-lift', 'flatbed', 'dollies-or-skates'])),
   label: z.string(),
+  /** The badge and its reasons by code, worded in the reader's language (`label` and `reasons` keep the English). */
+  code: z.enum(['wheel-lift', 'flatbed', 'dollies', 'flatbed-or-dollies', 'wheel-lift-dollies', 'flatbed-dollies']).optional(),
   reasons: z.array(z.string()),
+  reasonCodes: z.array(z.enum(['no-roll', 'no-steer', 'no-brake', 'no-keys', 'wheel-lift-will-do'])).optional(),
   technicianFirst: z.boolean(),
 })
 
@@ -139,6 +142,8 @@ export const recommendationSchema = z.object({
   recommendation: z.enum(['repair', 'salvage']),
   rule: z.enum(['percent-of-value', 'total-loss-formula']),
   numbers: z.object({ estimateCents: z.number(), actualCashValueCents: z.number(), salvageValueCents: z.number(), thresholdCents: z.number() }),
+  /** The share of the value that makes a total loss (percent-of-value); the screen words the explanation from the numbers. */
+  percent: z.number().optional(),
   explanation: z.array(z.string()),
   source: z.object({ citation: z.string(), confidence: z.string(), note: z.string().optional() }),
 })

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { clockExplanationSchema } from './clock-explanations'
 import { FINDING_STATUSES } from '../domain/inspection/inspection-checklist'
 import { VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { optionalText, requiredText, text } from './fields'
@@ -123,6 +124,8 @@ export const ownerDeadlineSchema = z.object({
   status: z.enum(['upcoming', 'met', 'missed', 'reached', 'not-started', 'needs-information']),
   dueDate: z.string().nullable(),
   explanation: z.string(),
+  /** The explanation as data, worded in the reader's language (`explanation` is the English). */
+  explained: clockExplanationSchema.optional(),
   citation: z.string(),
   /** Its words in Spanish, where the rule set has them (shared/messages/rule-words.ts picks the reader's). */
   es: spanishWordsSchema.optional(),

@@ -197,6 +197,12 @@ describe('the release form and the pickup ticket', () => {
       expect(text.replace(/\s+/g, ' ')).toContain(words)
     }
     await renderFirstPage(res.body as Buffer, 'pickup-ticket')
+    // In Spanish, the reasons too (issue 14: they travel as codes, worded from shared/messages).
+    const es = await pdfOf(s, `/api/vehicles/${vehicle.id}/documents/pickup-ticket?lang=es`)
+    const esText = (await pdfText(es.body as Buffer)).replace(/\s+/g, ' ')
+    for (const words of ['BOLETA DE RECOGIDA', 'No rueda: súbalo a la plataforma con el malacate', 'Verifique las normas de su lugar']) expect(esText).toContain(words)
+    expect(esText).not.toContain('It does not roll')
+    await renderFirstPage(es.body as Buffer, 'pickup-ticket-es')
   })
 })
 

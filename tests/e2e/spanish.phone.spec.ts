@@ -101,3 +101,23 @@ test('en un teléfono en español: un campo rechazado dice por qué en español,
   expect((await answered).status()).toBe(409)
   await expect(emailField.locator('.el-form-item__error')).toHaveText(`${DEMO.dispatcher} ya está en su lista de personal. Búsquelo ahí o use otra dirección.`)
 })
+
+test('en un teléfono en español: lo que necesita la recogida y la explicación de un plazo se leen en español', async ({ page }) => {
+  const problems = watchConsole(page)
+  await signInInSpanish(page)
+
+  // A card the technician has marked: its pickup badge, by code, in the driver's Spanish (GLOSSARY.md).
+  await page.getByRole('navigation', { name: 'Columnas' }).getByRole('button', { name: /Decisión del dueño/ }).tap()
+  const card = page.locator('[data-column="decision"] [data-stock]').filter({ has: page.getByTestId('pickup-badge') }).first()
+  await expect(card.getByTestId('pickup-badge')).toContainText(/De arrastre|Plataforma/)
+  await expect(card.getByTestId('pickup-badge')).not.toContainText(/Wheel-lift|Flatbed/)
+
+  // Its page: the badge again, and the next deadline's worked-out explanation in Spanish.
+  await card.locator('.board-card__stock').tap()
+  await expect(page).toHaveURL(/\/vehicles\//)
+  await expect(page.getByTestId('pickup-badge')).toContainText(/De arrastre|Plataforma/)
+  const explanation = page.getByTestId('deadline-explanation')
+  await expect(explanation).toContainText(/\d+ días? (hábil(es)?|calendario) (después|antes) d/)
+  await expect(explanation).not.toContainText(/ days? (after|before) | due by /)
+  expect(problems).toEqual([])
+})

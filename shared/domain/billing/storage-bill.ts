@@ -31,8 +31,18 @@ export type StorageBill = {
   totalCents: Cents
   taxRatePercent: number
   warnings: string[]
+  /** The same warnings as data, for the reader's language (`warnings` stays the English). */
+  sampleWarnings: SampleWarning[]
   caution: string
 }
+
+/**
+ * A sample amount the yard has not set yet: a class's storage rate, a fee (each with the rule set's
+ * Spanish name where it has one), or the tax rate. The screens word it from the catalogs.
+ */
+export type SampleWarning =
+  | { code: 'sample-storage' | 'sample-fee'; label: string; es?: { label?: string } }
+  | { code: 'sample-tax' }
 
 /** Longer than any lawful storage before a lien sale; beyond it the input is a typing slip. */
 const MAX_STAY_MS = 20 * 366 * MS_PER_DAY
@@ -83,6 +93,14 @@ export function storageBill(stay: StayInput, ruleSet: RuleSet, asOf: Instant, op
     taxCents += line.taxCents
   }
   if (ruleSet.tax.placeholder && taxCents > 0) warnings.push('The tax rate is a sample — set your rate.')
+  const sampleWarnings: SampleWarning[] = lines
+    .filter((l) => l.placeholder)
+    .map((l) =>
+      l.kind === 'storage'
+        ? { code: 'sample-storage', label: vehicleClass.label, ...(vehicleClass.es?.label ? { es: { label: vehicleClass.es.label } } : {}) }
+        : { code: 'sample-fee', label: l.label, ...(l.es?.label ? { es: { label: l.es.label } } : {}) },
+    )
+  if (ruleSet.tax.placeholder && taxCents > 0) sampleWarnings.push({ code: 'sample-tax' })
   return {
     ruleSetId: ruleSet.id,
     timeZone: zone,
@@ -98,6 +116,7 @@ export function storageBill(stay: StayInput, ruleSet: RuleSet, asOf: Instant, op
     totalCents: subtotalCents + taxCents,
     taxRatePercent: rate,
     warnings,
+    sampleWarnings,
     caution: ruleSet.caution,
   }
 }

@@ -64,11 +64,40 @@ export type Deadline = {
   /** Why this branch of the rule (value or age band) was chosen. */
   branch?: string
   explanation: string
+  /** The explanation as data, for the reader's language (`explanation` stays the English for the feed and older readers). */
+  explained: StepExplanation
   source: Source
   /** The rule set's own counting rules this date was worked out by (business days, mailing days), each cited. */
   rules?: CountingRule[]
   placeholder: boolean
 }
+
+/**
+ * A step's explanation as data: "7 business days after the vehicle was placed in storage
+ * (2026-12-01): due by 2026-12-10, skipping 2 weekend days". The screens word it in the reader's
+ * language (src/composables/clock-words.ts); the core's English stays in `explanation`.
+ */
+export type StepExplanation = {
+  code: 'step'
+  kind: TimelineStep['kind']
+  days: number
+  dayKind: TimelineStep['dayKind']
+  direction: TimelineStep['direction']
+  from: ClockEventKind
+  /** Once the start is recorded: its day, the due date, and what the count skipped or moved. */
+  start?: string
+  date?: string
+  counted?: string
+  closed?: { holiday?: string; weekday?: number }
+  weekendDays?: number
+  holidays?: readonly Holiday[]
+}
+
+/** Any explanation a deadline list shows: a step's, the police clock's, or the lien sale's date. */
+export type ClockExplanation =
+  | StepExplanation
+  | { code: 'police'; hours: number; start: 'called' | 'hooked' | 'arrived'; startAt: string; dueAt: string }
+  | { code: 'eligible-since' | 'not-before'; date: string }
 
 export type LegalClocks = {
   asOf: string

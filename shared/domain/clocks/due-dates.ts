@@ -1,6 +1,6 @@
 import type { TimelineStep } from '../../schemas/rule-sets'
 import { countBusinessDays } from '../time/business-days'
-import { type DayNumber, isoDate, isoInstant } from '../time/calendar-dates'
+import { type DayNumber, isoDate, isoInstant, weekday } from '../time/calendar-dates'
 import { type ClockCalendars, postOfficeClosed } from './clock-calendars'
 import { clockEventLabels, mailingEvents } from './clock-events'
 import type { Holiday } from '../time/holidays'
@@ -16,6 +16,19 @@ export type DueDate = {
   weekendDays: number
   holidays: readonly Holiday[]
   explanation: string
+  /** The explanation's facts, for the reader's language (the screens word them; `explanation` stays the English). */
+  words: DueDateWords
+}
+
+/** What an explanation says, as data: the start day, a day a mailing moved off, what was skipped. */
+export type DueDateWords = {
+  start: string
+  /** The day counted, when a mailing moved the due date off it to the open day before. */
+  counted?: string
+  /** Why post offices were closed on the counted day: a holiday's name, or a weekday (0 Sunday … 6 Saturday). */
+  closed?: { holiday?: string; weekday?: number }
+  weekendDays: number
+  holidays: readonly Holiday[]
 }
 
 const NO_HOLIDAYS: readonly Holiday[] = Object.freeze([])
@@ -65,14 +78,19 @@ export function dueDate(step: TimelineStep, startDay: DayNumber, zone: string, c
  * A deadline to mail something that falls on a day post offices are closed moves to the open day
  * before it — never after, so the notice cannot go out later than the law requires.
  */
-function mailingDay(step: TimelineStep, day: DayNumber, calendars: ClockCalendars): { day: DayNumber; note?: string } {
+function mailingDay(step: TimelineStep, day: DayNumber, calendars: ClockCalendars): { day: DayNumber; note?: string; closed?: DueDateWords['closed'] } {
   const postOffice = calendars.postOffice
   if (!postOffice || step.kind !== 'deadline' || !mailingEvents.has(step.doneBy)) return { day }
   const why = postOfficeClosed(postOffice, day)
   if (!why) return { day }
   let open = day - 1
   while (postOfficeClosed(postOffice, open)) open--
-  return { day: open, note: `${isoDate(day)} is ${why}, when post offices are closed, so the mailing is due the open day before, ${isoDate(open)}` }
+  const holiday = postOffice.holidays.between(day, day)[0]
+  return {
+    day: open,
+    note: `${isoDate(day)} is ${why}, when post offices are closed, so the mailing is due the open day before, ${isoDate(open)}`,
+    closed: holiday ? { holiday: holiday.name } : { weekday: weekday(day) },
+  }
 }
 
 function work(step: TimelineStep, startDay: DayNumber, zone: string, calendars: ClockCalendars): DueDate {
@@ -100,6 +118,12 @@ function work(step: TimelineStep, startDay: DayNumber, zone: string, calendars: 
     weekendDays: counted.weekendDays,
     holidays: counted.holidays.length > 0 ? counted.holidays.map((h) => ({ date: h.date, name: h.name })) : NO_HOLIDAYS,
     explanation: mailing.note ? `${counting}; ${mailing.note}.` : `${counting}.`,
+    words: {
+      start: isoDate(startDay),
+      ...(mailing.closed ? { counted: isoDate(counted.day), closed: mailing.closed } : {}),
+      weekendDays: counted.weekendDays,
+      holidays: counted.holidays.length > 0 ? counted.holidays.map((h) => ({ date: h.date, name: h.name })) : NO_HOLIDAYS,
+    },
   }
 }
 

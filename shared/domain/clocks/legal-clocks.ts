@@ -2,13 +2,13 @@ import type { ClockEventKind, RuleSet, TimelineStep } from '../../schemas/rule-s
 import { civilFromDay, type DayNumber, isoInstant } from '../time/calendar-dates'
 import { type Branch, branchChooser, type ClockVehicle } from './clock-branches'
 import { asClockCalendars, type ClockCalendars } from './clock-calendars'
-import { type ClockAlert, type ClockEvent, clockEventLabels, type ClockStatus, type CountingRule, type Deadline, type LegalClocks, mailingEvents, plannedEvents } from './clock-events'
+import { type ClockAlert, type ClockEvent, clockEventLabels, type ClockStatus, type CountingRule, type Deadline, type LegalClocks, mailingEvents, plannedEvents, type StepExplanation } from './clock-events'
 import { countingText, type DueDate, dueDate } from './due-dates'
 import type { HolidayCalendar } from '../time/holidays'
 import { assertTimeZone, type Instant, localDay, toEpochMs } from '../time/local-time'
 
 export type { ClockVehicle } from './clock-branches'
-export type { ClockAlert, ClockEvent, ClockNeed, ClockStatus, Deadline, LegalClocks } from './clock-events'
+export type { ClockAlert, ClockEvent, ClockExplanation, ClockNeed, ClockStatus, Deadline, LegalClocks, StepExplanation } from './clock-events'
 export { clockEventLabels } from './clock-events'
 
 /**
@@ -171,8 +171,24 @@ function deadline(
     doneBy: { event: step.doneBy, label: clockEventLabels[step.doneBy], at: done?.iso },
     branch: branch.why,
     explanation: due ? due.explanation : `${countingText(step)}.`,
+    explained: explained(step, due),
     source: step.source,
     placeholder: step.placeholder,
+  }
+}
+
+/** The explanation's facts: the counting always, the dates once the start is recorded. */
+function explained(step: TimelineStep, due: DueDate | undefined): StepExplanation {
+  const counting = { code: 'step', kind: step.kind, days: step.days, dayKind: step.dayKind, direction: step.direction, from: step.from } as const
+  if (!due) return counting
+  const w = due.words
+  return {
+    ...counting,
+    start: w.start,
+    date: due.date,
+    ...(w.counted ? { counted: w.counted, closed: w.closed } : {}),
+    ...(w.weekendDays > 0 ? { weekendDays: w.weekendDays } : {}),
+    ...(w.holidays.length > 0 ? { holidays: w.holidays } : {}),
   }
 }
 

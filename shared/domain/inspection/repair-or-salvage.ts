@@ -6,6 +6,8 @@ export type RepairOrSalvage = {
   recommendation: 'repair' | 'salvage'
   rule: 'percent-of-value' | 'total-loss-formula'
   numbers: { estimateCents: Cents; actualCashValueCents: Cents; salvageValueCents: Cents; thresholdCents: Cents }
+  /** The share of the value that makes a total loss (percent-of-value only), for the screens' own words. */
+  percent?: number
   /** For the owner, in plain words: what was compared and what it means. */
   explanation: string[]
   source: Source
@@ -43,6 +45,7 @@ export function repairOrSalvage(
       recommendation: total ? 'salvage' : 'repair',
       rule: rule.rule,
       numbers: { ...numbers, thresholdCents },
+      percent: rule.percent,
       explanation: [
         `The repair estimate is ${estimate}; the vehicle is worth about ${value} before the damage.`,
         `Here a vehicle is a total loss when repairs cost ${rule.percent} % of its value or more: ${formatCents(thresholdCents)}.`,
