@@ -32,6 +32,7 @@ export function cardRows(db: Executor, where: SQL | undefined) {
       ...identityColumns,
       state: vehicles.state,
       disposition: vehicles.disposition,
+      vin: vehicles.vin,
       version: vehicles.version,
       arrivedAt: vehicles.arrivedAt,
       closedAt: vehicles.closedAt,

@@ -47,6 +47,8 @@ export const boardCardSchema = z.object({
   ...vehicleIdentityShape,
   state: z.enum(VEHICLE_STATES),
   disposition: z.enum(DISPOSITIONS).nullable(),
+  /** Not shown on the card: the board's search finds a vehicle by it (issue 16 item 9). */
+  vin: z.string().nullable(),
   version: z.number(),
   arrivedAt: z.string(),
   towReason: z.string().nullable(),

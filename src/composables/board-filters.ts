@@ -54,7 +54,7 @@ export function cardMatches(card: BoardCard, f: BoardFilters): boolean {
   if (f.overdue && card.summary?.nextDeadline?.status !== 'missed') return false
   const q = f.q.trim().toLowerCase()
   if (!q) return true
-  const words = [card.stockNumber, card.plate, card.year, card.make, card.model, card.colour, card.space].filter(Boolean).join(' ').toLowerCase()
+  const words = [card.stockNumber, card.vin, card.plate, card.year, card.make, card.model, card.colour, card.space].filter(Boolean).join(' ').toLowerCase()
   return q.split(/\s+/).every((part) => words.includes(part))
 }
 

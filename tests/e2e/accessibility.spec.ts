@@ -1,8 +1,10 @@
 import { expect, test, type Page } from '@playwright/test'
-import { expectAccessible, signInAs, type DemoRole } from './helpers'
+import { AXE_ROUTES, isElsewhere } from './axe-routes'
+import { expectAccessible, signInAs } from './helpers'
 
 // Issue 16 item 17: every page passes axe-core's WCAG 2.2 A and AA rules — contrast, names, valid ARIA —
-// at a desk, in English and Spanish. Each page is checked once what it shows has arrived.
+// at a desk, in English and Spanish. Each page is checked once what it shows has arrived. Which pages, and
+// where each route is checked: tests/e2e/axe-routes.ts (a unit test holds it to the router's routes).
 
 async function firstVehicle(page: Page) {
   const card = page.locator('[data-column="storage"] [data-stock]').first()
@@ -10,42 +12,24 @@ async function firstVehicle(page: Page) {
   return (await card.getAttribute('data-id'))!
 }
 
-test('the public pages pass axe: sign-in, the owner\'s start page and a page that is not there', async ({ page }) => {
-  await page.goto('/sign-in')
-  await expect(page.getByRole('button', { name: 'Sign in' })).toBeVisible()
-  await expectAccessible(page)
-  await page.goto('/o')
-  await expect(page.getByRole('heading', { name: 'Find your vehicle' })).toBeVisible()
-  await expectAccessible(page)
-  await page.goto('/nowhere-at-all')
-  await expect(page.getByRole('heading').first()).toBeVisible()
-  await expectAccessible(page)
-})
-
-const pages: Record<DemoRole, { path: string; ready: (page: Page) => ReturnType<Page['getByRole']> }[]> = {
-  manager: [
-    { path: '/board', ready: (p) => p.getByRole('status').filter({ hasText: 'Live' }) },
-    { path: '/archive', ready: (p) => p.getByRole('table') },
-    { path: '/users', ready: (p) => p.getByRole('table') },
-    { path: '/outbox', ready: (p) => p.getByRole('table') },
-  ],
-  office: [
-    { path: '/cash-drawer', ready: (p) => p.getByRole('heading', { level: 1 }) },
-    { path: '/deadlines', ready: (p) => p.getByRole('heading', { level: 1 }) },
-    { path: '/gate', ready: (p) => p.getByRole('heading', { level: 1 }) },
-  ],
-  dispatcher: [{ path: '/tow-in', ready: (p) => p.getByTestId('map') }],
-  technician: [{ path: '/board', ready: (p) => p.getByRole('status').filter({ hasText: 'Live' }) }],
-}
-
-for (const [role, list] of Object.entries(pages) as [DemoRole, (typeof pages)[DemoRole]][]) {
-  test(`the ${role}'s pages pass axe`, async ({ page }) => {
+// The pages of tests/e2e/axe-routes.ts, one test each (axe on a full page takes a while on a loaded
+// machine), each page once what it shows has arrived, and each main dialog open over it.
+for (const [name, entry] of Object.entries(AXE_ROUTES)) {
+  if (isElsewhere(entry)) continue
+  const { role, path, ready, dialogs } = entry
+  test(`${name} passes axe${role ? ` (${role})` : ''}${dialogs ? `, with ${dialogs.join(', ')} open` : ''}`, async ({ page }) => {
     test.slow()
-    await signInAs(page, role)
-    for (const { path, ready } of list) {
-      await page.goto(path)
-      await expect(ready(page).first()).toBeVisible()
+    if (role) await signInAs(page, role)
+    await page.goto(typeof path === 'string' ? path : await path(page))
+    await expect(ready(page).first()).toBeVisible()
+    await expectAccessible(page)
+    for (const opener of dialogs ?? []) {
+      await page.getByRole('button', { name: opener, exact: true }).first().click()
+      const dialog = page.getByRole('dialog')
+      await expect(dialog).toBeVisible()
       await expectAccessible(page)
+      await page.keyboard.press('Escape')
+      await expect(dialog).toBeHidden()
     }
   })
 }

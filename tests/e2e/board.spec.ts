@@ -129,15 +129,27 @@ test('a board that missed a change gets a conflict and shows the card where it n
   await otherContext.close()
 })
 
+// Issue 16 item 9: one search. On the board the top bar's box filters the cards (there is no second box).
 test('filters live in the address and survive a reload', async ({ page }) => {
   await signInAs(page, 'office')
-  await page.getByLabel(/^Filter the board's cards/).fill('Kestra')
+  const search = page.getByRole('textbox', { name: /Find a vehicle/ })
+  await expect(page.getByRole('textbox')).toHaveCount(1)
+  await search.fill('Kestra')
   await expect(page).toHaveURL(/[?&]q=Kestra/)
   const cards = page.locator('[data-stock]')
   await expect(cards.first()).toBeVisible()
   for (const text of await cards.allInnerTexts()) expect(text).toContain('Kestra')
   await page.reload()
-  await expect(page.getByLabel(/^Filter the board's cards/)).toHaveValue('Kestra')
+  await expect(search).toHaveValue('Kestra')
+  // By VIN too (a card does not show it): the last eight characters of a demo vehicle's VIN find its card alone.
+  const board = (await page.request.get('/api/board').then((r) => r.json())) as { columns: { cards: { id: string; vin: string | null }[] }[] }
+  const withVin = board.columns.flatMap((c) => c.cards).find((c) => c.vin)!
+  expect(withVin.vin!.length).toBeGreaterThanOrEqual(8)
+  await search.fill(withVin.vin!.slice(-8))
+  await expect(page.locator('[data-stock]')).toHaveCount(1)
+  await expect(page.locator(`[data-id="${withVin.id}"]`)).toBeVisible()
+  await page.getByRole('button', { name: 'Clear filters' }).click()
+  await expect(search).toHaveValue('')
   await page.goto('/board?hold=law_enforcement')
   await expect(cards.first()).toBeVisible()
   for (const text of await cards.allInnerTexts()) expect(text).toContain('Law-enforcement hold')

@@ -3,7 +3,7 @@ import { mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
 import { expect, test } from '@playwright/test'
-import { watchConsole } from './helpers'
+import { expectAccessible, watchConsole } from './helpers'
 
 // Issue 12, "Settings": a fresh install without the demo is set up from the browser. This spec starts a
 // server of its own (the built one, as scripts/e2e-server.mjs does) on an empty data directory with
@@ -51,6 +51,8 @@ test('the first manager sets up the company and its first yard, and lands signed
   await page.getByRole('button', { name: 'Set up and sign in' }).click()
   await expect(page.getByText('Enter the company name.')).toBeVisible()
   await expect(page.getByText('Give the yard a name.')).toBeVisible()
+  // Issue 16 item 17: the page passes axe (WCAG 2.2 AA), its field messages showing.
+  await expectAccessible(page)
 
   await page.getByLabel('Company name').fill('Quarry Road Towing')
   await page.getByLabel('Name', { exact: true }).fill('Quarry Road lot')

@@ -5,6 +5,7 @@ import { cardMatches, filtersFromQuery, type BoardFilters } from '../../../src/c
 const none: BoardFilters = { q: '', reason: '', hold: '', minDays: null, overdue: false }
 const card = {
   stockNumber: 'TC-2026-00014',
+  vin: '1ZVHT82H485113456',
   plate: '6CAB001',
   year: 2004,
   make: 'Orlan',
@@ -22,6 +23,8 @@ describe('board filters', () => {
     { f: { q: 'scout orlan' }, match: true, why: 'words in any order' },
     { f: { q: 'orlan finch' }, match: false, why: 'a word not found' },
     { f: { q: '6cab' }, match: true, why: 'part of the plate' },
+    { f: { q: 'h485113456' }, match: true, why: 'the end of the VIN (issue 16 item 9: one search by stock number, VIN, plate, make or model)' },
+    { f: { q: '1zvht82h485113457' }, match: false, why: 'another VIN' },
     { f: { reason: 'breakdown' }, match: false, why: 'another tow reason' },
     { f: { hold: 'any' as const }, match: true, why: 'held' },
     { f: { hold: 'none' as const }, match: false, why: 'held, asked for none' },
