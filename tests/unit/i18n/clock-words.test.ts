@@ -70,7 +70,7 @@ describe('deadline explanations in the reader’s language', () => {
     expect(clockExplanation({ code: 'eligible-since', date: '2026-12-01' }, 'English')).toBe('Apto para venta por gravamen o desecho desde el 1 dic 2026.')
     // 18:00 UTC is 10:00 in Los Angeles in December (PST, UTC−8).
     const police = clockExplanation({ code: 'police', hours: 1, start: 'arrived', startAt: '2026-12-01T17:00:00Z', dueAt: '2026-12-01T18:00:00Z' }, 'English', 'America/Los_Angeles')
-    expect(police).toMatch(/^1 hora después de la llegada al patio \(.*09:00\): vence el .*10:00\.$/)
+    expect(police).toMatch(/^1 hora después de la llegada al patio \(.*09:00 PST\): vence el .*10:00 PST\.$/)
   })
 
   it('shows the English as it came from a server without the facts', () => {
