@@ -80,7 +80,10 @@ export function vinIssues(fields: VinFields): { path: string[]; message: string 
   }
   const reading = readVin(v.vin, v.vehicleClass === 'heavy' ? 'heavy-or-trailer' : 'light')
   if (!reading.ok) {
-    return override ? [] : [{ path: ['vin'], message: msg('vehicles.vinProblem', `${reading.problems[0]!.message} Correct it, or record it as read and give the reason.`, { problem: reading.problems[0]!.message }) }]
+    const problem = reading.problems[0]!
+    // `problemCode` and the problem's own parameters let a reader's language word the problem too (vin.problems in shared/messages).
+    const params = { problem: problem.message, problemCode: problem.code, ...problem.params }
+    return override ? [] : [{ path: ['vin'], message: msg('vehicles.vinProblem', `${problem.message} Correct it, or record it as read and give the reason.`, params) }]
   }
   // 49 CFR 565 has required 17 characters since model year 1981: a shorter VIN on a newer vehicle is a misread.
   if (!override && reading.normalized.length < 17 && (v.year === null || v.year >= FIRST_17_CHARACTER_YEAR)) {

@@ -16,6 +16,9 @@ function shown(params: FieldParams | undefined): Record<string, string | number>
     // The first letter, after any opening mark ("¿rueda?" → "¿Rueda?").
     out.What = words.replace(/\p{L}/u, (c) => c.toLocaleUpperCase())
   }
+  // A VIN's problem (its code and parameters beside the English) in the reader's words.
+  const problemCode = params?.problemCode
+  if (typeof problemCode === 'string' && te(`vin.problems.${problemCode}`)) out.problem = t(`vin.problems.${problemCode}`, params as Record<string, string | number>)
   return out
 }
 

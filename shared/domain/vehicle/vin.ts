@@ -8,7 +8,12 @@ export type VinProblem = {
   message: string
   /** 1-based position in the normalised VIN. */
   position?: number
+  /** What the message says, for wording it in the reader's language (`vin.problems.<code>` in shared/messages). */
+  params: Record<string, string | number>
 }
+
+/** Something to know about a VIN that can still be recorded (`vin.notes.<code>`): a short, pre-1981 VIN. */
+export type VinNote = { code: 'short'; params: { length: number } }
 
 export type VinReading = {
   input: string
@@ -17,6 +22,8 @@ export type VinReading = {
   ok: boolean
   problems: VinProblem[]
   warnings: string[]
+  /** The warnings as codes and parameters, in the same order. */
+  notes: VinNote[]
   checkDigit?: { found: string; expected: string; valid: boolean }
   modelYear?: ModelYearReading
 }
@@ -47,25 +54,26 @@ const ordinal = (n: number) => `${n}${n === 1 ? 'st' : n === 2 ? 'nd' : n === 3 
 /** Read a VIN as typed: what is wrong with it, if anything, and its model year. */
 export function vin(text: string, kind: VinVehicleKind = 'light'): VinReading {
   const normalized = normalizeVin(text)
-  const reading: VinReading = { input: text, normalized, ok: false, problems: [], warnings: [] }
+  const reading: VinReading = { input: text, normalized, ok: false, problems: [], warnings: [], notes: [] }
   if (normalized.length === 0) {
-    reading.problems.push({ code: 'empty', message: 'No VIN was entered.' })
+    reading.problems.push({ code: 'empty', message: 'No VIN was entered.', params: {} })
     return reading
   }
   if (normalized.length > 17) {
-    reading.problems.push({ code: 'too-long', message: `A VIN has 17 characters; this one has ${normalized.length}.` })
+    reading.problems.push({ code: 'too-long', message: `A VIN has 17 characters; this one has ${normalized.length}.`, params: { length: normalized.length } })
     return reading
   }
   for (let i = 0; i < normalized.length; i++) {
     const c = normalized[i] as string
     if (!/[A-Z0-9]/.test(c)) {
-      reading.problems.push({ code: 'illegal-character', position: i + 1, message: `"${c}" (${ordinal(i + 1)} character) cannot be part of a VIN.` })
+      reading.problems.push({ code: 'illegal-character', position: i + 1, message: `"${c}" (${ordinal(i + 1)} character) cannot be part of a VIN.`, params: { char: c, position: i + 1, nth: ordinal(i + 1) } })
     } else if (normalized.length === 17 && (c === 'I' || c === 'O' || c === 'Q')) {
       const instead = c === 'I' ? '1' : '0'
       reading.problems.push({
         code: 'illegal-letter',
         position: i + 1,
         message: `The ${ordinal(i + 1)} character is the letter ${c}, which a VIN never uses — is it the digit ${instead}?`,
+        params: { letter: c, instead, position: i + 1, nth: ordinal(i + 1) },
       })
     }
   }
@@ -76,6 +84,7 @@ export function vin(text: string, kind: VinVehicleKind = 'light'): VinReading {
         'so it is saved only with a model year before 1981 (or a reason). It has no check digit or model-year code ' +
         'to verify — compare it with the title.',
     )
+    reading.notes.push({ code: 'short', params: { length: normalized.length } })
     return reading
   }
   if (reading.problems.length > 0) return reading
@@ -88,11 +97,12 @@ export function vin(text: string, kind: VinVehicleKind = 'light'): VinReading {
       code: 'check-digit',
       position: 9,
       message: `The check digit (9th character) is ${found} but the other characters give ${expected}: a character is probably mistyped.`,
+      params: { found, expected },
     })
   }
   reading.modelYear = readModelYear(normalized, kind)
   if (!reading.modelYear.readable) {
-    reading.problems.push({ code: 'model-year-code', position: 10, message: reading.modelYear.reason })
+    reading.problems.push({ code: 'model-year-code', position: 10, message: reading.modelYear.reason, params: { code: reading.modelYear.code } })
   }
   reading.ok = reading.problems.length === 0
   return reading
