@@ -84,8 +84,8 @@ test('a walk-in owner paying cash: found by plate, released on one screen in ten
   const licence = await sharp({ create: { width: 400, height: 250, channels: 3, background: '#c9822b' } }).jpeg().toBuffer()
   await tally.chooseFile(screen.getByTestId('counter-id-photo'), screen.getByTestId('counter-id-file'), { name: 'licence.jpg', mimeType: 'image/jpeg', buffer: licence })
   await expect(screen.getByRole('img', { name: "Photo of the claimant's ID" })).toBeVisible()
-  // The expiry typed is taken once the clerk moves on.
-  await expect(screen.locator('.el-date-editor input')).toHaveValue('2031-08-31')
+  // The expiry typed is taken once the clerk moves on, and shown in the one date look.
+  await expect(screen.locator('.el-date-editor input')).toHaveValue('31 Aug 2031')
 
   tally.at('handover')
   await tally.fill(screen.getByTestId('counter-odometer').locator('input'), '168410')
