@@ -70,7 +70,7 @@ export async function refundCard(changes: VehicleChanges, cards: CardPayments | 
         payment_intent: charge.providerReference!,
         amount: input.amountCents,
         reason: 'requested_by_customer',
-        // What the webhook needs to record the refund as asked, should it end later (no personal data).
+        // What the webhook needs to record the refund as asked, should it end later: ids, the key and the reason as typed; no owner details.
         metadata: { holdfast: '1', vehicleId, paymentId: charge.id, actorId: actor.id, idempotencyKey: input.idempotencyKey, reason: input.reason },
       },
       { idempotencyKey: `holdfast-refund-${vehicleId}-${input.idempotencyKey}` },
