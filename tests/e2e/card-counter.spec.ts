@@ -1,6 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { anotherVehicle, towInBody } from '../helpers/tow-in'
-import { signInAs, watchConsole } from './helpers'
+import { logFreshVehicle, signInAs, watchConsole } from './helpers'
 
 // Issue 11, card payments: a freshly logged vehicle; the clerk takes part of the bill in cash and the
 // rest by card on the payment service's hosted page (the app's local stand-in, reached through the SDK),
@@ -10,14 +9,7 @@ test.describe.configure({ timeout: 360_000 })
 test('part in cash, the rest by card on the hosted page: the bill is paid in full and the card has its reference', async ({ page }) => {
   const problems = watchConsole(page)
   await signInAs(page, 'manager')
-  const session = await (await page.request.get('/api/session')).json()
-  const created = await page.request.post('/api/vehicles', {
-    headers: { 'x-csrf-token': session.csrfToken },
-    // A vehicle of its own, logged now (a fresh VIN and plate): no demo position is touched.
-    data: towInBody(session.user.id, anotherVehicle),
-  })
-  expect(created.status()).toBe(201)
-  const vehicleId = (await created.json()).id as string
+  const { id: vehicleId } = await logFreshVehicle(page.request)
 
   await page.goto(`/vehicles/${vehicleId}`)
   const bill = page.getByTestId('billing')

@@ -1,20 +1,14 @@
 import { expect, test } from '@playwright/test'
-import { anotherVehicle, towInBody } from '../helpers/tow-in'
-import { signInAs, watchConsole } from './helpers'
+import { apiSignIn, logFreshVehicle, signInAs, watchConsole } from './helpers'
 
 // Issue 10: a California vehicle valued over $4,000 waits for the DMV's own notice to the owners
 // (Cal. Civ. Code § 3071(b)–(c), as the demo yard's sample cites it) — a step only the office can
 // witness. The office records its day from the vehicle page; the owners' 10 days to oppose then show a date.
-test('the office records the state notice from the vehicle page and the step it starts gets its date', async ({ page, browser }) => {
+test('the office records the state notice from the vehicle page and the step it starts gets its date', async ({ page, request }) => {
   test.slow()
   const problems = watchConsole(page)
-  const desk = await browser.newPage()
-  await signInAs(desk, 'dispatcher')
-  const deskSession = await (await desk.request.get('/api/session')).json()
-  const created = await desk.request.post('/api/vehicles', { headers: { 'x-csrf-token': deskSession.csrfToken }, data: towInBody(deskSession.user.id, anotherVehicle) })
-  expect(created.status()).toBe(201)
-  const vehicleId = (await created.json()).id as string
-  await desk.close()
+  await apiSignIn(request, 'dispatcher')
+  const { id: vehicleId } = await logFreshVehicle(request)
 
   await signInAs(page, 'office')
   const session = await (await page.request.get('/api/session')).json()

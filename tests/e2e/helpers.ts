@@ -1,4 +1,6 @@
-import { expect, type Page } from '@playwright/test'
+import { type APIRequestContext, expect, type Page } from '@playwright/test'
+import type { TowInInput } from '@shared/schemas/tow-in'
+import { anotherVehicle, towInBody } from '../helpers/tow-in'
 
 export const DEMO = {
   password: 'quarry-spur-demo',
@@ -20,6 +22,39 @@ export async function signInAs(page: Page, role: DemoRole, landing = '/board') {
   await page.getByLabel('Password', { exact: true }).fill(DEMO.password)
   await page.getByRole('button', { name: 'Sign in' }).click()
   await expect(page).toHaveURL(new RegExp(`${landing}$`))
+}
+
+/**
+ * Signs `request` (an API context of its own, such as the test's `request` fixture) in as a demo role, with no
+ * page: for the set-up a test then looks at in a browser. Answers the session's CSRF token and user id.
+ */
+export async function apiSignIn(request: APIRequestContext, role: DemoRole) {
+  const { csrfToken } = (await (await request.get('/api/session')).json()) as { csrfToken: string }
+  const res = await request.post('/api/session', { data: { email: DEMO[role], password: DEMO.password }, headers: { 'x-csrf-token': csrfToken } })
+  expect(res.status(), await res.text()).toBe(200)
+  const session = (await res.json()) as { csrfToken: string; user: { id: string } }
+  return { csrfToken: session.csrfToken, userId: session.user.id }
+}
+
+/**
+ * A vehicle of its own, towed in now with a fresh VIN and plate (so no demo position is touched), logged over
+ * the API by whoever `request` is signed in as. `edit` changes the tow-in after the fresh VIN and plate are set;
+ * `photo` goes with it as a JPEG.
+ */
+export async function logFreshVehicle(request: APIRequestContext, { edit, photo }: { edit?: (b: TowInInput) => void; photo?: Buffer } = {}) {
+  const session = (await (await request.get('/api/session')).json()) as { csrfToken: string; user: { id: string } }
+  const body = towInBody(session.user.id, (b) => {
+    anotherVehicle(b)
+    edit?.(b)
+  })
+  const headers = { 'x-csrf-token': session.csrfToken }
+  const res = await request.post(
+    '/api/vehicles',
+    photo ? { headers, multipart: { data: JSON.stringify(body), photos: { name: 'front.jpg', mimeType: 'image/jpeg', buffer: photo } } } : { headers, data: body },
+  )
+  expect(res.status(), await res.text()).toBe(201)
+  const created = (await res.json()) as { id: string; stockNumber: string }
+  return { id: created.id, stockNumber: created.stockNumber, plate: body.vehicle.plate!, csrfToken: session.csrfToken }
 }
 
 /** Fails the test on any console error or failed request the page makes. */

@@ -1,23 +1,15 @@
 import { expect, test } from '@playwright/test'
-import { anotherVehicle, towInBody } from '../helpers/tow-in'
-import { signInAs, watchConsole } from './helpers'
+import { apiSignIn, logFreshVehicle, signInAs, watchConsole } from './helpers'
 
 // Issue 16 item 16: a technician could start a teardown on a vehicle under a law-enforcement hold and the
 // teardown never showed holds. An evidence hold usually means "do not touch": it is shown, and asked about.
-test('a teardown under a law-enforcement hold shows the hold and asks before starting', async ({ page, browser }) => {
+test('a teardown under a law-enforcement hold shows the hold and asks before starting', async ({ page, request }) => {
   test.slow()
   const problems = watchConsole(page)
-  const desk = await browser.newPage()
-  await signInAs(desk, 'dispatcher')
-  const session = await (await desk.request.get('/api/session')).json()
-  const headers = { 'x-csrf-token': session.csrfToken }
-  // A vehicle of its own (a fresh VIN and plate): no demo position is touched.
-  const created = await desk.request.post('/api/vehicles', { headers, data: towInBody(session.user.id, anotherVehicle) })
-  expect(created.status()).toBe(201)
-  const vehicleId = (await created.json()).id as string
-  const held = await desk.request.post(`/api/vehicles/${vehicleId}/holds`, { headers, data: { kind: 'law_enforcement', agency: 'Orrin Flats Police Department', caseNumber: 'OF-26-20533' } })
+  const { csrfToken } = await apiSignIn(request, 'dispatcher')
+  const { id: vehicleId } = await logFreshVehicle(request)
+  const held = await request.post(`/api/vehicles/${vehicleId}/holds`, { headers: { 'x-csrf-token': csrfToken }, data: { kind: 'law_enforcement', agency: 'Orrin Flats Police Department', caseNumber: 'OF-26-20533' } })
   expect(held.status()).toBe(201)
-  await desk.close()
 
   await signInAs(page, 'technician')
   await page.goto(`/vehicles/${vehicleId}/inspection`)
@@ -45,19 +37,13 @@ test('a teardown under a law-enforcement hold shows the hold and asks before sta
 // Issue 16 item 16, the board's side: a drag, Shift+→ or "Move to…" took a held vehicle from Arrival to
 // Teardown without a word. Every way into Teardown under a law-enforcement hold now asks first, naming the
 // hold and its caution; Cancel leaves it in Arrival and sends nothing.
-test('Shift+→ on a card under a law-enforcement hold asks first; Cancel leaves it in Arrival', async ({ page, browser }) => {
+test('Shift+→ on a card under a law-enforcement hold asks first; Cancel leaves it in Arrival', async ({ page, request }) => {
   test.slow()
   const problems = watchConsole(page)
-  const desk = await browser.newPage()
-  await signInAs(desk, 'dispatcher')
-  const session = await (await desk.request.get('/api/session')).json()
-  const headers = { 'x-csrf-token': session.csrfToken }
-  const created = await desk.request.post('/api/vehicles', { headers, data: towInBody(session.user.id, anotherVehicle) })
-  expect(created.status()).toBe(201)
-  const { id: vehicleId, stockNumber } = (await created.json()) as { id: string; stockNumber: string }
-  const held = await desk.request.post(`/api/vehicles/${vehicleId}/holds`, { headers, data: { kind: 'law_enforcement', agency: 'Orrin Flats Police Department', caseNumber: 'OF-26-20611' } })
+  const { csrfToken } = await apiSignIn(request, 'dispatcher')
+  const { id: vehicleId, stockNumber } = await logFreshVehicle(request)
+  const held = await request.post(`/api/vehicles/${vehicleId}/holds`, { headers: { 'x-csrf-token': csrfToken }, data: { kind: 'law_enforcement', agency: 'Orrin Flats Police Department', caseNumber: 'OF-26-20611' } })
   expect(held.status()).toBe(201)
-  await desk.close()
 
   await signInAs(page, 'technician')
   await page.goto(`/board?q=${stockNumber}`)

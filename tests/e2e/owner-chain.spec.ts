@@ -4,8 +4,7 @@ import { formatCents } from '@shared/domain/billing'
 import { invoiceSchema } from '@shared/schemas/billing'
 import { ownerPageSchema, ownerQuoteSchema } from '@shared/schemas/owner'
 import { pdfText, readQrOfPdf } from '../helpers/pdf'
-import { anotherVehicle, towInBody } from '../helpers/tow-in'
-import { navLink, signInAs, watchConsole } from './helpers'
+import { apiSignIn, logFreshVehicle, navLink, signInAs, watchConsole } from './helpers'
 import { capturedMail } from './mail'
 
 /** One page of a PDF as a PDF of its own: the QR helper reads a first page. */
@@ -28,25 +27,14 @@ function nextFriday(day: string): { date: string; days: number } {
 // first notice from the vehicle page; the message the local SMTP stand-in kept carries the letter, whose QR
 // is the owner's link; the owner opens it on a phone, prices collecting next Friday and signs the vehicle
 // over; the office's board, open all along and never reloaded, shows the choice.
-test("from the records request to the owner's choice: the e-mailed letter's link, priced on a phone, signed over, live on the board", async ({ page, browser }, testInfo) => {
+test("from the records request to the owner's choice: the e-mailed letter's link, priced on a phone, signed over, live on the board", async ({ page, browser, request }, testInfo) => {
   // Two browsers, a PDF read back and a mail worker on a shared 2-core machine; every step waits on the app.
   test.slow()
   const problems = watchConsole(page)
 
   // A vehicle of its own (fresh VIN and plate, owner unknown), logged by the dispatcher: no demo vehicle is relied on.
-  const desk = await browser.newPage()
-  await signInAs(desk, 'dispatcher')
-  const deskSession = await (await desk.request.get('/api/session')).json()
-  const created = await desk.request.post('/api/vehicles', {
-    headers: { 'x-csrf-token': deskSession.csrfToken },
-    data: towInBody(deskSession.user.id, (b) => {
-      anotherVehicle(b)
-      Object.assign(b.vehicle, { make: 'Dunmore', model: 'Tallis', colour: 'Bronze', ownerName: null })
-    }),
-  })
-  expect(created.status(), await created.text()).toBe(201)
-  const vehicleId = (await created.json()).id as string
-  await desk.close()
+  await apiSignIn(request, 'dispatcher')
+  const { id: vehicleId } = await logFreshVehicle(request, { edit: (b) => Object.assign(b.vehicle, { make: 'Dunmore', model: 'Tallis', colour: 'Bronze', ownerName: null }) })
 
   // The office's board stays open in its own tab from here to the end.
   await signInAs(page, 'office')

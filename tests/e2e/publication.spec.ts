@@ -1,7 +1,6 @@
 import { expect, test } from '@playwright/test'
 import { PDFDocument } from 'pdf-lib'
-import { anotherVehicle, towInBody } from '../helpers/tow-in'
-import { signInAs, watchConsole } from './helpers'
+import { apiSignIn, logFreshVehicle, signInAs, watchConsole } from './helpers'
 
 const dayAfter = (day: string, n: number) => {
   const [y, m, d] = day.split('-').map(Number) as [number, number, number]
@@ -11,17 +10,12 @@ const dayAfter = (day: string, n: number) => {
 // Issue 10/11: a vehicle valued over $4,000 under the demo yard's California sample (Civ. Code § 3071) is
 // advertised in a newspaper before its lien sale. The office records the paper and the day it ran, files
 // the publisher's affidavit, and sets the sale date — an early one refused beside the field, then one the law allows.
-test('the office records the newspaper publication, its affidavit, and a sale date the law allows', async ({ page, browser }) => {
+test('the office records the newspaper publication, its affidavit, and a sale date the law allows', async ({ page, request }) => {
   test.slow()
   const problems = watchConsole(page)
   // A vehicle of its own (fresh VIN and plate), towed in by the dispatcher; no demo vehicle is relied on.
-  const desk = await browser.newPage()
-  await signInAs(desk, 'dispatcher')
-  const deskSession = await (await desk.request.get('/api/session')).json()
-  const created = await desk.request.post('/api/vehicles', { headers: { 'x-csrf-token': deskSession.csrfToken }, data: towInBody(deskSession.user.id, anotherVehicle) })
-  expect(created.status()).toBe(201)
-  const vehicleId = (await created.json()).id as string
-  await desk.close()
+  await apiSignIn(request, 'dispatcher')
+  const { id: vehicleId } = await logFreshVehicle(request)
 
   await signInAs(page, 'office')
   const session = await (await page.request.get('/api/session')).json()

@@ -1,6 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { anotherVehicle, towInBody } from '../helpers/tow-in'
-import { signInAs } from './helpers'
+import { logFreshVehicle, signInAs } from './helpers'
 
 test('a correction wrong on a tab not shown names the field and opens that tab', async ({ page }) => {
   await signInAs(page, 'dispatcher')
@@ -27,9 +26,7 @@ test('a correction saves over an unrelated change made meanwhile, and keeps the 
   await signInAs(page, 'dispatcher')
   const session = await (await page.request.get('/api/session')).json()
   const headers = { 'x-csrf-token': session.csrfToken }
-  const created = await page.request.post('/api/vehicles', { headers, data: towInBody(session.user.id, anotherVehicle) })
-  expect(created.status()).toBe(201)
-  const vehicleId = (await created.json()).id as string
+  const { id: vehicleId } = await logFreshVehicle(page.request)
   const version = async () => (await (await page.request.get(`/api/vehicles/${vehicleId}`)).json()).vehicle.version as number
 
   await page.goto(`/vehicles/${vehicleId}`)

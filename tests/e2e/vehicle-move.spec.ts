@@ -1,6 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { anotherVehicle, towInBody } from '../helpers/tow-in'
-import { signInAs, watchConsole } from './helpers'
+import { logFreshVehicle, signInAs, watchConsole } from './helpers'
 
 // Issue 16 item 10: a vehicle's own page has "Move to…", the board's dialog under the same shared rules:
 // what is not allowed yet says why, and a move made here shows on the page and in its history.
@@ -8,14 +7,7 @@ test('"Move to…" on the vehicle page lists the moves with why not, and a move 
   test.slow()
   const problems = watchConsole(page)
   await signInAs(page, 'manager')
-  const session = await (await page.request.get('/api/session')).json()
-  const created = await page.request.post('/api/vehicles', {
-    headers: { 'x-csrf-token': session.csrfToken },
-    // A vehicle of its own (a fresh VIN and plate): no demo position is touched.
-    data: towInBody(session.user.id, anotherVehicle),
-  })
-  expect(created.status()).toBe(201)
-  const vehicleId = (await created.json()).id as string
+  const { id: vehicleId } = await logFreshVehicle(page.request)
 
   await page.goto(`/vehicles/${vehicleId}`)
   await expect(page.getByTestId('vehicle-state')).toHaveText('Arrival')

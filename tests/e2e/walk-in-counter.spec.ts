@@ -3,11 +3,10 @@ import { readFileSync } from 'node:fs'
 import { devices, expect, test } from '@playwright/test'
 import sharp from 'sharp'
 import { readQrOfPdf } from '../helpers/pdf'
-import { anotherVehicle, towInBody } from '../helpers/tow-in'
 import { WALK_IN_COUNTER_INTERACTIONS, WALK_IN_GOAL_INTERACTIONS, counterTotal } from '../helpers/walk-in'
 import { CounterTally, fakeCameraLaunch, scanAndRecordOut } from './counter'
 import { writeQrVideo } from './fake-camera'
-import { DEMO, signInAs, watchConsole } from './helpers'
+import { apiSignIn, logFreshVehicle, signInAs, watchConsole } from './helpers'
 
 // Issue 11, "Tests and figures": the counter flow from "find the vehicle" to "gate pass printed" in at most
 // ten interactions. The simplest walk-in: the registered owner on record (the dispatcher logged the owner's
@@ -27,18 +26,9 @@ test('a walk-in owner paying cash: found by plate, released on one screen in ten
   const desk = await browser.newContext({ ...devices['Desktop Chrome'], acceptDownloads: true })
   const counter = await desk.newPage()
   const problems = watchConsole(counter)
-  const csrf = ((await (await request.get('/api/session')).json()) as { csrfToken: string }).csrfToken
-  const dispatcher = await request.post('/api/session', { data: { email: DEMO.dispatcher, password: DEMO.password }, headers: { 'x-csrf-token': csrf } })
-  const session = (await dispatcher.json()) as { csrfToken: string; user: { id: string } }
-  const towIn = towInBody(session.user.id, anotherVehicle)
-  const plate = towIn.vehicle.plate!
+  await apiSignIn(request, 'dispatcher')
   const front = await sharp({ create: { width: 320, height: 200, channels: 3, background: '#3e6a8a' } }).jpeg().toBuffer()
-  const created = await request.post('/api/vehicles', {
-    headers: { 'x-csrf-token': session.csrfToken },
-    multipart: { data: JSON.stringify(towIn), photos: { name: 'front.jpg', mimeType: 'image/jpeg', buffer: front } },
-  })
-  expect(created.status(), await created.text()).toBe(201)
-  const { id, stockNumber } = (await created.json()) as { id: string; stockNumber: string }
+  const { id, stockNumber, plate } = await logFreshVehicle(request, { photo: front })
   await signInAs(counter, 'office', '/today')
   const tally = new CounterTally(counter)
 
@@ -131,12 +121,8 @@ test('a walk-in owner paying cash: found by plate, released on one screen in ten
 })
 
 test('releasing with pieces missing names each one beside its field and sends nothing', async ({ page, request }) => {
-  const csrf = ((await (await request.get('/api/session')).json()) as { csrfToken: string }).csrfToken
-  const dispatcher = await request.post('/api/session', { data: { email: DEMO.dispatcher, password: DEMO.password }, headers: { 'x-csrf-token': csrf } })
-  const session = (await dispatcher.json()) as { csrfToken: string; user: { id: string } }
-  const created = await request.post('/api/vehicles', { headers: { 'x-csrf-token': session.csrfToken }, multipart: { data: JSON.stringify(towInBody(session.user.id, anotherVehicle)) } })
-  expect(created.status(), await created.text()).toBe(201)
-  const { id, stockNumber } = (await created.json()) as { id: string; stockNumber: string }
+  await apiSignIn(request, 'dispatcher')
+  const { id, stockNumber } = await logFreshVehicle(request)
   const problems = watchConsole(page)
   await signInAs(page, 'office', `/vehicles/${id}`)
   await page.getByTestId('counter-open').click()

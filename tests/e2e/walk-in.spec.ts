@@ -3,11 +3,10 @@ import { readFileSync } from 'node:fs'
 import { devices, expect, test } from '@playwright/test'
 import sharp from 'sharp'
 import { readQrOfPdf } from '../helpers/pdf'
-import { anotherVehicle, towInBody } from '../helpers/tow-in'
 import { WALK_IN_INTERACTIONS } from '../helpers/walk-in'
 import { CounterTally, fakeCameraLaunch, scanAndRecordOut } from './counter'
 import { writeQrVideo } from './fake-camera'
-import { DEMO, signInAs, watchConsole } from './helpers'
+import { apiSignIn, logFreshVehicle, signInAs, watchConsole } from './helpers'
 
 // Issue 11: "an office clerk can take a walk-in owner from 'I'm here for my car' to the car leaving the gate
 // in a few minutes". The demo yard (California sample: the vehicle owes its tow and a day's storage), a
@@ -28,18 +27,9 @@ test('a walk-in owner: found by plate, part cash and the rest by card, ID, signa
   const board = await desk.newPage()
   const problems = watchConsole(board)
   // The dispatcher logged it with a photo (a clerk does not log tow-ins).
-  const csrf = ((await (await request.get('/api/session')).json()) as { csrfToken: string }).csrfToken
-  const dispatcher = await request.post('/api/session', { data: { email: DEMO.dispatcher, password: DEMO.password }, headers: { 'x-csrf-token': csrf } })
-  const session = (await dispatcher.json()) as { csrfToken: string; user: { id: string } }
-  const towIn = towInBody(session.user.id, anotherVehicle)
-  const plate = towIn.vehicle.plate!
+  await apiSignIn(request, 'dispatcher')
   const front = await sharp({ create: { width: 320, height: 200, channels: 3, background: '#3e6a8a' } }).jpeg().toBuffer()
-  const created = await request.post('/api/vehicles', {
-    headers: { 'x-csrf-token': session.csrfToken },
-    multipart: { data: JSON.stringify(towIn), photos: { name: 'front.jpg', mimeType: 'image/jpeg', buffer: front } },
-  })
-  expect(created.status(), await created.text()).toBe(201)
-  const { id, stockNumber } = (await created.json()) as { id: string; stockNumber: string }
+  const { id, stockNumber, plate } = await logFreshVehicle(request, { photo: front })
   await signInAs(board, 'office')
   await expect(board.getByText(stockNumber)).toBeVisible()
 
