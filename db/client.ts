@@ -1,6 +1,7 @@
 import { existsSync, mkdirSync, readFileSync } from 'node:fs'
 import path from 'node:path'
 import { PGlite } from '@electric-sql/pglite'
+import type { Logger } from 'drizzle-orm'
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core'
 import { drizzle as drizzlePglite } from 'drizzle-orm/pglite'
 import { drizzle as drizzlePg } from 'drizzle-orm/node-postgres'
@@ -32,13 +33,16 @@ export type DatabaseTarget =
   | { kind: 'pglite'; dataDir: string; /** A migrated empty database (dumpDataDir) to start a new directory from. */ template?: string }
   | { kind: 'memory'; loadDataDir?: Blob | File }
 
-const options = { schema, casing: 'snake_case' } as const
-
-/** The server passes `migrationsFolder` from its config (HOLDFAST_MIGRATIONS); db/ never imports server/. */
+/**
+ * The server passes `migrationsFolder` from its config (HOLDFAST_MIGRATIONS); db/ never imports server/.
+ * `logger` hears every statement drizzle sends (the benches count queries per request with it).
+ */
 export async function openDatabase(
   target: DatabaseTarget,
   migrationsFolder = path.resolve(process.cwd(), 'db/migrations'),
+  logger?: Logger,
 ): Promise<DatabaseHandle> {
+  const options = { schema, casing: 'snake_case', logger } as const
   if (target.kind === 'postgres') {
     const pool = new pg.Pool({ connectionString: target.url, max: 10 })
     const db = drizzlePg(pool, options)

@@ -75,29 +75,42 @@ const linked = (key: HistoryKey, row: UnhashedRow, prevHash: string) => ({ ...ro
 export async function appendHistory(tx: Executor, key: HistoryKey, e: NewHistoryEvent, options: { vehicleLocked?: boolean } = {}): Promise<HistoryRow> {
   // A caller that already holds the vehicle row (select … for update) saves a round trip.
   if (!options.vehicleLocked) await tx.execute(sql`select 1 from ${vehicles} where ${vehicles.id} = ${e.vehicleId} for update`)
-  const [last] = await tx
-    .select({ seq: historyEvents.seq, hash: historyEvents.hash })
-    .from(historyEvents)
-    .where(eq(historyEvents.vehicleId, e.vehicleId))
-    .orderBy(desc(historyEvents.seq))
-    .limit(1)
-  const row = linked(key, unhashed(e.vehicleId, (last?.seq ?? 0) + 1, e), last?.hash ?? GENESIS_HASH)
-  const [inserted] = await tx.insert(historyEvents).values(row).returning()
-  const head = { vehicleId: e.vehicleId, seq: row.seq, hash: row.hash, seal: headSeal(key, e.vehicleId, row.seq, row.hash) }
-  await tx.insert(historyHeads).values(head).onConflictDoUpdate({ target: historyHeads.vehicleId, set: { seq: head.seq, hash: head.hash, seal: head.seal } })
-  return inserted!
+  const { vehicleId, ...event } = e
+  return (await appendEvents(tx, key, vehicleId, [event]))[0]!
+}
+
+/**
+ * Appends the events of one change to a vehicle's chain, in order, in three statements whatever their
+ * number: the chain's end read once (not at all for a vehicle created in this transaction, whose
+ * chain starts at the genesis hash), every event in one insert, the head written once. The links and
+ * seals are the ones `appendHistory` makes one event at a time. The caller holds the vehicle row.
+ */
+export async function appendEvents(tx: Executor, key: HistoryKey, vehicleId: string, events: Omit<NewHistoryEvent, 'vehicleId'>[], options: { newVehicle?: boolean } = {}): Promise<HistoryRow[]> {
+  if (events.length === 0) return []
+  const [last] = options.newVehicle
+    ? []
+    : await tx.select({ seq: historyEvents.seq, hash: historyEvents.hash }).from(historyEvents).where(eq(historyEvents.vehicleId, vehicleId)).orderBy(desc(historyEvents.seq)).limit(1)
+  const { rows, head } = chainAfter(key, vehicleId, events, last)
+  const inserted = await tx.insert(historyEvents).values(rows).returning()
+  await tx.insert(historyHeads).values(head!).onConflictDoUpdate({ target: historyHeads.vehicleId, set: { seq: head!.seq, hash: head!.hash, seal: head!.seal } })
+  return inserted
 }
 
 /** A new vehicle's whole chain at once, from the genesis hash, and its sealed head — for bulk loads such as the demo yard. */
 export function chainFromStart(key: HistoryKey, vehicleId: string, events: Omit<NewHistoryEvent, 'vehicleId'>[]) {
-  let prevHash = GENESIS_HASH
+  return chainAfter(key, vehicleId, events)
+}
+
+/** Events linked after the chain's end `last` (none: from the genesis hash), and the head they leave. */
+function chainAfter(key: HistoryKey, vehicleId: string, events: Omit<NewHistoryEvent, 'vehicleId'>[], last?: { seq: number; hash: string }) {
+  let prevHash = last?.hash ?? GENESIS_HASH
   const rows = events.map((e, i) => {
-    const row = linked(key, unhashed(vehicleId, i + 1, e), prevHash)
+    const row = linked(key, unhashed(vehicleId, (last?.seq ?? 0) + i + 1, e), prevHash)
     prevHash = row.hash
     return row
   })
-  const last = rows.at(-1)
-  const head = last ? { vehicleId, seq: last.seq, hash: last.hash, seal: headSeal(key, vehicleId, last.seq, last.hash) } : null
+  const end = rows.at(-1)
+  const head = end ? { vehicleId, seq: end.seq, hash: end.hash, seal: headSeal(key, vehicleId, end.seq, end.hash) } : null
   return { rows, head }
 }
 

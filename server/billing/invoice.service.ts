@@ -1,7 +1,7 @@
 import type { Executor } from '@db/client'
 import { invoiceCharges, settle } from '@shared/domain/billing'
 import { dayFromIsoDate, startOfLocalDay } from '@shared/domain/time'
-import type { Invoice } from '@shared/schemas/billing'
+import type { Invoice, PaymentRecord } from '@shared/schemas/billing'
 import { vehicleBill } from '../charges/index'
 import { unprocessable, said } from '../errors'
 import type { VehicleRow, YardRow } from '../vehicles/index'
@@ -45,4 +45,15 @@ export async function invoiceOf(db: Executor, vehicle: VehicleRow, yard: YardRow
     warnings: billed.bill.warnings,
     lienSale,
   }
+}
+
+/**
+ * The invoice once one more payment or refund is recorded on it: the same charges and adjustments,
+ * settled again with the new movement last (as `paymentsOf` orders them). A payment's answer comes
+ * from the invoice its transaction already read, not from reading the bill a second time.
+ */
+export function withMovement(invoice: Invoice, movement: PaymentRecord): Invoice {
+  const payments = [...invoice.payments, movement]
+  const s = settle(invoice.totalCents, invoice.adjustments, payments)
+  return { ...invoice, payments, creditedCents: s.creditedCents, paidCents: s.paidCents, refundedCents: s.refundedCents, netPaidCents: s.netPaidCents, dueCents: s.dueCents, waived: s.waived }
 }

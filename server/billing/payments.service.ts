@@ -7,7 +7,7 @@ import type { User } from '@shared/schemas/users'
 import { AppError, badRequest, said } from '../errors'
 import { changeVehicle, vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { paymentByKey, paymentRecord, type PaymentRow } from './billing.queries'
-import { invoiceOf } from './invoice.service'
+import { invoiceOf, withMovement } from './invoice.service'
 import { queueReceipt, type ReceiptMail } from './receipt-mail'
 
 const hashOf = (fields: Record<string, unknown>) => createHash('sha256').update(JSON.stringify(fields)).digest('hex')
@@ -33,7 +33,7 @@ export async function takePayment(changes: VehicleChanges, actor: User, vehicleI
   const requestHash = hashOf({ kind: 'payment', method: input.method, amountCents: input.amountCents, tenderedCents: input.tenderedCents, checkNumber: input.checkNumber, terminalReference: input.terminalReference })
   const { result, changed } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, now, record }) => {
     const existing = await paymentByKey(tx, vehicleId, input.idempotencyKey)
-    if (existing) return { payment: replay(existing, requestHash, actor.name), replayed: true }
+    if (existing) return { payment: replay(existing, requestHash, actor.name), replayed: true, invoice: undefined }
     if (vehicle.state === 'closed') throw refusal(409, 'vehicleId', 'This vehicle has left the yard: its bill is closed and takes no more payments.', said('closedPayments'))
     const before = await invoiceOf(tx, vehicle, yard, now)
     if (before.dueCents <= 0) throw refusal(400, 'amountCents', 'Nothing is due on this vehicle.', said('nothingDue'))
@@ -78,11 +78,10 @@ export async function takePayment(changes: VehicleChanges, actor: User, vehicleI
       },
     })
     await queueReceipt(tx, { actor, vehicle, yard, payment, to: input.receiptEmail, language: input.receiptLanguage, dueAfterCents: before.dueCents - payment.amountCents })
-    return { payment, replayed: false }
+    return { payment, replayed: false, invoice: withMovement(before, payment) }
   })
   if (changed && result.payment.receiptEmail) mail.kick?.()
-  const { vehicle, yard } = await vehicleOf(changes, actor, vehicleId)
-  return { ...result, invoice: await invoiceOf(changes.db, vehicle, yard) }
+  return answer(changes, actor, vehicleId, result)
 }
 
 /** Money given back by a manager, with the reason; never more than was paid and not yet refunded. */
@@ -90,7 +89,7 @@ export async function refund(changes: VehicleChanges, actor: User, vehicleId: st
   const requestHash = hashOf({ kind: 'refund', method: input.method, amountCents: input.amountCents, reason: input.reason })
   const { result } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
     const existing = await paymentByKey(tx, vehicleId, input.idempotencyKey)
-    if (existing) return { payment: replay(existing, requestHash, actor.name), replayed: true }
+    if (existing) return { payment: replay(existing, requestHash, actor.name), replayed: true, invoice: undefined }
     const before = await invoiceOf(tx, vehicle, yard)
     if (input.amountCents > before.netPaidCents) {
       throw badRequest(`A refund cannot be more than was paid: ${formatCents(before.netPaidCents)} was paid and not yet refunded.`, [
@@ -121,10 +120,15 @@ export async function refund(changes: VehicleChanges, actor: User, vehicleId: st
       reason: input.reason,
       after: { paymentId: payment.id, method: payment.method, amountCents: payment.amountCents, ...Object.fromEntries(Object.entries(specific).filter(([, v]) => v !== null)) },
     })
-    return { payment, replayed: false }
+    return { payment, replayed: false, invoice: withMovement(before, payment) }
   })
-  const { vehicle, yard } = await vehicleOf(changes, actor, vehicleId)
-  return { ...result, invoice: await invoiceOf(changes.db, vehicle, yard) }
+  return answer(changes, actor, vehicleId, result)
 }
 
-const vehicleOf = (changes: VehicleChanges, actor: User, vehicleId: string) => vehicleForUser(changes.db, actor.id, vehicleId)
+/** The answer: the invoice the change worked out, or — for a replayed key, which read none — the bill as it is now. */
+async function answer(changes: VehicleChanges, actor: User, vehicleId: string, result: { payment: PaymentAnswer['payment']; replayed: boolean; invoice: PaymentAnswer['invoice'] | undefined }): Promise<PaymentAnswer> {
+  const { payment, replayed } = result
+  if (result.invoice) return { payment, replayed, invoice: result.invoice }
+  const { vehicle, yard } = await vehicleForUser(changes.db, actor.id, vehicleId)
+  return { payment, replayed, invoice: await invoiceOf(changes.db, vehicle, yard) }
+}

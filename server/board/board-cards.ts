@@ -3,12 +3,12 @@ import { pickupBadge } from '@shared/domain/inspection'
 import type { HoldFact } from '@shared/domain/lifecycle'
 import type { BoardCard } from '@shared/schemas/board'
 import type { VehicleSummary } from '@shared/schemas/charges'
-import { moneyTotals, type MoneyTotals } from '../billing/index'
+import type { MoneyTotals } from '../billing/index'
 import { summarizeVehicles, type YardForCharges } from '../charges/index'
 import { notFound } from '../errors'
 import { yardOfUser } from '../yards/index'
 import { activeHolds, activeInYard, cardRows, oneInYard, type CardRow, type HoldRow } from './board.queries'
-import { releaseFacts } from './handover.queries'
+import { handoverFacts } from './handover.queries'
 
 export interface BoardYard extends YardForCharges {
   id: string
@@ -45,8 +45,6 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
   if (rows.length === 0) return []
   const holdRows = await activeHolds(db, yard.id, ids)
   const summaries = await summarizeVehicles(db, yard, rows, asOf)
-  const money = await moneyTotals(db, rows.map((r) => r.id))
-  const released = await releaseFacts(db, rows.map((r) => r.id))
   const holdsByVehicle = new Map<string, BoardCard['holds']>()
   for (const h of holdRows) {
     const list = holdsByVehicle.get(h.vehicleId) ?? []
@@ -72,7 +70,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
     rolls: r.rolls,
     inspectedAt: r.inspectedAt?.toISOString() ?? null,
     holds: holdsByVehicle.get(r.id) ?? [],
-    handover: { ...NOTHING_RECORDED, ...handoverMoney(money.get(r.id), summaries.get(r.id)?.balanceCents ?? null), ...released.get(r.id) },
+    handover: { ...NOTHING_RECORDED, ...handoverMoney({ paidCents: Number(r.paidCents), creditedCents: Number(r.creditedCents) }, summaries.get(r.id)?.balanceCents ?? null), ...handoverFacts(r) },
     photoCount: Number(r.photoCount),
     pickup: pickupBadge(r),
     summary: cardSummary(summaries.get(r.id)),

@@ -1,7 +1,8 @@
 import { and, asc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm'
 import type { Executor } from '@db/client'
-import { files, holds, tows, vehicles, yardSpaces } from '@db/schema'
+import { chargeAdjustments, files, holds, payments, releases, titleTransfers, tows, vehicles, yardSpaces } from '@db/schema'
 import { BOARD_COLUMNS } from '@shared/domain/lifecycle'
+import { handoverColumns } from './handover.queries'
 
 
 /** The columns behind shared/schemas/board.ts vehicleIdentityShape. */
@@ -18,7 +19,10 @@ export const identityColumns = {
 
 /**
  * Everything a board card shows of the vehicles matching `where`, in no particular order (the
- * board sorts each column). Photos are counted in one grouped pass rather than once per vehicle.
+ * board sorts each column). Photos are counted in one grouped pass rather than once per vehicle;
+ * the money paid and credited and the release's and transfer's facts come in the same statement,
+ * so a card after a change costs one round trip for all of them (the embedded database answers one
+ * query at a time).
  */
 export function cardRows(db: Executor, where: SQL | undefined) {
   const photos = db
@@ -51,11 +55,17 @@ export function cardRows(db: Executor, where: SQL | undefined) {
       spaceRow: yardSpaces.row,
       spaceNumber: yardSpaces.number,
       photoCount: sql<number>`coalesce(${photos.n}, 0)`,
+      // Payments less refunds, and approved waivers and discounts (as moneyTotals counts them).
+      paidCents: sql<number>`(select coalesce(sum(case when ${payments.kind} = 'payment' then ${payments.amountCents} else -${payments.amountCents} end), 0)::int from ${payments} where ${payments.vehicleId} = ${vehicles.id})`,
+      creditedCents: sql<number>`(select coalesce(sum(${chargeAdjustments.amountCents}), 0)::int from ${chargeAdjustments} where ${chargeAdjustments.vehicleId} = ${vehicles.id} and ${chargeAdjustments.status} = 'approved')`,
+      ...handoverColumns,
     })
     .from(vehicles)
     .leftJoin(tows, eq(tows.vehicleId, vehicles.id))
     .leftJoin(yardSpaces, eq(yardSpaces.id, vehicles.spaceId))
     .leftJoin(photos, eq(photos.vehicleId, vehicles.id))
+    .leftJoin(releases, eq(releases.vehicleId, vehicles.id))
+    .leftJoin(titleTransfers, eq(titleTransfers.vehicleId, vehicles.id))
     .where(where)
 }
 export type CardRow = Awaited<ReturnType<typeof cardRows>>[number]

@@ -1,6 +1,6 @@
-import { inArray } from 'drizzle-orm'
+import { eq, inArray } from 'drizzle-orm'
 import type { Executor } from '@db/client'
-import { releases, titleTransfers } from '@db/schema'
+import { releases, titleTransfers, vehicles } from '@db/schema'
 import type { BoardCard } from '@shared/schemas/board'
 
 export type ReleaseFacts = Partial<Pick<BoardCard['handover'], 'claimantIdRecorded' | 'releaseSigned' | 'transferSigned' | 'lienSaleSigned'>>
@@ -14,19 +14,36 @@ export type ReleaseFacts = Partial<Pick<BoardCard['handover'], 'claimantIdRecord
 export async function releaseFacts(db: Executor, vehicleIds: string[]): Promise<Map<string, ReleaseFacts>> {
   if (vehicleIds.length === 0) return new Map()
   const rows = await db
-    .select({ vehicleId: releases.vehicleId, claimantKind: releases.claimantKind, idNumber: releases.idNumber, idPhoto: releases.idPhotoFileId, signedAt: releases.signedAt })
-    .from(releases)
-    .where(inArray(releases.vehicleId, vehicleIds))
-  const facts = new Map<string, ReleaseFacts>(
-    rows.map((r) => [r.vehicleId, { claimantIdRecorded: r.claimantKind !== null && r.idNumber !== null && r.idPhoto !== null, releaseSigned: r.signedAt !== null }]),
-  )
-  const transfers = await db
-    .select({ vehicleId: titleTransfers.vehicleId, kind: titleTransfers.kind, signedAt: titleTransfers.signedAt })
-    .from(titleTransfers)
-    .where(inArray(titleTransfers.vehicleId, vehicleIds))
-  for (const t of transfers) {
-    const signed = t.signedAt !== null
-    facts.set(t.vehicleId, { ...facts.get(t.vehicleId), transferSigned: signed && t.kind === 'signed_over', lienSaleSigned: signed && t.kind === 'lien_sale' })
+    .select({ vehicleId: vehicles.id, ...handoverColumns })
+    .from(vehicles)
+    .leftJoin(releases, eq(releases.vehicleId, vehicles.id))
+    .leftJoin(titleTransfers, eq(titleTransfers.vehicleId, vehicles.id))
+    .where(inArray(vehicles.id, vehicleIds))
+  return new Map(rows.map((r) => [r.vehicleId, handoverFacts(r)]))
+}
+
+/**
+ * The release's and the transfer's columns behind the handover facts, for a query that left-joins
+ * `releases` and `title_transfers` on the vehicle (each has at most one row per vehicle).
+ */
+export const handoverColumns = {
+  claimantKind: releases.claimantKind,
+  idNumber: releases.idNumber,
+  idPhoto: releases.idPhotoFileId,
+  releaseSignedAt: releases.signedAt,
+  transferKind: titleTransfers.kind,
+  transferSignedAt: titleTransfers.signedAt,
+}
+
+type HandoverRow = { claimantKind: string | null; idNumber: string | null; idPhoto: string | null; releaseSignedAt: Date | null; transferKind: string | null; transferSignedAt: Date | null }
+
+/** The handover facts of one row read with `handoverColumns`. */
+export function handoverFacts(r: HandoverRow): Required<ReleaseFacts> {
+  const transferSigned = r.transferSignedAt !== null
+  return {
+    claimantIdRecorded: r.claimantKind !== null && r.idNumber !== null && r.idPhoto !== null,
+    releaseSigned: r.releaseSignedAt !== null,
+    transferSigned: transferSigned && r.transferKind === 'signed_over',
+    lienSaleSigned: transferSigned && r.transferKind === 'lien_sale',
   }
-  return facts
 }

@@ -1,4 +1,4 @@
-import { and, desc, eq, isNull, or } from 'drizzle-orm'
+import { desc, eq, inArray, isNull, or } from 'drizzle-orm'
 import type { Executor } from '@db/client'
 import { ruleSets, ruleSetVersions } from '@db/schema'
 import { ruleSetSchema, type RuleSet } from '@shared/schemas/rule-sets'
@@ -26,18 +26,13 @@ export interface RuleSetVersion {
 /** The rule sets a company may use: the shipped samples and its own, each at its latest version. */
 export async function latestRuleSets(db: Executor, companyId: string): Promise<RuleSetVersion[]> {
   const rows = await db
-    .selectDistinctOn([ruleSets.id], {
-      versionId: ruleSetVersions.id,
-      version: ruleSetVersions.version,
-      ruleSetId: ruleSets.id,
-      slug: ruleSets.slug,
-      body: ruleSetVersions.body,
-    })
+    .selectDistinctOn([ruleSets.id], { versionId: ruleSetVersions.id, version: ruleSetVersions.version, ruleSetId: ruleSets.id, slug: ruleSets.slug })
     .from(ruleSets)
     .innerJoin(ruleSetVersions, eq(ruleSetVersions.ruleSetId, ruleSets.id))
     .where(or(isNull(ruleSets.companyId), eq(ruleSets.companyId, companyId)))
     .orderBy(ruleSets.id, desc(ruleSetVersions.version))
-  return rows.map((r) => ({ ...r, ruleSet: parse(r.versionId, r.body) })).sort((a, b) => a.ruleSet.name.localeCompare(b.ruleSet.name))
+  const bodies = await versionsById(db, rows.map((r) => r.versionId))
+  return rows.flatMap((r) => withBody(r, bodies)).sort((a, b) => a.ruleSet.name.localeCompare(b.ruleSet.name))
 }
 
 export async function latestRuleSetBySlug(db: Executor, companyId: string, slug: string): Promise<RuleSetVersion | undefined> {
@@ -46,13 +41,20 @@ export async function latestRuleSetBySlug(db: Executor, companyId: string, slug:
 
 export async function latestVersionOf(db: Executor, ruleSetId: string): Promise<RuleSetVersion | undefined> {
   const [row] = await db
-    .select({ versionId: ruleSetVersions.id, version: ruleSetVersions.version, ruleSetId: ruleSets.id, slug: ruleSets.slug, body: ruleSetVersions.body })
+    .select({ versionId: ruleSetVersions.id, version: ruleSetVersions.version, ruleSetId: ruleSets.id, slug: ruleSets.slug })
     .from(ruleSetVersions)
     .innerJoin(ruleSets, eq(ruleSets.id, ruleSetVersions.ruleSetId))
     .where(eq(ruleSets.id, ruleSetId))
     .orderBy(desc(ruleSetVersions.version))
     .limit(1)
-  return row && { ...row, ruleSet: parse(row.versionId, row.body) }
+  return row && withBody(row, await versionsById(db, [row.versionId]))[0]
+}
+
+// The latest versions are found without their bodies (a rule set's JSON is large and a version never
+// changes): only a version this process has not parsed yet is read whole, by versionsById.
+const withBody = (row: Omit<RuleSetVersion, 'ruleSet'>, bodies: Map<string, RuleSet>): RuleSetVersion[] => {
+  const ruleSet = bodies.get(row.versionId)
+  return ruleSet ? [{ ...row, ruleSet }] : []
 }
 
 /** Parsed bodies of the given versions (the ones vehicles arrived under). */
@@ -63,9 +65,8 @@ export async function versionsById(db: Executor, ids: string[]): Promise<Map<str
     if (known) found.set(id, known)
     return !known
   })
-  for (const id of new Set(missing)) {
-    const [row] = await db.select({ body: ruleSetVersions.body }).from(ruleSetVersions).where(and(eq(ruleSetVersions.id, id)))
-    if (row) found.set(id, parse(id, row.body))
-  }
+  if (missing.length === 0) return found
+  const rows = await db.select({ id: ruleSetVersions.id, body: ruleSetVersions.body }).from(ruleSetVersions).where(inArray(ruleSetVersions.id, [...new Set(missing)]))
+  for (const row of rows) found.set(row.id, parse(row.id, row.body))
   return found
 }

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
 import type { Database, Tx } from '@db/client'
-import { appendHistory, type HistoryKey, type NewHistoryEvent } from '@db/history'
+import { appendEvents, type HistoryKey, type NewHistoryEvent } from '@db/history'
 import { vehicles } from '@db/schema'
 import type { BoardCard } from '@shared/schemas/board'
 import type { HistoryKind } from '@shared/schemas/history'
@@ -132,7 +132,7 @@ async function change<T>(
     }
     // The row is locked, so the version read above is still the row's.
     await tx.update(vehicles).set({ ...columns, version: vehicle.version + 1, updatedAt: now }).where(eq(vehicles.id, vehicleId))
-    await appendAll(tx, changes.historyKey, vehicleId, who, events, now)
+    await appendAll(tx, changes.historyKey, vehicleId, who, events, now, false)
     return { result, yard, version: vehicle.version + 1, cause: events[0]!.kind }
   })
   if (!done.cause) return { result: done.result, version: done.version, changed: false }
@@ -157,16 +157,16 @@ export async function createVehicle<T>(
     const { events, record } = collector()
     const result = await work({ tx, vehicleId, actor, now, record })
     if (events.length === 0) throw new Error('A new vehicle starts its history with how it came in.')
-    await appendAll(tx, changes.historyKey, vehicleId, { id: actor.id, label: actor.name }, events, now)
+    await appendAll(tx, changes.historyKey, vehicleId, { id: actor.id, label: actor.name }, events, now, true)
     return { result, cause: events[0]!.kind }
   })
   await tellBoards(changes, { yard, vehicleId, cause: done.cause })
   return done.result
 }
 
-// The vehicle row is held (locked, or new and seen by no other transaction): no second lock per event.
-async function appendAll(tx: Tx, key: HistoryKey, vehicleId: string, who: Who, events: HistoryEntry[], now: Date) {
-  for (const e of events) await appendHistory(tx, key, { ...e, at: e.at ?? now, vehicleId, actorId: who.id, actorLabel: who.label }, { vehicleLocked: true })
+// The vehicle row is held (locked, or new and seen by no other transaction): no second lock, and the change's events go in together.
+async function appendAll(tx: Tx, key: HistoryKey, vehicleId: string, who: Who, events: HistoryEntry[], now: Date, newVehicle: boolean) {
+  await appendEvents(tx, key, vehicleId, events.map((e) => ({ ...e, at: e.at ?? now, actorId: who.id, actorLabel: who.label })), { newVehicle })
 }
 
 async function tellBoards(
