@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express'
 import { match } from 'path-to-regexp'
 import { can, type Permission } from '@shared/domain/access'
-import { badRequest, forbidden, unauthorized } from './errors'
+import { badRequest, fieldIssue, forbidden, unauthorized } from './errors'
 
 type Rule = 'public' | 'staff' | Permission
 
@@ -220,7 +220,7 @@ export const enforceAccess: RequestHandler = (req, _res, next) => {
     rule = ruleFor(req.method, req.baseUrl + req.path)
   } catch (err) {
     // path-to-regexp decodes each parameter: a broken %-escape cannot name anything.
-    if (err instanceof URIError) return next(badRequest('That address has a broken %-escape.', [{ path: 'url', message: 'That address has a broken %-escape.' }]))
+    if (err instanceof URIError) return next(badRequest('That address has a broken %-escape.', [fieldIssue('url', 'common.brokenEscape', 'That address has a broken %-escape.')]))
     throw err
   }
   if (rule === 'public') return next()

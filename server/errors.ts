@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
 import { DomainError } from '@shared/domain/errors'
+import type { Reason } from '@shared/domain/lifecycle'
 import type english from '@shared/messages/en/refusals.json'
 import { type FieldCode, type FieldParams, withFieldWords } from '@shared/schemas/field-messages'
 import { redactUrl } from './logging'
@@ -15,6 +16,12 @@ export interface Issue {
 
 /** A field the server itself refuses (not the schema): its English beside its code, as `said()` is for a refusal. */
 export const fieldIssue = (path: string, code: FieldCode, message: string, params?: FieldParams): Issue => ({ path, message, code, ...(params ? { params } : {}) })
+
+/**
+ * The field at fault of a coded refusal, its message the refusal's own English: the client words it as the
+ * refusal (a computation's DomainError, whose code names its words under `refusals`).
+ */
+export const refusalIssue = (path: string, message: string): Issue => ({ path, message })
 
 /** An error with a status and a message meant for the person using the app. */
 export class AppError extends Error {
@@ -36,6 +43,15 @@ export type RefusalCode = Exclude<keyof (typeof english)['refusals'], 'reasons'>
  */
 export const said = (code: RefusalCode, params?: Record<string, string | number>, extra: Record<string, unknown> = {}) => ({ code, ...(params ? { params } : {}), ...extra })
 
+/**
+ * A lifecycle verdict's reasons as one refusal's parameters (`said('notYetReasons', reasonParams(reasons))`):
+ * `reasons` lists their keys (words `refusals.reasons.<key>`), each reason's own parameters prefixed by its place.
+ */
+export const reasonParams = (reasons: readonly Reason[]) => ({
+  reasons: reasons.map((r) => r.key ?? r.code).join(','),
+  ...Object.fromEntries(reasons.flatMap((r, i) => Object.entries(r.params ?? {}).map(([k, v]) => [`${i}.${k}`, v]))),
+})
+
 export const badRequest = (message: string, issues?: Issue[]) => new AppError(400, message, issues ? { issues } : {})
 export const unauthorized = () => new AppError(401, 'You are signed out: your session has ended. Sign in again to go on.', said('signedOut'))
 export const forbidden = (message = 'Your role may not do this.', code: RefusalCode = 'forbidden') => new AppError(403, message, said(code))
@@ -56,7 +72,7 @@ export function summaryOf(issues: Issue[]): string {
 }
 
 export const notFoundHandler: RequestHandler = (req, res) => {
-  res.status(404).json({ error: `No such route: ${req.method} ${req.path}` })
+  res.status(404).json({ error: `No such route: ${req.method} ${req.path}`, ...said('noSuchRoute', { method: req.method, path: req.path }) })
 }
 
 // PostgreSQL: 22021 character_not_in_repertoire (a NUL in text), 22P05 untranslatable_character (\u0000 in jsonb).
@@ -74,9 +90,11 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
       res.status(400).json({ error: summaryOf(issues), issues })
       return
     }
-    // A computation refused its input: the person gets the core's own words, pointed at the field.
+    // A computation refused its input: the person gets the core's own words, pointed at the field; its code
+    // (a DomainErrorCode, the type keeps each in the English catalog) names its words under `refusals`.
     if (err instanceof DomainError) {
-      res.status(400).json({ error: err.message, code: err.code, issues: [{ path: err.field ?? '(body)', message: err.message }] })
+      const code: RefusalCode = err.code
+      res.status(400).json({ error: err.message, ...said(code), issues: [refusalIssue(err.field ?? '(body)', err.message)] })
       return
     }
     if (err instanceof AppError) {
@@ -85,13 +103,13 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
     }
     // The database's own refusal of text it cannot store (a NUL character that came another way).
     if (UNSTORABLE_TEXT.has(err?.cause?.code ?? err?.code)) {
-      res.status(400).json({ error: 'Some text contains a character that cannot be stored (NUL). Remove it and try again.' })
+      res.status(400).json({ error: 'Some text contains a character that cannot be stored (NUL). Remove it and try again.', ...said('unstorableText') })
       return
     }
     // A body that is not a JSON object or array (a bare number, `null`, broken JSON): the body is the field.
     if (err?.type === 'entity.parse.failed') {
       const message = 'The request body must be a JSON object.'
-      res.status(400).json({ error: message, issues: [{ path: '(body)', message }] })
+      res.status(400).json({ error: message, issues: [fieldIssue('(body)', 'common.bodyNotJson', message)] })
       return
     }
     // body-parser and multer errors carry a status and a safe message.
@@ -101,6 +119,6 @@ export function errorHandler(log: Logger): ErrorRequestHandler {
       return
     }
     log.error({ err, method: req.method, url: redactUrl(req.originalUrl) }, 'request failed')
-    res.status(500).json({ error: 'Something went wrong on the server. The error was logged.' })
+    res.status(500).json({ error: 'Something went wrong on the server. The error was logged.', ...said('serverError') })
   }
 }

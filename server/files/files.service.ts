@@ -3,7 +3,7 @@ import { count, eq } from 'drizzle-orm'
 import { files } from '@db/schema'
 import { MAX_FILES_PER_VEHICLE, type FileKind } from '@shared/schemas/files'
 import type { User } from '@shared/schemas/users'
-import { unprocessable, said } from '../errors'
+import { fieldIssue, unprocessable, said } from '../errors'
 import { changeVehicle, vehicleForUser, type ChangeScope, type VehicleChanges } from '../vehicles/index'
 import type { FileStore } from './file-store'
 import { prepareUploads, type Incoming, type PreparedFile } from './prepare'
@@ -67,7 +67,7 @@ export async function recordFiles({ tx, vehicleId, actor, now, record }: Omit<Ch
 
 /** Adds photos or papers to a vehicle's record: all of them, or none with the reason. */
 export async function addFiles(changes: VehicleChanges, store: FileStore, actor: User, vehicleId: string, incoming: Incoming[], kind: FileKind, label: string | null) {
-  if (incoming.length === 0) throw unprocessable('Choose at least one file to add.', said('chooseFile', undefined, { issues: [{ path: 'files', message: 'Choose at least one file to add.' }] }))
+  if (incoming.length === 0) throw unprocessable('Choose at least one file to add.', said('chooseFile', undefined, { issues: [fieldIssue('files', 'files.chooseAtLeastOne', 'Choose at least one file to add.')] }))
   const { db } = changes
   await vehicleForUser(db, actor.id, vehicleId)
   const [have] = await db.select({ n: count() }).from(files).where(eq(files.vehicleId, vehicleId))

@@ -1,11 +1,21 @@
 import { createRequire } from 'node:module'
 import { Worker } from 'node:worker_threads'
+import type { FieldParams } from '@shared/schemas/field-messages'
 import { MAX_PDF_OBJECTS, MAX_PDF_PAGES } from '@shared/schemas/files'
+import type { FileRefusal } from './refusal'
 
 export class UnreadablePdfError extends Error {}
 
-/** A PDF refused for what opening it would cost, with the words for the person who sent it. */
-export class CostlyPdfError extends Error {}
+/** A PDF refused for what opening it would cost, with the words for the person who sent it (and their code). */
+export class CostlyPdfError extends Error {
+  constructor(
+    readonly code: FileRefusal['code'],
+    message: string,
+    readonly params?: FieldParams,
+  ) {
+    super(message)
+  }
+}
 
 /** How long one PDF may take to open and re-save, and the heap its worker may use. */
 export const PDF_LIMITS = { seconds: 10, heapMb: 192 }
@@ -94,14 +104,16 @@ export async function cleanPdf(input: Buffer): Promise<Buffer> {
   const outcome = await oneAtATime(() => inWorker(input))
   if (outcome.ok) return Buffer.from(outcome.data.buffer, outcome.data.byteOffset, outcome.data.byteLength)
   switch (outcome.reason) {
-    case 'objects':
-      throw new CostlyPdfError(`The PDF has more than ${MAX_PDF_OBJECTS.toLocaleString('en-US')} parts; a scan or form this complex cannot be accepted. Print it to a new PDF, or photograph the pages.`)
+    case 'objects': {
+      const max = MAX_PDF_OBJECTS.toLocaleString('en-US')
+      throw new CostlyPdfError('files.pdfParts', `The PDF has more than ${max} parts; a scan or form this complex cannot be accepted. Print it to a new PDF, or photograph the pages.`, { max })
+    }
     case 'pages':
-      throw new CostlyPdfError(`The PDF has ${outcome.pages} pages; at most ${MAX_PDF_PAGES} are accepted. Split it into parts.`)
+      throw new CostlyPdfError('files.pdfPages', `The PDF has ${outcome.pages} pages; at most ${MAX_PDF_PAGES} are accepted. Split it into parts.`, { pages: outcome.pages, max: MAX_PDF_PAGES })
     case 'time':
-      throw new CostlyPdfError(`The PDF took more than ${PDF_LIMITS.seconds} s to open. Print it to a new PDF, or photograph the pages.`)
+      throw new CostlyPdfError('files.pdfSlow', `The PDF took more than ${PDF_LIMITS.seconds} s to open. Print it to a new PDF, or photograph the pages.`, { seconds: PDF_LIMITS.seconds })
     case 'memory':
-      throw new CostlyPdfError('The PDF needs too much memory to open. Print it to a new PDF, or photograph the pages.')
+      throw new CostlyPdfError('files.pdfMemory', 'The PDF needs too much memory to open. Print it to a new PDF, or photograph the pages.')
     default:
       throw new UnreadablePdfError('unreadable')
   }

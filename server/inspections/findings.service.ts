@@ -5,7 +5,7 @@ import { MAX_FILES_PER_VEHICLE } from '@shared/schemas/files'
 import type { itemFindingSchema } from '@shared/schemas/inspections'
 import type { User } from '@shared/schemas/users'
 import type { z } from 'zod'
-import { unprocessable, said } from '../errors'
+import { fieldIssue, unprocessable, said } from '../errors'
 import { type FileStore, type Incoming, prepareUploads, putFiles, recordFiles } from '../files/index'
 import { vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { changeInspection, inspectionFor } from './inspection-change'
@@ -39,7 +39,7 @@ export async function setFinding(changes: VehicleChanges, actor: User, vehicleId
  * metadata, hashed into the history); the link row says which item they show. All or none.
  */
 export async function addItemPhotos(changes: VehicleChanges, store: FileStore, actor: User, vehicleId: string, itemCode: string, incoming: Incoming[]) {
-  if (incoming.length === 0) throw unprocessable('Take or choose a photo first.', said('takePhoto', undefined, { issues: [{ path: 'files', message: 'Take or choose a photo first.' }] }))
+  if (incoming.length === 0) throw unprocessable('Take or choose a photo first.', said('takePhoto', undefined, { issues: [fieldIssue('files', 'inspections.takePhotoFirst', 'Take or choose a photo first.')] }))
   const { db } = changes
   // Refuse before decoding a dozen photos for an inspection that cannot take them (checked again under the lock).
   await inspectionFor(db, (await vehicleForUser(db, actor.id, vehicleId)).vehicle, 'open')

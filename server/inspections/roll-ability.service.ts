@@ -23,7 +23,7 @@ export async function markRollAbility(changes: VehicleChanges, actor: User, vehi
     const lugTorqueFtLbf = wheelRefitted ? (marks.lugTorqueFtLbf ?? inspection.lugTorqueFtLbf) : null
     if (wheelRefitted && lugTorqueFtLbf === null) {
       const message = "Enter the maker's lug-nut torque the refitted wheel was tightened to."
-      throw badRequest(message, [{ path: 'lugTorqueFtLbf', message }])
+      throw badRequest(message, [fieldIssue('lugTorqueFtLbf', 'inspections.enterRefittedTorque', message)])
     }
     const before = { rolls: vehicle.rolls, steers: vehicle.steers, brakes: vehicle.brakes, keys: vehicle.keys, wheelRefitted: inspection.wheelRefitted, lugTorqueFtLbf: inspection.lugTorqueFtLbf }
     const after = {

@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express'
-import { badRequest, summaryOf, type Issue } from '../errors'
+import { badRequest, fieldIssue, summaryOf, type Issue } from '../errors'
 
 const MESSAGE = 'Contains a NUL character (\\u0000), which cannot be stored. Remove it and try again.'
 const MAX_DEPTH = 20
@@ -7,7 +7,7 @@ const MAX_DEPTH = 20
 function findNul(value: unknown, path: string[], found: Issue[], depth = 0): void {
   if (found.length > 0 || depth > MAX_DEPTH) return
   if (typeof value === 'string') {
-    if (value.includes('\u0000')) found.push({ path: path.join('.') || '(body)', message: MESSAGE })
+    if (value.includes('\u0000')) found.push(fieldIssue(path.join('.') || '(body)', 'common.nulCharacter', MESSAGE))
   } else if (Array.isArray(value)) {
     value.forEach((v, i) => findNul(v, [...path, String(i)], found, depth + 1))
   } else if (value && typeof value === 'object') {

@@ -2,7 +2,7 @@ import { stepWords } from '@shared/messages/rule-words'
 import type { Database } from '@db/client'
 import { dayFromIsoDate, isoDate, localDay, startOfLocalDay } from '@shared/domain/time'
 import type { OwnerDeadline, OwnerPage, OwnerQuote } from '@shared/schemas/owner'
-import { badRequest } from '../errors'
+import { AppError, badRequest, fieldIssue, said } from '../errors'
 import { summarizeVehicles } from '../charges/index'
 import { filesOf } from '../files/index'
 import { vehicleClocks } from '../clock-events/index'
@@ -96,10 +96,10 @@ export async function ownerQuote(db: Database, vehicleId: string, date: string, 
   const { vehicle, yard } = await vehicleById(db, vehicleId)
   const today = localDay(yard.timeZone, now.getTime())
   const day = dayFromIsoDate(date)
-  if (day < today) throw badRequest('Choose today or a later date.', [{ path: 'date', message: 'Choose today or a later date.' }])
-  if (day > today + QUOTE_DAYS_AHEAD) throw badRequest('Choose a date within a year.', [{ path: 'date', message: 'Choose a date within a year.' }])
+  if (day < today) throw badRequest('Choose today or a later date.', [fieldIssue('date', 'owner.chooseTodayOrLater', 'Choose today or a later date.')])
+  if (day > today + QUOTE_DAYS_AHEAD) throw badRequest('Choose a date within a year.', [fieldIssue('date', 'owner.chooseWithinYear', 'Choose a date within a year.')])
   const quote = await quoteAt(db, vehicle, yard, new Date(startOfLocalDay(yard.timeZone, day + 1) - 1), date, true)
-  if (!quote) throw badRequest('The yard cannot work out this bill here; please call them.')
+  if (!quote) throw new AppError(400, 'The yard cannot work out this bill here; please call them.', said('quoteUnavailable'))
   return quote
 }
 

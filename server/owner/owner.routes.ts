@@ -1,6 +1,6 @@
 import { Router, type Request, type Response } from 'express'
 import { ownerDecisionInputSchema, ownerFileParamsSchema, ownerKeyParamsSchema, ownerQuoteQuerySchema } from '@shared/schemas/owner'
-import { AppError, notFound } from '../errors'
+import { AppError, notFound, said } from '../errors'
 import { sendVehicleFile, type FileStore } from '../files/index'
 import type { MapConfig } from '../map/index'
 import { startOwnerCheckout, type CardPaymentDeps } from '../card-payments/index'
@@ -23,8 +23,8 @@ export interface OwnerRouterDeps {
 }
 
 const GONE = {
-  expired: 'This link has expired. Ask the yard for a new one.',
-  revoked: 'The yard has withdrawn this link. Ask them for a new one.',
+  expired: () => new AppError(410, 'This link has expired. Ask the yard for a new one.', said('ownerLinkExpired')),
+  revoked: () => new AppError(410, 'The yard has withdrawn this link. Ask them for a new one.', said('ownerLinkWithdrawn')),
 }
 
 /**
@@ -46,7 +46,7 @@ export function ownerRouter({ changes, files, map, throttle, cardPayments }: Own
     if (link && status === 'active') return { link, key }
     await throttle.count('owner-key', ip)
     if (!link || status === 'active') throw notFound('That link')
-    throw new AppError(410, GONE[status!])
+    throw GONE[status!]()
   }
 
   // An owner page's answers are for one person: never kept by a shared cache.

@@ -5,7 +5,7 @@ import { needsPoliceNotice, policeNoticeClock, type PoliceNotification } from '@
 import type { PoliceNoticeReply, policeNoticeInputSchema } from '@shared/schemas/police-notices'
 import type { User } from '@shared/schemas/users'
 import { ruleSetsOf } from '../charges/index'
-import { badRequest, conflict, unprocessable, said } from '../errors'
+import { badRequest, conflict, fieldIssue, unprocessable, said } from '../errors'
 import { changeVehicle, type VehicleChanges } from '../vehicles/index'
 
 type Input = z.output<typeof policeNoticeInputSchema>
@@ -26,8 +26,9 @@ export async function recordPoliceNotice(changes: VehicleChanges, actor: User, v
     const towTimes = [tow.calledAt, tow.hookedAt, tow.arrivedAt].filter((t): t is Date => t !== null)
     const earliest = new Date(Math.min(...towTimes.map((t) => t.getTime())))
     if (Date.parse(notification.notifiedAt) < earliest.getTime()) {
-      const message = `When the police were told cannot be before the tow (${earliest.toISOString()}).`
-      throw badRequest(message, [{ path: 'notifiedAt', message }])
+      const at = earliest.toISOString()
+      const message = `When the police were told cannot be before the tow (${at}).`
+      throw badRequest(message, [fieldIssue('notifiedAt', 'policeNotices.notBeforeTow', message, { at, timeZone: yard.timeZone })])
     }
     await tx.insert(policeNotices).values({ vehicleId, ...notification, notifiedAt: new Date(notification.notifiedAt), recordedById: actor.id, recordedAt: now })
     record({ kind: 'police_notified', after: { ...notification } })

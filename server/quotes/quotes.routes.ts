@@ -3,7 +3,7 @@ import type { Database } from '@db/client'
 import { legalClocks } from '@shared/domain/clocks'
 import { storageBill } from '@shared/domain/billing'
 import { legalClocksRequestSchema, storageQuoteRequestSchema } from '@shared/schemas/quotes'
-import { AppError } from '../errors'
+import { AppError, fieldIssue, said } from '../errors'
 import { ruleSetCalendars } from '../holidays/index'
 import { latestRuleSetBySlug } from '../rule-sets/index'
 import { companyOf } from '../users/index'
@@ -14,7 +14,7 @@ export function quotesRouter(db: Database): Router {
 
   async function ruleSetFor(userId: string, slug: string) {
     const found = await latestRuleSetBySlug(db, await companyOf(db, userId), slug)
-    if (!found) throw new AppError(400, `There is no rule set "${slug}".`, { issues: [{ path: 'ruleSetId', message: 'No such rule set.' }] })
+    if (!found) throw new AppError(400, `There is no rule set "${slug}".`, said('noSuchRuleSet', { slug }, { issues: [fieldIssue('ruleSetId', 'quotes.noSuchRuleSet', 'No such rule set.')] }))
     return found.ruleSet
   }
 

@@ -4,7 +4,7 @@ import { gatePasses, vehicles, yards } from '@db/schema'
 import { dispositionFor, type GateRecorded, type GateVehicle } from '@shared/schemas/releases'
 import type { User } from '@shared/schemas/users'
 import { cardOf, judgeMove, makeMove } from '../board/index'
-import { AppError, conflict, unprocessable, said } from '../errors'
+import { AppError, conflict, reasonParams, unprocessable, said } from '../errors'
 import { changeVehicle, spaceOf, vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { yardOfStaff } from '../yards/index'
 import { gateHash, newGateCode, newGateToken, readPass } from './gate-keys'
@@ -37,7 +37,8 @@ export async function issueGatePass(changes: VehicleChanges, actor: User, vehicl
     const verdict = await judgeMove(w.tx, w.vehicle, w.yard, actor, { to: 'closed', disposition, reason: null }, now)
     if (!verdict.allowed) {
       const message = verdict.reasons.map((r) => r.message).join(' ')
-      throw verdict.forbidden ? new AppError(403, message, { reasons: verdict.reasons }) : unprocessable(message, { reasons: verdict.reasons })
+      const words = said('notYetReasons', reasonParams(verdict.reasons), { reasons: verdict.reasons })
+      throw verdict.forbidden ? new AppError(403, message, words) : unprocessable(message, words)
     }
     await w.tx
       .update(gatePasses)

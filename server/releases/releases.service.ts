@@ -37,7 +37,7 @@ export async function recordClaimant(changes: VehicleChanges, actor: User, vehic
     const today = dayIn(w.yard.timeZone, now)
     if (input.idExpiry < today) {
       const message = `This ID expired on ${input.idExpiry}: an expired ID cannot be accepted. Ask for a current one.`
-      throw badRequest(message, [{ path: 'idExpiry', message }])
+      throw badRequest(message, [fieldIssue('idExpiry', 'releases.idExpired', message, { date: input.idExpiry })])
     }
     const samePerson = release && release.claimantName === input.name && release.idNumber === input.idNumber
     const values = { claimantKind: input.kind, claimantName: input.name, actingFor: input.actingFor, idType: input.idType, idNumber: input.idNumber, idIssuer: input.idIssuer, idExpiry: input.idExpiry, authorityKind: input.authorityKind, authorityReference: input.authorityReference }
@@ -63,8 +63,7 @@ export async function recordClaimant(changes: VehicleChanges, actor: User, vehic
 /** One photo of the claimant's ID: an image only (a PDF or anything else is refused), kept as kind "id". */
 export async function addIdPhoto(changes: VehicleChanges, store: FileStore, actor: User, vehicleId: string, incoming: Incoming[]) {
   if (incoming.length !== 1) {
-    const message = 'Add one photo of the ID.'
-    throw badRequest(message, [{ path: 'files', message }])
+    throw badRequest('Add one photo of the ID.', [fieldIssue('files', 'releases.addOneIdPhoto', 'Add one photo of the ID.')])
   }
   await vehicleForUser(changes.db, actor.id, vehicleId)
   const prepared = (await prepareUploads(incoming, 'photo', 'files', 'ID')).map((p) => ({ ...p, kind: 'id' as const }))
@@ -87,8 +86,7 @@ export async function addIdPhoto(changes: VehicleChanges, store: FileStore, acto
 /** Photos taken as the vehicle is handed over: images only. */
 export async function addReleasePhotos(changes: VehicleChanges, store: FileStore, actor: User, vehicleId: string, incoming: Incoming[]) {
   if (incoming.length === 0) {
-    const message = 'Choose at least one photo to add.'
-    throw badRequest(message, [{ path: 'files', message }])
+    throw badRequest('Choose at least one photo to add.', [fieldIssue('files', 'releases.choosePhoto', 'Choose at least one photo to add.')])
   }
   await vehicleForUser(changes.db, actor.id, vehicleId)
   const prepared = await prepareUploads(incoming, 'photo', 'files', 'At release')

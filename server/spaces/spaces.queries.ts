@@ -38,7 +38,7 @@ export async function freeSpace(db: Executor, yardId: string, spaceId: string, p
   const fit = vehicleClass === undefined ? null : spaceFit(vehicleClass, space.size)
   if (fit && !fit.fits) {
     const message = `Space ${label}: ${fit.reason}`
-    throw unprocessable(message, { issues: [{ path, message }], needs: fit.needs })
+    throw unprocessable(message, { issues: [fieldIssue(path, 'spaces.tooSmall', message, { label, reason: fit.reason, fitCode: fit.code, ...fit.params })], needs: fit.needs })
   }
   const holder = db.select({ stockNumber: vehicles.stockNumber }).from(vehicles)
   const [taken] = await (forVehicleId

@@ -8,15 +8,27 @@ import type { SignatureInput } from '@shared/schemas/releases'
 import type { TransferInput, TransferPage } from '@shared/schemas/transfers'
 import { transferInputSchema } from '@shared/schemas/transfers'
 import type { User } from '@shared/schemas/users'
+import type { OdometerDecision } from '@shared/domain/vehicle'
+import type { FieldCode, FieldParams } from '@shared/schemas/field-messages'
 import { moveFacts } from '../board/index'
 import { transferPacket, type Language } from '../documents/index'
-import { badRequest, conflict, notFound, unprocessable, said } from '../errors'
+import { badRequest, conflict, fieldIssue, notFound, unprocessable, said } from '../errors'
 import { prepareUploads, putFiles, recordFiles, type FileStore } from '../files/index'
 import { signatureImage } from '../releases/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges, type VehicleRow, type VehicleWork } from '../vehicles/index'
 import { odometerRule, transferOf, transferRecord, type TransferRow } from './transfers.queries'
 
-const field = (path: string, message: string) => badRequest(message, [{ path, message }])
+const field = (...issue: Parameters<typeof fieldIssue>) => badRequest(issue[2], [fieldIssue(...issue)])
+
+const SALE_FIRST = 'Record the buyer, the price and the date before the bill of sale is signed.'
+
+/** Why an odometer reading is needed (49 CFR 580.17 by the rule's clause), as a field issue's code, English and parameters. */
+function odometerNeeded(rule: OdometerDecision): [FieldCode, string, FieldParams?] {
+  const message = `Enter the odometer reading: ${rule.reason}`
+  if (!rule.exemptFrom) return ['transfers.odometerNoYear', message]
+  const { year, clause } = rule.exemptFrom
+  return [clause === '49 CFR 580.17(a)(3)' ? 'transfers.odometerOlder' : 'transfers.odometerNewer', message, { year: String(year), clause }]
+}
 
 /** A transfer is recorded while the vehicle waits in Storage or Release, and changes until it is signed. */
 function mustBeOpen(vehicle: VehicleRow, row: TransferRow | undefined, action: string) {
@@ -38,14 +50,15 @@ export async function recordTransfer(changes: VehicleChanges, actor: User, vehic
     mustBeOpen(w.vehicle, before, 'record the transfer')
     const zone = w.yard.timeZone
     const day = dayFromIsoDate(input.date, 'date')
-    if (day > localDay(zone, now.getTime())) throw field('date', 'The date of the sale cannot be in the future: record a sale once it is held.')
-    if (day < localDay(zone, w.vehicle.arrivedAt.getTime())) throw field('date', 'The date of the sale cannot be before the vehicle arrived.')
+    if (day > localDay(zone, now.getTime())) throw field('date', 'transfers.saleInFuture', 'The date of the sale cannot be in the future: record a sale once it is held.')
+    if (day < localDay(zone, w.vehicle.arrivedAt.getTime())) throw field('date', 'transfers.saleBeforeArrival', 'The date of the sale cannot be before the vehicle arrived.')
     const rule = odometerRule(w.vehicle.year, { gvwrLb: input.gvwrLb, selfPropelled: input.selfPropelled, date: input.date })
     if (rule.required && input.odometer === null && !input.odometerUnreadable) {
-      throw field('odometer', `Enter the odometer reading: ${rule.reason}`)
+      throw field('odometer', ...odometerNeeded(rule))
     }
     if (input.odometer !== null && w.vehicle.odometer !== null && input.odometer < w.vehicle.odometer) {
-      throw field('odometer', `The odometer cannot read less than at intake (${w.vehicle.odometer.toLocaleString('en-US')}).`)
+      const intake = w.vehicle.odometer.toLocaleString('en-US')
+      throw field('odometer', 'transfers.odometerBelowIntake', `The odometer cannot read less than at intake (${intake}).`, { intake })
     }
     // A sale recorded again (a corrected price, or no longer a lien sale): its earlier proceeds are taken
     // off the bill first, as a reversing line (the ledger is never edited), then applied afresh below.
@@ -54,11 +67,13 @@ export async function recordTransfer(changes: VehicleChanges, actor: User, vehic
     if (input.kind === 'lien_sale') {
       // The gate as the clocks stand today; a computed date never lets the yard sell earlier than the law allows.
       const gate = (await moveFacts(w.tx, w.vehicle, w.yard, true, now)).lienSale
-      if (!gate) throw field('date', 'No rule set gives this vehicle a lien-sale date, so the law has not been shown to allow a sale.')
+      if (!gate) throw field('date', 'transfers.noLienSaleDate', 'No rule set gives this vehicle a lien-sale date, so the law has not been shown to allow a sale.')
       if (gate.date && input.date < gate.date) {
-        throw field('date', `The law allows the lien sale from ${gate.date} (${gate.step ?? 'the rule set'}${gate.citation ? `, ${gate.citation}` : ''}); ${input.date} is earlier.`)
+        const rule = `${gate.step ?? 'the rule set'}${gate.citation ? `, ${gate.citation}` : ''}`
+        const es = gate.es && `${gate.es.step ?? gate.step ?? 'las reglas'}${(gate.es.citation ?? gate.citation) ? `, ${gate.es.citation ?? gate.citation}` : ''}`
+        throw field('date', 'transfers.saleBeforeLaw', `The law allows the lien sale from ${gate.date} (${rule}); ${input.date} is earlier.`, { date: gate.date, rule, ...(es ? { ruleEs: es } : {}), day: input.date })
       }
-      if (!gate.open) throw field('date', `The law has not been shown to allow a lien sale yet. ${gate.why}`)
+      if (!gate.open) throw field('date', 'transfers.saleNotOpen', `The law has not been shown to allow a lien sale yet. ${gate.why}`, { why: gate.why })
       // What was owed at the end of the sale day (or now, for a sale today).
       const asOf = new Date(Math.min(now.getTime(), startOfLocalDay(zone, day + 1)))
       const facts = await moveFacts(w.tx, w.vehicle, w.yard, true, asOf)
@@ -160,14 +175,14 @@ export async function signTransfer(changes: VehicleChanges, store: FileStore, ac
   const { vehicle } = await vehicleForUser(changes.db, actor.id, vehicleId)
   const first = await transferOf(changes.db, vehicleId)
   mustBeOpen(vehicle, first, 'sign the bill of sale')
-  if (!first) throw unprocessable('Record the buyer, the price and the date before the bill of sale is signed.')
+  if (!first) throw unprocessable(SALE_FIRST, said('billOfSaleMissing'))
   const prepared = await prepareUploads([{ buffer: png, originalname: 'signature.png' }], 'document', 'image', 'Signature on the bill of sale')
   const { stored, discard } = await putFiles(store, vehicleId, prepared)
   try {
     await changeVehicle(changes, actor, vehicleId, async (w) => {
       const row = await transferOf(w.tx, vehicleId)
       mustBeOpen(w.vehicle, row, 'sign the bill of sale')
-      if (!row) throw unprocessable('Record the buyer, the price and the date before the bill of sale is signed.')
+      if (!row) throw unprocessable(SALE_FIRST, said('billOfSaleMissing'))
       await recordFiles(w, stored)
       await w.tx
         .update(titleTransfers)

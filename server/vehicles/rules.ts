@@ -2,7 +2,7 @@ import type { Executor } from '@db/client'
 import type { yards } from '@db/schema'
 import type { VehicleClass } from '@shared/schemas/rule-sets'
 import { towRatesSchema } from '@shared/schemas/tows'
-import { badRequest } from '../errors'
+import { badRequest, fieldIssue } from '../errors'
 import { latestVersionOf, versionsById } from '../rule-sets/index'
 
 type Yard = typeof yards.$inferSelect
@@ -34,8 +34,9 @@ export async function classesOfVersion(db: Executor, versionId: string | null) {
 
 export function assertKnownClass(classes: { code: string; label: string }[], code: string, path = 'vehicle.vehicleClass') {
   if (classes.some((c) => c.code === code)) return
-  const message = `Choose one of the rule set's classes: ${classes.map((c) => c.label).join(', ')}.`
-  throw badRequest(message, [{ path, message }])
+  const list = classes.map((c) => c.label).join(', ')
+  const message = `Choose one of the rule set's classes: ${list}.`
+  throw badRequest(message, [fieldIssue(path, 'vehicles.chooseRuleSetClass', message, { classes: list })])
 }
 
 /** The yard's tow rates; a yard whose manager has not set them bills the tow at nothing, and says so. */

@@ -6,7 +6,7 @@ import { policeNoticeClock } from '@shared/domain/clocks'
 import { TOW_REASON_LABELS } from '@shared/domain/tow'
 import type { TowIn } from '@shared/schemas/tow-in'
 import type { User } from '@shared/schemas/users'
-import { badRequest, notFound } from '../errors'
+import { badRequest, fieldIssue, notFound } from '../errors'
 import { type FileStore, type Incoming, prepareUploads, putFiles, recordFiles, type StoredFile } from '../files/index'
 import { freeSpace, isSpaceConflict, spaceTaken } from '../spaces/index'
 import { yardOfUser } from '../yards/index'
@@ -47,7 +47,7 @@ export async function createTowIn(changes: VehicleChanges, store: FileStore, act
 async function assertSameCompany(db: Database, yard: YardRow, userId: string) {
   const [found] = await db.select({ id: users.id }).from(users).where(and(eq(users.id, userId), eq(users.companyId, yard.companyId), eq(users.active, true)))
   const message = 'Choose who checked the vehicle from the staff list.'
-  if (!found) throw badRequest(message, [{ path: 'condition.checkedById', message }])
+  if (!found) throw badRequest(message, [fieldIssue('condition.checkedById', 'vehicles.checkedByFromStaff', message)])
 }
 
 interface Extras {

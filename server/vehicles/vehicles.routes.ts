@@ -3,7 +3,7 @@ import { verifyVehicleHistory } from '@db/history'
 import { searchQuerySchema } from '@shared/schemas/search'
 import { correctVehicleSchema, towInSchema } from '@shared/schemas/tow-in'
 import { vehicleParamsSchema, vehicleValueSchema } from '@shared/schemas/vehicles'
-import { badRequest } from '../errors'
+import { AppError, fieldIssue, said } from '../errors'
 import { type FileStore, receiveFiles } from '../files/index'
 import { correctVehicle } from './corrections.service'
 import { intakeOptions } from './intake-options'
@@ -22,7 +22,7 @@ function towInBody(req: Request): unknown {
   try {
     return JSON.parse(typeof raw === 'string' ? raw : '')
   } catch {
-    throw badRequest('The tow-in form did not arrive whole. Send it again.', [{ path: 'data', message: 'Missing or not JSON.' }])
+    throw new AppError(400, 'The tow-in form did not arrive whole. Send it again.', said('towInNotWhole', undefined, { issues: [fieldIssue('data', 'vehicles.dataNotJson', 'Missing or not JSON.')] }))
   }
 }
 

@@ -48,7 +48,7 @@ export function withFieldWords<T extends { message: string }>(issue: T): T & Par
 
 /**
  * The things a shared helper's messages are about (`optionalInt(…, 'year')` → "Enter the year as a number."),
- * each with its article: the English here, every language's under `fields.what` (a test keeps the two equal).
+ * and the file types an upload accepts ("Use {what}."), each with its article: the English here, every language's under `fields.what` (a test keeps the two equal).
  */
 export const FIELD_WHAT = {
   year: 'the year',
@@ -65,6 +65,8 @@ export const FIELD_WHAT = {
   brakes: 'does it brake?',
   keys: 'are the keys here?',
   wheelRefitted: 'was a wheel refitted to make it roll?',
+  photoTypes: 'JPEG, PNG, WebP or HEIC photos',
+  imageOrPdfTypes: 'JPEG, PNG, WebP or HEIC images or PDF files',
 } as const satisfies Record<FieldWhat, string>
 
 /** The English words of a `what`, and the same with a capital for the start of a sentence. */

@@ -1,4 +1,5 @@
 import { i18n } from '@/i18n'
+import { calendarDate, yardFormat } from '@/composables/yard-time'
 import { type FieldParams, fieldWordsOf } from '@shared/schemas/field-messages'
 
 // A field's message in the reader's language. A schema's message carries a code (a key under `fields` in
@@ -6,9 +7,20 @@ import { type FieldParams, fieldWordsOf } from '@shared/schemas/field-messages'
 // made here finds them from the message itself. A message without a code (zod's own) is shown as it came.
 const { t, te } = i18n.global
 
-/** The words of a parameter: `what` is a key of `fields.what` (and `What` the same with a capital); the rest as given. */
+const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/
+// A day the server counted on the yard's clock (an ID's expiry, a sale's first day): `date`, `day`.
+const DAYS = ['date', 'day']
+
+/**
+ * The words of a parameter: `what` is a key of `fields.what` (and `What` the same with a capital); `date` and
+ * `day` are yard days; `at` with `timeZone` an instant on that yard's clock; `…Es` is the rule set's own Spanish
+ * for the parameter before it (`rule` → `ruleEs`); the rest as given.
+ */
 function shown(params: FieldParams | undefined): Record<string, string | number> {
   const out: Record<string, string | number> = { ...params }
+  for (const name of DAYS) if (typeof params?.[name] === 'string' && ISO_DAY.test(params[name])) out[name] = calendarDate(params[name])
+  if (typeof params?.at === 'string' && typeof params.timeZone === 'string') out.at = yardFormat(params.timeZone).dateTime(params.at)
+  if (i18n.global.locale.value === 'es') for (const [name, value] of Object.entries(params ?? {})) if (name.endsWith('Es')) out[name.slice(0, -2)] = value
   const what = params?.what
   if (typeof what === 'string' && te(`fields.what.${what}`)) {
     const words = t(`fields.what.${what}`)
@@ -19,6 +31,12 @@ function shown(params: FieldParams | undefined): Record<string, string | number>
   // A VIN's problem (its code and parameters beside the English) in the reader's words.
   const problemCode = params?.problemCode
   if (typeof problemCode === 'string' && te(`vin.problems.${problemCode}`)) out.problem = t(`vin.problems.${problemCode}`, params as Record<string, string | number>)
+  // A space too small (spaceFit's `code` and sizes beside its English `reason`).
+  const fitCode = params?.fitCode
+  if (typeof fitCode === 'string' && te(`vehicle.spaceFit.${fitCode}`)) {
+    const size = (s: unknown) => (te(`vehicle.spaceSizes.${String(s)}`) ? t(`vehicle.spaceSizes.${String(s)}`) : String(s))
+    out.reason = t(`vehicle.spaceFit.${fitCode}`, { needs: size(params?.needs), size: size(params?.size) })
+  }
   return out
 }
 

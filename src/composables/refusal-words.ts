@@ -19,12 +19,17 @@ function words(name: string, value: string | number): string | number {
   return value
 }
 
+const placed = (params: Params, i: number): Params =>
+  Object.fromEntries(Object.entries(params).flatMap(([k, v]) => (k.startsWith(`${i}.`) ? [[k.slice(`${i}.`.length), v]] : [])))
+
 /** The catalog's words for `key` (under `refusals`), else the English `fallback`. */
 export function refusalText(key: string | undefined, params: Params | undefined, fallback: string): string {
   if (!key || !te(`refusals.${key}`)) return fallback
   const shown = Object.fromEntries(Object.entries(params ?? {}).map(([k, v]) => [k, words(k, v)]))
   // An instant (`at`) reads on the clock of the yard it names (`timeZone`).
   if (typeof params?.at === 'string' && typeof params.timeZone === 'string') shown.at = yardFormat(params.timeZone).dateTime(params.at)
+  // A verdict's reasons (server/errors.ts reasonParams): each key's words with the parameters of its place.
+  if (typeof params?.reasons === 'string') shown.reasons = params.reasons.split(',').map((k, i) => reasonText({ key: k, params: placed(params, i), message: k })).join(' ')
   return t(`refusals.${key}`, shown)
 }
 

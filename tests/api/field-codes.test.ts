@@ -4,7 +4,9 @@ import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import * as t from '@db/schema'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { sampleVersion } from '../helpers/board'
 import { makeStaff } from '../helpers/factories'
+import { CLAIMANT, vehicleInRelease } from '../helpers/release'
 import { anotherVehicle, counts, DEMO_RATES, sampleRuleSet, towInBody } from '../helpers/tow-in'
 
 // A refused field carries its code and parameters beside its English message (issue 14), so the client
@@ -17,6 +19,9 @@ afterAll(() => app.close())
 
 const catalog = (locale: string) => JSON.parse(readFileSync(join(import.meta.dirname, `../../shared/messages/${locale}/fields.json`), 'utf8')).fields as Record<string, Record<string, string>>
 const spoken = (code: string) => ['en', 'es'].every((l) => typeof catalog(l)[code.split('.')[0]!]?.[code.split('.')[1]!] === 'string')
+// The Spanish catalog's words with the answer's parameters put in as they came (the client words dates and `what` further).
+const spanish = (issue: { code: string; params?: Record<string, string | number> }) =>
+  catalog('es')[issue.code.split('.')[0]!]![issue.code.split('.')[1]!]!.replace(/\{(\w+)\}/g, (_, name: string) => String(issue.params?.[name]))
 
 describe('field codes in a 400 answer', () => {
   it('a schema check answers its English message with its code', async () => {
@@ -64,5 +69,50 @@ describe('field codes in a 400 answer', () => {
     ])
     expect(spoken(second.body.issues[0].code)).toBe(true)
     expect(await counts(app.db)).toEqual(before)
+  })
+
+  it('an expired ID at the release answers releases.idExpired with the day it expired', async () => {
+    const staff = await makeStaff(app.db)
+    const { vehicle } = await vehicleInRelease(app.db, staff.yard.id)
+    const o = await signedIn(app.app, staff.office)
+    const res = await o.put(`/api/vehicles/${vehicle.id}/release/claimant`, { ...CLAIMANT, idExpiry: '2024-01-31' })
+    expect(res.status).toBe(400)
+    const [issue] = res.body.issues
+    expect(issue).toEqual({ path: 'idExpiry', message: 'This ID expired on 2024-01-31: an expired ID cannot be accepted. Ask for a current one.', code: 'releases.idExpired', params: { date: '2024-01-31' } })
+    expect(spanish(issue)).toBe('Esta identificación venció el 2024-01-31: no se puede aceptar una identificación vencida. Pida una vigente.')
+  })
+
+  it('a space too small for the vehicle answers spaces.tooSmall with the space, its size and the size needed', async () => {
+    const staff = await makeStaff(app.db)
+    const [version] = await app.db.select().from(t.ruleSetVersions).where(eq(t.ruleSetVersions.id, await sampleVersion(app.db, 'california-sample')))
+    await app.db.update(t.yards).set({ towRates: DEMO_RATES, ruleSetId: version!.ruleSetId }).where(eq(t.yards.id, staff.yard.id))
+    const [bay] = await app.db.insert(t.yardSpaces).values({ yardId: staff.yard.id, row: 'M', number: 2, size: 'motorcycle' }).returning()
+    const d = await signedIn(app.app, staff.dispatcher)
+    const before = await counts(app.db)
+    const res = await d.post('/api/vehicles', towInBody(staff.dispatcher.id, (b) => (b.spaceId = bay!.id)))
+    expect(res.status).toBe(422)
+    const [issue] = res.body.issues
+    expect(issue).toMatchObject({ path: 'spaceId', code: 'spaces.tooSmall', params: { label: 'M-2', fitCode: 'tooSmall', needs: 'standard', size: 'motorcycle' } })
+    expect(issue.message).toBe(`Space M-2: ${issue.params.reason}`)
+    expect(spanish(issue)).toBe(`Espacio M-2: ${issue.params.reason}`)
+    expect(await counts(app.db)).toEqual(before)
+  })
+
+  it('an upload refused for what the file is answers its code with the file’s name', async () => {
+    const staff = await makeStaff(app.db)
+    const { vehicle } = await vehicleInRelease(app.db, staff.yard.id)
+    const o = await signedIn(app.app, staff.dispatcher)
+    const svg = Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>')
+    const res = await o.agent.post(`/api/vehicles/${vehicle.id}/files`).set('x-csrf-token', o.csrf).field('kind', 'photo').attach('files', svg, 'dent.jpg')
+    expect(res.status).toBe(400)
+    const [issue] = res.body.issues
+    expect(issue).toEqual({
+      path: 'files.0',
+      message: 'dent.jpg: SVG drawings are not accepted (they can carry scripts). Use JPEG, PNG, WebP or HEIC photos.',
+      code: 'files.svg',
+      params: { name: 'dent.jpg', what: 'photoTypes' },
+    })
+    expect(spanish(issue)).toBe('dent.jpg: No se aceptan dibujos SVG (pueden llevar scripts). Use photoTypes.')
+    expect(catalog('es').what!.photoTypes).toBe('fotos JPEG, PNG, WebP o HEIC')
   })
 })

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { sampleVersion } from '../helpers/board'
 import { makeStaff, makeVehicle } from '../helpers/factories'
 
 // A refusal carries a code and its parameters beside the English sentence, so the client says it in the
@@ -53,4 +54,29 @@ describe('refusal codes in the answers', () => {
     expect(missing.body.code).toBe('notFound')
     expect([refused.body.code, missing.body.code].every(spoken)).toBe(true)
   })
+
+  it('a computation’s refusal (a release before arrival) answers its DomainError code, worded under refusals', async () => {
+    await sampleVersion(t_.db, 'california-sample')
+    const staff = await makeStaff(t_.db)
+    const s = await signedIn(t_.app, staff.office)
+    const res = await s.post('/api/quotes/storage', {
+      ruleSetId: 'california-sample',
+      stay: { arrivedAt: '2026-03-02T09:00:00-08:00', releasedAt: '2026-03-01T09:00:00-08:00', vehicleClass: 'standard' },
+      asOf: '2026-03-04T12:00:00-08:00',
+    })
+    expect(res.status).toBe(400)
+    expect(res.body).toMatchObject({ error: 'The release time is before the arrival time.', code: 'release-before-arrival', issues: [{ path: 'releasedAt', message: 'The release time is before the arrival time.' }] })
+    expect(spoken(res.body.code)).toBe(true)
+    expect(catalog('es')['release-before-arrival']).toBe('La hora de entrega es anterior a la hora de llegada.')
+  })
+
+  it('a quote under a rule set that does not exist answers noSuchRuleSet with its name, and the field’s own code', async () => {
+    const staff = await makeStaff(t_.db)
+    const s = await signedIn(t_.app, staff.office)
+    const res = await s.post('/api/quotes/storage', { ruleSetId: 'atlantis-sample', stay: { arrivedAt: '2026-03-02T09:00:00-08:00', vehicleClass: 'standard' }, asOf: '2026-03-04T12:00:00-08:00' })
+    expect(res.status).toBe(400)
+    expect(res.body).toMatchObject({ error: 'There is no rule set "atlantis-sample".', code: 'noSuchRuleSet', params: { slug: 'atlantis-sample' }, issues: [{ path: 'ruleSetId', code: 'quotes.noSuchRuleSet' }] })
+    expect(String(catalog('es').noSuchRuleSet).replace('{slug}', res.body.params.slug)).toBe('No existen las reglas "atlantis-sample".')
+  })
 })
+

@@ -87,7 +87,9 @@ describe('bad input at the counter: refused with the field named, nothing writte
     const s = await signedIn(app.app, staff.office)
     const res = await s.put(`${base(vehicle.id)}/claimant`, { ...CLAIMANT, idExpiry: '2024-01-31' })
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'idExpiry', message: 'This ID expired on 2024-01-31: an expired ID cannot be accepted. Ask for a current one.' }])
+    expect(res.body.issues).toEqual([
+      { path: 'idExpiry', message: 'This ID expired on 2024-01-31: an expired ID cannot be accepted. Ask for a current one.', code: 'releases.idExpired', params: { date: '2024-01-31' } },
+    ])
     expect(await releaseRow(vehicle.id)).toBeUndefined()
     expect(await kinds(vehicle.id)).toEqual([])
   })
@@ -115,7 +117,7 @@ describe('bad input at the counter: refused with the field named, nothing writte
     await s.put(`${base(vehicle.id)}/claimant`, CLAIMANT).expect(200)
     const res = await s.agent.post(`${base(vehicle.id)}/id-photo`).set('x-csrf-token', s.csrf).attach('files', data, name)
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'files.0', message: expect.stringContaining('Use JPEG, PNG, WebP or HEIC photos.') }])
+    expect(res.body.issues).toEqual([{ path: 'files.0', message: expect.stringContaining('Use JPEG, PNG, WebP or HEIC photos.'), code: expect.stringMatching(/^files\./), params: expect.objectContaining({ name, what: 'photoTypes' }) }])
     expect((await releaseRow(vehicle.id))!.idPhotoFileId).toBeNull()
     expect(await app.db.select().from(t.files).where(eq(t.files.vehicleId, vehicle.id))).toEqual([])
   })

@@ -49,7 +49,14 @@ describe('space classes', () => {
     const before = await events(id)
     const res = await put(id, 1, space.bay)
     expect(res.status).toBe(422)
-    expect(res.body.issues).toEqual([{ path: 'spaceId', message: 'Space M-1: This vehicle needs a car space or larger; this is a motorcycle bay.' }])
+    expect(res.body.issues).toEqual([
+      {
+        path: 'spaceId',
+        message: 'Space M-1: This vehicle needs a car space or larger; this is a motorcycle bay.',
+        code: 'spaces.tooSmall',
+        params: { label: 'M-1', reason: 'This vehicle needs a car space or larger; this is a motorcycle bay.', fitCode: 'tooSmall', needs: 'standard', size: 'motorcycle' },
+      },
+    ])
     expect(res.body.needs).toBe('standard')
     const [v] = await app.db.select().from(t.vehicles).where(eq(t.vehicles.id, id))
     expect(v).toMatchObject({ spaceId: null, version: 1 })

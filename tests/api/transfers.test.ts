@@ -119,7 +119,7 @@ describe('title transfer: sign-over', () => {
     expect(res.body.issues[0].path).toBe('odometer')
     await nothingWritten(v.id, before)
     expect((await s.put(base(v.id), { ...SIGN_OVER, odometer: 150_100 })).body.issues).toEqual([
-      { path: 'odometer', message: 'The odometer cannot read less than at intake (150,220).' },
+      { path: 'odometer', message: 'The odometer cannot read less than at intake (150,220).', code: 'transfers.odometerBelowIntake', params: { intake: '150,220' } },
     ])
   })
 
@@ -152,7 +152,9 @@ describe('title transfer: lien sale', () => {
     expect(early < gate.date).toBe(true)
     const res = await s.put(base(v.id), { ...LIEN_SALE, date: early })
     expect(res.status).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'date', message: expect.stringContaining(`The law allows the lien sale from ${gate.date}`) }])
+    expect(res.body.issues).toEqual([
+      { path: 'date', message: expect.stringContaining(`The law allows the lien sale from ${gate.date}`), code: 'transfers.saleBeforeLaw', params: expect.objectContaining({ date: gate.date, day: early }) },
+    ])
     await nothingWritten(v.id, before)
   })
 

@@ -52,13 +52,22 @@ describe('an upload costs a bounded amount of work', () => {
   it(`a PDF of 400,000 objects is refused before it is parsed, naming the file`, async () => {
     const id = await vehicleId()
     const body = await refusedDocument(id, manyObjectPdf(400_000), 'bomb.pdf')
-    expect(body.issues).toEqual([{ path: 'files.0', message: `bomb.pdf: The PDF has more than ${MAX_PDF_OBJECTS.toLocaleString('en-US')} parts; a scan or form this complex cannot be accepted. Print it to a new PDF, or photograph the pages.` }])
+    expect(body.issues).toEqual([
+      {
+        path: 'files.0',
+        message: `bomb.pdf: The PDF has more than ${MAX_PDF_OBJECTS.toLocaleString('en-US')} parts; a scan or form this complex cannot be accepted. Print it to a new PDF, or photograph the pages.`,
+        code: 'files.pdfParts',
+        params: { name: 'bomb.pdf', max: MAX_PDF_OBJECTS.toLocaleString('en-US') },
+      },
+    ])
   })
 
   it(`a PDF of more than ${MAX_PDF_PAGES} pages is refused; one of ${MAX_PDF_PAGES} is kept`, async () => {
     const id = await vehicleId()
     const body = await refusedDocument(id, await pdfOfPages(MAX_PDF_PAGES + 1), 'long.pdf')
-    expect(body.issues).toEqual([{ path: 'files.0', message: `long.pdf: The PDF has ${MAX_PDF_PAGES + 1} pages; at most ${MAX_PDF_PAGES} are accepted. Split it into parts.` }])
+    expect(body.issues).toEqual([
+      { path: 'files.0', message: `long.pdf: The PDF has ${MAX_PDF_PAGES + 1} pages; at most ${MAX_PDF_PAGES} are accepted. Split it into parts.`, code: 'files.pdfPages', params: { name: 'long.pdf', pages: MAX_PDF_PAGES + 1, max: MAX_PDF_PAGES } },
+    ])
     const ok = await d.agent.post(`/api/vehicles/${id}/files`).set('x-csrf-token', d.csrf).field('kind', 'document').attach('files', await pdfOfPages(MAX_PDF_PAGES), 'ok.pdf')
     expect(ok.status, JSON.stringify(ok.body)).toBe(201)
   })
@@ -84,7 +93,7 @@ describe('an upload costs a bounded amount of work', () => {
       .field('data', JSON.stringify(towInBody(staff.dispatcher.id)))
       .attach('photos', await photo(), { filename: 'front\u0000.jpg', contentType: 'image/jpeg' })
     expect(res.status, JSON.stringify(res.body)).toBe(400)
-    expect(res.body.issues).toEqual([{ path: 'photos', message: expect.stringMatching(/file name/) }])
+    expect(res.body.issues).toEqual([{ path: 'photos', message: expect.stringMatching(/file name/), code: 'files.badName' }])
     expect(await counts(app.db)).toEqual(before)
   })
 
@@ -129,7 +138,7 @@ describe('an upload costs a bounded amount of work', () => {
       }
       const refused = await d.agent.post(`/api/vehicles/${id}/files`).set('x-csrf-token', d.csrf).attach('files', jpeg, 'next.jpg')
       expect(refused.status).toBe(429)
-      expect(refused.body.issues).toEqual([{ path: 'files', message: expect.stringMatching(/^Your earlier uploads are still being received or checked/) }])
+      expect(refused.body.issues).toEqual([{ path: 'files', message: expect.stringMatching(/^Your earlier uploads are still being received or checked/), code: 'files.busy', params: { max: expect.any(Number) } }])
       // Another member of staff is not held up by the dispatcher's uploads.
       const manager = await signedIn(app.app, staff.manager)
       await manager.agent.post(`/api/vehicles/${id}/files`).set('x-csrf-token', manager.csrf).attach('files', jpeg, 'other.jpg').expect(201)

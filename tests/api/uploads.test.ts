@@ -81,7 +81,14 @@ describe('refused uploads leave no row and no file', () => {
 
   it('a PDF renamed .jpg is refused by its bytes', async () => {
     const body = await refusedUpload([{ data: await photo(), name: 'ok.jpg' }, { data: Buffer.from('%PDF-1.4\n1 0 obj\n<<>>\nendobj\n'), name: 'photo.jpg' }], 400)
-    expect(body.issues).toEqual([{ path: 'photos.1', message: "photo.jpg: The file's contents are PDF (application/pdf), whatever its name says. Use JPEG, PNG, WebP or HEIC photos." }])
+    expect(body.issues).toEqual([
+      {
+        path: 'photos.1',
+        message: "photo.jpg: The file's contents are PDF (application/pdf), whatever its name says. Use JPEG, PNG, WebP or HEIC photos.",
+        code: 'files.wrongType',
+        params: { name: 'photo.jpg', type: 'PDF', mime: 'application/pdf', what: 'photoTypes' },
+      },
+    ])
   })
 
   it('a text file renamed .jpg is refused', async () => {

@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm'
+import { and, eq } from 'drizzle-orm'
 import type { Database } from '@db/client'
 import { historyOf } from '@db/history'
 import * as t from '@db/schema'
@@ -10,7 +10,14 @@ const samples = new WeakMap<Database, Promise<Map<string, string>>>()
 /** The shipped sample rule sets, loaded once per test database: slug → version id. */
 export function sampleRuleSets(db: Database): Promise<Map<string, string>> {
   let loaded = samples.get(db)
-  if (!loaded) samples.set(db, (loaded = loadSampleRuleSets(db)))
+  // Read back by slug: another helper may have loaded the samples into this database first.
+  if (!loaded) {
+    loaded = loadSampleRuleSets(db).then(async () => {
+      const rows = await db.select({ slug: t.ruleSets.slug, id: t.ruleSetVersions.id }).from(t.ruleSetVersions).innerJoin(t.ruleSets, eq(t.ruleSets.id, t.ruleSetVersions.ruleSetId)).where(and(eq(t.ruleSets.sample, 'sample'), eq(t.ruleSetVersions.version, 1)))
+      return new Map(rows.map((r) => [r.slug, r.id]))
+    })
+    samples.set(db, loaded)
+  }
   return loaded
 }
 

@@ -67,9 +67,10 @@ let loadedFor: Database | undefined
 export async function sampleRuleSet(db: Database): Promise<string> {
   if (loadedFor !== db) {
     loadedFor = db
-    loaded = loadSampleRuleSets(db).then(async (versions) => {
-      const [v] = await db.select().from(t.ruleSetVersions).where(eq(t.ruleSetVersions.id, versions.get('california-sample')!))
-      return v!.ruleSetId
+    // Read back by slug: another helper may have loaded the samples into this database first.
+    loaded = loadSampleRuleSets(db).then(async () => {
+      const [set] = await db.select().from(t.ruleSets).where(eq(t.ruleSets.slug, 'california-sample'))
+      return set!.id
     })
   }
   return loaded!

@@ -1,7 +1,8 @@
 import { dayFromCivil, dayFromIsoDate } from '../time/calendar-dates'
 import { DomainError } from '../errors'
 
-export type OdometerDecision = { required: boolean; clause: string; reason: string }
+/** `exemptFrom`: when a disclosure is required only until an age exemption starts, the year it starts (1 January) and its clause. */
+export type OdometerDecision = { required: boolean; clause: string; reason: string; exemptFrom?: { year: number; clause: string } }
 
 /** 49 CFR 580.17(a)(1): a vehicle rated heavier than this is exempt. */
 export const ODOMETER_EXEMPT_ABOVE_GVWR_LB = 16_000
@@ -50,5 +51,6 @@ export function odometerDisclosure(
     required: true,
     clause: '49 CFR 580.5',
     reason: `Disclose the mileage: a ${band} vehicle is exempt only from 1 January ${modelYear + years} (${clause}).`,
+    exemptFrom: { year: modelYear + years, clause },
   }
 }

@@ -16,13 +16,15 @@ export function spaceNeeded(vehicleClass: string): SpaceSize {
   return 'standard'
 }
 
-export type SpaceFit = { fits: true } | { fits: false; needs: SpaceSize; reason: string }
+/** Why not: `reason` in English, and `code` with `params` (sizes) for the reader's language (`vehicle.spaceFit.<code>`, sizes `vehicle.spaceSizes`). */
+export type SpaceFit = { fits: true } | { fits: false; needs: SpaceSize; reason: string; code: 'tooSmall'; params: { needs: SpaceSize; size: SpaceSize } }
 
-const WORDS: Record<SpaceSize, string> = { motorcycle: 'a motorcycle bay', standard: 'a car space', wide: 'a heavy-duty space' }
+/** The English words of each size (shared/messages `vehicle.spaceSizes`; a test keeps them equal). */
+export const SPACE_SIZE_WORDS: Record<SpaceSize, string> = { motorcycle: 'a motorcycle bay', standard: 'a car space', wide: 'a heavy-duty space' }
 
-/** Whether a vehicle of this class fits a space of this size, and if not, why (in English; the client words it by `needs`). */
+/** Whether a vehicle of this class fits a space of this size, and if not, why. */
 export function spaceFit(vehicleClass: string, size: SpaceSize): SpaceFit {
   const needs = spaceNeeded(vehicleClass)
   if (RANK[size] >= RANK[needs]) return { fits: true }
-  return { fits: false, needs, reason: `This vehicle needs ${WORDS[needs]} or larger; this is ${WORDS[size]}.` }
+  return { fits: false, needs, reason: `This vehicle needs ${SPACE_SIZE_WORDS[needs]} or larger; this is ${SPACE_SIZE_WORDS[size]}.`, code: 'tooSmall', params: { needs, size } }
 }

@@ -2,6 +2,7 @@ import { readdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import ts from 'typescript'
 import { beforeAll, describe, expect, it } from 'vitest'
+import { PERMISSIONS } from '@shared/domain/access'
 import { FIELD_WHAT, knownFieldMessages } from '@shared/schemas/field-messages'
 import { fieldText } from '@/composables/field-words'
 import { i18n, loadMessages } from '@/i18n'
@@ -114,7 +115,10 @@ describe('the fields the server itself refuses', () => {
     )
   }
   const groups = Object.keys(catalogs.en).filter((g) => g !== 'what')
-  const codes = [...new Set(sources('server').filter((text) => text.includes('fieldIssue(')).flatMap((text) => [...text.matchAll(/'(\w+)\.(\w+)'/g)].filter((m) => groups.includes(m[1]!)).map((m) => `${m[1]}.${m[2]}`)))].sort()
+  // A permission of the access table (server/access.ts: 'billing.write') reads like a code but is none.
+  const codes = [...new Set(sources('server').filter((text) => text.includes('fieldIssue(')).flatMap((text) => [...text.matchAll(/'(\w+)\.(\w+)'/g)].filter((m) => groups.includes(m[1]!)).map((m) => `${m[1]}.${m[2]}`)))]
+    .filter((c) => !(c in PERMISSIONS))
+    .sort()
 
   it('finds the codes (the scan itself works)', () => {
     expect(codes).toEqual(expect.arrayContaining(['spaces.takenBy', 'spaces.thatTaken', 'releases.checkOffEvery', 'inspections.answerForPickup']))
