@@ -6,9 +6,10 @@ import { cardCheckouts, cardWebhookEvents, payments, users } from '@db/schema'
 import { formatCents } from '@shared/domain/billing'
 import type { CardCheckout, CardCheckoutRequest } from '@shared/schemas/card-payments'
 import type { User } from '@shared/schemas/users'
-import { invoiceOf, OWNER_ONLINE, paymentRecord, queueReceipt, type ReceiptMail } from '../billing/index'
+import { invoiceOf, OWNER_ONLINE, paymentRecord, queueReceipt, refusal, type ReceiptMail } from '../billing/index'
 import { AppError, said } from '../errors'
 import { receiveRefundEvent } from './card-refund-records'
+import { cardReasonOfError } from './service-reasons'
 import { changeVehicle, changeVehicleAsOwner, vehicleById, vehicleForUser, type OwnerWork, type VehicleChanges } from '../vehicles/index'
 
 /**
@@ -35,10 +36,8 @@ const CHECKOUT_MINUTES = 60
 
 export type CheckoutRow = typeof cardCheckouts.$inferSelect
 
-// `words` is the refusal's code for the reader's language (`said(…)`); the field's issue repeats the sentence and reads as it does.
-const refusal = (status: number, path: string, message: string, words: ReturnType<typeof said> | Record<string, never> = {}) => new AppError(status, message, { ...words, issues: [{ path, message }] })
 
-export const unavailable = () => new AppError(503, 'Card payments are not set up on this server. Take the card at the counter terminal instead.')
+export const unavailable = () => new AppError(503, 'Card payments are not set up on this server. Take the card at the counter terminal instead.', said('cardsUnavailable'))
 
 const hashOf = (fields: Record<string, unknown>) => createHash('sha256').update(JSON.stringify(fields)).digest('hex')
 
@@ -115,9 +114,9 @@ export async function startCheckout(
     )
   } catch (err) {
     const message = err instanceof Stripe.errors.StripeError ? err.message : 'no answer'
-    throw new AppError(502, `The card payment service refused to open a payment page: ${message}`)
+    throw new AppError(502, `The card payment service refused to open a payment page: ${message}`, said('cardPageRefused', { cardReason: cardReasonOfError(err) }))
   }
-  if (!session.url) throw new AppError(502, 'The card payment service opened no payment page. Try again.')
+  if (!session.url) throw new AppError(502, 'The card payment service opened no payment page. Try again.', said('cardPageMissing'))
   await db
     .insert(cardCheckouts)
     .values({
@@ -151,7 +150,7 @@ export async function expireCheckout(db: Database, cards: CardPayments | undefin
     await cards.stripe.checkout.sessions.expire(row.sessionId)
   } catch (err) {
     // Already paid or expired there: its webhook says which.
-    if (!(err instanceof Stripe.errors.StripeInvalidRequestError)) throw new AppError(502, 'The card payment service did not answer. Try again.')
+    if (!(err instanceof Stripe.errors.StripeInvalidRequestError)) throw new AppError(502, 'The card payment service did not answer. Try again.', said('cardServiceSilent'))
   }
   const session = await cards.stripe.checkout.sessions.retrieve(row.sessionId).catch(() => null)
   if (session?.status === 'expired') await db.update(cardCheckouts).set({ status: 'expired', completedAt: new Date() }).where(and(eq(cardCheckouts.id, row.id), eq(cardCheckouts.status, 'open')))

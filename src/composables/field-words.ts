@@ -1,4 +1,5 @@
 import { i18n } from '@/i18n'
+import { money } from '@/composables/money'
 import { type FieldParams, fieldWordsOf } from '@shared/schemas/field-messages'
 
 // A field's message in the reader's language. A schema's message carries a code (a key under `fields` in
@@ -6,9 +7,15 @@ import { type FieldParams, fieldWordsOf } from '@shared/schemas/field-messages'
 // made here finds them from the message itself. A message without a code (zod's own) is shown as it came.
 const { t, te } = i18n.global
 
-/** The words of a parameter: `what` is a key of `fields.what` (and `What` the same with a capital); the rest as given. */
+/**
+ * The words of a parameter: `what` is a key of `fields.what` (and `What` the same with a capital), `…Cents` an
+ * amount, `noticeKind` a notice letter's kind; the rest as given.
+ */
 function shown(params: FieldParams | undefined): Record<string, string | number> {
   const out: Record<string, string | number> = { ...params }
+  for (const [name, value] of Object.entries(params ?? {})) if (name.endsWith('Cents') && typeof value === 'number') out[name] = money(value)
+  const kind = params?.noticeKind
+  if (typeof kind === 'string' && te(`notices.kinds.${kind}`)) out.noticeKind = t(`notices.kinds.${kind}`)
   const what = params?.what
   if (typeof what === 'string' && te(`fields.what.${what}`)) {
     const words = t(`fields.what.${what}`)
