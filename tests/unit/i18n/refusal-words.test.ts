@@ -1,4 +1,5 @@
-import { beforeAll, describe, expect, it } from 'vitest'
+import { afterEach, beforeAll, describe, expect, it, vi } from 'vitest'
+import { ApiError, requestEmpty } from '@/api/http'
 import { fieldText } from '@/composables/field-words'
 import { refusalText } from '@/composables/refusal-words'
 import { i18n, loadMessages } from '@/i18n'
@@ -50,5 +51,19 @@ describe('refusal parameters that become words', () => {
     expect(fieldText({ message: 'English', code: 'notices.ruleAsksNoLetter', params: { noticeKind: 'disposal_notice' } })).toMatch(/^Las reglas no piden «.+» para este vehículo\.$/)
     expect(fieldText({ message: 'English', code: 'notices.ruleAsksNoLetter', params: { noticeKind: 'disposal_notice' } })).not.toContain('disposal_notice')
     expect(fieldText({ message: 'English', code: 'common.cannotBeInFuture', params: { what: 'mailedOn' } })).toBe('El día de envío por correo no puede ser posterior a hoy.')
+  })
+
+  describe('a refused move, which answers the lifecycle’s reasons and no code', () => {
+    afterEach(() => vi.unstubAllGlobals())
+
+    it('reads as its reasons, each in the reader’s language', async () => {
+      i18n.global.locale.value = 'es'
+      const body = { error: 'Lift the dispute hold first.', reasons: [{ key: 'balance', params: { dueCents: 12_500 }, message: 'English balance.' }] }
+      vi.stubGlobal('fetch', async () => new Response(JSON.stringify(body), { status: 422, headers: { 'content-type': 'application/json' } }))
+      const refused = await requestEmpty('POST', '/api/vehicles/x/moves', {}).catch((e: unknown) => e)
+      expect(refused).toBeInstanceOf(ApiError)
+      expect((refused as ApiError).message).toBe(refusalText('reasons.balance', { dueCents: 12_500 }, 'English balance.'))
+      expect((refused as ApiError).message).not.toContain('English')
+    })
   })
 })
