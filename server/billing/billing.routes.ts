@@ -12,6 +12,7 @@ import {
 } from '@shared/schemas/billing'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { LOCALES } from '@shared/messages/locales'
+import { msg } from '@shared/schemas/field-messages'
 import { receiptNumber, receiptPdf } from '../documents/index'
 import { notFound } from '../errors'
 import { vehicleForUser, type VehicleChanges } from '../vehicles/index'
@@ -22,9 +23,9 @@ import { refund, takePayment } from './payments.service'
 import { closeDrawer, drawerOf } from './closeout.service'
 import { receiptInput, type ReceiptMail } from './receipt-mail'
 
-const paymentParams = vehicleParamsSchema.extend({ paymentId: z.uuid({ error: 'That is not a payment id.' }) })
-const adjustmentParams = vehicleParamsSchema.extend({ adjustmentId: z.uuid({ error: 'That is not a waiver or discount id.' }) })
-const languageQuery = z.object({ lang: z.enum(LOCALES, { error: 'Choose en or es.' }).default('en') })
+const paymentParams = vehicleParamsSchema.extend({ paymentId: z.uuid({ error: msg('common.thatNotPaymentId', 'That is not a payment id.') }) })
+const adjustmentParams = vehicleParamsSchema.extend({ adjustmentId: z.uuid({ error: msg('common.thatNotAdjustmentId', 'That is not a waiver or discount id.') }) })
+const languageQuery = z.object({ lang: z.enum(LOCALES, { error: msg('common.chooseEnOrEs', 'Choose en or es.') }).default('en') })
 
 /** /api/vehicles/:vehicleId/…: the invoice, payments and refunds, waivers and discounts, receipts. */
 export function vehicleBillingRouter(changes: VehicleChanges, mail: ReceiptMail): Router {

@@ -2,11 +2,12 @@ import { Router, type Request, type Response } from 'express'
 import { z } from 'zod'
 import type { Database } from '@db/client'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
+import { msg } from '@shared/schemas/field-messages'
 import { spaceOf, vehicleForUser } from '../vehicles/index'
 import { keyTag } from './key-tag'
 import { pickupTicket } from './pickup-ticket'
 
-const languageQuery = z.object({ lang: z.enum(['en', 'es'], { error: 'Choose en or es.' }).default('en') })
+const languageQuery = z.object({ lang: z.enum(['en', 'es'], { error: msg('common.chooseEnOrEs', 'Choose en or es.') }).default('en') })
 
 export interface DocumentsDeps {
   db: Database

@@ -2,13 +2,14 @@ import { Router } from 'express'
 import { z } from 'zod'
 import { publicationInputSchema } from '@shared/schemas/publications'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
+import { msg } from '@shared/schemas/field-messages'
 import { receiveFiles, type FileStore } from '../files/index'
 import type { VehicleChanges } from '../vehicles/index'
 import { saleDatePage, setSaleDate } from './sale-date.service'
 import { addPublicationProof, publicationNoticeText, publicationsPage, recordPublication } from './publications.service'
 
-const languageQuery = z.object({ lang: z.enum(['en', 'es'], { error: 'Choose en or es.' }).default('en') })
-const publicationParams = vehicleParamsSchema.extend({ publicationId: z.uuid({ error: 'That is not a publication id.' }) })
+const languageQuery = z.object({ lang: z.enum(['en', 'es'], { error: msg('common.chooseEnOrEs', 'Choose en or es.') }).default('en') })
+const publicationParams = vehicleParamsSchema.extend({ publicationId: z.uuid({ error: msg('common.thatNotPublicationId', 'That is not a publication id.') }) })
 
 /** Mounted at /api/vehicles/:vehicleId/publications: the lien sale's newspaper notice. */
 export function publicationsRouter({ changes, files }: { changes: VehicleChanges; files: FileStore }): Router {
