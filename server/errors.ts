@@ -35,7 +35,7 @@ export class AppError extends Error {
 }
 
 /** A refusal's code: its words in every language are `refusals.<code>` in shared/messages (the type keeps it in the English catalog). */
-export type RefusalCode = Exclude<keyof (typeof english)['refusals'], 'reasons'>
+export type RefusalCode = Exclude<keyof (typeof english)['refusals'], 'reasons' | 'cardReasons'>
 
 /**
  * The code and parameters beside a refusal's English sentence (`{ error, code, params }` in the answer),

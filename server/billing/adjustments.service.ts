@@ -3,14 +3,15 @@ import { chargeAdjustments } from '@db/schema'
 import { formatCents } from '@shared/domain/billing'
 import type { Adjustment, AdjustmentRecord, Invoice } from '@shared/schemas/billing'
 import type { User } from '@shared/schemas/users'
-import { AppError, conflict, forbidden, notFound, said } from '../errors'
+import { conflict, forbidden, notFound, said } from '../errors'
 import { changeVehicle, vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { adjustmentsOf, approvalLimitOf } from './billing.queries'
 import { invoiceOf } from './invoice.service'
+import { refusal } from './refusal'
 
 const tooMuch = (dueCents: number) => {
-  const message = `That is more than is owed: ${formatCents(Math.max(0, dueCents))} is due.`
-  return new AppError(400, message, said('moreThanOwed', { dueCents: Math.max(0, dueCents) }, { issues: [{ path: 'amountCents', message }] }))
+  const owed = Math.max(0, dueCents)
+  return refusal(400, 'amountCents', `That is more than is owed: ${formatCents(owed)} is due.`, said('moreThanOwed', { dueCents: owed }))
 }
 
 async function answer(changes: VehicleChanges, actor: User, vehicleId: string, adjustmentId: string): Promise<{ adjustment: AdjustmentRecord; invoice: Invoice }> {

@@ -1,5 +1,5 @@
-import { Router } from 'express'
 import { z } from 'zod'
+import { Router } from 'express'
 import type { Database } from '@db/client'
 import {
   adjustmentInputSchema,
@@ -11,7 +11,7 @@ import {
   refundInputSchema,
 } from '@shared/schemas/billing'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
-import { LOCALES } from '@shared/messages/locales'
+import { msg } from '@shared/schemas/field-messages'
 import { receiptNumber, receiptPdf } from '../documents/index'
 import { notFound } from '../errors'
 import { vehicleForUser, type VehicleChanges } from '../vehicles/index'
@@ -21,10 +21,10 @@ import { invoiceOf } from './invoice.service'
 import { refund, takePayment } from './payments.service'
 import { closeDrawer, drawerOf } from './closeout.service'
 import { receiptInput, type ReceiptMail } from './receipt-mail'
+import { documentLanguageQuerySchema } from '@shared/schemas/fields'
 
-const paymentParams = vehicleParamsSchema.extend({ paymentId: z.uuid({ error: 'That is not a payment id.' }) })
-const adjustmentParams = vehicleParamsSchema.extend({ adjustmentId: z.uuid({ error: 'That is not a waiver or discount id.' }) })
-const languageQuery = z.object({ lang: z.enum(LOCALES, { error: 'Choose en or es.' }).default('en') })
+const paymentParams = vehicleParamsSchema.extend({ paymentId: z.uuid({ error: msg('common.thatNotPaymentId', 'That is not a payment id.') }) })
+const adjustmentParams = vehicleParamsSchema.extend({ adjustmentId: z.uuid({ error: msg('common.thatNotAdjustmentId', 'That is not a waiver or discount id.') }) })
 
 /** /api/vehicles/:vehicleId/…: the invoice, payments and refunds, waivers and discounts, receipts. */
 export function vehicleBillingRouter(changes: VehicleChanges, mail: ReceiptMail): Router {
@@ -48,7 +48,7 @@ export function vehicleBillingRouter(changes: VehicleChanges, mail: ReceiptMail)
   })
   router.get('/payments/:paymentId/receipt', async (req, res) => {
     const { vehicleId, paymentId } = paymentParams.parse(req.params)
-    const { lang } = languageQuery.parse(req.query)
+    const { lang } = documentLanguageQuerySchema.parse(req.query)
     const { vehicle, yard } = await vehicleForUser(db, req.user!.id, vehicleId)
     const invoice = await invoiceOf(db, vehicle, yard)
     const payment = invoice.payments.find((p) => p.id === paymentId)

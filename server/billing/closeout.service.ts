@@ -5,7 +5,7 @@ import { countDrawer } from '@shared/domain/billing'
 import { dayFromIsoDate, isoDate, localDay, startOfLocalDay } from '@shared/domain/time'
 import type { CloseoutRecord, Drawer } from '@shared/schemas/billing'
 import type { User } from '@shared/schemas/users'
-import { badRequest, conflict, notFound, said } from '../errors'
+import { AppError, conflict, fieldIssue, notFound, said } from '../errors'
 import { yardOfUser } from '../yards/index'
 import { paymentRecord } from './billing.queries'
 
@@ -54,7 +54,7 @@ async function closeoutOf(db: Executor, yardId: string, businessDate: string): P
   }
 }
 
-const alreadyClosed = () => conflict('This day’s drawer is already closed.', said('drawerClosed', undefined, { issues: [{ path: 'businessDate', message: 'Already closed.' }] }))
+const alreadyClosed = () => conflict('This day’s drawer is already closed.', said('drawerClosed', undefined, { issues: [fieldIssue('businessDate', 'billing.alreadyClosed', 'Already closed.')] }))
 
 const todayIn = (zone: string) => isoDate(localDay(zone, Date.now()))
 
@@ -82,7 +82,8 @@ export async function closeDrawer(db: Database, user: User, input: { businessDat
   await db.transaction(async (tx) => {
     const yard = await yardFor(tx, user)
     if (input.businessDate > todayIn(yard.timeZone)) {
-      throw badRequest('That day has not come yet: close the drawer at the end of the day.', [{ path: 'businessDate', message: 'Choose today or a day before.' }])
+      const issues = [fieldIssue('businessDate', 'billing.todayOrBefore', 'Choose today or a day before.')]
+      throw new AppError(400, 'That day has not come yet: close the drawer at the end of the day.', said('drawerNotYet', undefined, { issues }))
     }
     if (await closeoutOf(tx, yard.id, input.businessDate)) throw alreadyClosed()
     const count = countDrawer(await cashOfDay(tx, yard, input.businessDate), input.openingFloatCents, input.countedCents)

@@ -4,16 +4,15 @@ import { cashChange, formatCents } from '@shared/domain/billing'
 import type { Payment, PaymentAnswer } from '@shared/schemas/billing'
 import type { Refund } from '@shared/schemas/billing'
 import type { User } from '@shared/schemas/users'
-import { AppError, badRequest, said } from '../errors'
+import { AppError, fieldIssue, said } from '../errors'
 import { changeVehicle, vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { paymentByKey, paymentRecord, type PaymentRow } from './billing.queries'
 import { invoiceOf, withMovement } from './invoice.service'
 import { queueReceipt, type ReceiptMail } from './receipt-mail'
+import { refusal } from './refusal'
 
 const hashOf = (fields: Record<string, unknown>) => createHash('sha256').update(JSON.stringify(fields)).digest('hex')
 
-// `words` is the refusal's code for the reader's language (`said(…)`); the field's issue repeats the sentence and reads as it does.
-const refusal = (status: number, path: string, message: string, words: ReturnType<typeof said> | Record<string, never> = {}) => new AppError(status, message, { ...words, issues: [{ path, message }] })
 
 /** The same key again: the payment it recorded, or a refusal if the key now asks for something else. */
 function replay(existing: PaymentRow, requestHash: string, takenBy: string) {
@@ -92,9 +91,12 @@ export async function refund(changes: VehicleChanges, actor: User, vehicleId: st
     if (existing) return { payment: replay(existing, requestHash, actor.name), replayed: true, invoice: undefined }
     const before = await invoiceOf(tx, vehicle, yard)
     if (input.amountCents > before.netPaidCents) {
-      throw badRequest(`A refund cannot be more than was paid: ${formatCents(before.netPaidCents)} was paid and not yet refunded.`, [
-        { path: 'amountCents', message: `At most ${formatCents(before.netPaidCents)} can be refunded.` },
-      ])
+      const paidCents = before.netPaidCents
+      throw new AppError(
+        400,
+        `A refund cannot be more than was paid: ${formatCents(paidCents)} was paid and not yet refunded.`,
+        said('refundMoreThanPaid', { paidCents }, { issues: [fieldIssue('amountCents', 'billing.refundAtMost', `At most ${formatCents(paidCents)} can be refunded.`, { paidCents })] }),
+      )
     }
     if (input.method === 'check' && !input.checkNumber) throw refusal(400, 'checkNumber', 'Enter the number of the check you give back.', said('checkNumberBack'))
     const [row] = await tx

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express'
 import type { Database } from '@db/client'
-import { AppError } from '../errors'
+import { AppError, said } from '../errors'
 import { sessionKey } from '../live/index'
 import { boardYardOf } from './board-cards'
 import type { BoardHub } from './board-hub'
@@ -35,7 +35,7 @@ export function boardEvents(db: Database, hub: BoardHub, timing: StreamTiming = 
     }
     // Ended at once when its session ends (signed out, deactivated, new role or password), on any server.
     const release = hub.holdStream({ sessionKey: sessionKey(req.sessionID), userId: req.user!.id }, end)
-    if (!release) throw new AppError(429, TOO_MANY_STREAMS)
+    if (!release) throw new AppError(429, TOO_MANY_STREAMS, said('tooManyStreams', { n: STREAMS_PER_SESSION }))
     const since = req.get('last-event-id') || (typeof req.query.since === 'string' ? req.query.since.slice(0, 60) : undefined)
     res.writeHead(200, {
       'content-type': 'text/event-stream; charset=utf-8',

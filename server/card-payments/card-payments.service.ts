@@ -6,9 +6,11 @@ import { cardCheckouts, cardWebhookEvents, payments, users } from '@db/schema'
 import { formatCents } from '@shared/domain/billing'
 import type { CardCheckout, CardCheckoutRequest } from '@shared/schemas/card-payments'
 import type { User } from '@shared/schemas/users'
-import { invoiceOf, OWNER_ONLINE, paymentRecord, queueReceipt, type ReceiptMail } from '../billing/index'
-import { AppError, said } from '../errors'
+import { invoiceOf, OWNER_ONLINE, paymentRecord, queueReceipt, refusal, type ReceiptMail } from '../billing/index'
+import { AppError, fieldIssue, said } from '../errors'
+import type { FieldCode } from '@shared/schemas/field-messages'
 import { receiveRefundEvent } from './card-refund-records'
+import { cardReasonOfError } from './service-reasons'
 import { changeVehicle, changeVehicleAsOwner, vehicleById, vehicleForUser, type OwnerWork, type VehicleChanges } from '../vehicles/index'
 
 /**
@@ -35,10 +37,8 @@ const CHECKOUT_MINUTES = 60
 
 export type CheckoutRow = typeof cardCheckouts.$inferSelect
 
-// `words` is the refusal's code for the reader's language (`said(…)`); the field's issue repeats the sentence and reads as it does.
-const refusal = (status: number, path: string, message: string, words: ReturnType<typeof said> | Record<string, never> = {}) => new AppError(status, message, { ...words, issues: [{ path, message }] })
 
-export const unavailable = () => new AppError(503, 'Card payments are not set up on this server. Take the card at the counter terminal instead.')
+export const unavailable = () => new AppError(503, 'Card payments are not set up on this server. Take the card at the counter terminal instead.', said('cardsUnavailable'))
 
 const hashOf = (fields: Record<string, unknown>) => createHash('sha256').update(JSON.stringify(fields)).digest('hex')
 
@@ -115,9 +115,9 @@ export async function startCheckout(
     )
   } catch (err) {
     const message = err instanceof Stripe.errors.StripeError ? err.message : 'no answer'
-    throw new AppError(502, `The card payment service refused to open a payment page: ${message}`)
+    throw new AppError(502, `The card payment service refused to open a payment page: ${message}`, said('cardPageRefused', { cardReason: cardReasonOfError(err) }))
   }
-  if (!session.url) throw new AppError(502, 'The card payment service opened no payment page. Try again.')
+  if (!session.url) throw new AppError(502, 'The card payment service opened no payment page. Try again.', said('cardPageMissing'))
   await db
     .insert(cardCheckouts)
     .values({
@@ -151,7 +151,7 @@ export async function expireCheckout(db: Database, cards: CardPayments | undefin
     await cards.stripe.checkout.sessions.expire(row.sessionId)
   } catch (err) {
     // Already paid or expired there: its webhook says which.
-    if (!(err instanceof Stripe.errors.StripeInvalidRequestError)) throw new AppError(502, 'The card payment service did not answer. Try again.')
+    if (!(err instanceof Stripe.errors.StripeInvalidRequestError)) throw new AppError(502, 'The card payment service did not answer. Try again.', said('cardServiceSilent'))
   }
   const session = await cards.stripe.checkout.sessions.retrieve(row.sessionId).catch(() => null)
   if (session?.status === 'expired') await db.update(cardCheckouts).set({ status: 'expired', completedAt: new Date() }).where(and(eq(cardCheckouts.id, row.id), eq(cardCheckouts.status, 'open')))
@@ -172,13 +172,13 @@ export interface WebhookAnswer {
 export async function receiveWebhook(changes: VehicleChanges, cards: CardPayments | undefined, raw: Buffer, signature: string | undefined, mail: ReceiptMail): Promise<WebhookAnswer> {
   if (!cards) return { status: 503, body: { received: false, error: 'Card payments are not set up on this server.' } }
   // A refusal names what was wrong, as every 400 of the API does: here the signature header.
-  const refused = (error: string) => ({ status: 400, body: { received: false, error, issues: [{ path: 'stripe-signature', message: error }] } })
-  if (!signature || !Buffer.isBuffer(raw)) return refused('The webhook carries no signature.')
+  const refused = (code: FieldCode, error: string) => ({ status: 400, body: { received: false, error, issues: [fieldIssue('stripe-signature', code, error)] } })
+  if (!signature || !Buffer.isBuffer(raw)) return refused('cardPayments.webhookUnsigned', 'The webhook carries no signature.')
   let event: Stripe.Event
   try {
     event = cards.stripe.webhooks.constructEvent(raw, signature, cards.webhookSecret)
   } catch {
-    return refused('The webhook signature does not match.')
+    return refused('cardPayments.webhookSignatureMismatch', 'The webhook signature does not match.')
   }
   const { db } = changes
   const seen = async () => (await db.select().from(cardWebhookEvents).where(eq(cardWebhookEvents.eventId, event.id)))[0]

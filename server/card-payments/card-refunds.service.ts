@@ -5,14 +5,13 @@ import { payments } from '@db/schema'
 import { formatCents } from '@shared/domain/billing'
 import type { CardRefund, CardRefundAnswer } from '@shared/schemas/card-payments'
 import type { User } from '@shared/schemas/users'
-import { invoiceOf, paymentRecord } from '../billing/index'
+import { invoiceOf, paymentRecord, refusal } from '../billing/index'
 import { AppError, said } from '../errors'
 import { vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { notePendingRefund, recordRefund, refundByKey, refundRequestHash, type PaymentRow, type RefundAsked } from './card-refund-records'
 import { unavailable, type CardPayments } from './card-payments.service'
+import { cardReasonOf, cardReasonOfError } from './service-reasons'
 
-// `words` is the refusal's code for the reader's language (`said(…)`); the field's issue repeats the sentence and reads as it does.
-const refusal = (status: number, path: string, message: string, words: ReturnType<typeof said> | Record<string, never> = {}) => new AppError(status, message, { ...words, issues: [{ path, message }] })
 
 /** The card payment made on the hosted page, and how much of it is left to give back. */
 async function chargeOf(db: Executor, vehicleId: string, paymentId: string): Promise<{ charge: PaymentRow; leftCents: number }> {
@@ -78,9 +77,10 @@ export async function refundCard(changes: VehicleChanges, cards: CardPayments | 
     // A retry is answered with the service's first answer: ask it how the refund stands now.
     if (refund.status === 'pending') refund = await cards.stripe.refunds.retrieve(refund.id)
   } catch (err) {
-    if (err instanceof Stripe.errors.StripeInvalidRequestError && err.param === 'amount') throw refusal(400, 'amountCents', `The card payment service refuses: ${err.message}`)
+    const cardReason = cardReasonOfError(err)
+    if (err instanceof Stripe.errors.StripeInvalidRequestError && err.param === 'amount') throw refusal(400, 'amountCents', `The card payment service refuses: ${err.message}`, said('cardRefundRefused', { cardReason }))
     const message = err instanceof Stripe.errors.StripeError ? err.message : 'no answer'
-    throw new AppError(502, `The card payment service did not refund it: ${message}. Nothing was recorded; try again.`)
+    throw new AppError(502, `The card payment service did not refund it: ${message}. Nothing was recorded; try again.`, said('cardRefundNotMade', { cardReason }))
   }
   if (refund.status === 'succeeded') {
     const recorded = await recordRefund(changes, actor, vehicleId, refund, asked)
@@ -91,5 +91,5 @@ export async function refundCard(changes: VehicleChanges, cards: CardPayments | 
     return { status: 202, answer: { pending: { providerReference: refund.id, amountCents: refund.amount }, invoice: await invoice() } }
   }
   const status = refund.status ?? 'unknown'
-  throw new AppError(502, `The card payment service could not give this refund back (${status}). Nothing was recorded; check the card payment and try again.`, said('refundFailed', { status }))
+  throw new AppError(502, `The card payment service could not give this refund back (${status}). Nothing was recorded; check the card payment and try again.`, said('refundFailed', { cardReason: cardReasonOf(refund.failure_reason, refund.status) }))
 }

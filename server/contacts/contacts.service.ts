@@ -3,7 +3,7 @@ import { recordsRequests, vehicleContacts } from '@db/schema'
 import type { Contact, RecordsAnswer, RecordsRequest } from '@shared/schemas/contacts'
 import type { User } from '@shared/schemas/users'
 import { addClockEvent } from '../clock-events/index'
-import { badRequest, conflict, notFound, unprocessable, said } from '../errors'
+import { badRequest, conflict, fieldIssue, notFound, unprocessable, said } from '../errors'
 import { changeVehicle, type VehicleChanges } from '../vehicles/index'
 import { contactOf, contactRecord } from './contacts.queries'
 import { pastDay } from './yard-days'
@@ -29,7 +29,7 @@ const described = (c: Contact | ReturnType<typeof contactRecord>) => ({
 export async function addContact(changes: VehicleChanges, actor: User, vehicleId: string, input: Contact): Promise<string> {
   const { result } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, record }) => {
     if (vehicle.state === 'closed') throw closed()
-    if (input.sourceDate) pastDay(input.sourceDate, yard.timeZone, 'sourceDate', 'The records request date')
+    if (input.sourceDate) pastDay(input.sourceDate, yard.timeZone, 'sourceDate', 'recordsRequestDate')
     const [row] = await tx.insert(vehicleContacts).values({ vehicleId, ...input, createdById: actor.id }).returning({ id: vehicleContacts.id })
     record({ kind: 'contact_added', after: { contactId: row!.id, ...described(input) } })
     return row!.id
@@ -42,7 +42,7 @@ export async function changeContact(changes: VehicleChanges, actor: User, vehicl
     if (vehicle.state === 'closed') throw closed()
     const current = await contactOf(tx, vehicleId, contactId)
     if (!current) throw notFound('That contact')
-    if (input.sourceDate) pastDay(input.sourceDate, yard.timeZone, 'sourceDate', 'The records request date')
+    if (input.sourceDate) pastDay(input.sourceDate, yard.timeZone, 'sourceDate', 'recordsRequestDate')
     const before = described(contactRecord(current))
     const after = described(input)
     if (JSON.stringify(before) === JSON.stringify(after)) throw unprocessable('Nothing was changed: the record already says that.', said('nothingChanged'))
@@ -68,8 +68,8 @@ export async function removeContact(changes: VehicleChanges, actor: User, vehicl
 export async function recordRecordsRequest(changes: VehicleChanges, actor: User, vehicleId: string, input: RecordsRequest): Promise<string> {
   const { result } = await changeVehicle(changes, actor, vehicleId, async ({ tx, vehicle, yard, now, record }) => {
     if (vehicle.state === 'closed') throw closed()
-    const sentAt = pastDay(input.sentOn, yard.timeZone, 'sentOn', 'The day the request was sent', now)
-    if (input.answeredOn) pastDay(input.answeredOn, yard.timeZone, 'answeredOn', 'The day the answer came', now)
+    const sentAt = pastDay(input.sentOn, yard.timeZone, 'sentOn', 'requestSentOn', now)
+    if (input.answeredOn) pastDay(input.answeredOn, yard.timeZone, 'answeredOn', 'answerCameOn', now)
     const [row] = await tx
       .insert(recordsRequests)
       .values({ vehicleId, agency: input.agency, sentOn: input.sentOn, answeredOn: input.answeredOn, outcome: input.outcome, createdById: actor.id, createdAt: now })
@@ -88,10 +88,10 @@ export async function answerRecordsRequest(changes: VehicleChanges, actor: User,
     const [request] = await tx.select().from(recordsRequests).where(and(eq(recordsRequests.id, requestId), eq(recordsRequests.vehicleId, vehicleId)))
     if (!request) throw notFound('That records request')
     if (request.answeredOn) throw conflict(`This request was already answered on ${request.answeredOn}.`, said('requestAnswered', { date: request.answeredOn }))
-    pastDay(input.answeredOn, yard.timeZone, 'answeredOn', 'The day the answer came', now)
+    pastDay(input.answeredOn, yard.timeZone, 'answeredOn', 'answerCameOn', now)
     if (input.answeredOn < request.sentOn) {
       const message = 'The answer cannot come before the request was sent.'
-      throw badRequest(message, [{ path: 'answeredOn', message }])
+      throw badRequest(message, [fieldIssue('answeredOn', 'contacts.answerBeforeSent', message)])
     }
     await tx.update(recordsRequests).set({ answeredOn: input.answeredOn, outcome: input.outcome }).where(eq(recordsRequests.id, requestId))
     record({ kind: 'records_answered', after: { requestId, answeredOn: input.answeredOn, outcome: input.outcome } })

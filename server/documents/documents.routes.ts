@@ -1,12 +1,11 @@
 import { Router, type Request, type Response } from 'express'
-import { z } from 'zod'
 import type { Database } from '@db/client'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { spaceOf, vehicleForUser } from '../vehicles/index'
 import { keyTag } from './key-tag'
 import { pickupTicket } from './pickup-ticket'
+import { documentLanguageQuerySchema } from '@shared/schemas/fields'
 
-const languageQuery = z.object({ lang: z.enum(['en', 'es'], { error: 'Choose en or es.' }).default('en') })
 
 export interface DocumentsDeps {
   db: Database
@@ -30,7 +29,7 @@ export function documentsRouter({ db, publicUrl }: DocumentsDeps): Router {
   const router = Router({ mergeParams: true })
   router.get('/key-tag', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
-    const { lang } = languageQuery.parse(req.query)
+    const { lang } = documentLanguageQuerySchema.parse(req.query)
     const { vehicle, yard } = await vehicleForUser(db, req.user!.id, vehicleId)
     const pdf = await keyTag(vehicle, yard.name, `${publicBase(req, publicUrl)}/vehicles/${vehicle.id}`, lang)
     res.setHeader('Cache-Control', 'private, no-store')
@@ -39,7 +38,7 @@ export function documentsRouter({ db, publicUrl }: DocumentsDeps): Router {
   })
   router.get('/pickup-ticket', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
-    const { lang } = languageQuery.parse(req.query)
+    const { lang } = documentLanguageQuerySchema.parse(req.query)
     const { vehicle, yard } = await vehicleForUser(db, req.user!.id, vehicleId)
     const space = (await spaceOf(db, vehicle.spaceId))?.label ?? null
     const pdf = await pickupTicket({ yard, vehicle, space, printedAt: new Date() }, lang)

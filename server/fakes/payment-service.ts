@@ -34,6 +34,8 @@ export interface FakePaymentService {
   holdRefunds(on: boolean): void
   /** A pending refund ends: `succeeded`, or `failed` (its amount can be refunded again); the app hears `refund.updated`. */
   settleRefund(id: string, outcome: 'succeeded' | 'failed'): Promise<void>
+  /** From now on, refunds are refused as declined by the card's bank with this decline code (a card error, 402), or go through again (null). */
+  declineRefunds(declineCode: string | null): void
   close(): Promise<void>
 }
 
@@ -97,6 +99,7 @@ export async function startFakePaymentService(options: { host?: string; port?: n
   const intents = new Map<string, { amount: number; currency: string; refunded: number }>()
   const refunds = new Map<string, FakeRefund>()
   let refundsWait = false
+  let refundDecline: string | null = null
   let deliver: WebhookDelivery | undefined
   let base = ''
 
@@ -156,15 +159,16 @@ export async function startFakePaymentService(options: { host?: string; port?: n
   app.use('/v1', api)
 
   function createRefund(body: Record<string, unknown>): { status: number; body: unknown } {
-    const fail = (message: string, param?: string) => ({ status: 400, body: { error: { type: 'invalid_request_error', message, ...(param ? { param } : {}) } } })
+    const fail = (message: string, param?: string, code?: string) => ({ status: 400, body: { error: { type: 'invalid_request_error', message, ...(param ? { param } : {}), ...(code ? { code } : {}) } } })
     const pi = typeof body.payment_intent === 'string' ? body.payment_intent : ''
     const intent = intents.get(pi)
     if (!intent) return { status: 404, body: { error: { type: 'invalid_request_error', message: `No such payment_intent: '${pi}'`, param: 'payment_intent' } } }
     const left = intent.amount - intent.refunded
     const amount = body.amount === undefined ? left : Number(body.amount)
     if (!Number.isInteger(amount) || amount <= 0) return fail('Invalid positive integer', 'amount')
-    if (left <= 0) return fail(`Charge for payment_intent ${pi} has already been refunded.`)
-    if (amount > left) return fail(`Refund amount ($${(amount / 100).toFixed(2)}) is greater than unrefunded amount on charge ($${(left / 100).toFixed(2)})`, 'amount')
+    if (left <= 0) return fail(`Charge for payment_intent ${pi} has already been refunded.`, undefined, 'charge_already_refunded')
+    if (amount > left) return fail(`Refund amount ($${(amount / 100).toFixed(2)}) is greater than unrefunded amount on charge ($${(left / 100).toFixed(2)})`, 'amount', 'amount_too_large')
+    if (refundDecline) return { status: 402, body: { error: { type: 'card_error', code: 'card_declined', decline_code: refundDecline, message: 'Your card was declined.' } } }
     intent.refunded += amount
     const refund: FakeRefund = {
       id: newId('re'),
@@ -297,6 +301,9 @@ export async function startFakePaymentService(options: { host?: string; port?: n
     redeliver: flush,
     holdRefunds(on) {
       refundsWait = on
+    },
+    declineRefunds(declineCode) {
+      refundDecline = declineCode
     },
     async settleRefund(id, outcome) {
       const r = refunds.get(id)

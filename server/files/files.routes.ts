@@ -9,8 +9,9 @@ import { fileForUser, filesOf } from './files.queries'
 import { streamFile } from './send-file'
 import { addFiles } from './files.service'
 import { receiveFiles } from './upload'
+import { msg } from '@shared/schemas/field-messages'
 
-const fileParam = z.object({ id: z.uuid({ error: 'That is not a file id.' }) })
+const fileParam = z.object({ id: z.uuid({ error: msg('common.thatNotFileId', 'That is not a file id.') }) })
 
 /** POST /api/vehicles/:vehicleId/files — photos, IDs and papers added to a vehicle's record. */
 export function vehicleFilesRouter(changes: VehicleChanges, store: FileStore): Router {

@@ -2,10 +2,11 @@ import { Router } from 'express'
 import { z } from 'zod'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { holdInputSchema, liftHoldSchema } from '@shared/schemas/holds'
+import { msg } from '@shared/schemas/field-messages'
 import { holdsOf, type VehicleChanges } from '../vehicles/index'
 import { liftHold, setHold } from './holds.service'
 
-const holdParam = vehicleParamsSchema.extend({ holdId: z.uuid({ error: 'That is not a hold id.' }) })
+const holdParam = vehicleParamsSchema.extend({ holdId: z.uuid({ error: msg('common.thatNotHoldId', 'That is not a hold id.') }) })
 
 /** POST /api/vehicles/:vehicleId/holds and …/holds/:holdId/lift */
 export function holdsRouter(changes: VehicleChanges): Router {

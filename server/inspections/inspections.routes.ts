@@ -9,9 +9,10 @@ import { addItemPhotos, setFinding } from './findings.service'
 import { inspectionPage } from './inspection-page'
 import { acknowledgeSafety, finishInspection, startInspection } from './inspections.service'
 import { markRollAbility } from './roll-ability.service'
+import { msg } from '@shared/schemas/field-messages'
 
 const itemParam = vehicleParamsSchema.extend({ code: itemCodeSchema })
-const lineParam = vehicleParamsSchema.extend({ lineId: z.uuid({ error: 'That is not an estimate line id.' }) })
+const lineParam = vehicleParamsSchema.extend({ lineId: z.uuid({ error: msg('common.thatNotEstimateLineId', 'That is not an estimate line id.') }) })
 
 /**
  * Mounted at /api/vehicles/:vehicleId/inspection. Every change answers with the whole teardown page, so

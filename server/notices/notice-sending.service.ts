@@ -33,7 +33,7 @@ export async function sendNotice(deps: NoticeDeps, actor: User, vehicleId: strin
     if (input.email && !contact.email) issues.push(fieldIssue('email', 'notices.noEmailAddress', `${contact.name} has no e-mail address on record: add it before sending by e-mail.`, { name: contact.name }))
     if (issues.length > 0) throw badRequest(summaryOf(issues), issues)
     if (input.certifiedMail) {
-      const mailedAt = pastDay(input.mailedOn!, yard.timeZone, 'mailedOn', 'The mailing day')
+      const mailedAt = pastDay(input.mailedOn!, yard.timeZone, 'mailedOn', 'mailedOn')
       const [row] = await tx
         .insert(noticeSendings)
         .values({ noticeId, method: 'certified_mail', trackingNumber: input.trackingNumber, mailedOn: input.mailedOn, createdById: actor.id })
@@ -71,10 +71,10 @@ export async function recordReturned(deps: NoticeDeps, actor: User, vehicleId: s
     const [sending] = await tx.select().from(noticeSendings).where(and(eq(noticeSendings.id, sendingId), eq(noticeSendings.noticeId, noticeId)))
     if (!sending) throw notFound('That sending')
     if (sending.returnedOn) throw conflict(`This letter was already recorded as returned on ${sending.returnedOn}.`, said('letterReturned', { date: sending.returnedOn }))
-    pastDay(input.returnedOn, yard.timeZone, 'returnedOn', 'The day it came back')
+    pastDay(input.returnedOn, yard.timeZone, 'returnedOn', 'cameBackOn')
     if (sending.mailedOn && input.returnedOn < sending.mailedOn) {
       const message = 'A letter cannot come back before it was mailed.'
-      throw badRequest(message, [{ path: 'returnedOn', message }])
+      throw badRequest(message, [fieldIssue('returnedOn', 'notices.backBeforeMailed', message)])
     }
     const note = input.note ?? null
     await tx.update(noticeSendings).set({ returnedOn: input.returnedOn, returnNote: note }).where(eq(noticeSendings.id, sendingId))

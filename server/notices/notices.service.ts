@@ -7,7 +7,7 @@ import { formatCode } from '@shared/schemas/owner'
 import type { NoticeKind } from '@shared/schemas/notices'
 import type { User } from '@shared/schemas/users'
 import { contactsOf } from '../contacts/index'
-import { badRequest, conflict, notFound, said } from '../errors'
+import { badRequest, conflict, fieldIssue, notFound, said } from '../errors'
 import { putFiles, recordFiles, type FileStore } from '../files/index'
 import { addOwnerLink, newCode, newToken } from '../owner/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges } from '../vehicles/index'
@@ -53,7 +53,7 @@ export async function generateNotices(
   const plan = facts.plan.find((p) => p.kind === input.kind)
   if (!plan) {
     const message = `The rule set asks for no "${LETTER_WORDS.en.title(input.kind)}" for this vehicle.`
-    throw badRequest(message, [{ path: 'kind', message }])
+    throw badRequest(message, [fieldIssue('kind', 'notices.ruleAsksNoLetter', message, { noticeKind: input.kind })])
   }
   const recipients = await chooseRecipients(db, vehicleId, input.contactIds)
   const figures = await letterFigures(db, vehicle, yard, input.kind, now)
@@ -137,13 +137,13 @@ async function chooseRecipients(db: Database, vehicleId: string, contactIds: str
   if (contactIds) {
     const chosen = contactIds.map((id) => contacts.find((c) => c.id === id))
     if (chosen.some((c) => !c)) throw notFound('That contact')
-    if (chosen.length === 0) throw badRequest('Choose at least one recipient.', [{ path: 'contactIds', message: 'Choose at least one recipient.' }])
+    if (chosen.length === 0) throw badRequest('Choose at least one recipient.', [fieldIssue('contactIds', 'notices.chooseRecipient', 'Choose at least one recipient.')])
     return chosen as ContactRecord[]
   }
   const recipients = contacts.filter((c) => RECIPIENT_ROLES.has(c.role))
   if (recipients.length === 0) {
     const message = 'Add the registered owner or a lienholder first: the notice goes to each of them.'
-    throw badRequest(message, [{ path: 'contactIds', message }])
+    throw badRequest(message, [fieldIssue('contactIds', 'notices.addOwnerFirst', message)])
   }
   return recipients
 }

@@ -4,8 +4,9 @@ import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { vehicleForUser, type VehicleChanges } from '../vehicles/index'
 import { createOwnerLink, revokeOwnerLink } from './owner-links.service'
 import { decisionsOf, linksOf } from './owner.queries'
+import { msg } from '@shared/schemas/field-messages'
 
-const linkParams = vehicleParamsSchema.extend({ linkId: z.uuid({ error: 'That is not an owner link id.' }) })
+const linkParams = vehicleParamsSchema.extend({ linkId: z.uuid({ error: msg('common.thatNotOwnerLinkId', 'That is not an owner link id.') }) })
 
 /** GET, POST /api/vehicles/:vehicleId/owner-links and POST …/:linkId/revoke — the office's side of the owner's page. */
 export function ownerLinksRouter(changes: VehicleChanges, linkDays: number): Router {

@@ -2,13 +2,14 @@ import { Router } from 'express'
 import { z } from 'zod'
 import { publicationInputSchema } from '@shared/schemas/publications'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
+import { msg } from '@shared/schemas/field-messages'
 import { receiveFiles, type FileStore } from '../files/index'
 import type { VehicleChanges } from '../vehicles/index'
 import { saleDatePage, setSaleDate } from './sale-date.service'
 import { addPublicationProof, publicationNoticeText, publicationsPage, recordPublication } from './publications.service'
+import { documentLanguageQuerySchema } from '@shared/schemas/fields'
 
-const languageQuery = z.object({ lang: z.enum(['en', 'es'], { error: 'Choose en or es.' }).default('en') })
-const publicationParams = vehicleParamsSchema.extend({ publicationId: z.uuid({ error: 'That is not a publication id.' }) })
+const publicationParams = vehicleParamsSchema.extend({ publicationId: z.uuid({ error: msg('common.thatNotPublicationId', 'That is not a publication id.') }) })
 
 /** Mounted at /api/vehicles/:vehicleId/publications: the lien sale's newspaper notice. */
 export function publicationsRouter({ changes, files }: { changes: VehicleChanges; files: FileStore }): Router {
@@ -25,7 +26,7 @@ export function publicationsRouter({ changes, files }: { changes: VehicleChanges
   })
   router.get('/text', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
-    const { lang } = languageQuery.parse(req.query)
+    const { lang } = documentLanguageQuerySchema.parse(req.query)
     const { text, stockNumber } = await publicationNoticeText(db, req.user!, vehicleId, lang)
     res.setHeader('Cache-Control', 'private, no-store')
     res.setHeader('Content-Disposition', `inline; filename="publication-${stockNumber}.txt"`)

@@ -8,7 +8,7 @@ import { publicationInputSchema, type PublicationInput, type PublicationsPage } 
 import type { User } from '@shared/schemas/users'
 import { addClockEvent, vehicleClocks } from '../clock-events/index'
 import type { Language } from '../documents/index'
-import { badRequest, conflict, notFound, unprocessable, said } from '../errors'
+import { badRequest, conflict, fieldIssue, notFound, unprocessable, said } from '../errors'
 import { prepareUploads, putFiles, recordFiles, type FileStore, type Incoming } from '../files/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges, type VehicleRow, type YardRow } from '../vehicles/index'
 import { publicationText } from './publication-text'
@@ -41,12 +41,12 @@ export async function recordPublication(changes: VehicleChanges, actor: User, ve
     const today = localDay(zone, now.getTime())
     const days = input.days.map((d, i) => {
       const n = dayFromIsoDate(d, `days.${i}`)
-      if (n > today) throw badRequest('A day of publication cannot be in the future.', [{ path: `days.${i}`, message: 'A day of publication cannot be in the future.' }])
+      if (n > today) throw badRequest('A day of publication cannot be in the future.', [fieldIssue(`days.${i}`, 'publications.dayInFuture', 'A day of publication cannot be in the future.')])
       return n
     })
     const sorted = [...days].sort((a, b) => a - b)
     const { plan } = await planOf(w.tx, w.vehicle, w.yard, now)
-    if (!plan) throw unprocessable("This vehicle's rule set asks for no newspaper publication.")
+    if (!plan) throw unprocessable("This vehicle's rule set asks for no newspaper publication.", said('noPublication'))
     const [row] = await w.tx
       .insert(publications)
       .values({ vehicleId, newspaper: input.newspaper, days: sorted.map(isoDate), createdById: actor.id })
@@ -59,7 +59,7 @@ export async function recordPublication(changes: VehicleChanges, actor: User, ve
 
 /** The publisher's affidavit or proof of publication: a PDF or a photo, under the upload rules. */
 export async function addPublicationProof(changes: VehicleChanges, store: FileStore, actor: User, vehicleId: string, publicationId: string, incoming: Incoming[]) {
-  if (incoming.length !== 1) throw badRequest('Choose the affidavit or proof of publication: one file.', [{ path: 'files', message: 'Choose the affidavit or proof of publication: one file.' }])
+  if (incoming.length !== 1) throw badRequest('Choose the affidavit or proof of publication: one file.', [fieldIssue('files', 'publications.oneProofFile', 'Choose the affidavit or proof of publication: one file.')])
   const prepared = await prepareUploads(incoming, 'document', 'files', 'Proof of publication')
   const { stored, discard } = await putFiles(store, vehicleId, prepared)
   try {

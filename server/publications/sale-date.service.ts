@@ -6,7 +6,8 @@ import { dayFromIsoDate, isoDate, localDay, startOfLocalDay } from '@shared/doma
 import { saleDateInputSchema, type SaleDateInput, type SaleDatePage } from '@shared/schemas/publications'
 import type { User } from '@shared/schemas/users'
 import { addClockEvent, vehicleClocksWith } from '../clock-events/index'
-import { AppError, conflict, said, unprocessable } from '../errors'
+import { conflict, said, unprocessable } from '../errors'
+import { refusal } from '../billing/index'
 import { changeVehicle, vehicleForUser, type VehicleChanges, type VehicleRow, type YardRow } from '../vehicles/index'
 
 const SALE_EVENT = 'sale-scheduled' as const
@@ -55,13 +56,13 @@ export async function setSaleDate(changes: VehicleChanges, actor: User, vehicleI
     if (w.vehicle.state === 'closed') throw conflict(`${w.vehicle.stockNumber} has left the yard.`, said('closedSaleDate', { stock: w.vehicle.stockNumber }))
     const zone = w.yard.timeZone
     const { today, blocked, clocksFor, earliest } = await saleRules(w.tx, w.vehicle, w.yard, now)
-    if (blocked || !clocksFor) throw unprocessable(blocked?.why ?? 'No sale date can be set.')
+    if (blocked || !clocksFor) throw unprocessable(blocked?.why ?? 'No sale date can be set.', said('saleDateBlocked', { blocked: blocked?.code ?? 'no-sale-date' }))
     const early = saleDayTooEarly(clocksFor([saleEvent(zone, input.day)]), input.day, today)
     if (early) {
       const message = earliest
         ? `The earliest sale date the law allows is ${earliest} (${early.step}${early.citation ? ` — ${early.citation}` : ''}).`
         : `That day is too early (${early.step}); no earlier allowed day can be worked out yet.`
-      throw new AppError(400, message, { issues: [{ path: 'day', message }], ...(earliest ? said('saleTooEarly', { date: earliest }) : {}), earliest })
+      throw refusal(400, 'day', message, earliest ? said('saleTooEarly', { date: earliest }, { earliest }) : said('saleTooEarlyNoDay', undefined, { earliest }))
     }
     const before = await scheduledDay(w.tx, vehicleId, zone)
     await w.tx.delete(clockEvents).where(and(eq(clockEvents.vehicleId, vehicleId), eq(clockEvents.kind, SALE_EVENT)))

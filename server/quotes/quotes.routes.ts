@@ -14,7 +14,7 @@ export function quotesRouter(db: Database): Router {
 
   async function ruleSetFor(userId: string, slug: string) {
     const found = await latestRuleSetBySlug(db, await companyOf(db, userId), slug)
-    if (!found) throw new AppError(400, `There is no rule set "${slug}".`, said('noSuchRuleSet', { slug }, { issues: [fieldIssue('ruleSetId', 'quotes.noSuchRuleSet', 'No such rule set.')] }))
+    if (!found) throw new AppError(400, `There is no rule set "${slug}".`, said('noRuleSetNamed', { name: slug }, { issues: [fieldIssue('ruleSetId', 'quotes.noSuchRuleSet', 'No such rule set.')] }))
     return found.ruleSet
   }
 

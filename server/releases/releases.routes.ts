@@ -1,5 +1,4 @@
 import { Router } from 'express'
-import { z } from 'zod'
 import { claimantInputSchema, formatGateCode, gatePassKeySchema, handoverInputSchema, signatureInputSchema } from '@shared/schemas/releases'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
 import { publicBase, sendPdf } from '../documents/index'
@@ -8,8 +7,8 @@ import type { VehicleChanges } from '../vehicles/index'
 import { checkPass, issueGatePass, recordOut } from './gate-passes.service'
 import { gatePassPdf, releaseFormPdf } from './release-form.service'
 import { addIdPhoto, addReleasePhotos, recordClaimant, recordHandover, releasePage, signRelease } from './releases.service'
+import { documentLanguageQuerySchema } from '@shared/schemas/fields'
 
-const languageQuery = z.object({ lang: z.enum(['en', 'es'], { error: 'Choose en or es.' }).default('en') })
 
 export interface ReleaseDeps {
   changes: VehicleChanges
@@ -53,13 +52,13 @@ export function releasesRouter({ changes, files, publicUrl }: ReleaseDeps): Rout
   })
   router.get('/form', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
-    const { lang } = languageQuery.parse(req.query)
+    const { lang } = documentLanguageQuerySchema.parse(req.query)
     const { pdf, stockNumber } = await releaseFormPdf(db, files, req.user!, vehicleId, lang)
     sendPdf(res, pdf, `release-${stockNumber}.pdf`)
   })
   router.post('/gate-pass', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
-    const { lang } = languageQuery.parse(req.query)
+    const { lang } = documentLanguageQuerySchema.parse(req.query)
     const pass = await issueGatePass(changes, req.user!, vehicleId)
     const pdf = await gatePassPdf(db, req.user!, vehicleId, pass, publicBase(req, publicUrl), lang)
     res.status(201).json({ id: pass.id, code: formatGateCode(pass.code), expiresAt: pass.expiresAt.toISOString(), pdf: Buffer.from(pdf).toString('base64') })

@@ -2,6 +2,7 @@ import { Router } from 'express'
 import { z } from 'zod'
 import type { Database } from '@db/client'
 import { dayFromCivil } from '@shared/domain/time'
+import { msg } from '@shared/schemas/field-messages'
 import { notFound } from '../errors'
 import { ruleSetCalendars } from '../holidays/index'
 import { companyOf } from '../users/index'
@@ -11,7 +12,7 @@ const slugParam = z.object({ id: z.string().min(1).max(80) })
 const yearsQuery = z.object({
   from: z.coerce.number().int().min(1990).max(2100),
   to: z.coerce.number().int().min(1990).max(2100),
-}).refine((q) => q.to >= q.from && q.to - q.from <= 10, { message: 'Ask for at most ten years, from ≤ to.', path: ['to'] })
+}).refine((q) => q.to >= q.from && q.to - q.from <= 10, { message: msg('ruleSets.atMostTenYears', 'Ask for at most ten years, from ≤ to.'), path: ['to'] })
 
 export function ruleSetsRouter(db: Database): Router {
   const router = Router()

@@ -1,5 +1,5 @@
 import type { RuleSet } from '@shared/schemas/rule-sets'
-import { badRequest, fieldIssue, type Issue } from '../errors'
+import { AppError, fieldIssue, said, type Issue } from '../errors'
 import { isKnownCalendar } from '../holidays/index'
 
 const UNKNOWN = 'Choose a holiday calendar from the list: this one is not known, so it would skip no holidays.'
@@ -16,5 +16,5 @@ export function assertKnownCalendars(ruleSet: RuleSet): void {
   check('holidayCalendar', ruleSet.holidayCalendar)
   if (ruleSet.businessDays) check('businessDays.calendars', ...ruleSet.businessDays.calendars)
   if (ruleSet.mailDeadlines) check('mailDeadlines.postOfficeCalendar', ruleSet.mailDeadlines.postOfficeCalendar)
-  if (issues.length > 0) throw badRequest(UNKNOWN, issues)
+  if (issues.length > 0) throw new AppError(400, UNKNOWN, said('unknownCalendar', undefined, { issues }))
 }

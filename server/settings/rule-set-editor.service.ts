@@ -6,7 +6,7 @@ import { ruleSetSchema, type RuleSet } from '@shared/schemas/rule-sets'
 import type { CopyRuleSet, RuleSetDetail, RuleSetSummary, SaveRuleSet } from '@shared/schemas/rule-set-editor'
 import { ruleSetEditSchema } from '@shared/schemas/rule-set-editor'
 import type { User } from '@shared/schemas/users'
-import { conflict, forbidden, notFound, unprocessable, said } from '../errors'
+import { conflict, fieldIssue, forbidden, notFound, unprocessable, said } from '../errors'
 import { latestRuleSets, type RuleSetVersion } from '../rule-sets/index'
 import { changedValues, itemNames, recordSettingsChange } from '../settings-audit/index'
 import { companyOf } from '../users/index'
@@ -108,7 +108,7 @@ export async function chooseYardRuleSet(db: Database, actor: User, input: { rule
   const yard = await yardOfUser(db, actor.id)
   if (!yard) throw notFound('A yard for your company')
   const chosen = await visible(db, companyId, input.ruleSetId, 'ruleSetId')
-  if (yard.ruleSetId === chosen.ruleSetId) throw unprocessable(`The yard already uses ${chosen.ruleSet.name}.`)
+  if (yard.ruleSetId === chosen.ruleSetId) throw unprocessable(`The yard already uses ${chosen.ruleSet.name}.`, said('yardUsesRuleSet', { name: chosen.ruleSet.name }))
   const previous = yard.ruleSetId ? (await latestRuleSets(db, companyId)).find((r) => r.ruleSetId === yard.ruleSetId) : undefined
   await db.transaction(async (tx) => {
     await tx.update(yards).set({ ruleSetId: chosen.ruleSetId }).where(eq(yards.id, yard.id))
@@ -130,7 +130,7 @@ export async function chooseYardRuleSet(db: Database, actor: User, input: { rule
 async function visible(db: Executor, companyId: string, slug: string, field?: string): Promise<RuleSetVersion> {
   const found = (await latestRuleSets(db, companyId)).find((r) => r.slug === slug)
   if (!found) {
-    if (field) throw unprocessable('There is no such rule set.', { issues: [{ path: field, message: 'Choose one of the rule sets listed.' }] })
+    if (field) throw unprocessable('There is no such rule set.', said('noSuchRuleSet', undefined, { issues: [fieldIssue(field, 'ruleSetEditor.chooseListed', 'Choose one of the rule sets listed.')] }))
     throw notFound('That rule set')
   }
   return found

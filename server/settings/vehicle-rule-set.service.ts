@@ -3,7 +3,7 @@ import type { Database } from '@db/client'
 import { ruleSets, ruleSetVersions, vehicles } from '@db/schema'
 import type { MoveToLatestVersion, OlderVersionVehicles } from '@shared/schemas/rule-set-editor'
 import type { User } from '@shared/schemas/users'
-import { conflict, notFound, unprocessable, said } from '../errors'
+import { conflict, fieldIssue, notFound, unprocessable, said } from '../errors'
 import { latestVersionOf } from '../rule-sets/index'
 import { changeVehicle, type VehicleChanges } from '../vehicles/index'
 import { companyOf } from '../users/index'
@@ -42,10 +42,11 @@ export async function moveToLatestVersion(changes: VehicleChanges, actor: User, 
       if (vehicle.state === 'closed') throw conflict('This vehicle has left the yard: its bill is final.', said('closedBill'))
       if (!yard.ruleSetId) throw unprocessable('The yard has no rule set to move the vehicle to: choose one in Settings first.', said('noYardRuleSet'))
       const latest = (await latestVersionOf(tx, yard.ruleSetId))!
-      if (vehicle.ruleSetVersionId === latest.versionId) throw unprocessable(`This vehicle is already on version ${latest.version} of ${latest.ruleSet.name}.`)
+      if (vehicle.ruleSetVersionId === latest.versionId) throw unprocessable(`This vehicle is already on version ${latest.version} of ${latest.ruleSet.name}.`, said('vehicleOnVersion', { version: latest.version, name: latest.ruleSet.name }))
       if (!latest.ruleSet.vehicleClasses.some((c) => c.code === vehicle.vehicleClass)) {
-        const message = `${latest.ruleSet.name} has no class "${vehicle.vehicleClass}": correct the vehicle's class first.`
-        throw unprocessable(message, { issues: [{ path: 'version', message }] })
+        const words = { name: latest.ruleSet.name, vehicleClass: vehicle.vehicleClass }
+        const message = `${words.name} has no class "${words.vehicleClass}": correct the vehicle's class first.`
+        throw unprocessable(message, said('ruleSetLacksClass', words, { issues: [fieldIssue('version', 'ruleSetEditor.lacksClass', message, words)] }))
       }
       const [old] = vehicle.ruleSetVersionId
         ? await tx

@@ -1,5 +1,4 @@
 import { Router } from 'express'
-import { z } from 'zod'
 import { signatureInputSchema } from '@shared/schemas/releases'
 import { transferInputSchema } from '@shared/schemas/transfers'
 import { vehicleParamsSchema } from '@shared/schemas/vehicles'
@@ -7,8 +6,8 @@ import { sendPdf } from '../documents/index'
 import type { FileStore } from '../files/index'
 import type { VehicleChanges } from '../vehicles/index'
 import { recordTransfer, signTransfer, transferPacketPdf, transferPage } from './transfers.service'
+import { documentLanguageQuerySchema } from '@shared/schemas/fields'
 
-const languageQuery = z.object({ lang: z.enum(['en', 'es'], { error: 'Choose en or es.' }).default('en') })
 
 /** Mounted at /api/vehicles/:vehicleId/transfer: a sign-over or lien sale, its bill of sale and packet. */
 export function transfersRouter({ changes, files }: { changes: VehicleChanges; files: FileStore }): Router {
@@ -30,7 +29,7 @@ export function transfersRouter({ changes, files }: { changes: VehicleChanges; f
   })
   router.get('/packet', async (req, res) => {
     const { vehicleId } = vehicleParamsSchema.parse(req.params)
-    const { lang } = languageQuery.parse(req.query)
+    const { lang } = documentLanguageQuerySchema.parse(req.query)
     const { pdf, stockNumber } = await transferPacketPdf(db, files, req.user!, vehicleId, lang)
     sendPdf(res, pdf, `transfer-${stockNumber}.pdf`)
   })

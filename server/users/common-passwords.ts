@@ -1,6 +1,7 @@
 import { dictionary } from '@zxcvbn-ts/language-common'
 import { z } from 'zod'
 import { normalizePassword, PASSWORD_MIN } from '@shared/domain/passwords'
+import { msg } from '@shared/schemas/field-messages'
 import { alongsideFieldIssues } from '@shared/schemas/fields'
 
 // OWASP ASVS 5.0 V6.2.4: new passwords are checked against the most common ones that the length rule
@@ -10,7 +11,7 @@ const COMMON = new Set(
   (dictionary['passwords-common'] as string[]).map((p) => normalizePassword(p).toLowerCase()).filter((p) => [...p].length >= PASSWORD_MIN),
 )
 
-export const COMMON_PASSWORD = 'The password is one of the most common passwords, the first an attacker tries: choose another.'
+export const COMMON_PASSWORD = msg('users.commonPassword', 'The password is one of the most common passwords, the first an attacker tries: choose another.')
 
 export const isCommonPassword = (password: string) => COMMON.has(normalizePassword(password).toLowerCase())
 

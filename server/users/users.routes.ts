@@ -1,6 +1,7 @@
 import { Router } from 'express'
 import { z } from 'zod'
 import type { Database } from '@db/client'
+import { msg } from '@shared/schemas/field-messages'
 import type { BoardNotifier } from '../live/index'
 import { createUserSchema, resetPasswordSchema, staffYardsSchema, updateUserSchema } from '@shared/schemas/users'
 import { refusingCommonPasswords } from './common-passwords'
@@ -8,7 +9,7 @@ import * as service from './users.service'
 
 const newUserSchema = refusingCommonPasswords(createUserSchema)
 const newPasswordSchema = refusingCommonPasswords(resetPasswordSchema)
-const idParam = z.object({ id: z.uuid({ error: 'That is not a valid user id.' }) })
+const idParam = z.object({ id: z.uuid({ error: msg('common.thatNotUserId', 'That is not a valid user id.') }) })
 
 /** `boards` ends the open board streams of a user whose sessions a change ends. */
 export function usersRouter(db: Database, boards: BoardNotifier): Router {

@@ -22,7 +22,7 @@ export async function createYard(db: Executor, companyId: string, input: YardSet
     await loadSampleRuleSets(db, ruleSetsFolder)
     ;[set] = await usable()
   }
-  if (!set) throw new AppError(400, `There is no rule set "${input.ruleSet}".`)
+  if (!set) throw new AppError(400, `There is no rule set "${input.ruleSet}".`, said('noRuleSetNamed', { name: input.ruleSet }))
   const { ruleSet: _slug, ...yard } = input
   const [row] = await db.insert(yards).values({ ...yard, companyId, ruleSetId: set.id }).returning()
   return row!

@@ -67,6 +67,11 @@ export const FIELD_WHAT = {
   wheelRefitted: 'was a wheel refitted to make it roll?',
   photoTypes: 'JPEG, PNG, WebP or HEIC photos',
   imageOrPdfTypes: 'JPEG, PNG, WebP or HEIC images or PDF files',
+  recordsRequestDate: 'the records request date',
+  requestSentOn: 'the day the request was sent',
+  answerCameOn: 'the day the answer came',
+  mailedOn: 'the mailing day',
+  cameBackOn: 'the day it came back',
 } as const satisfies Record<FieldWhat, string>
 
 /** The English words of a `what`, and the same with a capital for the start of a sentence. */

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { LOCALES } from '../messages/locales'
 import { type FieldWhat, msg, whatWords } from './field-messages'
 
 // Building blocks for the forms' schemas, so every field says the same thing the same way.
@@ -68,3 +69,6 @@ export const pagingShape = {
     .refine((n) => (PAGE_SIZES as readonly number[]).includes(n), msg('common.pageSizes', `Show ${PAGE_SIZES.join(', ')} a page.`, { sizes: PAGE_SIZES.join(', ') }))
     .default(PAGE_SIZES[0]),
 }
+
+/** `?lang=` of a printed document (a receipt, a release form, a letter): the language it is printed in, English unless asked. */
+export const documentLanguageQuerySchema = z.object({ lang: z.enum(LOCALES, { error: msg('common.chooseEnOrEs', 'Choose en or es.') }).default('en') })

@@ -1,7 +1,7 @@
 import type { z } from 'zod'
 import type { FieldParams } from '@shared/schemas/field-messages'
 import { fieldText } from '@/composables/field-words'
-import { refusalText } from '@/composables/refusal-words'
+import { reasonText, refusalText } from '@/composables/refusal-words'
 
 /** A refused field: `message` is in the reader's language once received (its `code` under `fields`, else the server's English). */
 export interface FieldIssue {
@@ -66,11 +66,14 @@ async function send(method: Method, url: string, body?: unknown): Promise<Respon
   // Signing in itself answers 401 to a wrong password: that is not a session ending.
   if (res.status === 401 && !url.startsWith('/api/session')) sessionEnded()
   if (!res.ok) {
-    const data = (await res.json().catch(() => ({}))) as { error?: string; code?: string; params?: Record<string, string | number>; issues?: FieldIssue[] }
+    type Reason = { key?: string; params?: Record<string, string | number>; message: string }
+    const data = (await res.json().catch(() => ({}))) as { error?: string; code?: string; params?: Record<string, string | number>; issues?: FieldIssue[]; reasons?: Reason[] }
     // A refusal's code (refusals.<code> in shared/messages) gives its words in the reader's language; the English is the fallback.
     // So does each field issue's code (fields.<code>); a refusal that is only its issues reads as they do.
     // An issue that only repeats the refusal's sentence (a payment's amount) reads as the refusal does.
-    const refusal = refusalText(data.code, data.params, data.error ?? `The server answered ${res.status}.`)
+    // A refused move is its lifecycle reasons, each with its own key: the sentence is theirs, joined.
+    const reasons = !data.code && data.reasons?.length ? data.reasons.map(reasonText).join(' ') : undefined
+    const refusal = reasons ?? refusalText(data.code, data.params, data.error ?? `The server answered ${res.status}.`)
     const issues = (data.issues ?? []).map((i) => ({ ...i, message: !i.code && data.code && i.message === data.error ? refusal : fieldText(i) }))
     const message = !data.code && issues.some((i) => i.code) ? issuesText(issues) : refusal
     throw new ApiError(res.status, message, issues, data as Record<string, unknown>)

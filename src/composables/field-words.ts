@@ -1,5 +1,6 @@
 import { i18n } from '@/i18n'
 import { calendarDate, yardFormat } from '@/composables/yard-time'
+import { money } from '@/composables/money'
 import { type FieldParams, fieldWordsOf } from '@shared/schemas/field-messages'
 
 // A field's message in the reader's language. A schema's message carries a code (a key under `fields` in
@@ -13,13 +14,17 @@ const DAYS = ['date', 'day']
 
 /**
  * The words of a parameter: `what` is a key of `fields.what` (and `What` the same with a capital); `date` and
- * `day` are yard days; `at` with `timeZone` an instant on that yard's clock; `…Es` is the rule set's own Spanish
- * for the parameter before it (`rule` → `ruleEs`); the rest as given.
+ * `day` are yard days; `at` with `timeZone` an instant on that yard's clock; `…Cents` an amount; `noticeKind` a
+ * notice letter's kind; `…Es` is the rule set's own Spanish for the parameter before it (`rule` → `ruleEs`); the
+ * rest as given.
  */
 function shown(params: FieldParams | undefined): Record<string, string | number> {
   const out: Record<string, string | number> = { ...params }
   for (const name of DAYS) if (typeof params?.[name] === 'string' && ISO_DAY.test(params[name])) out[name] = calendarDate(params[name])
   if (typeof params?.at === 'string' && typeof params.timeZone === 'string') out.at = yardFormat(params.timeZone).dateTime(params.at)
+  for (const [name, value] of Object.entries(params ?? {})) if (name.endsWith('Cents') && typeof value === 'number') out[name] = money(value)
+  const kind = params?.noticeKind
+  if (typeof kind === 'string' && te(`notices.kinds.${kind}`)) out.noticeKind = t(`notices.kinds.${kind}`)
   if (i18n.global.locale.value === 'es') for (const [name, value] of Object.entries(params ?? {})) if (name.endsWith('Es')) out[name.slice(0, -2)] = value
   const what = params?.what
   if (typeof what === 'string' && te(`fields.what.${what}`)) {

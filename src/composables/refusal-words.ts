@@ -16,6 +16,9 @@ function words(name: string, value: string | number): string | number {
   if (name === 'steps') return value.split(',').map((s) => (te(`releases.steps.${s}`) ? t(`releases.steps.${s}`) : s)).join(', ')
   if (name === 'roles') return value.split(',').map((r) => (te(`access.roles.${r}`) ? t(`access.roles.${r}`) : r)).join(', ')
   if (name === 'date' && /^\d{4}-\d{2}-\d{2}$/.test(value)) return calendarDate(value)
+  // Why the card payment service said no, in our words (server/card-payments/service-reasons.ts): never its code.
+  if (name === 'cardReason') return t(`refusals.cardReasons.${te(`refusals.cardReasons.${value}`) ? value : 'other'}`)
+  if (name === 'blocked' && te(`publications.sale.blocked.${value}`)) return t(`publications.sale.blocked.${value}`)
   return value
 }
 

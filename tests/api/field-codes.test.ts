@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import * as t from '@db/schema'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
 import { sampleVersion } from '../helpers/board'
-import { makeStaff } from '../helpers/factories'
+import { makeStaff, makeVehicle } from '../helpers/factories'
 import { CLAIMANT, vehicleInRelease } from '../helpers/release'
 import { anotherVehicle, counts, DEMO_RATES, sampleRuleSet, towInBody } from '../helpers/tow-in'
 
@@ -114,5 +114,26 @@ describe('field codes in a 400 answer', () => {
     })
     expect(spanish(issue)).toBe('dent.jpg: No se aceptan dibujos SVG (pueden llevar scripts). Use photoTypes.')
     expect(catalog('es').what!.photoTypes).toBe('fotos JPEG, PNG, WebP o HEIC')
+  })
+
+  it('a day the server finds in the future (a records request sent tomorrow) answers common.cannotBeInFuture with what it is about', async () => {
+    const staff = await makeStaff(app.db)
+    const v = await makeVehicle(app.db, staff.yard.id, { state: 'storage' })
+    const tomorrow = new Date(Date.now() + 2 * 86_400_000).toISOString().slice(0, 10)
+    const res = await (await signedIn(app.app, staff.office)).post(`/api/vehicles/${v.id}/records-requests`, { agency: 'DMV', sentOn: tomorrow })
+    expect(res.status).toBe(400)
+    expect(res.body.issues).toEqual([{ path: 'sentOn', message: 'The day the request was sent cannot be in the future.', code: 'common.cannotBeInFuture', params: { what: 'requestSentOn' } }])
+    expect(catalog('es').common!.cannotBeInFuture).toBe('{What} no puede ser posterior a hoy.')
+    expect(catalog('es').what!.requestSentOn).toBe('el día en que se envió la solicitud')
+  })
+
+  it('a notice the rule set does not ask for answers notices.ruleAsksNoLetter with the kind as a code', async () => {
+    const staff = await makeStaff(app.db)
+    const [version] = await app.db.select().from(t.ruleSetVersions).where(eq(t.ruleSetVersions.ruleSetId, await sampleRuleSet(app.db)))
+    const v = await makeVehicle(app.db, staff.yard.id, { state: 'storage', ruleSetVersionId: version!.id, estimatedValueCents: 650_000, estimatedValueSource: 'test' })
+    const res = await (await signedIn(app.app, staff.office)).post(`/api/vehicles/${v.id}/notices`, { kind: 'disposal_notice' })
+    expect(res.status).toBe(400)
+    expect(res.body.issues).toEqual([{ path: 'kind', message: 'The rule set asks for no "Notice of intent to dispose" for this vehicle.', code: 'notices.ruleAsksNoLetter', params: { noticeKind: 'disposal_notice' } }])
+    expect(spoken(res.body.issues[0].code)).toBe(true)
   })
 })
