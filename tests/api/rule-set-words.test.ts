@@ -65,6 +65,9 @@ describe('the staff screens carry the Spanish beside the English', () => {
     const next = page.summary.nextDeadline
     expect(next).toMatchObject({ code: 'notice-of-lien', label: 'Send the notice of lien by certified mail', es: { label: 'Enviar el aviso de gravamen por correo certificado' } })
     expect(next.es.citation).toMatch(/^Fla\. Stat\. § 713\.78\(4\): aviso de gravamen por correo certificado dentro de 7 días hábiles/)
+    // The counting rules it followed carry their citations' Spanish too (the sample's businessDays and mailDeadlines).
+    const counting = next.rules.find((r: { code: string }) => r.code === 'business-days')
+    expect(ruleWords(counting, 'es').citation).toMatch(/^Fla\. Stat\. § 713\.78\(4\): el aviso de gravamen va por correo certificado/)
 
     const list = (await office.get('/api/deadlines').expect(200)).body
     const entry = list.entries.find((e: { vehicleId: string }) => e.vehicleId === vehicle.id)

@@ -36,11 +36,13 @@ describe('the sample rule sets in Spanish', () => {
     expect(ruleWord(ruleSet, 'caution', 'es')).toMatch(/^Ejemplo — verifique con su código local\./)
   })
 
-  it.each(samples)('theTotalLossCitation_$file_isExplainedInSpanishKeepingTheStatute', ({ ruleSet }) => {
-    const source = ruleSet.totalLoss.source
-    expect(source.es?.citation, source.citation).toBeTruthy()
-    for (const statute of statutes(source.citation)) expect(source.es?.citation, source.citation).toContain(statute)
-    if (source.note) expect(source.es?.note, source.note).toBeTruthy()
+  it.each(samples)('theTotalLossAndCountingCitations_$file_areExplainedInSpanishKeepingTheStatute', ({ ruleSet }) => {
+    const sources = [ruleSet.totalLoss.source, ...(ruleSet.businessDays ? [ruleSet.businessDays.source] : []), ...(ruleSet.mailDeadlines ? [ruleSet.mailDeadlines.source] : [])]
+    for (const source of sources) {
+      expect(source.es?.citation, source.citation).toBeTruthy()
+      for (const statute of [...statutes(source.citation), ...(source.citation.match(/5 U\.S\.C\. § 6103/g) ?? [])]) expect(source.es?.citation, source.citation).toContain(statute)
+      if (source.note) expect(source.es?.note, source.note).toBeTruthy()
+    }
   })
 
   it('aSpanishNameBox_emptyOrTooLong_meansNoneOrIsRefusedNamingTheField', () => {
