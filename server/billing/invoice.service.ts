@@ -6,6 +6,7 @@ import { vehicleBill } from '../charges/index'
 import { unprocessable, said } from '../errors'
 import type { VehicleRow, YardRow } from '../vehicles/index'
 import { adjustmentsOf, approvalLimitOf, lienSaleOf, paymentsOf } from './billing.queries'
+import { ruleSetTitle } from '@shared/messages/rule-words'
 
 /**
  * A vehicle's invoice: the tow, storage and fees from the core with tax per line, the approved
@@ -41,7 +42,7 @@ export async function invoiceOf(db: Executor, vehicle: VehicleRow, yard: YardRow
     payments,
     adjustments,
     approvalLimitCents: await approvalLimitOf(db, yard.id),
-    ruleSet: { name: billed.ruleSet.name, caution: billed.ruleSet.caution },
+    ruleSet: ruleSetTitle(billed.ruleSet),
     warnings: billed.bill.warnings,
     lienSale,
   }

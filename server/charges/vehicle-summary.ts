@@ -106,6 +106,6 @@ function toNext(d: Deadline, today: number): NextDeadline {
     explained: d.explained,
     citation: d.source.citation,
     ...(stepWords(d) ? { es: stepWords(d) } : {}),
-    ...(d.rules ? { rules: d.rules.map((r) => ({ code: r.code, rule: r.rule, citation: r.source.citation, ...(r.calendars ? { calendars: r.calendars } : {}) })) } : {}),
+    ...(d.rules ? { rules: d.rules.map((r) => ({ code: r.code, rule: r.rule, citation: r.source.citation, ...(r.source.es?.citation ? { es: { citation: r.source.es.citation } } : {}), ...(r.calendars ? { calendars: r.calendars } : {}) })) } : {}),
   }
 }

@@ -57,13 +57,20 @@ const SUBSTITUTE = / \(substitute day\)$/
  * The public holidays of a year, with the weekday a weekend holiday is observed on. date-holidays
  * types some of those substitutes otherwise (the US Veterans Day one is "bank"), so a substitute
  * counts whenever the holiday it stands for is public: 5 U.S.C. 6103(b) and OPM's weekend rule.
+ * Each keeps the name it has always had (the calendar's own language: English for the US) and carries
+ * date-holidays' Spanish name beside it where the library has one; where it has none it answers in the
+ * calendar's own language, the same name, and no Spanish is given (the reader then reads the English).
  */
 export function publicHolidays(source: HolidaysType, year: number): Holiday[] {
   const all = source.getHolidays(year)
+  const spanish = new Map(source.getHolidays(year, 'es').map((h) => [`${h.date}|${h.rule}`, h.name]))
   const publicNames = new Set(all.filter((h) => h.type === 'public').map((h) => h.name))
   return all
     .filter((h) => h.type === 'public' || (h.substitute === true && publicNames.has(h.name.replace(SUBSTITUTE, ''))))
-    .map((h) => ({ date: h.date.slice(0, 10), name: h.name }))
+    .map((h) => {
+      const es = spanish.get(`${h.date}|${h.rule}`)
+      return es && es !== h.name ? { date: h.date.slice(0, 10), name: h.name, es: { name: es } } : { date: h.date.slice(0, 10), name: h.name }
+    })
 }
 
 function yearByYear(source: HolidaysType): HolidayCalendar {

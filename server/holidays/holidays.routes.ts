@@ -1,5 +1,5 @@
 import { Router } from 'express'
-import { dayFromCivil, closedByEvery } from '@shared/domain/time'
+import { dayFromCivil, closedByEvery, holidayNames } from '@shared/domain/time'
 import { draftHolidaysQuerySchema } from '@shared/schemas/holidays'
 import { holidayCalendar } from './holiday-calendar'
 import { knownCalendars } from './known-calendars'
@@ -20,7 +20,7 @@ export function holidaysRouter(): Router {
       return state ? { country, state } : { country }
     })
     const closed = closedByEvery(keys.map(holidayCalendar)).between(dayFromCivil(from, 1, 1), dayFromCivil(to, 12, 31))
-    res.json({ holidays: closed.map(({ date, name }) => ({ date, name })) })
+    res.json({ holidays: closed.map(holidayNames) })
   })
   return router
 }

@@ -5,6 +5,7 @@ import type { RuleSet } from '@shared/schemas/rule-sets'
 import { versionsById } from '../rule-sets/index'
 import { holdsOf, vehicleForUser, type VehicleRow } from '../vehicles/index'
 import { itemsOf, latestInspection, lineView, linesOf, namesOf, photosByItem, type InspectionRow } from './inspections.queries'
+import { ruleSetTitle } from '@shared/messages/rule-words'
 
 const title = (v: VehicleRow) => [v.year, v.make, v.model].filter(Boolean).join(' ') || 'Unknown vehicle'
 
@@ -27,7 +28,7 @@ export async function inspectionPage(db: Executor, userId: string, vehicleId: st
     },
     timeZone: yard.timeZone,
     labourRateCents: yard.labourRateCents,
-    ruleSet: ruleSet ? { name: ruleSet.name, caution: ruleSet.caution } : null,
+    ruleSet: ruleSet ? ruleSetTitle(ruleSet) : null,
     inspection,
     recommendation,
     recommendationMissing: missing,

@@ -73,7 +73,7 @@ export async function generateNotices(
         ...figures,
         dueDate: plan.dueDate,
         // The rule's words in the recipient's language; the statute's section stays as the statute writes it.
-        rule: { ...ruleWords({ label: plan.label, citation: plan.citation, es: plan.es }, c.language), ruleSetName: facts.ruleSet.name, ruleSetCaution: ruleWord(facts.ruleSet, 'caution', c.language) },
+        rule: { ...ruleWords({ label: plan.label, citation: plan.citation, es: plan.es }, c.language), ruleSetName: ruleWord(facts.ruleSet, 'name', c.language), ruleSetCaution: ruleWord(facts.ruleSet, 'caution', c.language) },
         owner: { url: `${base}/o/${token}`, site, code: formatCode(code) },
       })
       const data = Buffer.from(pdf)

@@ -7,6 +7,7 @@ import { notFound } from '../errors'
 import { ruleSetCalendars } from '../holidays/index'
 import { companyOf } from '../users/index'
 import { latestRuleSetBySlug, latestRuleSets } from './rule-sets.queries'
+import { ruleSetTitle } from '@shared/messages/rule-words'
 
 const slugParam = z.object({ id: z.string().min(1).max(80) })
 const yearsQuery = z.object({
@@ -22,10 +23,9 @@ export function ruleSetsRouter(db: Database): Router {
       ruleSets: sets.map(({ slug, version, ruleSet }) => ({
         id: slug,
         version,
-        name: ruleSet.name,
+        ...ruleSetTitle(ruleSet),
         jurisdiction: ruleSet.jurisdiction,
         sample: ruleSet.sample,
-        caution: ruleSet.caution,
       })),
     })
   })

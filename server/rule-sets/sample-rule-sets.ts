@@ -55,6 +55,7 @@ export function sampleChoices(dir: string = SAMPLE_RULE_SETS_DIR): SampleChoice[
         timeZone: body.timeZone,
         caution: body.caution,
         cautionEs: typeof es.caution === 'string' ? es.caution : null,
+        nameEs: typeof es.name === 'string' ? es.name : null,
       })
     })
 }

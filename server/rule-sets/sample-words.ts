@@ -6,20 +6,21 @@ import { ruleSetVersions } from '@db/schema'
 import { SAMPLE_RULE_SETS_DIR } from './sample-rule-sets'
 
 type Json = Record<string, unknown>
-type Words = { labels: Map<string, string>; citations: Map<string, string>; notes: Map<string, string>; cautions: Map<string, string> }
+type Words = { labels: Map<string, string>; citations: Map<string, string>; notes: Map<string, string>; cautions: Map<string, string>; names: Map<string, string> }
 
 const isObject = (v: unknown): v is Json => typeof v === 'object' && v !== null && !Array.isArray(v)
 const esOf = (item: Json): Json => (isObject(item.es) ? item.es : {})
 
 /** Every Spanish word the shipped samples give, keyed by the English it stands beside. */
 export function sampleWords(dir: string = SAMPLE_RULE_SETS_DIR): Words {
-  const words: Words = { labels: new Map(), citations: new Map(), notes: new Map(), cautions: new Map() }
+  const words: Words = { labels: new Map(), citations: new Map(), notes: new Map(), cautions: new Map(), names: new Map() }
   const put = (map: Map<string, string>, english: unknown, spanish: unknown) => {
     if (typeof english === 'string' && typeof spanish === 'string' && spanish) map.set(english, spanish)
   }
   for (const file of readdirSync(dir).filter((f) => f.endsWith('.json'))) {
     const body = JSON.parse(readFileSync(path.join(dir, file), 'utf8')) as Json
     put(words.cautions, body.caution, esOf(body).caution)
+    put(words.names, body.name, esOf(body).name)
     walk(body, (item) => {
       put(words.labels, item.label, esOf(item).label)
       put(words.citations, item.citation, esOf(item).citation)
@@ -55,6 +56,7 @@ export function withSampleWords(body: unknown, words: Words): Json | null {
     added = true
   }
   fill(copy, 'caution', words.cautions)
+  fill(copy, 'name', words.names)
   walk(copy, (item) => {
     if ('label' in item) fill(item, 'label', words.labels)
     if ('citation' in item) {
@@ -68,7 +70,7 @@ export function withSampleWords(body: unknown, words: Words): Json | null {
 /**
  * Rule sets copied into a database before the samples spoke Spanish (the samples' own version 1 and every
  * company copy and edit since) get the samples' Spanish beside each class, fee, step, police clock,
- * citation, note and caution whose English is still the sample's. Runs at start-up, before any request
+ * citation, note, caution and the rule set's name whose English is still the sample's. Runs at start-up, before any request
  * parses a version; idempotent, so several servers starting at once do no harm. Returns how many
  * versions it changed.
  */

@@ -12,6 +12,7 @@ import { changedValues, itemNames, recordSettingsChange } from '../settings-audi
 import { companyOf } from '../users/index'
 import { assertKnownCalendars } from './rule-set-calendars'
 import { yardOfUser } from '../yards/index'
+import { ruleSetTitle } from '@shared/messages/rule-words'
 
 /** The rule sets a manager sees in Settings: the samples and the company's own, marked editable and in use. */
 export async function ruleSetsForSettings(db: Database, actor: User): Promise<RuleSetSummary[]> {
@@ -20,10 +21,9 @@ export async function ruleSetsForSettings(db: Database, actor: User): Promise<Ru
   return sets.map(({ slug, version, ruleSetId, ruleSet }) => ({
     id: slug,
     version,
-    name: ruleSet.name,
+    ...ruleSetTitle(ruleSet),
     jurisdiction: ruleSet.jurisdiction,
     sample: ruleSet.sample,
-    caution: ruleSet.caution,
     own: owned.has(ruleSetId),
     inUse: yard?.ruleSetId === ruleSetId,
   }))
@@ -42,6 +42,8 @@ export async function copyRuleSet(db: Database, actor: User, slug: string, input
   const source = await visible(db, companyId, slug)
   const newSlug = `${slugOf(input.name)}-${randomBytes(3).toString('hex')}`
   const body: RuleSet = { ...structuredClone(source.ruleSet), id: newSlug, name: input.name, sample: false }
+  // The copy has a name of its own: the Spanish of the name it was copied from no longer names it.
+  if (body.es) delete body.es.name
   return db.transaction(async (tx) => {
     const [set] = await tx.insert(ruleSets).values({ companyId, slug: newSlug, name: input.name, sample: 'local' }).returning({ id: ruleSets.id })
     await tx.insert(ruleSetVersions).values({ ruleSetId: set!.id, version: 1, body, createdById: actor.id })

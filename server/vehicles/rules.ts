@@ -4,6 +4,7 @@ import type { VehicleClass } from '@shared/schemas/rule-sets'
 import { towRatesSchema } from '@shared/schemas/tows'
 import { badRequest, fieldIssue } from '../errors'
 import { latestVersionOf, versionsById } from '../rule-sets/index'
+import { ruleSetTitle } from '@shared/messages/rule-words'
 
 type Yard = typeof yards.$inferSelect
 
@@ -19,7 +20,7 @@ export async function intakeRules(db: Executor, yard: Yard) {
   return {
     versionId: current?.versionId ?? null,
     version: current?.version ?? null,
-    ruleSet: current ? { name: current.ruleSet.name, caution: current.ruleSet.caution } : null,
+    ruleSet: current ? ruleSetTitle(current.ruleSet) : null,
     policeNotice: current?.ruleSet.policeNotice ?? null,
     classes: current ? current.ruleSet.vehicleClasses.map(classOption) : NO_RULE_SET_CLASSES,
   }

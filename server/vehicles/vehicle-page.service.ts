@@ -6,6 +6,7 @@ import { versionsById } from '../rule-sets/index'
 import { classesOfVersion } from './rules'
 import { historyEvents, holdsOf, nameOf, propertyOf, spaceOf, towOf, versionNumber } from './vehicle-page.queries'
 import { vehicleForUser } from './vehicles.queries'
+import { ruleSetTitle } from '@shared/messages/rule-words'
 
 /** Everything recorded about one vehicle, with its running bill and next legal date as of now. */
 export async function vehiclePage(db: Database, userId: string, vehicleId: string, asOf = new Date()): Promise<VehiclePage> {
@@ -52,7 +53,7 @@ export async function vehiclePage(db: Database, userId: string, vehicleId: strin
     },
     tow: await towOf(db, v.id),
     yard: { name: yard.name, code: yard.code, timeZone: yard.timeZone, lat: yard.lat, lng: yard.lng },
-    ruleSet: ruleSet ? { name: ruleSet.name, version: (await versionNumber(db, v.ruleSetVersionId)) ?? 1, caution: ruleSet.caution } : null,
+    ruleSet: ruleSet ? { ...ruleSetTitle(ruleSet), version: (await versionNumber(db, v.ruleSetVersionId)) ?? 1 } : null,
     holds: await holdsOf(db, v.id),
     files: await filesOf(db, v.id),
     property: await propertyOf(db, v.id),

@@ -1,6 +1,6 @@
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { Database, Executor } from '@db/client'
-import { ruleSets, userYards, users, vehicles, yardSpaces, yards } from '@db/schema'
+import { userYards, users, vehicles, yardSpaces, yards } from '@db/schema'
 import { spaceLabel } from '@shared/schemas/spaces'
 import { towRatesSchema } from '@shared/schemas/tows'
 import type { User } from '@shared/schemas/users'
@@ -38,15 +38,19 @@ export async function yardsForSettings(db: Executor, actor: User): Promise<YardS
     .leftJoin(vehicles, eq(vehicles.spaceId, yardSpaces.id))
     .where(inArray(yardSpaces.yardId, ids))
     .orderBy(asc(yardSpaces.row), asc(yardSpaces.number))
-  const sets = await db.select({ id: ruleSets.id, name: ruleSets.name }).from(ruleSets)
-  return mine.map((y) => ({
-    id: y.id,
-    ...fields(y),
-    ruleSetName: sets.find((s) => s.id === y.ruleSetId)?.name ?? null,
-    spaces: spaces
-      .filter((s) => s.space.yardId === y.id)
-      .map((s) => ({ id: s.space.id, label: spaceLabel(s.space), row: s.space.row, number: s.space.number, size: s.space.size, retired: s.space.retiredAt !== null, occupant: s.occupant })),
-  }))
+  const sets = await latestRuleSets(db, await companyOf(db, actor.id))
+  return mine.map((y) => {
+    const named = sets.find((s) => s.ruleSetId === y.ruleSetId)?.ruleSet
+    return {
+      id: y.id,
+      ...fields(y),
+      ruleSetName: named?.name ?? null,
+      ...(named?.es?.name ? { es: { ruleSetName: named.es.name } } : {}),
+      spaces: spaces
+        .filter((s) => s.space.yardId === y.id)
+        .map((s) => ({ id: s.space.id, label: spaceLabel(s.space), row: s.space.row, number: s.space.number, size: s.space.size, retired: s.space.retiredAt !== null, occupant: s.occupant })),
+    }
+  })
 }
 
 async function myYard(db: Executor, actor: User, yardId: string, lock = false) {

@@ -27,6 +27,21 @@ export function ruleWord<T extends Worded, K extends keyof T & string>(item: T, 
 }
 
 /**
+ * A rule set's name and caution as a response carries them (`ruleSetTitleSchema`), with the Spanish of each
+ * beside the English where the rule set has it.
+ */
+export function ruleSetTitle(ruleSet: { name: string; caution: string; es?: { name?: string | undefined; caution?: string | undefined } | undefined }): {
+  name: string
+  caution: string
+  es?: { name?: string; caution?: string }
+} {
+  const name = ruleSet.es?.name
+  const caution = ruleSet.es?.caution
+  if (!name && !caution) return { name: ruleSet.name, caution: ruleSet.caution }
+  return { name: ruleSet.name, caution: ruleSet.caution, es: { ...(name ? { name } : {}), ...(caution ? { caution } : {}) } }
+}
+
+/**
  * A step's Spanish label and citation as a response carries them beside the English (`es`), or
  * undefined when the rule set has neither: the client picks with `ruleWords` in its reader's language.
  */

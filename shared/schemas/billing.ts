@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { ruleSetTitleSchema } from './rule-sets'
 import { ADJUSTMENT_KINDS, ADJUSTMENT_STATUSES, COUNTER_PAYMENT_METHODS, PAYMENT_METHODS } from '../domain/billing/payments'
 import { LOCALES } from '../messages/locales'
 import { alongsideFieldIssues, optionalText, requiredText } from './fields'
@@ -136,7 +137,7 @@ export const invoiceSchema = z.object({
   adjustments: z.array(adjustmentRecordSchema),
   /** A waiver or discount above this waits for a second manager. */
   approvalLimitCents: z.number(),
-  ruleSet: z.object({ name: z.string(), caution: z.string() }),
+  ruleSet: ruleSetTitleSchema,
   warnings: z.array(z.string()),
   /**
    * Sold at lien sale: the bill runs to the end of the sale day, the price paid the charges (a payment

@@ -27,7 +27,7 @@ export const nextDeadlineSchema = z.object({
   /** Its words in Spanish, where the rule set has them (shared/messages/rule-words.ts picks the reader's). */
   es: spanishWordsSchema.optional(),
   /** The rule set's own counting rules this date followed (business days, a mailing on a closed post-office day), each cited. */
-  rules: z.array(z.object({ code: z.enum(['business-days', 'mailing-day']), rule: z.string(), citation: z.string(), calendars: z.string().optional() })).optional(),
+  rules: z.array(z.object({ code: z.enum(['business-days', 'mailing-day']), rule: z.string(), citation: z.string(), es: z.object({ citation: z.string() }).optional(), calendars: z.string().optional() })).optional(),
 })
 export type NextDeadline = z.infer<typeof nextDeadlineSchema>
 

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { holidaySchema } from './holidays'
 import { clockEventKindSchema } from './rule-sets'
 
 /**
@@ -16,9 +17,9 @@ export const stepExplanationSchema = z.object({
   start: z.string().optional(),
   date: z.string().optional(),
   counted: z.string().optional(),
-  closed: z.object({ holiday: z.string().optional(), weekday: z.number().optional() }).optional(),
+  closed: z.object({ holiday: z.string().optional(), es: z.object({ holiday: z.string() }).optional(), weekday: z.number().optional() }).optional(),
   weekendDays: z.number().optional(),
-  holidays: z.array(z.object({ date: z.string(), name: z.string() })).readonly().optional(),
+  holidays: z.array(holidaySchema).readonly().optional(),
 })
 
 export const clockExplanationSchema = z.discriminatedUnion('code', [

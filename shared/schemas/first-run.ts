@@ -29,7 +29,7 @@ export type FirstRun = z.input<typeof firstRunSchema>
 /** The first run as sent, with the sample rule sets this install ships: any other id is refused naming `ruleSet`. */
 export const firstRunWith = (sampleIds: readonly string[]) => firstRunSchema.extend({ ruleSet: ruleSetChoice(sampleIds) })
 
-/** A shipped sample a first yard may start from, with its own caution (and the caution's Spanish). */
+/** A shipped sample a first yard may start from, with its own caution (and the Spanish of its name and caution). */
 export const sampleChoiceSchema = z.object({
   id: z.string(),
   name: z.string(),
@@ -37,6 +37,7 @@ export const sampleChoiceSchema = z.object({
   timeZone: z.string(),
   caution: z.string(),
   cautionEs: z.string().nullable(),
+  nameEs: z.string().nullable(),
 })
 export type SampleChoice = z.infer<typeof sampleChoiceSchema>
 

@@ -2,13 +2,23 @@ import { z } from 'zod'
 import { msg } from './field-messages'
 import { calendarKeySchema } from './rule-sets'
 
-/** A holiday calendar the server's holiday source knows: a country, or one of its states, with its names. */
-export const holidayCalendarOptionSchema = calendarKeySchema.extend({ countryName: z.string(), stateName: z.string().optional() })
+/**
+ * A holiday calendar the server's holiday source knows: a country, or one of its states, with its names in
+ * English and, beside them, in Spanish where known (`shared/messages/rule-words.ts` picks the reader's).
+ */
+export const holidayCalendarOptionSchema = calendarKeySchema.extend({
+  countryName: z.string(),
+  stateName: z.string().optional(),
+  es: z.object({ countryName: z.string().optional(), stateName: z.string().optional() }).optional(),
+})
 export type HolidayCalendarOption = z.infer<typeof holidayCalendarOptionSchema>
 export const holidayCalendarListSchema = z.object({ calendars: z.array(holidayCalendarOptionSchema) })
 
+/** A holiday: its date and its name, with the Spanish beside the English where the holiday source has one. */
+export const holidaySchema = z.object({ date: z.string(), name: z.string(), es: z.object({ name: z.string() }).optional() })
+
 /** The days a business-day count skips, as the server works them out. */
-export const holidayListSchema = z.object({ holidays: z.array(z.object({ date: z.string(), name: z.string() })) })
+export const holidayListSchema = z.object({ holidays: z.array(holidaySchema) })
 
 const calendarParam = /^[A-Z]{2}(\/[A-Za-z0-9-]+)?$/
 /**

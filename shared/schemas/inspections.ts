@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { ruleSetTitleSchema } from './rule-sets'
 import { holdRecordSchema } from './holds'
 import { VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { FINDING_STATUSES, ITEM_CODES } from '../domain/inspection/inspection-checklist'
@@ -145,7 +146,7 @@ export const recommendationSchema = z.object({
   /** The share of the value that makes a total loss (percent-of-value); the screen words the explanation from the numbers. */
   percent: z.number().optional(),
   explanation: z.array(z.string()),
-  source: z.object({ citation: z.string(), confidence: z.string(), note: z.string().optional() }),
+  source: z.object({ citation: z.string(), confidence: z.string(), note: z.string().optional(), es: z.object({ citation: z.string().optional(), note: z.string().optional() }).optional() }),
 })
 export type Recommendation = z.infer<typeof recommendationSchema>
 
@@ -166,7 +167,7 @@ export const inspectionPageSchema = z.object({
   timeZone: z.string(),
   /** The yard's rate per hour now; each line keeps the rate it was written at. */
   labourRateCents: z.number(),
-  ruleSet: z.object({ name: z.string(), caution: z.string() }).nullable(),
+  ruleSet: ruleSetTitleSchema.nullable(),
   inspection: inspectionSchema.nullable(),
   recommendation: recommendationSchema.nullable(),
   /** Why there is no recommendation yet, in plain words. */

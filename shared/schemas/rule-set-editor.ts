@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { alongsideFieldIssues, optionalText, requiredText } from './fields'
-import { ruleSetSchema, type ClockEventKind, type RuleSetInput } from './rule-sets'
+import { ruleSetSchema, ruleSetTitleSchema, type ClockEventKind, type RuleSetInput } from './rule-sets'
 import { msg } from './field-messages'
 
 /** Events that happen at the arrival itself: nothing can be due before them, and only they are recorded by it. */
@@ -65,6 +65,8 @@ export const ruleSetSummarySchema = z.object({
   jurisdiction: z.string(),
   sample: z.boolean(),
   caution: z.string(),
+  /** The name and caution in Spanish, where the rule set has them. */
+  es: ruleSetTitleSchema.shape.es,
   /** The company's own copy (editable); false for a shipped sample. */
   own: z.boolean().default(false),
   /** The rule set the signed-in user's yard bills new tow-ins under. */

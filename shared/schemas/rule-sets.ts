@@ -27,6 +27,14 @@ const spanishText = z
   .optional()
   .transform((s) => (s ? s : undefined))
 const spanishLabel = z.object({ label: spanishText }).optional()
+/** A rule set's name in Spanish: as long as a copy's name may be. */
+export const SPANISH_NAME_MAX = 120
+const spanishName = z
+  .string()
+  .trim()
+  .max(SPANISH_NAME_MAX, msg('ruleSets.spanishNameLength', 'Keep the Spanish name to 120 characters or fewer.'))
+  .optional()
+  .transform((s) => (s ? s : undefined))
 
 export const sourceSchema = z.object({
   citation: z.string().min(1),
@@ -208,8 +216,8 @@ export const ruleSetSchema = z
     sample: z.boolean(),
     /** Shown wherever the rule set is: requirements vary, and the sample is not legal advice. */
     caution: z.string().min(1),
-    /** The caution in Spanish. */
-    es: z.object({ caution: spanishText }).optional(),
+    /** The name and the caution in Spanish. */
+    es: z.object({ name: spanishName, caution: spanishText }).optional(),
     timeZone: z.string().refine(isTimeZone, msg('ruleSets.ianaTimeZone', 'an IANA time zone such as America/Los_Angeles')),
     holidayCalendar: calendarKeySchema,
     businessDays: businessDaysSchema.optional(),
@@ -228,6 +236,17 @@ export const ruleSetSchema = z
   })
   .refine((r) => unique(r.vehicleClasses, (c) => c.code), { message: msg('ruleSets.classCodesDiffer', 'vehicle class codes must differ'), path: ['vehicleClasses'] })
   .refine((r) => unique(r.fees, (f) => f.code), { message: msg('ruleSets.feeCodesDiffer', 'fee codes must differ'), path: ['fees'] })
+
+/**
+ * A rule set named in a response: its name and caution in English, with their Spanish beside them where it
+ * has them (`ruleSetTitle` in shared/messages/rule-words.ts builds it; `ruleWords` picks the reader's).
+ */
+export const ruleSetTitleSchema = z.object({
+  name: z.string(),
+  caution: z.string(),
+  es: z.object({ name: z.string().optional(), caution: z.string().optional() }).optional(),
+})
+export type RuleSetTitle = z.infer<typeof ruleSetTitleSchema>
 
 /** A rule set's words as a response carries them beside the English: the Spanish label and citation. */
 export const spanishWordsSchema = z.object({ label: z.string().optional(), citation: z.string().optional() })

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { policeNoticeClockSchema } from './police-notices'
-import { policeNoticeSchema } from './rule-sets'
+import { policeNoticeSchema, ruleSetTitleSchema } from './rule-sets'
 import { optionalText, text } from './fields'
 import { holdInputSchema } from './holds'
 import { towRatesSchema, towSchema } from './tows'
@@ -46,7 +46,7 @@ export const intakeOptionsSchema = z.object({
     /** False until a manager sets the yard's tow rates: the charge shows as not set, not as $0. */
     ratesSet: z.boolean(),
   }),
-  ruleSet: z.object({ name: z.string(), caution: z.string() }).nullable(),
+  ruleSet: ruleSetTitleSchema.nullable(),
   /** The rule set's duty to tell the police of some tows, shown as soon as such a reason is chosen. */
   policeNotice: policeNoticeSchema.nullish(),
   vehicleClasses: z.array(z.object({ code: z.string(), label: z.string(), es: z.object({ label: z.string().optional() }).optional() })),

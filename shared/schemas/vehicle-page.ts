@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { ruleSetTitleSchema } from './rule-sets'
 import { DISPOSITIONS, VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { TOW_REASONS } from '../domain/tow/tow-reasons'
 import { vehicleSummarySchema } from './charges'
@@ -78,7 +79,7 @@ export const vehiclePageSchema = z.object({
   vehicle: vehicleRecordSchema,
   tow: towRecordSchema.nullable(),
   yard: z.object({ name: z.string(), code: z.string(), timeZone: z.string(), lat: z.number(), lng: z.number() }),
-  ruleSet: z.object({ name: z.string(), version: z.number(), caution: z.string() }).nullable(),
+  ruleSet: ruleSetTitleSchema.extend({ version: z.number() }).nullable(),
   holds: z.array(holdRecordSchema),
   files: z.array(fileRecordSchema),
   property: z.array(z.object({ id: z.uuid(), item: z.string(), location: text, count: z.number() })),

@@ -80,6 +80,8 @@ export const yardSettingsSchema = yardFieldsSchema.extend({
   id: z.uuid(),
   phone: z.string().nullable(),
   ruleSetName: z.string().nullable(),
+  /** The rule set's name in Spanish, where it has one. */
+  es: z.object({ ruleSetName: z.string() }).optional(),
   spaces: z.array(yardSettingsSpaceSchema),
 })
 export type YardSettings = z.infer<typeof yardSettingsSchema>

@@ -1,3 +1,4 @@
+import { ruleWord } from '@shared/messages/rule-words'
 import type { ClockExplanationView } from '@shared/schemas/clock-explanations'
 import { i18n } from '@/i18n'
 import { INTL_TAGS, isLocale, type Locale } from '@/i18n/locales'
@@ -11,7 +12,8 @@ const chosen = (): Locale => {
 /**
  * A deadline's explanation in the reader's language, from the facts the clocks give
  * (shared/domain/clocks: `explained`): "7 días hábiles después del ingreso del vehículo al almacenaje
- * (1 dic 2026): vence el 10 dic 2026, sin contar 2 días de fin de semana". An answer without them
+ * (1 dic 2026): vence el 10 dic 2026, sin contar 2 días de fin de semana". A holiday reads by its Spanish
+ * name where the server's holiday source gives one, else its English. An answer without them
  * (an older server) shows the core's English as it came. Police times read on the yard's clock.
  */
 export function clockExplanation(explained: ClockExplanationView | undefined, english: string, timeZone?: string | null): string {
@@ -35,11 +37,11 @@ export function clockExplanation(explained: ClockExplanationView | undefined, en
     : t(`clocks.explain.${e.kind === 'deadline' ? 'dueBy' : 'notBeforeDay'}`, { counting, start: calendarDate(e.start, locale), date })
   const skipped = [
     ...(e.weekendDays ? [t('clocks.explain.weekendDays', { n: e.weekendDays }, e.weekendDays)] : []),
-    ...(e.holidays ?? []).map((h) => t('clocks.explain.holiday', { name: h.name, date: calendarDate(h.date, locale) })),
+    ...(e.holidays ?? []).map((h) => t('clocks.explain.holiday', { name: ruleWord(h, 'name', locale), date: calendarDate(h.date, locale) })),
   ]
   if (skipped.length > 0) text = t('clocks.explain.skipping', { text, skipped: new Intl.ListFormat(INTL_TAGS[locale].dates, { type: 'conjunction' }).format(skipped) })
   if (e.counted) {
-    const why = e.closed?.holiday ?? t(`clocks.explain.weekday.${e.closed?.weekday ?? 0}`)
+    const why = (e.closed && ruleWord(e.closed, 'holiday', locale)) ?? t(`clocks.explain.weekday.${e.closed?.weekday ?? 0}`)
     text = t('clocks.explain.mailing', { text, counted: calendarDate(e.counted, locale), why, date })
   }
   return t('clocks.explain.sentence', { text })

@@ -55,6 +55,8 @@ describe('first run', () => {
       expect(r.caution).toMatch(/^Sample — verify with your local code\./)
       expect(r.cautionEs).toMatch(/verifique/i)
     }
+    // Each sample's Spanish name, as the sample files give it.
+    expect(ruleSets.map((r: { nameEs: string | null }) => r.nameEs)).toEqual(['California (ejemplo)', 'Florida (ejemplo)', 'Plantilla de ordenanza municipal (cada período de 24 horas)'])
     // The built-in geocoder is staff-only; the first run reaches it through its own public door.
     expect(map).toMatchObject({ tileUrl: '/api/fakes/tiles/{z}/{x}/{y}.png', geocoderUrl: '/api/first-run/geocoder' })
     const found = (await s.get('/api/first-run/geocoder/search?q=45%20Cinder&format=json').expect(200)).body

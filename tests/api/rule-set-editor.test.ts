@@ -122,6 +122,7 @@ describe('refusals name the field and write nothing', () => {
     ['post offices closed every weekday', (r: RuleSetInput) => (r.mailDeadlines!.closedWeekdays = [0, 1, 2, 3, 4, 5, 6]), 'ruleSet.mailDeadlines.closedWeekdays'],
     ['an arrival that records a sale', (r: RuleSetInput) => (r.arrivalEvents = { kinds: ['stored', 'lien-sale-held'], source: { citation: 'test', confidence: 'none' as const } }), 'ruleSet.arrivalEvents.kinds'],
     ['a holiday calendar nobody knows', (r: RuleSetInput) => (r.holidayCalendar = { country: 'US', state: 'ZZ' }), 'ruleSet.holidayCalendar'],
+    ['a Spanish name over 120 characters', (r: RuleSetInput) => (r.es = { ...r.es, name: 'Tarifas de Fresno '.repeat(7) }), 'ruleSet.es.name'],
     ['a business-day calendar nobody knows', (r: RuleSetInput) => (r.businessDays = { skip: 'closed-by-every-calendar', calendars: [{ country: 'US' }, { country: 'QQ' }], source: { citation: 'test', confidence: 'none' as const } }), 'ruleSet.businessDays.calendars'],
   ])('save_with%s_is400NamingTheField', async (_what, spoil, path) => {
     const m = await signedIn(app.app, staff.manager)
@@ -216,8 +217,18 @@ describe('the calendars the editor offers', () => {
   it('holidayCalendars_forAManager_listsCountriesAndStatesTheHolidaySourceKnows', async () => {
     const m = await signedIn(app.app, staff.manager)
     const { calendars } = (await m.get('/api/settings/holiday-calendars').expect(200)).body
-    expect(calendars).toContainEqual({ country: 'US', countryName: 'United States of America' })
-    expect(calendars).toContainEqual({ country: 'US', state: 'CA', countryName: 'United States of America', stateName: 'California' })
+    // The English as date-holidays names them; the country's Spanish is CLDR's (Intl.DisplayNames), and
+    // date-holidays has no Spanish for a US state's name, so California's stays as it is.
+    expect(calendars).toContainEqual({ country: 'US', countryName: 'United States of America', es: { countryName: 'Estados Unidos' } })
+    expect(calendars).toContainEqual({ country: 'US', state: 'CA', countryName: 'United States of America', stateName: 'California', es: { countryName: 'Estados Unidos' } })
+  })
+
+  // date-holidays' data names the federal holidays in Spanish: Columbus Day is "Descubrimiento de América".
+  it('draftHolidays_carryEachHolidaysSpanishNameBesideItsEnglish', async () => {
+    const m = await signedIn(app.app, staff.manager)
+    const federal = (await m.get('/api/settings/holidays?calendars=US&from=2025&to=2025').expect(200)).body.holidays as { date: string }[]
+    expect(federal).toContainEqual({ date: '2025-10-13', name: 'Columbus Day', es: { name: 'Descubrimiento de América' } })
+    expect(federal).toContainEqual({ date: '2025-07-04', name: 'Independence Day', es: { name: 'Día de la Independencia' } })
   })
 
   // 5 U.S.C. § 6103(a): Columbus Day, the second Monday in October (13 October 2025), is a federal holiday;

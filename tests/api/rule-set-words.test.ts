@@ -22,6 +22,7 @@ beforeAll(async () => {
 })
 afterAll(() => app.close())
 
+const spanishFields = JSON.parse(readFileSync(path.join(import.meta.dirname, '../../shared/messages/es/fields.json'), 'utf8')) as { fields: { ruleSets: Record<string, string> } }
 const sample = (file: string) => JSON.parse(readFileSync(path.join(SAMPLE_RULE_SETS_DIR, file), 'utf8')) as Record<string, unknown>
 
 async function fileBytes(session: Awaited<ReturnType<typeof signedIn>>, fileId: string) {
@@ -64,6 +65,9 @@ describe('the staff screens carry the Spanish beside the English', () => {
     const next = page.summary.nextDeadline
     expect(next).toMatchObject({ code: 'notice-of-lien', label: 'Send the notice of lien by certified mail', es: { label: 'Enviar el aviso de gravamen por correo certificado' } })
     expect(next.es.citation).toMatch(/^Fla\. Stat\. § 713\.78\(4\): aviso de gravamen por correo certificado dentro de 7 días hábiles/)
+    // The counting rules it followed carry their citations' Spanish too (the sample's businessDays and mailDeadlines).
+    const counting = next.rules.find((r: { code: string }) => r.code === 'business-days')
+    expect(ruleWords(counting, 'es').citation).toMatch(/^Fla\. Stat\. § 713\.78\(4\): el aviso de gravamen va por correo certificado/)
 
     const list = (await office.get('/api/deadlines').expect(200)).body
     const entry = list.entries.find((e: { vehicleId: string }) => e.vehicleId === vehicle.id)
@@ -72,6 +76,55 @@ describe('the staff screens carry the Spanish beside the English', () => {
     const invoice = (await office.get(`/api/vehicles/${vehicle.id}/invoice`).expect(200)).body.invoice
     const impound = invoice.lines.find((l: { code: string }) => l.code === 'impound')
     expect(impound).toMatchObject({ kind: 'fee', label: 'Impound and storage intake', es: { label: 'Depósito e ingreso al almacenaje' } })
+  })
+})
+
+describe("a rule set's Spanish name", () => {
+  it('the samples carry it wherever the rule set is named: the settings list, the vehicle page and the bill', async () => {
+    const staff = await makeStaff(app.db)
+    const vehicle = await makeVehicle(app.db, staff.yard.id, { state: 'storage', ruleSetVersionId: await sampleVersion(app.db, 'florida-sample'), arrivedAt: new Date(Date.now() - 2 * DAY) })
+    const manager = await signedIn(app.app, staff.manager)
+    const listed = (await manager.get('/api/settings/rule-sets').expect(200)).body.ruleSets as { id: string; name: string; es?: { name?: string } }[]
+    expect(listed.find((r) => r.id === 'florida-sample')).toMatchObject({ name: 'Florida (sample)', es: { name: 'Florida (ejemplo)' } })
+    const page = (await manager.get(`/api/vehicles/${vehicle.id}`).expect(200)).body
+    expect(ruleWords(page.ruleSet, 'es')).toMatchObject({ name: 'Florida (ejemplo)', caution: expect.stringMatching(/^Ejemplo — verifique/) })
+    expect(ruleWords(page.ruleSet, 'en').name).toBe('Florida (sample)')
+    const invoice = (await manager.get(`/api/vehicles/${vehicle.id}/invoice`).expect(200)).body.invoice
+    expect(invoice.ruleSet.es.name).toBe('Florida (ejemplo)')
+  })
+
+  it('a manager saves it; an empty box means none; a copy does not keep the name it was copied from', async () => {
+    const staff = await makeStaff(app.db)
+    const m = await signedIn(app.app, staff.manager)
+    const copy = (await m.post('/api/settings/rule-sets/florida-sample/copy', { name: 'Our Orlando rates' }).expect(201)).body
+    expect(copy.ruleSet.es).toEqual({ caution: expect.stringMatching(/^Ejemplo/) })
+
+    const named = { ...copy.ruleSet, es: { ...copy.ruleSet.es, name: '  Nuestras tarifas de Orlando ' } }
+    const saved = (await m.put(`/api/settings/rule-sets/${copy.id}`, { version: 1, ruleSet: named }).expect(200)).body
+    expect(saved.ruleSet.es.name).toBe('Nuestras tarifas de Orlando')
+    const listed = (await m.get('/api/settings/rule-sets').expect(200)).body.ruleSets as { id: string; es?: { name?: string } }[]
+    expect(listed.find((r) => r.id === copy.id)?.es?.name).toBe('Nuestras tarifas de Orlando')
+
+    const emptied = { ...saved.ruleSet, es: { ...saved.ruleSet.es, name: '   ' } }
+    const again = (await m.put(`/api/settings/rule-sets/${copy.id}`, { version: 2, ruleSet: emptied }).expect(200)).body
+    expect(again.ruleSet.es.name).toBeUndefined()
+    expect(ruleWords(again.ruleSet, 'es').name).toBe('Our Orlando rates')
+  })
+
+  it('too long, it is refused with the field named, in both languages, and nothing is written', async () => {
+    const staff = await makeStaff(app.db)
+    const m = await signedIn(app.app, staff.manager)
+    const copy = (await m.post('/api/settings/rule-sets/florida-sample/copy', { name: 'Our Tampa rates' }).expect(201)).body
+    const versions = await app.db.$count(t.ruleSetVersions)
+    const audit = await app.db.$count(t.settingsChanges)
+    const res = await m.put(`/api/settings/rule-sets/${copy.id}`, { version: 1, ruleSet: { ...copy.ruleSet, es: { ...copy.ruleSet.es, name: 'n'.repeat(121) } } })
+    expect(res.status).toBe(400)
+    expect(res.body.issues).toContainEqual(expect.objectContaining({ path: 'ruleSet.es.name', code: 'ruleSets.spanishNameLength', message: 'Keep the Spanish name to 120 characters or fewer.' }))
+    expect(spanishFields.fields.ruleSets.spanishNameLength).toBe('El nombre en español no puede pasar de 120 caracteres.')
+    expect(await app.db.$count(t.ruleSetVersions)).toBe(versions)
+    expect(await app.db.$count(t.settingsChanges)).toBe(audit)
+    // 120 characters are fine.
+    await m.put(`/api/settings/rule-sets/${copy.id}`, { version: 1, ruleSet: { ...copy.ruleSet, es: { ...copy.ruleSet.es, name: 'n'.repeat(120) } } }).expect(200)
   })
 })
 
@@ -93,10 +146,13 @@ describe('a notice letter in Spanish', () => {
     const spanish = await letterIn('es')
     expect(spanish).toContain('Enviar el aviso de gravamen por correo certificado — Fla. Stat. § 713.78(4): aviso de gravamen por correo certificado dentro de 7 días hábiles')
     expect(spanish).toContain('La Fla. Stat. § 713.78 se modificó en 2024')
+    expect(spanish).toContain('Florida (ejemplo)')
+    expect(spanish).not.toContain('Florida (sample)')
     expect(spanish).not.toContain('Send the notice of lien')
     const english = await letterIn('en')
     expect(english).toContain('Send the notice of lien by certified mail — Fla. Stat. § 713.78(4): notice of lien by certified mail within 7 business days')
     expect(english).not.toContain('Enviar el aviso')
+    expect(english).toContain('Florida (sample)')
   })
 })
 
@@ -123,6 +179,9 @@ describe('rule sets stored before the Spanish', () => {
     expect(filled.fees.map((f) => f.es?.label)).toEqual(['Depósito e ingreso al almacenaje', 'Nuestro aviso', 'Entrega fuera de horario'])
     expect(filled.vehicleClasses.map((c) => c.es?.label)).toEqual(old.vehicleClasses.map((c) => c.es?.label))
     expect(filled.es?.caution).toBe(old.es?.caution)
+    // The rule set's name, still the sample's, and the total-loss citation get theirs too.
+    expect(filled.es?.name).toBe('Florida (ejemplo)')
+    expect(filled.totalLoss.source.es?.citation).toBe(old.totalLoss.source.es?.citation)
     // Only words were added: with every `es` taken away again, the version is what it was.
     const bare = JSON.parse(JSON.stringify(row!.body, (key, value: unknown) => (key === 'es' ? undefined : value))) as Record<string, unknown>
     const strippedAgain = JSON.parse(JSON.stringify(stripped, (key, value: unknown) => (key === 'es' ? undefined : value))) as Record<string, unknown>

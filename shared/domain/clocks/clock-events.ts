@@ -88,7 +88,7 @@ export type StepExplanation = {
   start?: string
   date?: string
   counted?: string
-  closed?: { holiday?: string; weekday?: number }
+  closed?: { holiday?: string; es?: { holiday: string }; weekday?: number }
   weekendDays?: number
   holidays?: readonly Holiday[]
 }

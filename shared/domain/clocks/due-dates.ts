@@ -3,7 +3,7 @@ import { countBusinessDays } from '../time/business-days'
 import { type DayNumber, isoDate, isoInstant, weekday } from '../time/calendar-dates'
 import { type ClockCalendars, postOfficeClosed } from './clock-calendars'
 import { clockEventLabels, mailingEvents } from './clock-events'
-import type { Holiday } from '../time/holidays'
+import { type Holiday, holidayNames } from '../time/holidays'
 import { startOfLocalDay } from '../time/local-time'
 
 /** Where one step lands from one start date: nothing here depends on the vehicle. */
@@ -25,11 +25,13 @@ export type DueDateWords = {
   start: string
   /** The day counted, when a mailing moved the due date off it to the open day before. */
   counted?: string
-  /** Why post offices were closed on the counted day: a holiday's name, or a weekday (0 Sunday … 6 Saturday). */
-  closed?: { holiday?: string; weekday?: number }
+  /** Why post offices were closed on the counted day: a holiday's name (with its Spanish), or a weekday (0 Sunday … 6 Saturday). */
+  closed?: PostOfficeClosed
   weekendDays: number
   holidays: readonly Holiday[]
 }
+
+export type PostOfficeClosed = { holiday?: string; es?: { holiday: string }; weekday?: number }
 
 const NO_HOLIDAYS: readonly Holiday[] = Object.freeze([])
 
@@ -89,7 +91,7 @@ function mailingDay(step: TimelineStep, day: DayNumber, calendars: ClockCalendar
   return {
     day: open,
     note: `${isoDate(day)} is ${why}, when post offices are closed, so the mailing is due the open day before, ${isoDate(open)}`,
-    closed: holiday ? { holiday: holiday.name } : { weekday: weekday(day) },
+    closed: holiday ? { holiday: holiday.name, ...(holiday.es ? { es: { holiday: holiday.es.name } } : {}) } : { weekday: weekday(day) },
   }
 }
 
@@ -116,13 +118,13 @@ function work(step: TimelineStep, startDay: DayNumber, zone: string, calendars: 
     edgeMs,
     edgeIso: isoInstant(edgeMs),
     weekendDays: counted.weekendDays,
-    holidays: counted.holidays.length > 0 ? counted.holidays.map((h) => ({ date: h.date, name: h.name })) : NO_HOLIDAYS,
+    holidays: counted.holidays.length > 0 ? counted.holidays.map(holidayNames) : NO_HOLIDAYS,
     explanation: mailing.note ? `${counting}; ${mailing.note}.` : `${counting}.`,
     words: {
       start: isoDate(startDay),
       ...(mailing.closed ? { counted: isoDate(counted.day), closed: mailing.closed } : {}),
       weekendDays: counted.weekendDays,
-      holidays: counted.holidays.length > 0 ? counted.holidays.map((h) => ({ date: h.date, name: h.name })) : NO_HOLIDAYS,
+      holidays: counted.holidays.length > 0 ? counted.holidays.map(holidayNames) : NO_HOLIDAYS,
     },
   }
 }

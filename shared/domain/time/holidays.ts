@@ -1,7 +1,13 @@
 import { type DayNumber, dayFromIsoDate } from './calendar-dates'
 
-/** A holiday as the server sends it to the client: the date it is observed on, and its name. */
-export type Holiday = { date: string; name: string }
+/**
+ * A holiday as the server sends it to the client: the date it is observed on, and its name in English with
+ * the Spanish beside it where the holiday source has one (`shared/messages/rule-words.ts` picks the reader's).
+ */
+export type Holiday = { date: string; name: string; es?: { name: string } | undefined }
+
+/** A holiday's date and names, without anything a calendar added to find it. */
+export const holidayNames = (h: Holiday): Holiday => (h.es ? { date: h.date, name: h.name, es: { name: h.es.name } } : { date: h.date, name: h.name })
 export type DatedHoliday = Holiday & { day: DayNumber }
 
 /**

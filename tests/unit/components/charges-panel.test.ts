@@ -95,4 +95,15 @@ describe('the bill panel in Spanish', () => {
     expect(w.text()).toContain('Todavía no corre ningún plazo legal.')
     withI18n('en')
   })
+
+  it('chargesPanel_ruleSetWithASpanishName_readInSpanish_namesItInSpanish_andInEnglishAsWritten', () => {
+    const named = { ...ruleSet, es: { name: 'California (ejemplo)', caution: 'Ejemplo — verifique con su código local.' } }
+    const props = { summary: null, ruleSet: named, problem: null, ...noValue }
+    i18n.global.locale.value = 'es'
+    const es = mount(VehiclesChargesPanel, { props, global })
+    expect(es.get('.charges-panel__rules').text()).toBe('Se cobra según California (ejemplo), versión 1. Ejemplo — verifique con su código local.')
+    i18n.global.locale.value = 'en'
+    const en = mount(VehiclesChargesPanel, { props, global })
+    expect(en.get('.charges-panel__rules').text()).toBe('Billed under California (sample), version 1. Sample — verify with your local code.')
+  })
 })

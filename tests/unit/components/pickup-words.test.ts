@@ -3,7 +3,7 @@ import { mount } from '@vue/test-utils'
 import { afterEach, beforeAll, describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
 import { join } from 'node:path'
-import { CAUTIONS, DEFER_TO_MAKER, PICKUP_BADGE_LABELS, pickupBadge } from '@shared/domain/inspection'
+import { CAUTIONS, DEFER_TO_MAKER, NEWTON_METRES_PER_FOOT_POUND_FORCE, PICKUP_BADGE_LABELS, TORQUE_FACTOR_NOTE, pickupBadge } from '@shared/domain/inspection'
 import { i18n, loadMessages } from '@/i18n'
 import InspectionsPickupBadge from '../../../src/components/inspections/InspectionsPickupBadge.vue'
 import InspectionsSafety from '../../../src/components/inspections/InspectionsSafety.vue'
@@ -12,7 +12,7 @@ import InspectionsSafety from '../../../src/components/inspections/InspectionsSa
 // the core keeps for older readers and the history must read as the English catalog does.
 const global = { plugins: [i18n] }
 // Read as plain JSON: the unit project compiles catalog imports into vue-i18n's message functions.
-type Words = { badges: Record<string, string>; pickupReasons: Record<string, string>; cautions: Record<string, string>; deferToMaker: string }
+type Words = { badges: Record<string, string>; pickupReasons: Record<string, string>; cautions: Record<string, string>; cautionSources: Record<string, string>; deferToMaker: string }
 const en = JSON.parse(readFileSync(join(import.meta.dirname, '../../../shared/messages/en/inspection.json'), 'utf8')) as { inspection: Words }
 beforeAll(() => Promise.all([loadMessages('en'), loadMessages('es')]))
 afterEach(() => {
@@ -48,6 +48,28 @@ describe('the workshop cautions in the reader’s language', () => {
   it('the English catalog reads as the core’s cautions', () => {
     for (const c of CAUTIONS) expect(en.inspection.cautions[c.code], c.code).toBe(c.text)
     expect(en.inspection.deferToMaker).toBe(DEFER_TO_MAKER)
+  })
+
+  it('the English catalog reads each caution’s source and the torque factor as the core does', () => {
+    for (const c of CAUTIONS) expect(en.inspection.cautionSources[c.code], c.code).toBe(c.source)
+    i18n.global.locale.value = 'en'
+    expect(i18n.global.t('inspection.torqueFactor', { factor: NEWTON_METRES_PER_FOOT_POUND_FORCE })).toBe(TORQUE_FACTOR_NOTE)
+  })
+
+  it('in Spanish the sources are explained in Spanish, keeping each standard’s and statute’s name and quoted words as written', () => {
+    i18n.global.locale.value = 'es'
+    const w = mount(InspectionsSafety, { props: { acknowledged: null, canAcknowledge: false, busy: false, atTime: (s: string) => s }, global })
+    const sources = w.findAll('.safety__sources li').map((li) => li.text())
+    expect(sources).toHaveLength(CAUTIONS.length + 1)
+    // The names as the standard and the rules print them: ASME PASE-2019, WAC 296-307-22509(3), 29 CFR 1910.244(a)(2).
+    expect(sources[0]).toContain('ASME PASE-2019')
+    expect(sources[1]).toContain('WAC 296-307-22509(3): "Working under a load raised only with jacks is prohibited."')
+    expect(sources[1]).toContain('OSHA 29 CFR 1910.244(a)(2)')
+    expect(sources[1]).toContain('de memoria')
+    expect(sources[2]).toBe('Práctica de costumbre en el taller [S]')
+    expect(sources[4]).toBe('Práctica común [S]; el torque es el que indica el fabricante')
+    expect(sources[5]).toBe(`1 ft·lbf = ${NEWTON_METRES_PER_FOOT_POUND_FORCE} N·m exactos (0.3048 m × 4.4482216152605 N)`)
+    for (const [i, c] of CAUTIONS.entries()) expect(sources[i], c.code).not.toBe(c.source)
   })
 
   it('in Spanish keeps every point: stands on firm level ground, never under a jack alone, chocks, lug nuts to the maker’s figure in a star, and the maker’s procedures', () => {

@@ -24,6 +24,37 @@ describe('the sample rule sets in Spanish', () => {
     expect(ruleSet.es?.caution).toBeTruthy()
   })
 
+  // The samples' own Spanish names (server/rule-sets/samples): "ejemplo" is the glossary's word for a sample.
+  it.each([
+    ['california.json', 'California (ejemplo)'],
+    ['florida.json', 'Florida (ejemplo)'],
+    ['ordinance-24h.json', 'Plantilla de ordenanza municipal (cada período de 24 horas)'],
+  ])('theSampleName_%s_readInSpanish_is%s', (file, spanish) => {
+    const { ruleSet } = samples.find((s) => s.file === file)!
+    expect(ruleWord(ruleSet, 'name', 'es')).toBe(spanish)
+    expect(ruleWord(ruleSet, 'name', 'en')).toBe(ruleSet.name)
+    expect(ruleWord(ruleSet, 'caution', 'es')).toMatch(/^Ejemplo — verifique con su código local\./)
+  })
+
+  it.each(samples)('theTotalLossAndCountingCitations_$file_areExplainedInSpanishKeepingTheStatute', ({ ruleSet }) => {
+    const sources = [ruleSet.totalLoss.source, ...(ruleSet.businessDays ? [ruleSet.businessDays.source] : []), ...(ruleSet.mailDeadlines ? [ruleSet.mailDeadlines.source] : [])]
+    for (const source of sources) {
+      expect(source.es?.citation, source.citation).toBeTruthy()
+      for (const statute of [...statutes(source.citation), ...(source.citation.match(/5 U\.S\.C\. § 6103/g) ?? [])]) expect(source.es?.citation, source.citation).toContain(statute)
+      if (source.note) expect(source.es?.note, source.note).toBeTruthy()
+    }
+  })
+
+  it('aSpanishNameBox_emptyOrTooLong_meansNoneOrIsRefusedNamingTheField', () => {
+    const json = structuredClone(ordinanceJson) as RuleSetInput
+    json.es = { ...json.es, name: '   ' }
+    expect(ruleSetSchema.parse(json).es?.name).toBeUndefined()
+    json.es = { ...json.es, name: 'n'.repeat(121) }
+    const refused = ruleSetSchema.safeParse(json)
+    expect(refused.success).toBe(false)
+    expect(refused.error?.issues.map((i) => [i.path.join('.'), i.message])).toEqual([['es.name', 'Keep the Spanish name to 120 characters or fewer.']])
+  })
+
   it.each(samples)('everyStepCitation_$file_isExplainedInSpanishKeepingTheStatute', ({ ruleSet }) => {
     const sources = [...ruleSet.timeline.map((s) => s.source), ...(ruleSet.policeNotice ? [ruleSet.policeNotice.source] : [])]
     for (const source of sources) {

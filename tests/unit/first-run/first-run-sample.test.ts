@@ -4,7 +4,7 @@ import { defaultSample, stateOfAddress, stateOfZone } from '@/components/first-r
 
 // The first-run page offers the sample of the yard's state when the address or a one-state time zone
 // says which; otherwise the first shipped sample. Samples as shipped in server/rule-sets/samples.
-const sample = (id: string, jurisdiction: string, timeZone: string): SampleChoice => ({ id, name: id, jurisdiction, timeZone, caution: 'Sample — verify with your local code.', cautionEs: null })
+const sample = (id: string, jurisdiction: string, timeZone: string): SampleChoice => ({ id, name: id, jurisdiction, timeZone, caution: 'Sample — verify with your local code.', cautionEs: null, nameEs: null })
 const SAMPLES = [
   sample('california-sample', 'State of California, USA', 'America/Los_Angeles'),
   sample('florida-sample', 'State of Florida, USA', 'America/New_York'),
