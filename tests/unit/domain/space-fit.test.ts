@@ -19,13 +19,15 @@ describe('spaceFit', () => {
     expect(spaceFit(vehicleClass, size).fits).toBe(fits)
   })
 
-  it('a refusal says what the vehicle needs and what the space is', () => {
+  it('a refusal says what the vehicle needs and what the space is, in English and as a code with the two sizes', () => {
     expect(spaceFit('standard', 'motorcycle')).toEqual({
       fits: false,
       needs: 'standard',
       reason: 'This vehicle needs a car space or larger; this is a motorcycle bay.',
+      code: 'tooSmall',
+      params: { needs: 'standard', size: 'motorcycle' },
     })
-    expect(spaceFit('heavy', 'standard')).toMatchObject({ needs: 'wide', reason: 'This vehicle needs a heavy-duty space or larger; this is a car space.' })
+    expect(spaceFit('heavy', 'standard')).toMatchObject({ needs: 'wide', reason: 'This vehicle needs a heavy-duty space or larger; this is a car space.', code: 'tooSmall', params: { needs: 'wide', size: 'standard' } })
   })
 
   it('an unknown class needs a car space', () => {
