@@ -24,7 +24,10 @@ export function holidayCalendar(key: CalendarKey): HolidayCalendar {
   const id = `${key.country}/${key.state ?? ''}`
   let calendar = calendars.get(id)
   if (!calendar) {
-    calendar = yearByYear(new (holidaysLibrary())(key.country, key.state ?? ''))
+    const Library = holidaysLibrary()
+    // Two instances: date-holidays' getHolidays(year, 'es') switches the instance's language for every later
+    // call, and a substitute day is matched to its holiday by the English name (SUBSTITUTE below).
+    calendar = yearByYear(new Library(key.country, key.state ?? ''), new Library(key.country, key.state ?? '', { languages: ['es'] }))
     calendars.set(id, calendar)
   }
   return calendar
@@ -61,9 +64,9 @@ const SUBSTITUTE = / \(substitute day\)$/
  * date-holidays' Spanish name beside it where the library has one; where it has none it answers in the
  * calendar's own language, the same name, and no Spanish is given (the reader then reads the English).
  */
-export function publicHolidays(source: HolidaysType, year: number): Holiday[] {
+export function publicHolidays(source: HolidaysType, year: number, inSpanish?: HolidaysType): Holiday[] {
   const all = source.getHolidays(year)
-  const spanish = new Map(source.getHolidays(year, 'es').map((h) => [`${h.date}|${h.rule}`, h.name]))
+  const spanish = new Map((inSpanish?.getHolidays(year) ?? []).map((h) => [`${h.date}|${h.rule}`, h.name]))
   const publicNames = new Set(all.filter((h) => h.type === 'public').map((h) => h.name))
   return all
     .filter((h) => h.type === 'public' || (h.substitute === true && publicNames.has(h.name.replace(SUBSTITUTE, ''))))
@@ -73,12 +76,12 @@ export function publicHolidays(source: HolidaysType, year: number): Holiday[] {
     })
 }
 
-function yearByYear(source: HolidaysType): HolidayCalendar {
+function yearByYear(source: HolidaysType, inSpanish: HolidaysType): HolidayCalendar {
   const years = new Map<number, HolidayCalendar>()
   const ofYear = (year: number) => {
     let cal = years.get(year)
     if (!cal) {
-      cal = holidayCalendarFromList(publicHolidays(source, year))
+      cal = holidayCalendarFromList(publicHolidays(source, year, inSpanish))
       years.set(year, cal)
     }
     return cal

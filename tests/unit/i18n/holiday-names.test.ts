@@ -34,6 +34,24 @@ describe('holiday names in the reader’s language', () => {
     for (const h of untranslated) expect(ruleWord(h, 'name', 'es')).toBe(h.name)
   })
 
+  it('aCalendarAskedYearAfterYear_keepsEveryObservedDay_withItsSpanishName (5 U.S.C. 6103(b) and OPM’s weekend rule)', () => {
+    // Veterans Day falls on Saturday 11 Nov 2028 (observed Friday 10 Nov) and Sunday 11 Nov 2029 (observed Monday
+    // 12 Nov). Asking the holiday source for a year's Spanish names once switched its language for the years after,
+    // and the observed days were lost from the second year on: a business-day count would have come out a day early.
+    const calendar = holidayCalendar({ country: 'US', state: 'AK' })
+    for (const year of [2028, 2029, 2030]) calendar.between(dayFromCivil(year, 1, 1), dayFromCivil(year, 12, 31))
+    const observed = (year: number) =>
+      calendar.between(dayFromCivil(year, 11, 1), dayFromCivil(year, 11, 30)).filter((h) => h.name.startsWith('Veterans Day')).map(({ date, name, es }) => ({ date, name, es }))
+    expect(observed(2028)).toEqual([
+      { date: '2028-11-10', name: 'Veterans Day (substitute day)', es: { name: 'Día del Veterano (día sustituto)' } },
+      { date: '2028-11-11', name: 'Veterans Day', es: { name: 'Día del Veterano' } },
+    ])
+    expect(observed(2029)).toEqual([
+      { date: '2029-11-11', name: 'Veterans Day', es: { name: 'Día del Veterano' } },
+      { date: '2029-11-12', name: 'Veterans Day (substitute day)', es: { name: 'Día del Veterano (día sustituto)' } },
+    ])
+  })
+
   it('aDeadlineExplanation_readInSpanish_namesTheSkippedHolidayInSpanish', () => {
     const d = notice()
     expect(d.explained.holidays).toEqual([{ date: '2026-07-03', name: 'Independence Day (substitute day)', es: { name: 'Día de la Independencia (día sustituto)' } }])
