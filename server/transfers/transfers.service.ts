@@ -73,7 +73,7 @@ export async function recordTransfer(changes: VehicleChanges, actor: User, vehic
         const es = gate.es && `${gate.es.step ?? gate.step ?? 'las reglas'}${(gate.es.citation ?? gate.citation) ? `, ${gate.es.citation ?? gate.citation}` : ''}`
         throw field('date', 'transfers.saleBeforeLaw', `The law allows the lien sale from ${gate.date} (${rule}); ${input.date} is earlier.`, { date: gate.date, rule, ...(es ? { ruleEs: es } : {}), day: input.date })
       }
-      if (!gate.open) throw field('date', 'transfers.saleNotOpen', `The law has not been shown to allow a lien sale yet. ${gate.why}`, { why: gate.why })
+      if (!gate.open) throw field('date', 'transfers.saleNotOpen', `The law has not been shown to allow a lien sale yet. ${gate.why}`, { why: gate.why, gate: gate.code, ...(gate.date ? { date: gate.date } : {}) })
       // What was owed at the end of the sale day (or now, for a sale today).
       const asOf = new Date(Math.min(now.getTime(), startOfLocalDay(zone, day + 1)))
       const facts = await moveFacts(w.tx, w.vehicle, w.yard, true, asOf)

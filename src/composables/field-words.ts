@@ -42,7 +42,22 @@ function shown(params: FieldParams | undefined): Record<string, string | number>
     const size = (s: unknown) => (te(`vehicle.spaceSizes.${String(s)}`) ? t(`vehicle.spaceSizes.${String(s)}`) : String(s))
     out.reason = t(`vehicle.spaceFit.${fitCode}`, { needs: size(params?.needs), size: size(params?.size) })
   }
+  // The lien-sale gate's reason (a sale recorded while the law does not allow it yet): worded from its code.
+  const gate = typeof params?.gate === 'string' ? GATE_WORDS[params.gate] : undefined
+  if (gate && te(gate)) out.why = t(gate, { date: out.date ?? '' })
   return out
+}
+
+/** Where each of the lien-sale gate's codes has its words (LienSaleGateCode in shared/domain/clocks). */
+const GATE_WORDS: Record<string, string> = {
+  'not-before': 'clocks.explain.not-before',
+  'no-sale-date': 'publications.sale.blocked.no-sale-date',
+  'no-branch': 'publications.sale.blocked.no-branch',
+  'needs-value': 'publications.sale.blocked.needs-value',
+  'needs-model-year': 'publications.sale.blocked.needs-model-year',
+  waiting: 'clocks.explain.gate.waiting',
+  'too-early': 'clocks.explain.gate.too-early',
+  expired: 'clocks.explain.gate.expired',
 }
 
 /** An issue from the server (`code`, `params`) or from a schema check here (its message), in the reader's language. */

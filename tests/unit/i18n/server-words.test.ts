@@ -190,6 +190,14 @@ describe('the server’s own words read in the reader’s language', () => {
       { code: 'transfers.saleBeforeLaw', params: { date: '2026-12-30', rule: 'Earliest lien sale, Cal. Civ. Code § 3072', ruleEs: 'Primer día para la venta por gravamen, Cal. Civ. Code § 3072', day: '2026-12-20' } },
       'La ley permite la venta por gravamen a partir del 30 dic 2026 (Primer día para la venta por gravamen, Cal. Civ. Code § 3072); el 20 dic 2026 es antes.',
     ],
+    [
+      { code: 'transfers.saleNotOpen', params: { why: 'Not before 2026-12-30.', gate: 'not-before', date: '2026-12-30' } },
+      'Todavía no se ha mostrado que la ley permita la venta por gravamen. No antes del 30 dic 2026.',
+    ],
+    [
+      { code: 'transfers.saleNotOpen', params: { why: 'The rule set sets no lien-sale date for this vehicle.', gate: 'no-sale-date' } },
+      'Todavía no se ha mostrado que la ley permita la venta por gravamen. El conjunto de reglas no fija fecha de venta para este vehículo.',
+    ],
   ])('%j reads in Spanish', (words, spanish) => {
     i18n.global.locale.value = 'es'
     expect(fieldText({ message: 'English', ...words })).toBe(spanish)
