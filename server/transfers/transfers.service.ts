@@ -26,8 +26,8 @@ const SALE_FIRST = 'Record the buyer, the price and the date before the bill of 
 function odometerNeeded(rule: OdometerDecision): [FieldCode, string, FieldParams?] {
   const message = `Enter the odometer reading: ${rule.reason}`
   if (!rule.exemptFrom) return ['transfers.odometerNoYear', message]
-  const { year, clause } = rule.exemptFrom
-  return [clause === '49 CFR 580.17(a)(3)' ? 'transfers.odometerOlder' : 'transfers.odometerNewer', message, { year: String(year), clause }]
+  const { year, clause, band } = rule.exemptFrom
+  return [band === 'older' ? 'transfers.odometerOlder' : 'transfers.odometerNewer', message, { year: String(year), clause }]
 }
 
 /** A transfer is recorded while the vehicle waits in Storage or Release, and changes until it is signed. */

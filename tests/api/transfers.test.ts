@@ -117,6 +117,8 @@ describe('title transfer: sign-over', () => {
     const res = await s.put(base(v.id), { ...SIGN_OVER, odometer: null })
     expect(res.status).toBe(400)
     expect(res.body.issues[0].path).toBe('odometer')
+    // The newer band's clause and the year its exemption starts, for the reader's language (transfers.odometerNewer).
+    expect(res.body.issues[0]).toMatchObject({ code: 'transfers.odometerNewer', params: { year: '2038', clause: '49 CFR 580.17(a)(4)' } })
     await nothingWritten(v.id, before)
     expect((await s.put(base(v.id), { ...SIGN_OVER, odometer: 150_100 })).body.issues).toEqual([
       { path: 'odometer', message: 'The odometer cannot read less than at intake (150,220).', code: 'transfers.odometerBelowIntake', params: { intake: '150,220' } },

@@ -1,8 +1,11 @@
 import { dayFromCivil, dayFromIsoDate } from '../time/calendar-dates'
 import { DomainError } from '../errors'
 
-/** `exemptFrom`: when a disclosure is required only until an age exemption starts, the year it starts (1 January) and its clause. */
-export type OdometerDecision = { required: boolean; clause: string; reason: string; exemptFrom?: { year: number; clause: string } }
+/**
+ * `exemptFrom`: when a disclosure is required only until an age exemption starts, the year it starts (1 January), its
+ * clause, and the model-year band the clause covers (2010 or older, 2011 or newer).
+ */
+export type OdometerDecision = { required: boolean; clause: string; reason: string; exemptFrom?: { year: number; clause: string; band: 'older' | 'newer' } }
 
 /** 49 CFR 580.17(a)(1): a vehicle rated heavier than this is exempt. */
 export const ODOMETER_EXEMPT_ABOVE_GVWR_LB = 16_000
@@ -51,6 +54,6 @@ export function odometerDisclosure(
     required: true,
     clause: '49 CFR 580.5',
     reason: `Disclose the mileage: a ${band} vehicle is exempt only from 1 January ${modelYear + years} (${clause}).`,
-    exemptFrom: { year: modelYear + years, clause },
+    exemptFrom: { year: modelYear + years, clause, band: modelYear <= 2010 ? 'older' : 'newer' },
   }
 }
