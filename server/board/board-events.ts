@@ -45,7 +45,7 @@ export function boardEvents(db: Database, hub: BoardHub, timing: StreamTiming = 
       'x-accel-buffering': 'no',
     })
     res.write(`retry: ${RETRY_MS}\n\n`)
-    const unsubscribe = hub.subscribe(yard, { send: (m) => res.write(`id: ${m.id}\ndata: ${m.data}\n\n`), end }, since)
+    const unsubscribe = hub.subscribe(yard, { write: (chunk) => res.write(chunk), end }, since)
     // Each heartbeat also looks the session up again, in case its end was not heard (a session
     // that expired, a bus that was down): the stream ends within a heartbeat, not at its lifetime.
     const heartbeat = setInterval(() => {

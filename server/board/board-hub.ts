@@ -108,12 +108,7 @@ export class BoardHub implements BoardNotifier {
   subscribe(yard: BoardYard, client: FeedClient, lastEventId?: string): () => void {
     this.yards.set(yard.id, yard)
     const feed = this.feed(yard.id)
-    if (lastEventId) {
-      const missed = feed.since(lastEventId)
-      if (missed) missed.forEach((m) => client.send(m))
-      else client.send(feed.resyncMessage())
-    }
-    feed.clients.add(client)
+    feed.add(client, lastEventId)
     return () => feed.clients.delete(client)
   }
 
@@ -145,7 +140,10 @@ export class BoardHub implements BoardNotifier {
   }
 
   private endClients(): void {
-    for (const feed of this.feeds.values()) for (const c of [...feed.clients]) c.end()
+    for (const feed of this.feeds.values()) {
+      feed.close()
+      for (const c of [...feed.clients]) c.end()
+    }
   }
 
   private feed(yardId: string): BoardFeed {
