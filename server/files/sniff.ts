@@ -1,4 +1,3 @@
-import { fileTypeFromBuffer } from 'file-type'
 import { FIELD_WHAT, type FieldWhat } from '@shared/schemas/field-messages'
 import { ACCEPTED_TYPES, MAX_FILE_BYTES, type FileKind } from '@shared/schemas/files'
 import type { FileRefusal } from './refusal'
@@ -19,6 +18,8 @@ export async function sniff(data: Buffer, kind: FileKind): Promise<Sniffed> {
   const mb = MAX_FILE_BYTES / 1024 / 1024
   if (data.length > MAX_FILE_BYTES) return { ok: false, code: 'files.overSize', message: `The file is larger than ${mb} MB.`, params: { mb } }
   if (looksLikeSvg(data)) return { ok: false, code: 'files.svg', message: `SVG drawings are not accepted (they can carry scripts). Use ${use}.`, params: { what } }
+  // Loaded at the first upload, not at start-up: its modules are a tenth of a warm start.
+  const { fileTypeFromBuffer } = await import('file-type')
   const type = await fileTypeFromBuffer(data)
   if (!type) return { ok: false, code: 'files.notImageOrPdf', message: `The file's contents are not an image or a PDF, whatever its name says. Use ${use}.`, params: { what } }
   if (!ACCEPTED_TYPES[kind].includes(type.mime)) {
