@@ -72,7 +72,7 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
     holds: holdsByVehicle.get(r.id) ?? [],
     handover: { ...NOTHING_RECORDED, ...handoverMoney({ paidCents: Number(r.paidCents), creditedCents: Number(r.creditedCents) }, summaries.get(r.id)?.balanceCents ?? null), ...handoverFacts(r) },
     photoCount: Number(r.photoCount),
-    pickup: pickupBadge(r),
+    pickup: cardPickup(pickupBadge(r)),
     summary: cardSummary(summaries.get(r.id)),
     ownerChoice: r.ownerChoice && r.ownerChoiceAt ? { choice: r.ownerChoice, at: r.ownerChoiceAt.toISOString() } : null,
   }))
@@ -80,8 +80,14 @@ async function cards(db: Executor, yard: BoardYard, asOf: Date, rows: CardRow[],
 
 function cardSummary(summary: VehicleSummary | null | undefined): BoardCard['summary'] {
   if (!summary) return null
-  const { warnings, ...shown } = summary
-  return shown
+  const { warnings, sampleWarnings, nextDeadline, ...shown } = summary
+  if (!nextDeadline) return { ...shown, nextDeadline }
+  const { rules, ...deadline } = nextDeadline
+  return { ...shown, nextDeadline: deadline }
+}
+
+function cardPickup(badge: ReturnType<typeof pickupBadge>): BoardCard['pickup'] {
+  return badge && { label: badge.label, code: badge.code, technicianFirst: badge.technicianFirst }
 }
 
 /** The yard whose board this staff member sees. */

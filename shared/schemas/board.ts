@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { BOARD_COLUMNS, DISPOSITIONS, VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { HOLD_KINDS } from '../domain/lifecycle/hold-kinds'
-import { vehicleSummarySchema } from './charges'
+import { nextDeadlineSchema, vehicleSummarySchema } from './charges'
 import { pickupBadgeSchema } from './inspections'
 import { OWNER_CHOICES } from './owner'
 
@@ -40,8 +40,14 @@ export const vehicleIdentityShape = {
   plateState: z.string().nullable(),
 }
 
-/** The card's share of the running summary: the rule set's sample warnings are the vehicle page's to show. */
-export const cardSummarySchema = vehicleSummarySchema.omit({ warnings: true })
+/**
+ * The card's share of the running summary. The rule set's sample warnings and the counting rules a date
+ * followed are the vehicle page's to show: a board of 2,000 cards would carry each of them 2,000 times.
+ */
+export const cardSummarySchema = vehicleSummarySchema.omit({ warnings: true, sampleWarnings: true }).extend({ nextDeadline: nextDeadlineSchema.omit({ rules: true }).nullable() })
+
+/** The card's pickup badge: its words; the reasons behind it are on the vehicle page and the teardown screen. */
+export const cardPickupSchema = pickupBadgeSchema.pick({ label: true, code: true, technicianFirst: true })
 
 export const boardCardSchema = z.object({
   ...vehicleIdentityShape,
@@ -59,7 +65,7 @@ export const boardCardSchema = z.object({
   handover: handoverSchema,
   photoCount: z.number(),
   /** What the pickup must bring (the teardown's roll marks); null until rolls, steers and brakes are marked. */
-  pickup: pickupBadgeSchema.nullable(),
+  pickup: cardPickupSchema.nullable(),
   /** Null when the vehicle has no rule set to bill it by (shown as "no rule set"). */
   summary: cardSummarySchema.nullable(),
   /** What the owner chose on their page, latest first; null until they choose. */

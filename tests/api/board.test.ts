@@ -1,6 +1,7 @@
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { sampleVersion } from '../helpers/board'
 import { makeStaff, makeVehicle } from '../helpers/factories'
 
 let t: TestApp
@@ -54,6 +55,23 @@ describe('GET /api/board', () => {
     expect(raw.headers['content-encoding']).toBe('gzip')
     // supertest has already inflated it: the same board, byte for byte as JSON.
     expect(JSON.parse((raw.body as Buffer).toString())).toEqual(plain.body)
+  })
+
+  // A board of 2,000 cards carries each card's words 2,000 times: what only the vehicle page shows stays there.
+  it('board_cardOfAFloridaTowThatDoesNotRoll_carriesTheBadgeAndDeadlineButNotTheirWorkings', async () => {
+    const staff = await makeStaff(t.db)
+    const v = await makeVehicle(t.db, staff.yard.id, { state: 'storage', rolls: false, steers: true, brakes: true, ruleSetVersionId: await sampleVersion(t.db, 'florida-sample'), arrivedAt: new Date(Date.now() - 2 * 86_400_000) })
+    const s = await signedIn(t.app, staff.office)
+    const board = (await s.get('/api/board').expect(200)).body as { columns: { cards: Record<string, Record<string, unknown>>[] }[] }
+    const card = board.columns.flatMap((c) => c.cards).find((c) => c.id === (v.id as unknown))!
+    expect(card.pickup).toEqual({ label: expect.any(String), code: expect.any(String), technicianFirst: expect.any(Boolean) })
+    expect(card.summary!.nextDeadline).toMatchObject({ code: 'notice-of-lien', citation: expect.stringMatching(/^Fla\. Stat\./) })
+    expect(card.summary!.nextDeadline).not.toHaveProperty('rules')
+    expect(card.summary).not.toHaveProperty('sampleWarnings')
+    // The vehicle page still has all of it.
+    const page = (await s.get(`/api/vehicles/${v.id}`).expect(200)).body
+    expect(page.summary.nextDeadline.rules.map((r: { code: string }) => r.code)).toContain('business-days')
+    expect(page.summary.sampleWarnings).toBeInstanceOf(Array)
   })
 
   it('board_signedOut_answers401', async () => {
