@@ -5,7 +5,7 @@
 // on a different demo vehicle with a balance. Writes screenshots/card-*.png (ignored by git).
 import { mkdirSync } from 'node:fs'
 import { chromium, devices, type Page } from '@playwright/test'
-import { boardSchema } from '@shared/schemas/board'
+import { boardBodySchema } from '@shared/schemas/board'
 import { chromiumLaunch } from '../tests/e2e/chromium'
 import { DEMO } from '../tests/e2e/helpers'
 
@@ -32,7 +32,7 @@ for (const locale of ['en', 'es'] as const) {
     await page.locator('input[name="password"]').fill(DEMO.password)
     await page.locator('button[type="submit"]').click()
     await page.waitForURL(/\/board/)
-    const board = boardSchema.parse(await (await page.request.get('/api/board')).json())
+    const board = boardBodySchema.parse(await (await page.request.get('/api/board')).json())
     const owing = board.columns.flatMap((c) => c.cards).filter((c) => c.state !== 'closed' && c.summary && c.summary.balanceCents > 5_000)
     const vehicle = owing[run++]!
     await page.goto(`/vehicles/${vehicle.id}`)

@@ -5,7 +5,7 @@
 // signature drawn, and the page once signed. Writes screenshots/owner-sign-*.png (ignored by git).
 import { chromium, devices } from '@playwright/test'
 import sharp from 'sharp'
-import { boardSchema } from '@shared/schemas/board'
+import { boardBodySchema } from '@shared/schemas/board'
 import { chromiumLaunch } from '../tests/e2e/chromium'
 import { DEMO } from '../tests/e2e/helpers'
 
@@ -21,7 +21,7 @@ await page.locator('button[type="submit"]').click()
 await page.waitForURL(/\/board/)
 const csrf = (await (await page.request.get('/api/session')).json()).csrfToken as string
 const headers = { 'x-csrf-token': csrf }
-const cards = boardSchema.parse(await (await page.request.get('/api/board')).json()).columns.flatMap((c) => c.cards).filter((c) => c.state === 'release')
+const cards = boardBodySchema.parse(await (await page.request.get('/api/board')).json()).columns.flatMap((c) => c.cards).filter((c) => c.state === 'release')
 const sizes = { desktop: { viewport: { width: 1440, height: 900 } }, phone: devices['Pixel 7'] }
 let n = 0
 for (const locale of ['en', 'es'] as const) {

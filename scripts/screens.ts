@@ -7,7 +7,7 @@
 // SCREENS_LOCALE=es shows the pages as a browser set to Spanish sees them (file names end in -es).
 import { mkdirSync } from 'node:fs'
 import { chromium, devices, type Page } from '@playwright/test'
-import { boardSchema } from '@shared/schemas/board'
+import { boardBodySchema } from '@shared/schemas/board'
 import { chromiumLaunch } from '../tests/e2e/chromium'
 import { DEMO, type DemoRole } from '../tests/e2e/helpers'
 
@@ -19,7 +19,7 @@ if (!base || !role || paths.length === 0) {
 
 async function vehicles(page: Page) {
   const res = await page.request.get('/api/board')
-  const cards = boardSchema.parse(await res.json()).columns.flatMap((c) => c.cards)
+  const cards = boardBodySchema.parse(await res.json()).columns.flatMap((c) => c.cards)
   return { '{vehicle}': cards[0]?.id ?? 'none', '{held}': cards.find((c) => c.holds.length > 0)?.id ?? 'none' }
 }
 

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { joinBoardWords } from '../domain/board/board-words'
 import { BOARD_COLUMNS, DISPOSITIONS, VEHICLE_STATES } from '../domain/lifecycle/columns'
 import { HOLD_KINDS } from '../domain/lifecycle/hold-kinds'
 import { nextDeadlineSchema, vehicleSummarySchema } from './charges'
@@ -81,6 +82,9 @@ export const boardSchema = z.object({
   columns: z.array(z.object({ column: z.enum(BOARD_COLUMNS), cards: z.array(boardCardSchema) })),
 })
 export type Board = z.infer<typeof boardSchema>
+
+/** GET /api/board as sent: the rule set's words once, in `words`, put back on each card before it is read (shared/domain/board). */
+export const boardBodySchema = z.preprocess(joinBoardWords, boardSchema)
 
 /** One message on the board's live stream (GET /api/board/events). */
 export const boardEventSchema = z.discriminatedUnion('type', [

@@ -15,7 +15,7 @@ export const boardKeys = {
   all: ['board'] as const,
 }
 
-export const fetchBoard = () => request('GET', '/api/board', boardSchemas().then((s) => s.boardSchema))
+export const fetchBoard = () => request('GET', '/api/board', boardSchemas().then((s) => s.boardBodySchema))
 
 const boardQuery = { queryKey: boardKeys.all, queryFn: fetchBoard }
 

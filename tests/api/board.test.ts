@@ -1,6 +1,7 @@
 import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { makeTestApp, signedIn, type TestApp } from '../helpers/app'
+import { joinBoardWords } from '@shared/domain/board'
 import { sampleVersion } from '../helpers/board'
 import { makeStaff, makeVehicle } from '../helpers/factories'
 
@@ -57,20 +58,31 @@ describe('GET /api/board', () => {
     expect(JSON.parse((raw.body as Buffer).toString())).toEqual(plain.body)
   })
 
-  // A board of 2,000 cards carries each card's words 2,000 times: what only the vehicle page shows stays there.
-  it('board_cardOfAFloridaTowThatDoesNotRoll_carriesTheBadgeAndDeadlineButNotTheirWorkings', async () => {
+  // A board of 2,000 cards would carry each card's words 2,000 times: what only the vehicle page shows stays
+  // there, and the rule set's words go once for the whole board.
+  it('board_cardOfAFloridaTowThatDoesNotRoll_carriesTheBadgeAndDeadlineButNotTheirWorkingsAndItsWordsOnce', async () => {
     const staff = await makeStaff(t.db)
     const v = await makeVehicle(t.db, staff.yard.id, { state: 'storage', rolls: false, steers: true, brakes: true, ruleSetVersionId: await sampleVersion(t.db, 'florida-sample'), arrivedAt: new Date(Date.now() - 2 * 86_400_000) })
     const s = await signedIn(t.app, staff.office)
-    const board = (await s.get('/api/board').expect(200)).body as { columns: { cards: Record<string, Record<string, unknown>>[] }[] }
-    const card = board.columns.flatMap((c) => c.cards).find((c) => c.id === (v.id as unknown))!
+    type Body = { words?: Record<string, unknown>; columns: { cards: Record<string, Record<string, unknown>>[] }[] }
+    const sent = (await s.get('/api/board').expect(200)).body as Body
+    const cardIn = (b: Body) => b.columns.flatMap((c) => c.cards).find((c) => c.id === (v.id as unknown))!
+    // The rule set's words go once for the board, the card names its own by key.
+    const key = (cardIn(sent).summary!.nextDeadline as { words: string }).words
+    expect(sent.words![key]).toMatchObject({ label: 'Send the notice of lien by certified mail', es: { label: 'Enviar el aviso de gravamen por correo certificado' } })
+    expect(cardIn(sent).summary!.nextDeadline).not.toHaveProperty('label')
+    const board = joinBoardWords(structuredClone(sent)) as Body
+    expect(board).not.toHaveProperty('words')
+    const card = cardIn(board)
     expect(card.pickup).toEqual({ label: expect.any(String), code: expect.any(String), technicianFirst: expect.any(Boolean) })
     expect(card.summary!.nextDeadline).toMatchObject({ code: 'notice-of-lien', citation: expect.stringMatching(/^Fla\. Stat\./) })
     expect(card.summary!.nextDeadline).not.toHaveProperty('rules')
     expect(card.summary).not.toHaveProperty('sampleWarnings')
     // The vehicle page still has all of it.
     const page = (await s.get(`/api/vehicles/${v.id}`).expect(200)).body
-    expect(page.summary.nextDeadline.rules.map((r: { code: string }) => r.code)).toContain('business-days')
+    const { rules, ...deadline } = page.summary.nextDeadline
+    expect(card.summary!.nextDeadline).toEqual(deadline)
+    expect(rules.map((r: { code: string }) => r.code)).toContain('business-days')
     expect(page.summary.sampleWarnings).toBeInstanceOf(Array)
   })
 

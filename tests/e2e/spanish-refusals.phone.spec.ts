@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { boardSchema } from '@shared/schemas/board'
+import { boardBodySchema } from '@shared/schemas/board'
 import { DEMO, watchConsole } from './helpers'
 
 // A phone whose browser reads Spanish: the board, a vehicle's history and two refusals — the shared
@@ -19,7 +19,7 @@ test('en un teléfono en español: del tablero al historial de un vehículo rete
   await expect(page.getByRole('navigation', { name: 'Columnas' }).getByRole('button').first()).toContainText('Llegada')
 
   // A vehicle in Arrival under a police hold.
-  const board = boardSchema.parse(await page.evaluate(async () => (await fetch('/api/board')).json()))
+  const board = boardBodySchema.parse(await page.evaluate(async () => (await fetch('/api/board')).json()))
   const held = board.columns.find((c) => c.column === 'arrival')!.cards.find((c) => c.holds.some((h) => h.kind === 'law_enforcement'))!
   expect(held).toBeDefined()
   // A value on record, so that saving it again changes nothing (set through the API when the demo has none).

@@ -1,0 +1,1 @@
+export { joinBoardWords, joinWords, splitWords, WORDS_FIELD } from './board-words'
