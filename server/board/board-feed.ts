@@ -15,13 +15,13 @@ export interface FeedClient {
 export const FLUSH_MS = 250
 
 /** One event as the stream carries it. */
-export const sseEvent = (m: FeedMessage) => `id: ${m.id}\ndata: ${m.data}\n\n`
+const sseEvent = (m: FeedMessage) => `id: ${m.id}\ndata: ${m.data}\n\n`
 
 /**
  * One yard's live events in order, with the last few hundred kept so a reconnecting board
  * (EventSource sends Last-Event-ID) gets what it missed. Ids are "<server epoch>.<sequence>":
  * an id from another server or an older run cannot be replayed, and that board starts over.
- * Events that arrive within `flushMs` go to each board as one write: with 500 boards open, a
+ * Events that arrive within `FLUSH_MS` go to each board as one write: with 500 boards open, a
  * write per board per event is most of what a busy yard's server does.
  */
 export class BoardFeed {
@@ -34,7 +34,6 @@ export class BoardFeed {
   constructor(
     private readonly epoch: string,
     private readonly keep = 500,
-    private readonly flushMs = FLUSH_MS,
   ) {}
 
   get lastId(): string {
@@ -47,10 +46,10 @@ export class BoardFeed {
     this.recent.push({ seq: this.seq, data })
     if (this.recent.length > this.keep) this.recent.shift()
     this.pending.push(sseEvent({ id: this.lastId, data }))
-    this.timer ??= setTimeout(() => this.flush(), this.flushMs).unref()
+    this.timer ??= setTimeout(() => this.flush(), FLUSH_MS).unref()
   }
 
-  /** Sends what has gathered to every board now. */
+  /** Sends what has gathered to every board now (and stops the timer: a closing server calls it last). */
   flush(): void {
     clearTimeout(this.timer)
     this.timer = undefined
@@ -88,10 +87,5 @@ export class BoardFeed {
   /** A message for one board only: start over from a fresh GET /api/board. */
   resyncMessage(): FeedMessage {
     return { id: this.lastId, data: JSON.stringify({ type: 'resync' }) }
-  }
-
-  /** Stops the timer (the server is closing); what has gathered goes out first. */
-  close(): void {
-    this.flush()
   }
 }

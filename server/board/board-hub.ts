@@ -141,7 +141,7 @@ export class BoardHub implements BoardNotifier {
 
   private endClients(): void {
     for (const feed of this.feeds.values()) {
-      feed.close()
+      feed.flush()
       for (const c of [...feed.clients]) c.end()
     }
   }

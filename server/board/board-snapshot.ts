@@ -68,11 +68,10 @@ export class BoardSnapshot {
   /** Every card, parsed once per change from its text and shared: callers read them and never change them. */
   cards(): readonly BoardCard[] {
     if (!this.parsed) {
-      const words = new Map<string, unknown>()
-      const wordsOf = (key: string) => words.get(key) ?? words.set(key, JSON.parse(this.wordsByKey.get(key)!)).get(key)
+      const words = Object.fromEntries([...this.wordsByKey].map(([key, text]) => [key, JSON.parse(text) as unknown]))
       this.parsed = [...this.entries.values()].map((e) => {
         const card = JSON.parse(e.bytes.toString()) as BoardCard
-        joinWords(card, Object.fromEntries(e.words.map((k) => [k, wordsOf(k)])))
+        joinWords(card, words)
         return card
       })
     }
@@ -87,9 +86,11 @@ export class BoardSnapshot {
   body(eventId: string): BoardBody {
     if (this.joined?.eventId === eventId) return this.joined
     const byColumn = new Map<BoardColumn, Entry[]>(BOARD_COLUMNS.map((c) => [c, []]))
-    for (const e of this.entries.values()) byColumn.get(e.column)?.push(e)
     const used = new Set<string>()
-    for (const e of this.entries.values()) for (const k of e.words) used.add(k)
+    for (const e of this.entries.values()) {
+      byColumn.get(e.column)?.push(e)
+      for (const k of e.words) used.add(k)
+    }
     const words = [...used].map((k) => `"${k}":${this.wordsByKey.get(k)!}`).join(',')
     const parts: Buffer[] = [Buffer.from(`{"eventId":${JSON.stringify(eventId)},${this.head},"words":{${words}},"columns":[`)]
     BOARD_COLUMNS.forEach((c, i) => {

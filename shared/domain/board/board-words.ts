@@ -15,7 +15,7 @@ type Part = keyof typeof SHARED
 type Json = Record<string, unknown>
 
 /** The field a split part keeps in place of its words. */
-export const WORDS_FIELD = 'words'
+const WORDS_FIELD = 'words'
 
 /**
  * The card without its shared words, and the words keyed: `keyOf` gives each distinct text its key

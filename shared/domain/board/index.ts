@@ -1,1 +1,1 @@
-export { joinBoardWords, joinWords, splitWords, WORDS_FIELD } from './board-words'
+export { joinBoardWords, joinWords, splitWords } from './board-words'
